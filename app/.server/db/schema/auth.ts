@@ -1,0 +1,86 @@
+import { char, index, json, mysqlEnum, mysqlTable, timestamp, uniqueIndex, varchar } from "drizzle-orm/mysql-core";
+import { createdAt, id, ref, updatedAt } from "./columns";
+
+export const ROLES = ["viewer", "engineer", "lab_lead", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const UNIT_SYSTEMS = ["field", "metric"] as const;
+
+export const users = mysqlTable(
+  "users",
+  {
+    id: id(),
+    email: varchar("email", { length: 254 }).notNull(),
+    name: varchar("name", { length: 120 }).notNull(),
+    role: mysqlEnum("role", ROLES).notNull().default("viewer"),
+    passwordHash: varchar("password_hash", { length: 255 }),
+    unitSystem: mysqlEnum("unit_system", UNIT_SYSTEMS).notNull().default("field"),
+    disabledAt: timestamp("disabled_at", { fsp: 3, mode: "date" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("users_email_unique").on(t.email)],
+);
+
+/** A signed-in browser. `id` is hex(SHA-256(token)); the token itself lives only in the cookie. */
+export const sessions = mysqlTable(
+  "sessions",
+  {
+    id: char("id", { length: 64 }).primaryKey(),
+    userId: ref("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    expiresAt: timestamp("expires_at", { fsp: 3, mode: "date" }).notNull(),
+    createdAt: createdAt(),
+    ipAddress: varchar("ip_address", { length: 64 }),
+    userAgent: varchar("user_agent", { length: 255 }),
+  },
+  (t) => [index("sessions_user_id_idx").on(t.userId), index("sessions_expires_at_idx").on(t.expiresAt)],
+);
+
+export const API_SCOPES = ["tables:read", "lookup"] as const;
+export type ApiScope = (typeof API_SCOPES)[number];
+
+/** A token for simulators and scripts. `id` is the JWT's `jti`; the JWT itself is shown once and never stored. */
+export const apiTokens = mysqlTable(
+  "api_tokens",
+  {
+    id: char("id", { length: 36 }).primaryKey(),
+    userId: ref("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 120 }).notNull(),
+    scopes: json("scopes").$type<ApiScope[]>().notNull(),
+    /** Optional restriction: only these fields and/or samples; null = everything the owner may read. */
+    restriction: json("restriction").$type<{ fieldIds?: number[]; sampleIds?: number[] } | null>(),
+    expiresAt: timestamp("expires_at", { fsp: 3, mode: "date" }).notNull(),
+    lastUsedAt: timestamp("last_used_at", { fsp: 3, mode: "date" }),
+    revokedAt: timestamp("revoked_at", { fsp: 3, mode: "date" }),
+    revokedBy: ref("revoked_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("api_tokens_user_id_idx").on(t.userId)],
+);
+
+/** Append-only record of who did what. */
+export const auditLog = mysqlTable(
+  "audit_log",
+  {
+    id: id(),
+    createdAt: createdAt(),
+    userId: ref("user_id").references(() => users.id, { onDelete: "set null" }),
+    apiTokenId: char("api_token_id", { length: 36 }),
+    action: varchar("action", { length: 64 }).notNull(),
+    entityType: varchar("entity_type", { length: 40 }),
+    entityId: varchar("entity_id", { length: 64 }),
+    details: json("details").$type<Record<string, unknown>>(),
+    ipAddress: varchar("ip_address", { length: 64 }),
+  },
+  (t) => [index("audit_log_created_at_idx").on(t.createdAt), index("audit_log_user_id_idx").on(t.userId)],
+);
+
+export type User = typeof users.$inferSelect;
+export type NewUser = typeof users.$inferInsert;
+export type Session = typeof sessions.$inferSelect;
+export type ApiToken = typeof apiTokens.$inferSelect;
+export type AuditLogEntry = typeof auditLog.$inferSelect;

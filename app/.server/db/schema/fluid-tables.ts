@@ -1,0 +1,172 @@
+import {
+  date,
+  double,
+  index,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  int,
+  text,
+  timestamp,
+  uniqueIndex,
+  varchar,
+  char,
+} from "drizzle-orm/mysql-core";
+import { users } from "./auth";
+import { createdAt, id, ref, updatedAt } from "./columns";
+
+/*
+ * Measured values are stored in Isopleth's canonical field units (pressure psia, temperature °F,
+ * depth ft; each property in the unit named by property_grids.unit). Column names carry their unit.
+ */
+
+export const fields = mysqlTable(
+  "fields",
+  {
+    id: id(),
+    name: varchar("name", { length: 120 }).notNull(),
+    region: varchar("region", { length: 120 }),
+    description: text("description"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("fields_name_unique").on(t.name)],
+);
+
+export const wells = mysqlTable(
+  "wells",
+  {
+    id: id(),
+    fieldId: ref("field_id")
+      .notNull()
+      .references(() => fields.id, { onDelete: "restrict" }),
+    name: varchar("name", { length: 120 }).notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("wells_field_id_name_unique").on(t.fieldId, t.name)],
+);
+
+export const SAMPLE_TYPES = ["bottomhole", "separator_recombined", "wellhead", "formation_tester"] as const;
+export type SampleType = (typeof SAMPLE_TYPES)[number];
+
+export const samples = mysqlTable(
+  "samples",
+  {
+    id: id(),
+    wellId: ref("well_id")
+      .notNull()
+      .references(() => wells.id, { onDelete: "restrict" }),
+    label: varchar("label", { length: 120 }).notNull(),
+    sampleType: mysqlEnum("sample_type", SAMPLE_TYPES).notNull(),
+    samplingDate: date("sampling_date", { mode: "string" }),
+    samplingDepthFt: double("sampling_depth_ft"),
+    reservoirPressurePsia: double("reservoir_pressure_psia"),
+    reservoirTemperatureF: double("reservoir_temperature_f"),
+    stockTankApi: double("stock_tank_api"),
+    gasSpecificGravity: double("gas_specific_gravity"),
+    standardPressurePsia: double("standard_pressure_psia").notNull().default(14.696),
+    standardTemperatureF: double("standard_temperature_f").notNull().default(60),
+    laboratory: varchar("laboratory", { length: 160 }),
+    reportReference: varchar("report_reference", { length: 160 }),
+    notes: text("notes"),
+    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("samples_well_id_label_unique").on(t.wellId, t.label)],
+);
+
+export const REVISION_STATUSES = ["draft", "approved", "rejected", "superseded"] as const;
+export type RevisionStatus = (typeof REVISION_STATUSES)[number];
+
+/** An immutable set of measured grids for one sample. Numbered 1, 2, 3… per sample. */
+export const sampleRevisions = mysqlTable(
+  "sample_revisions",
+  {
+    id: id(),
+    sampleId: ref("sample_id")
+      .notNull()
+      .references(() => samples.id, { onDelete: "cascade" }),
+    number: int("number", { unsigned: true }).notNull(),
+    status: mysqlEnum("status", REVISION_STATUSES).notNull().default("draft"),
+    comment: text("comment"),
+    sourceFilename: varchar("source_filename", { length: 255 }),
+    sourceSha256: char("source_sha256", { length: 64 }),
+    qcReport: json("qc_report").$type<unknown>(),
+    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    reviewedBy: ref("reviewed_by").references(() => users.id, { onDelete: "set null" }),
+    reviewedAt: timestamp("reviewed_at", { fsp: 3, mode: "date" }),
+    reviewComment: text("review_comment"),
+  },
+  (t) => [
+    uniqueIndex("sample_revisions_sample_id_number_unique").on(t.sampleId, t.number),
+    index("sample_revisions_status_idx").on(t.status),
+  ],
+);
+
+/** Bubble-point (saturation) pressure measured at one temperature, part of a revision. */
+export const revisionBubblePoints = mysqlTable(
+  "revision_bubble_points",
+  {
+    id: id(),
+    revisionId: ref("revision_id")
+      .notNull()
+      .references(() => sampleRevisions.id, { onDelete: "cascade" }),
+    temperatureF: double("temperature_f").notNull(),
+    bubblePointPsia: double("bubble_point_psia").notNull(),
+  },
+  (t) => [uniqueIndex("revision_bubble_points_revision_id_temperature_f_unique").on(t.revisionId, t.temperatureF)],
+);
+
+export const PROPERTY_KEYS = [
+  "oil_fvf",
+  "solution_gor",
+  "oil_viscosity",
+  "oil_density",
+  "gas_fvf",
+  "gas_viscosity",
+  "z_factor",
+] as const;
+export type PropertyKey = (typeof PROPERTY_KEYS)[number];
+
+/** One property measured on a pressure–temperature grid within a revision. */
+export const propertyGrids = mysqlTable(
+  "property_grids",
+  {
+    id: id(),
+    revisionId: ref("revision_id")
+      .notNull()
+      .references(() => sampleRevisions.id, { onDelete: "cascade" }),
+    property: mysqlEnum("property", PROPERTY_KEYS).notNull(),
+    /** Canonical unit the values are stored in. */
+    unit: varchar("unit", { length: 32 }).notNull(),
+    /** Unit the laboratory reported, remembered for display. */
+    sourceUnit: varchar("source_unit", { length: 32 }),
+    meta: json("meta").$type<Record<string, unknown>>(),
+  },
+  (t) => [uniqueIndex("property_grids_revision_id_property_unique").on(t.revisionId, t.property)],
+);
+
+export const gridPoints = mysqlTable(
+  "grid_points",
+  {
+    id: id(),
+    gridId: ref("grid_id")
+      .notNull()
+      .references(() => propertyGrids.id, { onDelete: "cascade" }),
+    pressurePsia: double("pressure_psia").notNull(),
+    temperatureF: double("temperature_f").notNull(),
+    value: double("value").notNull(),
+  },
+  (t) => [uniqueIndex("grid_points_grid_id_pressure_psia_temperature_f_unique").on(t.gridId, t.pressurePsia, t.temperatureF)],
+);
+
+export type Field = typeof fields.$inferSelect;
+export type Well = typeof wells.$inferSelect;
+export type Sample = typeof samples.$inferSelect;
+export type NewSample = typeof samples.$inferInsert;
+export type SampleRevision = typeof sampleRevisions.$inferSelect;
+export type PropertyGrid = typeof propertyGrids.$inferSelect;
+export type GridPoint = typeof gridPoints.$inferSelect;

@@ -1,0 +1,69 @@
+// Local stand-in for a mail server, for `npm start`, `npm run dev` and `npm test` only.
+// Accepts SMTP on 127.0.0.1:SMTP_PORT and keeps every message in memory; GET /messages on
+// 127.0.0.1:SMTP_HTTP_PORT lists them as JSON, DELETE /messages clears them.
+import { createServer } from "node:http";
+import { SMTPServer } from "smtp-server";
+
+type Captured = { id: number; receivedAt: string; from: string; to: string[]; subject: string; text: string; raw: string };
+
+const smtpPort = Number(process.argv[2] ?? 2525);
+const httpPort = Number(process.argv[3] ?? 2580);
+const messages: Captured[] = [];
+let nextId = 1;
+
+function header(raw: string, name: string): string {
+  const head = raw.split(/\r?\n\r?\n/, 1)[0] ?? "";
+  const unfolded = head.replace(/\r?\n[ \t]+/g, " ");
+  const match = unfolded.match(new RegExp(`^${name}:\\s*(.*)$`, "im"));
+  return match?.[1]?.trim() ?? "";
+}
+
+const smtp = new SMTPServer({
+  authOptional: true,
+  disabledCommands: ["STARTTLS"],
+  logger: false,
+  onData(stream, session, callback) {
+    const chunks: Buffer[] = [];
+    stream.on("data", (c: Buffer) => chunks.push(c));
+    stream.on("end", () => {
+      const raw = Buffer.concat(chunks).toString("utf8");
+      const body = raw.split(/\r?\n\r?\n/).slice(1).join("\n\n");
+      messages.push({
+        id: nextId++,
+        receivedAt: new Date().toISOString(),
+        from: session.envelope.mailFrom ? session.envelope.mailFrom.address : "",
+        to: session.envelope.rcptTo.map((r) => r.address),
+        subject: header(raw, "Subject"),
+        text: body,
+        raw,
+      });
+      callback();
+    });
+  },
+});
+
+const http = createServer((req, res) => {
+  if (req.url?.startsWith("/messages")) {
+    if (req.method === "DELETE") {
+      messages.length = 0;
+      res.writeHead(204).end();
+      return;
+    }
+    res.writeHead(200, { "Content-Type": "application/json" }).end(JSON.stringify(messages));
+    return;
+  }
+  res.writeHead(404).end();
+});
+
+smtp.listen(smtpPort, "127.0.0.1", () => {
+  http.listen(httpPort, "127.0.0.1", () => {
+    console.log(`fake SMTP on 127.0.0.1:${smtpPort}, messages at http://127.0.0.1:${httpPort}/messages`);
+  });
+});
+
+for (const signal of ["SIGINT", "SIGTERM"] as const) {
+  process.on(signal, () => {
+    http.close();
+    smtp.close(() => process.exit(0));
+  });
+}

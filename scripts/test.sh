@@ -1,0 +1,45 @@
+#!/usr/bin/env bash
+# npm test: from a fresh clone, every layer of tests against real parts —
+# type-check, unit tests, integration tests on a private MariaDB (its own databases, emptied first),
+# and Playwright end-to-end tests of the production build in Debian's chromium.
+set -euo pipefail
+source "$(dirname "$0")/env.sh"
+cd "$ROOT_DIR"
+started=$SECONDS
+
+bash scripts/system-deps.sh --test
+bash scripts/node-deps.sh
+
+db_started_here=0
+if ! bash scripts/db.sh status >/dev/null 2>&1; then
+  bash scripts/db.sh start
+  db_started_here=1
+fi
+cleanup() { if [ "$db_started_here" = 1 ]; then bash scripts/db.sh stop || true; fi; }
+trap cleanup EXIT
+
+export TEST_DB_NAME="${DB_NAME}_test"
+export E2E_DB_NAME="${DB_NAME}_e2e"
+bash scripts/db.sh reset-db "$TEST_DB_NAME"
+bash scripts/db.sh reset-db "$E2E_DB_NAME"
+export TEST_DATABASE_URL="$(database_url "$TEST_DB_NAME")"
+export E2E_DATABASE_URL="$(database_url "$E2E_DB_NAME")"
+export DB_PORT DB_USER DB_PASSWORD
+
+log "type-check"
+node_modules/.bin/react-router typegen >/dev/null 2>&1
+node_modules/.bin/tsc
+
+log "unit and integration tests"
+node_modules/.bin/vitest run
+
+log "production build"
+node_modules/.bin/react-router build >/dev/null
+touch build/.source-stamp
+
+log "end-to-end tests (Debian chromium)"
+DATABASE_URL="$E2E_DATABASE_URL" node_modules/.bin/tsx scripts/migrate.ts
+DATABASE_URL="$E2E_DATABASE_URL" node_modules/.bin/tsx scripts/seed.ts
+node_modules/.bin/playwright test -c tests/playwright.config.ts
+
+log "all suites passed in $((SECONDS - started)) s"
