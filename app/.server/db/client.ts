@@ -27,6 +27,8 @@ export function getDb(): Database {
     const env = getEnv();
     pool = createPool(env.DATABASE_URL, env.DATABASE_POOL_SIZE);
     database = drizzle({ client: pool, schema, mode: "default" });
+    // react-router-serve stops accepting requests on these signals; the open pool would keep the process alive.
+    for (const signal of ["SIGINT", "SIGTERM"] as const) process.once(signal, () => void closeDb());
   }
   return database;
 }
