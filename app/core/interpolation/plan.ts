@@ -1,0 +1,311 @@
+// Per grid and method: the tables the fast kernels read, scratch space for the general evaluator, and
+// one-point buffers, all allocated once and reused for every point. Indices are in range by construction.
+import { orderedZone } from "./axis";
+import { dividedDifferences } from "./newton";
+import { pchipEndDerivative, pchipInteriorDerivative } from "./pchip";
+import type { PreparedGrid } from "./prepare";
+import type { BatchResult, Method } from "./types";
+import { MAX_DEGREE } from "./validate";
+import { W_BUBBLE_POINT_UNKNOWN, W_DEGREE_REDUCED } from "./warnings";
+
+/**
+ * The zone of every cell of one axis, for a fixed degree. A cell k has two variants, v = 2k + h, where
+ * h = 1 when the point is closer to node k+1 than to node k (the even-degree tie-break of the zone rule).
+ * order[v*q + i] lists the q nodes in Newton order (see `orderedZone`); the first `valueTerms` of them are
+ * the zone, and `start[v]` is its smallest node index.
+ */
+export type AxisVariants = {
+  n: number;
+  degree: number;
+  q: number;
+  valueTerms: number;
+  order: Int32Array;
+  x: Float64Array;
+  start: Int32Array;
+  /** Zone nodes of each variant in ascending order, for monotonicity checks: asc[v*valueTerms + i]. */
+  asc: Int32Array;
+};
+
+export function buildVariants(nodes: Float64Array, degree: number): AxisVariants {
+  const n = nodes.length;
+  const m = Math.min(degree, n - 1);
+  const cells = Math.max(1, n - 1);
+  const tmp = new Int32Array(MAX_DEGREE + 2);
+  const q = orderedZone(nodes, 0, n, nodes[0]!, m, 0, tmp, 0);
+  const valueTerms = m + 1;
+  const order = new Int32Array(2 * cells * q);
+  const x = new Float64Array(2 * cells * q);
+  const start = new Int32Array(2 * cells);
+  const asc = new Int32Array(2 * cells * valueTerms);
+  for (let k = 0; k < cells; k++) {
+    for (let h = 0; h < 2; h++) {
+      const v = 2 * k + h;
+      // a representative point of the half-cell: node k (closer to k) or node k+1 (closer to k+1)
+      const t = n < 2 ? nodes[0]! : nodes[k + h]!;
+      orderedZone(nodes, 0, n, t, m, k, order, v * q);
+      let lo = Infinity;
+      for (let i = 0; i < q; i++) {
+        const idx = order[v * q + i]!;
+        x[v * q + i] = nodes[idx]!;
+        if (i < valueTerms) lo = Math.min(lo, idx);
+      }
+      start[v] = lo;
+      // the zone is contiguous: lo .. lo + m
+      for (let i = 0; i < valueTerms; i++) asc[v * valueTerms + i] = lo + i;
+    }
+  }
+  return { n, degree: m, q, valueTerms, order, x, start, asc };
+}
+
+/** Complete grid, no bubble points: Newton coefficients of every column on every pressure zone. */
+export type NewtonTables = {
+  p: AxisVariants;
+  t: AxisVariants;
+  /** coef[(vp*M + j)*q + i]: Newton coefficients of column j on pressure variant vp. */
+  coef: Float64Array;
+  /** Range of the zone's values, widened by a rounding tolerance, and whether they are monotone. */
+  zoneLo: Float64Array;
+  zoneHi: Float64Array;
+  zoneMonotone: Uint8Array;
+  /** invT[(vt*q + l)*q + i] = 1 / (x_i − x_{i−l}) on the ordered temperature nodes of variant vt. */
+  invT: Float64Array;
+  wp: Float64Array;
+  wt: Float64Array;
+  r: Float64Array;
+  e: Float64Array;
+  d: Float64Array;
+};
+
+/** Complete grid, no bubble points: pchip and three-point derivatives of every column along pressure. */
+export type PchipTables = {
+  d: Float64Array;
+  b: Float64Array;
+  r: Float64Array;
+  e: Float64Array;
+};
+
+/** Scratch for the general evaluator (missing cells, bubble points), sized for the grid. */
+export type Scratch = {
+  usable: Int32Array;
+  ux: Float64Array;
+  status: Uint8Array;
+  tOrd: Int32Array;
+  tx: Float64Array;
+  r: Float64Array;
+  e: Float64Array;
+  d: Float64Array;
+  xs: Float64Array;
+  cs: Float64Array;
+  pOrd: Int32Array;
+  /** For the last point: the columns whose values make up the result and their zone in the branch list. */
+  nCols: number;
+  cols: Int32Array;
+  colOff: Int32Array;
+  vFrom: Int32Array;
+  vTo: Int32Array;
+  branch: number;
+  pbStar: number;
+  idealX: Float64Array;
+  idealCol: Int32Array;
+};
+
+export type Plan = {
+  readonly prep: PreparedGrid;
+  readonly method: Method;
+  /** Requested degrees (1 for linear, unused for pchip). */
+  readonly m: number;
+  readonly n: number;
+  readonly newton: NewtonTables | null;
+  readonly pchip: PchipTables | null;
+  readonly scratch: Scratch;
+  /** Warnings every point gets (the degree had to be lowered for the whole table, ...). */
+  readonly constFlags: number;
+  readonly single: BatchResult;
+  readonly singleP: Float64Array;
+  readonly singleT: Float64Array;
+  /** pchip plan on the same grid, for the value given alongside an overshoot. */
+  pchipPlan: Plan | null;
+};
+
+export const STRIDE = MAX_DEGREE + 2;
+
+const plans = new WeakMap<PreparedGrid, Map<string, Plan>>();
+
+export function getPlan(prep: PreparedGrid, method: Method, m: number, n: number): Plan {
+  let map = plans.get(prep);
+  if (!map) {
+    map = new Map();
+    plans.set(prep, map);
+  }
+  const key = method === "pchip" ? "pchip" : `${method}:${m}:${n}`;
+  let plan = map.get(key);
+  if (!plan) {
+    plan = buildPlan(prep, method, m, n);
+    map.set(key, plan);
+  }
+  return plan;
+}
+
+export function allocateBatch(count: number, withBranches: boolean): BatchResult {
+  return {
+    count,
+    values: new Float64Array(count),
+    errorEstimates: new Float64Array(count),
+    warnings: new Uint16Array(count),
+    alternatives: new Float64Array(count),
+    pressureStart: new Int32Array(count),
+    pressureCount: new Uint8Array(count),
+    temperatureStart: new Int32Array(count),
+    temperatureCount: new Uint8Array(count),
+    branches: withBranches ? new Uint8Array(count) : null,
+  };
+}
+
+function buildPlan(prep: PreparedGrid, method: Method, m: number, n: number): Plan {
+  const { N, M } = prep;
+  const fastEligible = prep.complete && prep.bubble === null;
+  let constFlags = prep.bubbleUnknown ? W_BUBBLE_POINT_UNKNOWN : 0;
+  let newton: NewtonTables | null = null;
+  let pchip: PchipTables | null = null;
+  if (fastEligible && method !== "pchip") {
+    newton = buildNewtonTables(prep, m, n);
+    if ((m > N - 1 && N > 1) || (n > M - 1 && M > 1)) constFlags |= W_DEGREE_REDUCED;
+  } else if (fastEligible) {
+    pchip = buildPchipTables(prep);
+  }
+  const K = M + 2;
+  const L = Math.max(N, M) + 2;
+  const scratch: Scratch = {
+    usable: new Int32Array(M),
+    ux: new Float64Array(M),
+    status: new Uint8Array(M),
+    tOrd: new Int32Array(K),
+    tx: new Float64Array(K),
+    r: new Float64Array(K),
+    e: new Float64Array(K),
+    d: new Float64Array(K),
+    xs: new Float64Array(L),
+    cs: new Float64Array(L),
+    pOrd: new Int32Array(K * STRIDE),
+    nCols: 0,
+    cols: new Int32Array(K),
+    colOff: new Int32Array(K),
+    vFrom: new Int32Array(K),
+    vTo: new Int32Array(K),
+    branch: 0,
+    pbStar: NaN,
+    idealX: new Float64Array(M),
+    idealCol: new Int32Array(M),
+  };
+  return {
+    prep,
+    method,
+    m,
+    n,
+    newton,
+    pchip,
+    scratch,
+    constFlags,
+    single: allocateBatch(1, prep.bubble !== null),
+    singleP: new Float64Array(1),
+    singleT: new Float64Array(1),
+    pchipPlan: null,
+  };
+}
+
+function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTables {
+  const { N, M, P, T, V } = prep;
+  const p = buildVariants(P, m);
+  const t = buildVariants(T, n);
+  const vpCount = p.order.length / p.q;
+  const coef = new Float64Array(vpCount * M * p.q);
+  const zoneLo = new Float64Array(vpCount * M);
+  const zoneHi = new Float64Array(vpCount * M);
+  const zoneMonotone = new Uint8Array(vpCount * M);
+  for (let vp = 0; vp < vpCount; vp++) {
+    for (let j = 0; j < M; j++) {
+      const cb = (vp * M + j) * p.q;
+      for (let i = 0; i < p.q; i++) coef[cb + i] = V[j * N + p.order[vp * p.q + i]!]!;
+      dividedDifferences(p.x, vp * p.q, coef, cb, p.q);
+      let lo = Infinity;
+      let hi = -Infinity;
+      let up = true;
+      let down = true;
+      for (let i = 0; i < p.valueTerms; i++) {
+        const y = V[j * N + p.asc[vp * p.valueTerms + i]!]!;
+        lo = Math.min(lo, y);
+        hi = Math.max(hi, y);
+        if (i > 0) {
+          const prev = V[j * N + p.asc[vp * p.valueTerms + i - 1]!]!;
+          if (y < prev) up = false;
+          if (y > prev) down = false;
+        }
+      }
+      const tol = overshootTolerance(lo, hi);
+      zoneLo[vp * M + j] = lo - tol;
+      zoneHi[vp * M + j] = hi + tol;
+      zoneMonotone[vp * M + j] = up || down ? 1 : 0;
+    }
+  }
+  const vtCount = t.order.length / t.q;
+  const invT = new Float64Array(vtCount * t.q * t.q);
+  for (let vt = 0; vt < vtCount; vt++) {
+    const xo = vt * t.q;
+    for (let l = 1; l < t.q; l++) {
+      for (let i = l; i < t.q; i++) invT[(vt * t.q + l) * t.q + i] = 1 / (t.x[xo + i]! - t.x[xo + i - l]!);
+    }
+  }
+  return {
+    p,
+    t,
+    coef,
+    zoneLo,
+    zoneHi,
+    zoneMonotone,
+    invT,
+    wp: new Float64Array(p.q),
+    wt: new Float64Array(t.q),
+    r: new Float64Array(t.q),
+    e: new Float64Array(t.q),
+    d: new Float64Array(t.q),
+  };
+}
+
+/**
+ * How far a value may sit outside the range of monotone data before it counts as an overshoot: far below
+ * any overshoot that matters, far above the rounding of evaluating a polynomial at its own nodes.
+ */
+export function overshootTolerance(lo: number, hi: number): number {
+  return 1e-9 * (hi - lo) + 64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi));
+}
+
+function buildPchipTables(prep: PreparedGrid): PchipTables {
+  const { N, M, P, V } = prep;
+  const d = new Float64Array(N * M);
+  const b = new Float64Array(N * M);
+  if (N >= 3) {
+    for (let j = 0; j < M; j++) {
+      const o = j * N;
+      for (let i = 0; i < N; i++) {
+        if (i === 0 || i === N - 1) {
+          const a = i === 0 ? 0 : N - 1;
+          const s = i === 0 ? 1 : -1;
+          const h0 = Math.abs(P[a + s]! - P[a]!);
+          const h1 = Math.abs(P[a + 2 * s]! - P[a + s]!);
+          const m0 = (V[o + a + s]! - V[o + a]!) / (P[a + s]! - P[a]!);
+          const m1 = (V[o + a + 2 * s]! - V[o + a + s]!) / (P[a + 2 * s]! - P[a + s]!);
+          d[o + i] = pchipEndDerivative(h0, h1, m0, m1);
+          b[o + i] = ((2 * h0 + h1) * m0 - h0 * m1) / (h0 + h1);
+        } else {
+          const hl = P[i]! - P[i - 1]!;
+          const hr = P[i + 1]! - P[i]!;
+          const ml = (V[o + i]! - V[o + i - 1]!) / hl;
+          const mr = (V[o + i + 1]! - V[o + i]!) / hr;
+          d[o + i] = pchipInteriorDerivative(hl, hr, ml, mr);
+          b[o + i] = (hr * ml + hl * mr) / (hl + hr);
+        }
+      }
+    }
+  }
+  return { d, b, r: new Float64Array(M), e: new Float64Array(M) };
+}
