@@ -1,6 +1,9 @@
 import { isRouteErrorResponse, Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
 import type { Route } from "./+types/root";
+import { originGuard, sessionMiddleware } from "~/.server/auth/middleware";
 import "./app.css";
+
+export const middleware: Route.MiddlewareFunction[] = [originGuard, sessionMiddleware];
 
 export const meta: Route.MetaFunction = () => [
   { title: "Isopleth — reservoir fluid-property tables" },

@@ -7,6 +7,19 @@ export default [
     route("lookup", "routes/_app/lookup/index.tsx"),
     route("compare", "routes/_app/compare/index.tsx"),
     route("tokens", "routes/_app/tokens/index.tsx"),
+    route("account", "routes/_app/account/index.tsx"),
+    ...prefix("admin", [
+      route("people", "routes/_app/admin/people/index.tsx"),
+      route("audit", "routes/_app/admin/audit/index.tsx"),
+      route("mail", "routes/_app/admin/mail/index.tsx"),
+    ]),
   ]),
+  layout("routes/_auth/layout.tsx", [
+    route("sign-in", "routes/_auth/sign-in/index.tsx"),
+    route("forgot-password", "routes/_auth/forgot-password/index.tsx"),
+    route("reset-password/:token", "routes/_auth/reset-password/$token.tsx"),
+    route("invitation/:token", "routes/_auth/invitation/$token.tsx"),
+  ]),
+  route("sign-out", "routes/sign-out.ts"),
   ...prefix("api", [route("health", "routes/api/health.ts")]),
 ] satisfies RouteConfig;

@@ -2,21 +2,15 @@
 // Accepts SMTP on 127.0.0.1:SMTP_PORT and keeps every message in memory; GET /messages on
 // 127.0.0.1:SMTP_HTTP_PORT lists them as JSON, DELETE /messages clears them.
 import { createServer } from "node:http";
+import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
-type Captured = { id: number; receivedAt: string; from: string; to: string[]; subject: string; text: string; raw: string };
+type Captured = { id: number; receivedAt: string; from: string; to: string[]; subject: string; text: string; html: string };
 
 const smtpPort = Number(process.argv[2] ?? 2525);
 const httpPort = Number(process.argv[3] ?? 2580);
 const messages: Captured[] = [];
 let nextId = 1;
-
-function header(raw: string, name: string): string {
-  const head = raw.split(/\r?\n\r?\n/, 1)[0] ?? "";
-  const unfolded = head.replace(/\r?\n[ \t]+/g, " ");
-  const match = unfolded.match(new RegExp(`^${name}:\\s*(.*)$`, "im"));
-  return match?.[1]?.trim() ?? "";
-}
 
 const smtp = new SMTPServer({
   authOptional: true,
@@ -26,18 +20,20 @@ const smtp = new SMTPServer({
     const chunks: Buffer[] = [];
     stream.on("data", (c: Buffer) => chunks.push(c));
     stream.on("end", () => {
-      const raw = Buffer.concat(chunks).toString("utf8");
-      const body = raw.split(/\r?\n\r?\n/).slice(1).join("\n\n");
-      messages.push({
-        id: nextId++,
-        receivedAt: new Date().toISOString(),
-        from: session.envelope.mailFrom ? session.envelope.mailFrom.address : "",
-        to: session.envelope.rcptTo.map((r) => r.address),
-        subject: header(raw, "Subject"),
-        text: body,
-        raw,
-      });
-      callback();
+      simpleParser(Buffer.concat(chunks))
+        .then((parsed) => {
+          messages.push({
+            id: nextId++,
+            receivedAt: new Date().toISOString(),
+            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : "",
+            to: session.envelope.rcptTo.map((r) => r.address),
+            subject: parsed.subject ?? "",
+            text: parsed.text ?? "",
+            html: typeof parsed.html === "string" ? parsed.html : "",
+          });
+          callback();
+        })
+        .catch((error: Error) => callback(error));
     });
   },
 });

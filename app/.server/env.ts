@@ -29,6 +29,10 @@ const EnvSchema = z
       .transform((v) => v === "true"),
     MAIL_FROM: z.string().min(3).default("Isopleth <no-reply@isopleth.invalid>"),
     MAIL_CAPTURE_URL: z.url().optional(),
+    TRUST_PROXY: z
+      .enum(["true", "false"])
+      .default("false")
+      .transform((v) => v === "true"),
     DEMO_PASSWORD: z.string().min(8, "must be at least 8 characters").default("isopleth-demo-2026"),
   })
   .superRefine((env, ctx) => {

@@ -1,10 +1,12 @@
 import { href, Link } from "react-router";
+import { requireUser } from "~/.server/auth/guards";
 import { countCatalogue } from "~/.server/db/queries/samples";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Isopleth — reservoir fluid-property tables" }];
 
-export async function loader() {
+export async function loader(args: Route.LoaderArgs) {
+  requireUser(args);
   return { counts: await countCatalogue() };
 }
 

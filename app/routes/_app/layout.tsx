@@ -1,14 +1,33 @@
-import { href, NavLink, Outlet } from "react-router";
+import { Form, href, NavLink, Outlet } from "react-router";
+import { requireUser } from "~/.server/auth/guards";
 import { EstimateCaution } from "~/components/estimate-caution";
+import { can, ROLE_LABELS } from "~/utils/permissions";
+import type { Route } from "./+types/layout";
 
-const NAV = [
-  { to: href("/samples"), label: "Samples" },
-  { to: href("/lookup"), label: "Lookup" },
-  { to: href("/compare"), label: "Compare" },
-  { to: href("/tokens"), label: "API tokens" },
-] as const;
+export async function loader(args: Route.LoaderArgs) {
+  const user = requireUser(args);
+  return { user };
+}
 
-export default function AppLayout() {
+const linkClass = ({ isActive }: { isActive: boolean }) =>
+  `rounded px-3 py-1.5 text-sm font-semibold ${
+    isActive ? "bg-accent-soft text-accent-strong" : "text-ink-muted hover:bg-surface hover:text-ink"
+  }`;
+
+export default function AppLayout({ loaderData }: Route.ComponentProps) {
+  const { user } = loaderData;
+  const nav = [
+    { to: href("/samples"), label: "Samples" },
+    { to: href("/lookup"), label: "Lookup" },
+    { to: href("/compare"), label: "Compare" },
+    { to: href("/tokens"), label: "API tokens" },
+  ];
+  const admin = can(user, "manage:people")
+    ? [
+        { to: href("/admin/people"), label: "People" },
+        { to: href("/admin/audit"), label: "Audit log" },
+      ]
+    : [];
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-line bg-panel">
@@ -18,20 +37,32 @@ export default function AppLayout() {
             Isopleth
           </NavLink>
           <nav aria-label="Main" className="flex flex-wrap gap-1">
-            {NAV.map((item) => (
-              <NavLink
-                key={item.to}
-                to={item.to}
-                className={({ isActive }) =>
-                  `rounded px-3 py-1.5 text-sm font-semibold ${
-                    isActive ? "bg-accent-soft text-accent-strong" : "text-ink-muted hover:bg-surface hover:text-ink"
-                  }`
-                }
-              >
+            {nav.map((item) => (
+              <NavLink key={item.to} to={item.to} className={linkClass}>
                 {item.label}
               </NavLink>
             ))}
           </nav>
+          {admin.length > 0 ? (
+            <nav aria-label="Administration" className="flex flex-wrap gap-1 border-l border-line pl-4">
+              {admin.map((item) => (
+                <NavLink key={item.to} to={item.to} className={linkClass}>
+                  {item.label}
+                </NavLink>
+              ))}
+            </nav>
+          ) : null}
+          <div className="ml-auto flex items-center gap-3 text-sm">
+            <NavLink to={href("/account")} className="text-right leading-tight hover:underline">
+              <span className="block font-semibold">{user.name}</span>
+              <span className="block text-xs text-ink-muted">{ROLE_LABELS[user.role]}</span>
+            </NavLink>
+            <Form method="post" action={href("/sign-out")}>
+              <button type="submit" className="rounded border border-line px-3 py-1.5 font-semibold text-ink-muted hover:border-accent hover:text-ink">
+                Sign out
+              </button>
+            </Form>
+          </div>
         </div>
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 px-6 py-8">

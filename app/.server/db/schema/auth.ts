@@ -1,6 +1,7 @@
-import { char, index, json, mysqlEnum, mysqlTable, timestamp, uniqueIndex, varchar } from "drizzle-orm/mysql-core";
+import { boolean, char, index, json, mysqlEnum, mysqlTable, timestamp, uniqueIndex, varchar } from "drizzle-orm/mysql-core";
 import { createdAt, id, ref, updatedAt } from "./columns";
 
+// Kept in step with app/utils/permissions.ts (schema files import only drizzle-orm and relative paths).
 export const ROLES = ["viewer", "engineer", "lab_lead", "admin"] as const;
 export type Role = (typeof ROLES)[number];
 
@@ -84,3 +85,44 @@ export type NewUser = typeof users.$inferInsert;
 export type Session = typeof sessions.$inferSelect;
 export type ApiToken = typeof apiTokens.$inferSelect;
 export type AuditLogEntry = typeof auditLog.$inferSelect;
+
+export const LINK_TOKEN_KINDS = ["invitation", "password_reset"] as const;
+export type LinkTokenKind = (typeof LINK_TOKEN_KINDS)[number];
+
+/** Single-use links sent by e-mail. Only the SHA-256 of the token is stored; a used or expired link is dead. */
+export const linkTokens = mysqlTable(
+  "link_tokens",
+  {
+    id: id(),
+    kind: mysqlEnum("kind", LINK_TOKEN_KINDS).notNull(),
+    tokenHash: char("token_hash", { length: 64 }).notNull(),
+    email: varchar("email", { length: 254 }).notNull(),
+    /** Role offered by an invitation. */
+    role: mysqlEnum("role", ROLES),
+    /** Account whose password a reset link changes. */
+    userId: ref("user_id").references(() => users.id, { onDelete: "cascade" }),
+    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    expiresAt: timestamp("expires_at", { fsp: 3, mode: "date" }).notNull(),
+    usedAt: timestamp("used_at", { fsp: 3, mode: "date" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("link_tokens_token_hash_unique").on(t.tokenHash), index("link_tokens_email_idx").on(t.email)],
+);
+
+/** Every sign-in attempt, for lockout after repeated failures and for the audit trail. */
+export const signInAttempts = mysqlTable(
+  "sign_in_attempts",
+  {
+    id: id(),
+    email: varchar("email", { length: 254 }).notNull(),
+    ipAddress: varchar("ip_address", { length: 64 }).notNull(),
+    succeeded: boolean("succeeded").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("sign_in_attempts_email_created_at_idx").on(t.email, t.createdAt),
+    index("sign_in_attempts_ip_address_created_at_idx").on(t.ipAddress, t.createdAt),
+  ],
+);
+
+export type LinkToken = typeof linkTokens.$inferSelect;

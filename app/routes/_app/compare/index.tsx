@@ -1,6 +1,13 @@
+import { requirePermission } from "~/.server/auth/guards";
 import { PageHeader } from "~/components/page-header";
+import type { Route } from "./+types/index";
 
-export const meta = () => [{ title: "Compare · Isopleth" }];
+export const meta: Route.MetaFunction = () => [{ title: "Compare · Isopleth" }];
+
+export async function loader(args: Route.LoaderArgs) {
+  requirePermission(args, "read:samples");
+  return null;
+}
 
 export default function Compare() {
   return (

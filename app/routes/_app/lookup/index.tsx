@@ -1,6 +1,13 @@
+import { requirePermission } from "~/.server/auth/guards";
 import { PageHeader } from "~/components/page-header";
+import type { Route } from "./+types/index";
 
-export const meta = () => [{ title: "Lookup · Isopleth" }];
+export const meta: Route.MetaFunction = () => [{ title: "Lookup · Isopleth" }];
+
+export async function loader(args: Route.LoaderArgs) {
+  requirePermission(args, "read:samples");
+  return null;
+}
 
 export default function Lookup() {
   return (

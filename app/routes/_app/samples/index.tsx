@@ -1,10 +1,12 @@
+import { requirePermission } from "~/.server/auth/guards";
 import { listSamples } from "~/.server/db/queries/samples";
 import { PageHeader } from "~/components/page-header";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Samples · Isopleth" }];
 
-export async function loader() {
+export async function loader(args: Route.LoaderArgs) {
+  requirePermission(args, "read:samples");
   return { samples: await listSamples() };
 }
 

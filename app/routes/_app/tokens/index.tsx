@@ -1,6 +1,13 @@
+import { requirePermission } from "~/.server/auth/guards";
 import { PageHeader } from "~/components/page-header";
+import type { Route } from "./+types/index";
 
-export const meta = () => [{ title: "API tokens · Isopleth" }];
+export const meta: Route.MetaFunction = () => [{ title: "API tokens · Isopleth" }];
+
+export async function loader(args: Route.LoaderArgs) {
+  requirePermission(args, "manage:own-tokens");
+  return null;
+}
 
 export default function Tokens() {
   return (

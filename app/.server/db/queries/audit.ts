@@ -1,0 +1,85 @@
+import { and, count, desc, eq, gte, lte, type SQL } from "drizzle-orm";
+import { getDb, type Executor } from "../client";
+import { auditLog, users } from "../schema";
+
+export const AUDIT_ACTIONS = [
+  "sign_in",
+  "sign_in_failed",
+  "sign_in_refused",
+  "sign_out",
+  "invitation_sent",
+  "invitation_accepted",
+  "role_changed",
+  "account_disabled",
+  "account_enabled",
+  "password_changed",
+  "password_reset_requested",
+  "password_reset",
+  "sample_created",
+  "sample_updated",
+  "revision_uploaded",
+  "revision_approved",
+  "revision_rejected",
+  "api_token_created",
+  "api_token_revoked",
+  "api_token_used",
+] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+
+export type AuditEvent = {
+  action: AuditAction;
+  userId?: number | null;
+  apiTokenId?: string | null;
+  entityType?: string | null;
+  entityId?: string | number | null;
+  details?: Record<string, unknown> | null;
+  ipAddress?: string | null;
+};
+
+export async function recordAudit(event: AuditEvent, db: Executor = getDb()): Promise<void> {
+  await db.insert(auditLog).values({
+    action: event.action,
+    userId: event.userId ?? null,
+    apiTokenId: event.apiTokenId ?? null,
+    entityType: event.entityType ?? null,
+    entityId: event.entityId === undefined || event.entityId === null ? null : String(event.entityId),
+    details: event.details ?? null,
+    ipAddress: event.ipAddress ?? null,
+  });
+}
+
+export type AuditFilter = { userId?: number; action?: AuditAction; from?: Date; to?: Date };
+
+export async function listAuditEntries(
+  filter: AuditFilter,
+  page: { limit: number; offset: number },
+  db: Executor = getDb(),
+) {
+  const conditions: SQL[] = [];
+  if (filter.userId !== undefined) conditions.push(eq(auditLog.userId, filter.userId));
+  if (filter.action) conditions.push(eq(auditLog.action, filter.action));
+  if (filter.from) conditions.push(gte(auditLog.createdAt, filter.from));
+  if (filter.to) conditions.push(lte(auditLog.createdAt, filter.to));
+  const where = conditions.length > 0 ? and(...conditions) : undefined;
+  const [total] = await db.select({ n: count() }).from(auditLog).where(where);
+  const rows = await db
+    .select({
+      id: auditLog.id,
+      createdAt: auditLog.createdAt,
+      action: auditLog.action,
+      userId: auditLog.userId,
+      userEmail: users.email,
+      apiTokenId: auditLog.apiTokenId,
+      entityType: auditLog.entityType,
+      entityId: auditLog.entityId,
+      details: auditLog.details,
+      ipAddress: auditLog.ipAddress,
+    })
+    .from(auditLog)
+    .leftJoin(users, eq(users.id, auditLog.userId))
+    .where(where)
+    .orderBy(desc(auditLog.createdAt), desc(auditLog.id))
+    .limit(page.limit)
+    .offset(page.offset);
+  return { total: total?.n ?? 0, rows };
+}

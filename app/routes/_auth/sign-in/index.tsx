@@ -1,0 +1,58 @@
+import { data, Form, href, Link, redirect, useNavigation, useSearchParams } from "react-router";
+import { signIn } from "~/.server/auth/accounts";
+import { getCaller, requireAnonymous } from "~/.server/auth/guards";
+import { badRequest, parseForm } from "~/.server/forms";
+import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
+import { safeRedirect, SignInSchema } from "~/utils/auth-schemas";
+import type { Route } from "./+types/index";
+
+export const meta: Route.MetaFunction = () => [{ title: "Sign in · Isopleth" }];
+
+export async function loader(args: Route.LoaderArgs) {
+  requireAnonymous(args);
+  return null;
+}
+
+export async function action(args: Route.ActionArgs) {
+  requireAnonymous(args);
+  const form = await parseForm(args.request, SignInSchema);
+  if (!form.ok) return badRequest({ errors: form.errors });
+  const result = await signIn({
+    email: form.data.email,
+    password: form.data.password,
+    ipAddress: getCaller(args).ipAddress,
+    userAgent: args.request.headers.get("User-Agent"),
+  });
+  if (!result.ok) {
+    return data(
+      { errors: {}, formError: result.message },
+      { status: result.reason === "locked" ? 429 : 401, headers: result.reason === "locked" ? { "Retry-After": String(result.retryAfterSeconds) } : undefined },
+    );
+  }
+  return redirect(safeRedirect(form.data.redirectTo), { headers: { "Set-Cookie": result.setCookie } });
+}
+
+export default function SignIn({ actionData }: Route.ComponentProps) {
+  const [params] = useSearchParams();
+  const navigation = useNavigation();
+  const { errors, onSubmit } = useZodForm(SignInSchema, actionData?.errors);
+  return (
+    <>
+      <h1 className="text-xl font-bold">Sign in</h1>
+      <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate>
+        <FormAlert message={actionData?.formError} />
+        <input type="hidden" name="redirectTo" value={params.get("redirectTo") ?? "/"} />
+        <TextField label="E-mail address" name="email" type="email" autoComplete="username" required errors={errors.email} autoFocus />
+        <TextField label="Password" name="password" type="password" autoComplete="current-password" required errors={errors.password} />
+        <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
+          Sign in
+        </Button>
+      </Form>
+      <p className="mt-4 text-sm">
+        <Link to={href("/forgot-password")} className="text-accent underline">
+          Forgot your password?
+        </Link>
+      </p>
+    </>
+  );
+}

@@ -1,0 +1,20 @@
+import { redirect } from "react-router";
+import { getCaller } from "~/.server/auth/guards";
+import { clearSessionCookie, destroySession } from "~/.server/auth/session";
+import { recordAudit } from "~/.server/db/queries/audit";
+import type { Route } from "./+types/sign-out";
+
+/** POST /sign-out ends this browser's session. (GET does nothing: signing out is a change.) */
+export async function action(args: Route.ActionArgs) {
+  const caller = getCaller(args);
+  if (!caller.sessionId || !caller.user) {
+    return redirect("/sign-in", { headers: { "Set-Cookie": await clearSessionCookie() } });
+  }
+  const setCookie = await destroySession(caller.sessionId);
+  await recordAudit({ action: "sign_out", userId: caller.user.id, ipAddress: caller.ipAddress });
+  return redirect("/sign-in", { headers: { "Set-Cookie": setCookie } });
+}
+
+export async function loader() {
+  return redirect("/");
+}
