@@ -128,7 +128,7 @@ export function evaluateGeneral(
     dividedDifferences(sc.tx, 0, sc.d, 0, vT);
     newtonTerms(sc.tx, 0, sc.d, 0, vT, vT, t);
     errP = newtonOut.value;
-    if (plan.method === "newton" && vT > 2 && rowOvershoot(sc.r, sc.tx, vT, value)) flags |= W_OVERSHOOT;
+    if (plan.method === "newton" && vT > 2 && rowOvershoot(sc.r, sc.tx, vT, t, value)) flags |= W_OVERSHOOT;
     if (trace) {
       const nodes: TraceNode[] = [];
       for (let c = 0; c < qT; c++) {
@@ -234,8 +234,9 @@ function newtonColumn(plan: Plan, br: BranchNodes, j: number, p: number, c: numb
   sc.colOff[c] = off;
   sc.vFrom[c] = lo;
   sc.vTo[c] = hi;
-  if (zone && plan.method === "newton" && m >= 2) {
-    // step-one overshoot: the zone's values rise or fall steadily and the value leaves their range
+  if (zone && plan.method === "newton" && m >= 2 && p >= br.x[off + lo]! && p <= br.x[off + hi]!) {
+    // step-one overshoot: the zone's values rise or fall steadily and the value leaves their range (only
+    // between the zone's nodes: beyond them, continuing a steady rise is expected, not an overshoot)
     let up = true;
     let down = true;
     let min = Infinity;
@@ -257,8 +258,15 @@ function newtonColumn(plan: Plan, br: BranchNodes, j: number, p: number, c: numb
   return flags;
 }
 
-/** Step-two overshoot on the zone part of the new row (r in Newton order, x its temperatures). */
-function rowOvershoot(r: Float64Array, x: Float64Array, v: number, value: number): boolean {
+/** Step-two overshoot on the zone part of the new row (r in Newton order, x its temperatures), at t. */
+function rowOvershoot(r: Float64Array, x: Float64Array, v: number, t: number, value: number): boolean {
+  let xMin = Infinity;
+  let xMax = -Infinity;
+  for (let c = 0; c < v; c++) {
+    xMin = Math.min(xMin, x[c]!);
+    xMax = Math.max(xMax, x[c]!);
+  }
+  if (t < xMin || t > xMax) return false;
   let min = Infinity;
   let max = -Infinity;
   let up = true;
@@ -484,7 +492,7 @@ function noValidZone(
   const prefix = pointIndex < 0 ? "" : `Point ${pointIndex}: `;
   return new InterpolationError(
     "no-valid-zone",
-    `${prefix}No measured values surround pressure ${formatNumber(p)} and temperature ${formatNumber(t)}: ${reason}. Measured pressure ranges per temperature: ${parts.join("; ")}. Cells that were not measured (null) cannot be used; pass extrapolate: true to extrapolate from the nearest measured cells.`,
+    `${prefix}No measured values surround pressure ${formatNumber(p)} and temperature ${formatNumber(t)}: ${reason}. Measured pressure ranges per temperature${BRANCH_TEXT[b]}: ${parts.join("; ")}.${prep.complete ? "" : " Cells that were not measured (null) cannot be used."}${b === 0 ? "" : " A column's values on the other side of its bubble point are never used."} Pass extrapolate: true to extrapolate from the nearest measured values.`,
     { pressure: p, temperature: t, pointIndex: pointIndex < 0 ? undefined : pointIndex, branch: ["none", "saturated", "undersaturated"][b] },
   );
 }

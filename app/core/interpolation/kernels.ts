@@ -7,7 +7,7 @@ import type { Plan } from "./plan";
 import { getPlan, overshootTolerance } from "./plan";
 import { checkRange } from "./range";
 import type { BatchResult } from "./types";
-import { W_OVERSHOOT } from "./warnings";
+import { W_EXTRAPOLATED, W_OVERSHOOT } from "./warnings";
 
 /** Newton (and linear, which is Newton of degree 1) on points [from, to). */
 export function runNewtonFast(
@@ -39,7 +39,7 @@ export function runNewtonFast(
   const pStart = tb.p.start;
   const tStart = tb.t.start;
   const tAsc = tb.t.asc;
-  const checkOvershoot = plan.method === "newton";
+  const newton = plan.method === "newton";
   const eps4 = 4 * Number.EPSILON;
 
   for (let idx = from; idx < to; idx++) {
@@ -49,6 +49,8 @@ export function runNewtonFast(
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
       flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
     }
+    // overshoot is judged between the zone's nodes only; outside the table a steady rise continues
+    const checkOvershoot = newton && (flags & W_EXTRAPOLATED) === 0;
     // cells and half-cells (the even-degree tie-break): variant = 2k + h
     const kp = pAxis.cell(p);
     const varP = N < 2 ? 0 : 2 * kp + (p - P[kp]! <= P[kp + 1]! - p ? 0 : 1);
