@@ -1,4 +1,5 @@
 import { expect, test } from "@playwright/test";
+import { signIn } from "../support/e2e";
 
 test("home page shows the product, the navigation, the caution and the bundled font, with no request leaving 127.0.0.1", async ({ page }) => {
   const hosts = new Set<string>();
@@ -9,6 +10,7 @@ test("home page shows the product, the navigation, the caution and the bundled f
     if (/noto-sans.*\.woff2$/.test(url.pathname)) fontFiles.push(url.pathname);
   });
 
+  await signIn(page, "engineer");
   await page.goto("/");
   await expect(page.getByRole("heading", { level: 1, name: "Isopleth" })).toBeVisible();
   const nav = page.getByRole("navigation", { name: "Main" });
@@ -31,7 +33,7 @@ test("home page shows the product, the navigation, the caution and the bundled f
   // Client-side navigation to every section works.
   await nav.getByRole("link", { name: "Samples" }).click();
   await expect(page.getByRole("heading", { level: 1, name: "Samples" })).toBeVisible();
-  await expect(page.getByRole("cell", { name: "CS-1 BH-01" })).toBeVisible();
+  await expect(page.getByRole("link", { name: "CS-1 BH-01" }).or(page.getByRole("cell", { name: "CS-1 BH-01" })).first()).toBeVisible();
   await nav.getByRole("link", { name: "Lookup" }).click();
   await expect(page.getByRole("heading", { level: 1, name: "Lookup" })).toBeVisible();
 

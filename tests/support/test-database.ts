@@ -29,3 +29,22 @@ export async function createEmptyDatabase(): Promise<{ url: string; name: string
     },
   };
 }
+
+/**
+ * For a test file that exercises app code through getDb(): a fresh, migrated database for the file,
+ * made the app's DATABASE_URL before any app module reads its configuration, and dropped afterwards.
+ */
+export async function useFreshMigratedDatabase(): Promise<{ url: string; cleanup: () => Promise<void> }> {
+  const database = await createEmptyDatabase();
+  const { runMigrations } = await import("../../app/.server/db/migrate");
+  await runMigrations(database.url);
+  process.env.DATABASE_URL = database.url;
+  return {
+    url: database.url,
+    cleanup: async () => {
+      const { closeDb } = await import("../../app/.server/db/client");
+      await closeDb();
+      await database.drop();
+    },
+  };
+}

@@ -1,30 +1,9 @@
 import { and, count, desc, eq, gte, lte, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
+import { AUDIT_ACTIONS, type AuditAction } from "~/utils/audit-actions";
 import { auditLog, users } from "../schema";
 
-export const AUDIT_ACTIONS = [
-  "sign_in",
-  "sign_in_failed",
-  "sign_in_refused",
-  "sign_out",
-  "invitation_sent",
-  "invitation_accepted",
-  "role_changed",
-  "account_disabled",
-  "account_enabled",
-  "password_changed",
-  "password_reset_requested",
-  "password_reset",
-  "sample_created",
-  "sample_updated",
-  "revision_uploaded",
-  "revision_approved",
-  "revision_rejected",
-  "api_token_created",
-  "api_token_revoked",
-  "api_token_used",
-] as const;
-export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+export { AUDIT_ACTIONS, type AuditAction };
 
 export type AuditEvent = {
   action: AuditAction;

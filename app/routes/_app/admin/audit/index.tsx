@@ -1,10 +1,11 @@
 import { Form, href, Link } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
-import { AUDIT_ACTIONS, listAuditEntries } from "~/.server/db/queries/audit";
+import { listAuditEntries } from "~/.server/db/queries/audit";
 import { listUsers } from "~/.server/db/queries/users";
 import { Button } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
+import { AUDIT_ACTIONS } from "~/utils/audit-actions";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Audit log · Isopleth" }];

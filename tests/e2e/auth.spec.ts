@@ -1,0 +1,104 @@
+import { expect, test } from "@playwright/test";
+import { ACCOUNTS, APP_URL, DEMO_PASSWORD, signIn, waitForMailLink } from "../support/e2e";
+
+test("an administrator invites an engineer, who sets a password from the e-mailed link and is signed in", async ({ page, browser }) => {
+  const email = `new.engineer.${Date.now()}@calder.example`;
+  await signIn(page, "admin");
+  await page.getByRole("navigation", { name: "Administration" }).getByRole("link", { name: "People" }).click();
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Role", { exact: true }).selectOption("engineer");
+  await page.getByRole("button", { name: "Send invitation" }).click();
+  await expect(page.getByRole("status")).toContainText(`Invitation sent to ${email}`);
+
+  const link = await waitForMailLink(email, /invited/);
+  expect(link.startsWith(`${APP_URL}/invitation/`)).toBe(true);
+
+  const invitee = await browser.newPage();
+  await invitee.goto(link);
+  await expect(invitee.getByText(`Your account will be ${email}, as Reservoir engineer`)).toBeVisible();
+  // The same zod schema checks the form in the browser before it is sent.
+  await invitee.getByLabel("Your name").fill("Nia <script>alert(1)</script> O'Brien; DROP TABLE users;--");
+  await invitee.getByLabel("Password", { exact: true }).fill("short");
+  await invitee.getByLabel("Password again").fill("short");
+  await invitee.getByRole("button", { name: "Create my account" }).click();
+  await expect(invitee.getByText("Use at least 10 characters.")).toBeVisible();
+  await invitee.getByLabel("Password", { exact: true }).fill("a-long-enough-password");
+  await invitee.getByLabel("Password again").fill("a-long-enough-password");
+  await invitee.getByRole("button", { name: "Create my account" }).click();
+  await expect(invitee).toHaveURL(`${APP_URL}/`);
+  // The name is stored and shown as text, not markup.
+  await expect(invitee.getByText("Nia <script>alert(1)</script> O'Brien; DROP TABLE users;--")).toBeVisible();
+  await expect(invitee.getByText("Reservoir engineer")).toBeVisible();
+
+  // The link worked once.
+  await invitee.goto(link);
+  await expect(invitee.getByRole("heading", { name: "This invitation no longer works" })).toBeVisible();
+});
+
+test("password reset end to end, then sign-out", async ({ page }) => {
+  // Use the viewer account and restore its password at the end so other tests keep working.
+  const email = ACCOUNTS.viewer;
+  await page.goto("/forgot-password");
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByRole("button", { name: "Send the link" }).click();
+  await expect(page.getByRole("status")).toContainText("If an account uses this address");
+
+  const link = await waitForMailLink(email, /Reset your Isopleth password/);
+  await page.goto(link);
+  await page.getByLabel("New password", { exact: true }).fill("a-brand-new-password");
+  await page.getByLabel("New password again").fill("a-brand-new-password");
+  await page.getByRole("button", { name: "Save and sign in" }).click();
+  await expect(page).toHaveURL(`${APP_URL}/`);
+  await expect(page.getByText("Viewer (read-only)")).toBeVisible();
+
+  // Sign out, then the old password fails and the new one works.
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page).toHaveURL(/\/sign-in/);
+  await page.goto("/samples");
+  await expect(page).toHaveURL(/\/sign-in\?redirectTo=%2Fsamples/);
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("alert")).toContainText("The e-mail address or the password is not right.");
+  await signIn(page, "viewer", "a-brand-new-password");
+
+  // Restore the demo password through the account page.
+  await page.goto("/account");
+  await page.getByLabel("Current password").fill("a-brand-new-password");
+  await page.getByLabel("New password", { exact: true }).fill(DEMO_PASSWORD);
+  await page.getByLabel("New password again").fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: "Change password" }).click();
+  await expect(page.getByRole("status")).toContainText("Your password is changed");
+
+  // The reset link died on use.
+  await page.goto(link);
+  await expect(page.getByRole("heading", { name: "This link no longer works" })).toBeVisible();
+});
+
+test("a cross-origin POST is refused, and a session cookie set before sign-in is not kept", async ({ page, request }) => {
+  const crossOrigin = await request.post("/sign-in", {
+    form: { email: ACCOUNTS.admin, password: DEMO_PASSWORD },
+    headers: { Origin: "https://evil.example" },
+    maxRedirects: 0,
+  });
+  // Refused before any sign-in happens (React Router's own check answers 400, our origin guard 403).
+  expect([400, 403]).toContain(crossOrigin.status());
+  expect(crossOrigin.headers()["set-cookie"] ?? "").not.toContain("isopleth_session=");
+
+  // The same with a valid Referer from our origin and no Origin header is accepted as same-origin.
+  const sameOrigin = await request.post("/sign-in", {
+    form: { email: ACCOUNTS.admin, password: DEMO_PASSWORD, redirectTo: "/" },
+    headers: { Referer: `${APP_URL}/sign-in` },
+    maxRedirects: 0,
+  });
+  expect(sameOrigin.status()).toBe(302);
+
+  // Session fixation: plant a cookie, sign in, and check the session cookie changed.
+  await page.context().addCookies([{ name: "isopleth_session", value: "planted-value", url: APP_URL }]);
+  await signIn(page, "engineer");
+  const cookie = (await page.context().cookies()).find((c) => c.name === "isopleth_session");
+  expect(cookie?.value).toBeTruthy();
+  expect(cookie?.value).not.toBe("planted-value");
+  expect(cookie?.httpOnly).toBe(true);
+  expect(cookie?.sameSite).toBe("Lax");
+});

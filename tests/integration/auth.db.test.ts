@@ -1,0 +1,158 @@
+import mysql from "mysql2/promise";
+import { afterAll, beforeAll, beforeEach, expect, test } from "vitest";
+import { useFreshMigratedDatabase } from "../support/test-database";
+
+/*
+ * Sessions, lockout and disabled accounts against the real MariaDB.
+ * Reference for the session design: common practice for database sessions — the cookie holds a random token,
+ * the database only its SHA-256, so a leaked table cannot be replayed.
+ */
+let cleanup: () => Promise<void>;
+let app: {
+  session: typeof import("~/.server/auth/session");
+  accounts: typeof import("~/.server/auth/accounts");
+  users: typeof import("~/.server/db/queries/users");
+  password: typeof import("~/.server/auth/password");
+  tokens: typeof import("~/.server/auth/tokens");
+};
+let engineerId: number;
+let otherId: number;
+const PASSWORD = "correct-horse-battery";
+
+beforeAll(async () => {
+  const fresh = await useFreshMigratedDatabase();
+  pool = mysql.createPool({ uri: fresh.url, timezone: "Z" });
+  cleanup = async () => {
+    await pool.end();
+    await fresh.cleanup();
+  };
+  app = {
+    session: await import("~/.server/auth/session"),
+    accounts: await import("~/.server/auth/accounts"),
+    users: await import("~/.server/db/queries/users"),
+    password: await import("~/.server/auth/password"),
+    tokens: await import("~/.server/auth/tokens"),
+  };
+  const passwordHash = await app.password.hashPassword(PASSWORD);
+  engineerId = await app.users.createUser({ email: "eng@example.test", name: "Eng", role: "engineer", passwordHash });
+  otherId = await app.users.createUser({ email: "other@example.test", name: "Other", role: "viewer", passwordHash });
+}, 60_000);
+
+afterAll(async () => cleanup?.());
+
+let pool: mysql.Pool;
+async function sql<T>(query: string, params: unknown[] = []): Promise<T[]> {
+  const [rows] = await pool.query(query, params);
+  return rows as T[];
+}
+
+function tokenFromCookie(setCookie: string): string {
+  // The cookie value is signed by react-router's createCookie; the token sits base64-JSON-encoded inside.
+  const value = decodeURIComponent(setCookie.split(";")[0]!.split("=").slice(1).join("="));
+  return JSON.parse(Buffer.from(value.split(".")[0]!, "base64").toString("utf8")) as string;
+}
+
+beforeEach(async () => {
+  await sql("DELETE FROM sign_in_attempts");
+  await sql("DELETE FROM sessions");
+  await sql("UPDATE users SET disabled_at = NULL");
+});
+
+test("the database stores only the SHA-256 of a session token, never the token", async () => {
+  const { sessionId, setCookie } = await app.session.createSession(engineerId, { ipAddress: "10.0.0.1", userAgent: "test" });
+  const token = tokenFromCookie(setCookie);
+  expect(token).toMatch(/^[a-z2-7]{32}$/);
+  expect(sessionId).toBe(app.tokens.hashToken(token));
+  const rows = await sql<Record<string, unknown>>("SELECT * FROM sessions");
+  expect(rows).toHaveLength(1);
+  expect(JSON.stringify(rows)).not.toContain(token);
+  // The stored id cannot be used as a token.
+  expect(await app.session.validateSessionToken(sessionId.slice(0, 32))).toBeNull();
+  expect((await app.session.validateSessionToken(token))?.user.id).toBe(engineerId);
+  expect(setCookie).toMatch(/HttpOnly/);
+  expect(setCookie).toMatch(/SameSite=Lax/);
+});
+
+test("an expired session is refused and deleted; a session with under 15 days left slides to 30 days", async () => {
+  const { sessionId, setCookie } = await app.session.createSession(engineerId, { ipAddress: "x", userAgent: null });
+  const token = tokenFromCookie(setCookie);
+  const day = 24 * 3600 * 1000;
+
+  // 20 days left: valid, not renewed.
+  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [new Date(Date.now() + 20 * day), sessionId]);
+  expect((await app.session.validateSessionToken(token))?.renewedCookie).toBeNull();
+
+  // 10 days left: renewed in the database and in the cookie.
+  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [new Date(Date.now() + 10 * day), sessionId]);
+  const renewed = await app.session.validateSessionToken(token);
+  expect(renewed?.renewedCookie).toMatch(/Max-Age=2592000/);
+  const [row] = await sql<{ expires_at: Date }>("SELECT expires_at FROM sessions WHERE id = ?", [sessionId]);
+  expect(Math.abs(new Date(row!.expires_at).getTime() - (Date.now() + 30 * day))).toBeLessThan(60_000);
+
+  // Expired: refused and removed.
+  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [new Date(Date.now() - 1000), sessionId]);
+  expect(await app.session.validateSessionToken(token)).toBeNull();
+  expect(await sql("SELECT id FROM sessions WHERE id = ?", [sessionId])).toEqual([]);
+});
+
+test("disabling an account stops its sessions at once; a password change ends the other sessions", async () => {
+  const a = await app.session.createSession(engineerId, { ipAddress: "x", userAgent: null });
+  const b = await app.session.createSession(engineerId, { ipAddress: "x", userAgent: null });
+  const changed = await app.accounts.changePassword({
+    userId: engineerId,
+    sessionId: a.sessionId,
+    currentPassword: PASSWORD,
+    newPassword: PASSWORD,
+    ipAddress: "x",
+  });
+  expect(changed).toEqual({ ok: true });
+  expect(await app.session.validateSessionToken(tokenFromCookie(a.setCookie))).not.toBeNull();
+  expect(await app.session.validateSessionToken(tokenFromCookie(b.setCookie))).toBeNull();
+
+  await app.users.setUserDisabled(engineerId, true);
+  expect(await app.session.validateSessionToken(tokenFromCookie(a.setCookie))).toBeNull();
+  const signIn = await app.accounts.signIn({ email: "eng@example.test", password: PASSWORD, ipAddress: "10.1.1.1", userAgent: null });
+  expect(signIn).toMatchObject({ ok: false, reason: "invalid" });
+});
+
+test("unknown address and wrong password get the same message", async () => {
+  const unknown = await app.accounts.signIn({ email: "nobody@example.test", password: "whatever-it-is", ipAddress: "10.2.0.1", userAgent: null });
+  const wrong = await app.accounts.signIn({ email: "eng@example.test", password: "not-the-password", ipAddress: "10.2.0.2", userAgent: null });
+  expect(unknown).toEqual(wrong);
+  expect(unknown).toEqual({ ok: false, reason: "invalid", message: app.accounts.SIGN_IN_FAILED_MESSAGE });
+});
+
+test("five failures for one account lock it for 15 minutes, even with the right password", async () => {
+  for (let i = 0; i < 5; i++) {
+    const r = await app.accounts.signIn({ email: "eng@example.test", password: `wrong-${i}`, ipAddress: `10.3.0.${i}`, userAgent: null });
+    expect(r).toMatchObject({ ok: false, reason: "invalid" });
+  }
+  const locked = await app.accounts.signIn({ email: "eng@example.test", password: PASSWORD, ipAddress: "10.3.1.1", userAgent: null });
+  expect(locked).toMatchObject({ ok: false, reason: "locked" });
+  if (locked.ok || locked.reason !== "locked") throw new Error("expected a lock");
+  expect(locked.message).toMatch(/Too many failed sign-in attempts/);
+  expect(locked.retryAfterSeconds).toBeGreaterThan(14 * 60);
+  expect(locked.retryAfterSeconds).toBeLessThanOrEqual(15 * 60);
+
+  // Another account is not affected (different addresses).
+  expect(await app.accounts.signIn({ email: "other@example.test", password: PASSWORD, ipAddress: "10.3.2.1", userAgent: null })).toMatchObject({ ok: true });
+
+  // Once the failures are older than the window, the right password works again.
+  await sql("UPDATE sign_in_attempts SET created_at = created_at - INTERVAL 16 MINUTE");
+  expect(await app.accounts.signIn({ email: "eng@example.test", password: PASSWORD, ipAddress: "10.3.1.1", userAgent: null })).toMatchObject({ ok: true });
+});
+
+test("five failures from one client address lock that address for every account", async () => {
+  for (let i = 0; i < 5; i++) {
+    await app.accounts.signIn({ email: `guess${i}@example.test`, password: "wrong-password", ipAddress: "10.4.0.9", userAgent: null });
+  }
+  expect(await app.accounts.signIn({ email: "other@example.test", password: PASSWORD, ipAddress: "10.4.0.9", userAgent: null })).toMatchObject({ ok: false, reason: "locked" });
+  expect(await app.accounts.signIn({ email: "other@example.test", password: PASSWORD, ipAddress: "10.4.0.10", userAgent: null })).toMatchObject({ ok: true });
+});
+
+test("password hashes are argon2id with the documented parameters", async () => {
+  const hash = await app.password.hashPassword("some password");
+  expect(hash).toMatch(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
+  expect(await app.password.verifyPassword(hash, "some password")).toBe(true);
+  expect(await app.password.verifyPassword(hash, "some passwore")).toBe(false);
+});
