@@ -22,7 +22,9 @@ afterAll(async () => {
 async function tableCounts() {
   const [rows] = await pool.query(
     `SELECT (SELECT COUNT(*) FROM users) AS users, (SELECT COUNT(*) FROM fields) AS fields,
-            (SELECT COUNT(*) FROM wells) AS wells, (SELECT COUNT(*) FROM samples) AS samples`,
+            (SELECT COUNT(*) FROM wells) AS wells, (SELECT COUNT(*) FROM samples) AS samples,
+            (SELECT COUNT(*) FROM sample_revisions) AS revisions, (SELECT COUNT(*) FROM property_grids) AS grids,
+            (SELECT COUNT(*) FROM grid_points) AS points`,
   );
   return (rows as Record<string, number>[])[0];
 }
@@ -61,13 +63,30 @@ test("the demo seed loads the invented scenario and is idempotent", async () => 
   const db = drizzle({ client: pool, schema, mode: "default" });
   await seedDemo(db, { demoPassword: "demo-password-for-tests" });
   const first = await tableCounts();
-  expect(first).toEqual({ users: DEMO_USERS.length, fields: 1, wells: DEMO_WELLS.length, samples: DEMO_SAMPLES.length });
+  const expectedPoints = DEMO_SAMPLES.reduce((n, s) => n + 7 * s.pressuresPsia.length * s.temperaturesF.length, 0);
+  expect(first).toEqual({
+    users: DEMO_USERS.length,
+    fields: 1,
+    wells: DEMO_WELLS.length,
+    samples: DEMO_SAMPLES.length,
+    revisions: DEMO_SAMPLES.length,
+    grids: 7 * DEMO_SAMPLES.length,
+    points: expectedPoints,
+  });
 
   await seedDemo(db, { demoPassword: "demo-password-for-tests" });
   expect(await tableCounts()).toEqual(first);
 
   const [fieldRows] = await pool.query("SELECT description FROM fields");
   expect((fieldRows as { description: string }[])[0]?.description).toMatch(/invented/i);
+  // Grids look like laboratory data: 8–15 pressures, several temperatures, a bubble point per temperature.
+  for (const s of DEMO_SAMPLES) {
+    expect(s.pressuresPsia.length).toBeGreaterThanOrEqual(8);
+    expect(s.pressuresPsia.length).toBeLessThanOrEqual(15);
+    expect(s.temperaturesF.length).toBeGreaterThanOrEqual(3);
+  }
+  const [bubble] = await pool.query("SELECT COUNT(*) AS n FROM revision_bubble_points");
+  expect((bubble as { n: number }[])[0]?.n).toBe(DEMO_SAMPLES.reduce((n, s) => n + s.temperaturesF.length, 0));
   const [hashes] = await pool.query("SELECT password_hash AS h FROM users");
   for (const row of hashes as { h: string }[]) expect(row.h).toMatch(/^\$argon2id\$/);
 });

@@ -1,5 +1,8 @@
 import { and, eq } from "drizzle-orm";
 import { hashPassword } from "~/.server/auth/password";
+import { generateSample } from "~/core/properties";
+import { CANONICAL_UNITS, PROPERTY_KEYS, PROPERTY_QUANTITIES } from "~/core/units";
+import { countRevisions, createRevision } from "./queries/revisions";
 import type { Database } from "./client";
 import { fields, samples, users, wells, type Role, type SampleType } from "./schema";
 
@@ -98,4 +101,65 @@ export async function seedDemo(db: Database, options: SeedOptions): Promise<void
         .onDuplicateKeyUpdate({ set: { label: s.label } });
     }
   });
+
+  // Grids: generated from published correlations with a little seeded noise, so they look like laboratory
+  // data without being any. Revision 1 is approved by the lab lead; existing revisions are never touched.
+  const [labLead] = await db.select({ id: users.id }).from(users).where(eq(users.email, "lab@calder.example"));
+  for (const [index, s] of DEMO_SAMPLES.entries()) {
+    const [sample] = await db
+      .select({ id: samples.id })
+      .from(samples)
+      .innerJoin(wells, eq(wells.id, samples.wellId))
+      .where(and(eq(wells.name, s.well), eq(samples.label, s.label)));
+    if (!sample || (await countRevisions(sample.id, db)) > 0) continue;
+    const generated = demoGrids(s, index + 1);
+    await createRevision(
+      {
+        sampleId: sample.id,
+        status: "approved",
+        comment: "Demo revision generated from published correlations (invented data, not a measurement).",
+        sourceFilename: `${s.label.replace(/\s+/g, "-")}-demo.csv`,
+        createdBy: labLead?.id ?? null,
+        reviewedBy: labLead?.id ?? null,
+        reviewComment: "Demo data: approved by the seed.",
+        ...generated,
+      },
+      db,
+    );
+  }
+}
+
+/** The invented grids of one demo sample, in canonical units. */
+export function demoGrids(s: DemoSample, seed: number) {
+  const generated = generateSample({
+    apiGravity: s.stockTankApi,
+    gasGravity: s.gasSpecificGravity,
+    bubblePoint: s.bubblePointPsia,
+    bubblePointTemperature: s.reservoirTemperatureF,
+    temperatures: s.temperaturesF,
+    pressures: s.pressuresPsia,
+    noise: 0.003,
+    seed,
+  });
+  return {
+    bubblePoints: generated.temperatures.map((temperatureF, j) => ({
+      temperatureF,
+      bubblePointPsia: Math.round(generated.bubblePoints[j]! * 10) / 10,
+    })),
+    grids: PROPERTY_KEYS.map((property) => {
+      const grid = generated.grids[property];
+      return {
+        property,
+        unit: CANONICAL_UNITS[PROPERTY_QUANTITIES[property]],
+        sourceUnit: generated.units[property],
+        pressures: grid.pressures,
+        temperatures: grid.temperatures,
+        values: grid.values.map((row) => row.map((v) => (v === null ? null : roundSignificant(v, 5)))),
+      };
+    }),
+  };
+}
+
+function roundSignificant(value: number, digits: number): number {
+  return value === 0 ? 0 : Number(value.toPrecision(digits));
 }

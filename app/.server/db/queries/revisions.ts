@@ -27,6 +27,8 @@ export type NewRevision = {
   sourceSha256?: string | null;
   qcReport?: unknown;
   createdBy?: number | null;
+  reviewedBy?: number | null;
+  reviewComment?: string | null;
   bubblePoints: { temperatureF: number; bubblePointPsia: number }[];
   grids: {
     property: PropertyKey;
@@ -63,6 +65,9 @@ export async function createRevision(input: NewRevision, db: Executor = getDb())
         sourceSha256: input.sourceSha256 ?? null,
         qcReport: input.qcReport ?? null,
         createdBy: input.createdBy ?? null,
+        reviewedBy: input.reviewedBy ?? null,
+        reviewedAt: input.reviewedBy ? new Date() : null,
+        reviewComment: input.reviewComment ?? null,
       })
       .$returningId();
     if (!inserted) throw new Error("revision insert returned no id");
