@@ -35,7 +35,7 @@ test("two-phase FVF Btd = Bod + Bg (Rsdb − Rsd) reproduces every row of Table 
   }
 });
 
-test("C23 inequality test dBo/dp < Bg dRs/dp: zero violations over all 10 intervals of Table 6-11 (course-note rule [S]; data [S])", () => {
+test("C23 inequality test dBo/dp < Bg dRs/dp: zero violations over all 10 intervals of Table 6-11 (rule: positive apparent compressibility below pb, from its definition, domain brief §3.12; data: Standard Handbook Vol. 2 Table 6-11 [S])", () => {
   const result = saturatedConsistencyTest(table);
   expect(result.intervals).toHaveLength(10);
   expect(result.violations).toHaveLength(0);
