@@ -152,7 +152,7 @@ test("five failures from one client address lock that address for every account"
 
 test("password hashes are argon2id with the documented parameters", async () => {
   const hash = await app.password.hashPassword("some password");
-  expect(hash).toMatch(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
+  expect(hash).toMatch(/^\$argon2id\$v=19\$m=65536,t=3,p=1\$/);
   expect(await app.password.verifyPassword(hash, "some password")).toBe(true);
   expect(await app.password.verifyPassword(hash, "some passwore")).toBe(false);
 });
