@@ -78,15 +78,12 @@ export function parseLongSheet(ctx: SheetContext, sheet: RawSheet): SheetResult 
   const bubble = seen.get("bubble_point");
   const propertyColumns = columns.filter((c) => isPropertyName(c.header.name));
   const headerPlace = at(headerRow.row);
-  if (!pressure && headerOk) {
-    ctx.findings.error("MISSING_COLUMN", headerPlace, 'the header row has no pressure column; add one such as "pressure (psia)".', cellText(cellAt(headerRow, 0)));
-  }
-  if (!temperature && headerOk) {
-    ctx.findings.error("MISSING_COLUMN", headerPlace, 'the header row has no temperature column; add one such as "temperature (°F)", even when every row is at the same temperature.', cellText(cellAt(headerRow, 0)));
-  }
-  if (propertyColumns.length === 0 && headerOk) {
-    ctx.findings.error("MISSING_COLUMN", headerPlace, 'the header row has no property column; add at least one, such as "oil viscosity (cP)".', cellText(cellAt(headerRow, 0)));
-  }
+  const headerText = headerRow.cells.map(cellText).filter((t) => t !== "").join(", ");
+  const missing = (what: string, hint: string): void =>
+    ctx.findings.error("MISSING_COLUMN", headerPlace, `the header row ${quote(headerText)} has no ${what} column; ${hint}`, headerText);
+  if (!pressure && headerOk) missing("pressure", 'add one such as "pressure (psia)".');
+  if (!temperature && headerOk) missing("temperature", 'add one such as "temperature (°F)", even when every row is at the same temperature.');
+  if (propertyColumns.length === 0 && headerOk) missing("property", 'add at least one, such as "oil viscosity (cP)".');
   if (!pressure || !temperature || !headerOk) return result;
 
   for (const column of propertyColumns) {

@@ -76,12 +76,6 @@ async function parseInto(
     findings.error("EMPTY_FILE", {}, "the file is empty.");
     return null;
   }
-  const extension = extensionOf(typeof input.filename === "string" ? input.filename : "");
-  if (extension !== "" && !ACCEPTED_EXTENSIONS.includes(extension)) {
-    findings.error("WRONG_FILE_TYPE", {}, `files of type ${quote(`.${extension}`)} are not accepted; upload a .csv, .tsv, .txt or .xlsx file.`, `.${extension}`);
-    return null;
-  }
-
   const sniff = sniffFile(bytes);
   let format: FileFormat;
   let sheets: RawSheet[];
@@ -97,6 +91,11 @@ async function parseInto(
     } else {
       findings.error("WRONG_FILE_TYPE", {}, `the file is ${sniff.what}, not a CSV or XLSX table; save the results as .csv or .xlsx.`);
     }
+    return null;
+  }
+  const extension = extensionOf(typeof input.filename === "string" ? input.filename : "");
+  if (extension !== "" && !ACCEPTED_EXTENSIONS.includes(extension)) {
+    findings.error("WRONG_FILE_TYPE", {}, `files of type ${quote(`.${extension}`)} are not accepted; upload a .csv, .tsv, .txt or .xlsx file.`, `.${extension}`);
     return null;
   }
   if (sniff.kind === "zip") {
