@@ -29,10 +29,11 @@ export function cellOf(x: Float64Array, off: number, n: number, t: number): numb
 export class AxisIndex {
   readonly nodes: Float64Array;
   readonly n: number;
-  private readonly lut: Int32Array;
-  private readonly lo: number;
-  private readonly scale: number;
-  private readonly last: number;
+  /** lut[b]: the cell at the start of bucket b; buckets of width 1/scale from `lo`, `last` = lut.length − 1. */
+  readonly lut: Int32Array;
+  readonly lo: number;
+  readonly scale: number;
+  readonly last: number;
 
   constructor(nodes: Float64Array) {
     this.nodes = nodes;

@@ -2,8 +2,9 @@
 // conversion of one evaluated point into a `Result`.
 import { describeBadNumber, InterpolationError } from "./errors";
 import { evaluateGeneral, stencilLists } from "./general";
-import { runNewtonFast, runPchipFast } from "./kernels";
+import { fastKernel } from "./kernels";
 import type { Plan } from "./plan";
+import { finishAlternatives } from "./plan";
 import type { BatchResult, Point, Result, Stencil } from "./types";
 import { W_OVERSHOOT, warningsFromFlags } from "./warnings";
 
@@ -19,31 +20,31 @@ export function evaluateRange(
   outOffset: number,
   batch: boolean,
 ): void {
-  if (plan.newton) runNewtonFast(plan, ps, ts, from, to, extrapolate, out, outOffset, batch);
-  else if (plan.pchip) runPchipFast(plan, ps, ts, from, to, extrapolate, out, outOffset, batch);
+  let kernel = plan.kernel;
+  if (kernel === undefined) kernel = plan.kernel = fastKernel(plan);
+  if (kernel) kernel(plan, ps, ts, from, to, extrapolate, out, outOffset, batch);
   else {
     for (let idx = from; idx < to; idx++) {
       evaluateGeneral(plan, ps[idx]!, ts[idx]!, extrapolate, out, outOffset + idx - from, batch ? idx : -1, null);
     }
   }
+  finishAlternatives(out, outOffset, outOffset + to - from);
 }
 
 export function checkPoint(point: Point, pointIndex: number): void {
+  if (typeof point !== "object" || point === null) throw badPoint(point, "", pointIndex);
+  const p: unknown = point.pressure;
+  const t: unknown = point.temperature;
+  if (typeof p !== "number" || !Number.isFinite(p)) throw badPoint(p, "pressure", pointIndex);
+  if (typeof t !== "number" || !Number.isFinite(t)) throw badPoint(t, "temperature", pointIndex);
+}
+
+function badPoint(value: unknown, axis: "" | "pressure" | "temperature", pointIndex: number): InterpolationError {
   const prefix = pointIndex < 0 ? "The point" : `Point ${pointIndex}`;
-  if (typeof point !== "object" || point === null) {
-    throw new InterpolationError("invalid-point", `${prefix} must be an object { pressure, temperature }; got ${describeBadNumber(point)}.`, {
-      pointIndex: pointIndex < 0 ? undefined : pointIndex,
-    });
-  }
-  for (const axis of ["pressure", "temperature"] as const) {
-    const v: unknown = point[axis];
-    if (typeof v !== "number" || !Number.isFinite(v)) {
-      throw new InterpolationError("invalid-point", `${prefix} has ${axis} ${describeBadNumber(v)}; a finite number is needed.`, {
-        axis,
-        pointIndex: pointIndex < 0 ? undefined : pointIndex,
-      });
-    }
-  }
+  const details = { axis: axis || undefined, pointIndex: pointIndex < 0 ? undefined : pointIndex };
+  return axis === ""
+    ? new InterpolationError("invalid-point", `${prefix} must be an object { pressure, temperature }; got ${describeBadNumber(value)}.`, details)
+    : new InterpolationError("invalid-point", `${prefix} has ${axis} ${describeBadNumber(value)}; a finite number is needed.`, details);
 }
 
 /** Evaluates one point into plan.single and returns it as a Result. */
@@ -56,8 +57,8 @@ export function evaluatePoint(plan: Plan, point: Point, extrapolate: boolean, po
 }
 
 function span(start: number, count: number): number[] {
-  const out: number[] = new Array<number>(count);
-  for (let i = 0; i < count; i++) out[i] = start + i;
+  const out: number[] = [];
+  for (let i = 0; i < count; i++) out.push(start + i);
   return out;
 }
 
@@ -66,7 +67,7 @@ export function toResult(plan: Plan): Result {
   const buf = plan.single;
   const flags = buf.warnings[0]!;
   const stencil: Stencil =
-    plan.newton || plan.pchip
+    plan.kernel !== null
       ? {
           pressure: span(buf.pressureStart[0]!, buf.pressureCount[0]!),
           temperature: span(buf.temperatureStart[0]!, buf.temperatureCount[0]!),
@@ -85,7 +86,7 @@ export function toResult(plan: Plan): Result {
   if (flags & W_OVERSHOOT && plan.pchipPlan) {
     result.alternative = {
       method: "pchip",
-      value: buf.alternatives[0]!,
+      value: buf.alternatives?.[0] ?? buf.values[0]!,
       errorEstimate: plan.pchipPlan.single.errorEstimates[0]!,
     };
   }

@@ -115,6 +115,6 @@ export function explainInterpolation(grid: Grid, point: Point, options: Options)
     errorParts: { pressure, temperature, rounding: errorEstimate - pressure - temperature },
     warnings: warningsFromFlags(flags),
     stencil: stencilLists(plan),
-    alternative: flags & W_OVERSHOOT ? { method: "pchip", value: buf.alternatives[0]! } : null,
+    alternative: flags & W_OVERSHOOT ? { method: "pchip", value: buf.alternatives?.[0] ?? value } : null,
   };
 }

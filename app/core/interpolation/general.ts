@@ -7,7 +7,7 @@ import { formatNumber, InterpolationError } from "./errors";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
 import { pchipCell, pchipOut } from "./pchip";
 import type { Plan } from "./plan";
-import { getPlan, overshootTolerance, STRIDE } from "./plan";
+import { alternativesOf, getPlan, overshootTolerance, STRIDE } from "./plan";
 import type { BranchNodes, PreparedGrid } from "./prepare";
 import { checkRange } from "./range";
 import type { BatchResult } from "./types";
@@ -184,7 +184,6 @@ export function evaluateGeneral(
   out.warnings[o] = flags;
   if (out.branches) out.branches[o] = b;
   writeStencilSpan(plan, br, out, o);
-  out.alternatives[o] = value;
   if (flags & W_OVERSHOOT) {
     let pp = plan.pchipPlan;
     if (!pp) {
@@ -193,7 +192,7 @@ export function evaluateGeneral(
     }
     // the pchip plan has its own scratch; the stencil of this plan's scratch stays intact
     evaluateGeneral(pp, p, t, true, pp.single, 0, -1, null);
-    out.alternatives[o] = pp.single.values[0]!;
+    alternativesOf(out)[o] = pp.single.values[0]!;
   }
 }
 

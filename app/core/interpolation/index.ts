@@ -5,7 +5,10 @@ import { evaluatePoint, evaluateRange } from "./evaluate";
 import { allocateBatch, getPlan } from "./plan";
 import { prepareGrid } from "./prepare";
 import type { BatchResult, Grid, Options, Point, PointColumns, Result } from "./types";
+import type { NormalizedOptions } from "./validate";
 import { normalizeOptions } from "./validate";
+
+const scratchOptions: NormalizedOptions = { method: "linear", m: 1, n: 1, extrapolate: false };
 
 export type { Branch, BatchResult, Grid, Method, Options, Point, PointColumns, Result, Stencil } from "./types";
 export { InterpolationError } from "./errors";
@@ -18,7 +21,7 @@ export type { Explanation, ExplanationNode, ExplanationStep } from "./explain";
 
 /** Interpolates one point. Throws InterpolationError for bad input or a point it cannot serve. */
 export function interpolateGrid(grid: Grid, point: Point, options: Options): Result {
-  const opts = normalizeOptions(options);
+  const opts = normalizeOptions(options, scratchOptions);
   const plan = getPlan(prepareGrid(grid), opts.method, opts.m, opts.n);
   return evaluatePoint(plan, point, opts.extrapolate, -1);
 }
@@ -27,13 +30,18 @@ export function interpolateGrid(grid: Grid, point: Point, options: Options): Res
  * Interpolates many points. An array of points gives an array of Results. Two typed arrays
  * { pressures, temperatures } give a BatchResult of typed arrays, computed without allocating per point
  * (the form for plot surfaces and the API). A point that cannot be served throws, naming its index.
+ *
+ * `reuse`: a BatchResult from an earlier call with the same number of points (on a grid with bubble
+ * points if and only if this one has them); its arrays are overwritten and returned instead of new ones,
+ * so a plot redrawn many times allocates nothing at all.
  */
 export function interpolateGridMany(grid: Grid, points: readonly Point[], options: Options): Result[];
-export function interpolateGridMany(grid: Grid, points: PointColumns, options: Options): BatchResult;
+export function interpolateGridMany(grid: Grid, points: PointColumns, options: Options, reuse?: BatchResult): BatchResult;
 export function interpolateGridMany(
   grid: Grid,
   points: readonly Point[] | PointColumns,
   options: Options,
+  reuse?: BatchResult,
 ): Result[] | BatchResult {
   const opts = normalizeOptions(options);
   const prep = prepareGrid(grid);
@@ -61,7 +69,18 @@ export function interpolateGridMany(
       `pressures has ${pressures.length} entries but temperatures has ${temperatures.length}; they must pair up.`,
     );
   }
-  const out = allocateBatch(pressures.length, prep.bubble !== null);
+  let out: BatchResult;
+  if (reuse === undefined) out = allocateBatch(pressures.length, prep.bubble !== null);
+  else {
+    if (reuse.count !== pressures.length || reuse.values.length !== reuse.count || (reuse.branches !== null) !== (prep.bubble !== null)) {
+      throw new InterpolationError(
+        "invalid-options",
+        `The result to reuse was made for ${reuse.count} points${reuse.branches ? " on a grid with bubble points" : ""}; this call has ${pressures.length} points${prep.bubble ? " on a grid with bubble points" : ""}.`,
+      );
+    }
+    out = reuse;
+    out.alternatives = null;
+  }
   evaluateRange(plan, pressures, temperatures, 0, pressures.length, opts.extrapolate, out, 0, true);
   return out;
 }

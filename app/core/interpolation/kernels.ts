@@ -1,15 +1,41 @@
 // Fast evaluation on complete grids without bubble points: every zone's Newton coefficients (or pchip
-// derivatives) along pressure are precomputed per grid, so a point costs two table look-ups for the cells
+// derivatives) along pressure are precomputed per grid, so a point costs two table look-ups for its cells
 // and a few dozen multiply-adds. Reads and writes typed arrays only; nothing is allocated per point.
-// Indices are in range by construction.
+// Degree [1,1] (linear) and [3,3] (the default) have unrolled kernels; other degrees use the loop kernel,
+// which computes the same numbers in the same order. Indices are in range by construction.
+import type { AxisIndex } from "./axis";
 import { pchipCell, pchipOut } from "./pchip";
-import type { Plan } from "./plan";
-import { getPlan, overshootTolerance } from "./plan";
+import type { Kernel, Plan } from "./plan";
+import { alternativesOf, getPlan, overshootTolerance } from "./plan";
 import { checkRange } from "./range";
 import type { BatchResult } from "./types";
 import { W_EXTRAPOLATED, W_OVERSHOOT } from "./warnings";
 
-/** Newton (and linear, which is Newton of degree 1) on points [from, to). */
+/** The fast kernel for a plan, or null when the general evaluator must be used. */
+export function fastKernel(plan: Plan): Kernel | null {
+  const tb = plan.newton;
+  if (tb) {
+    if (tb.p.q === 3 && tb.t.q === 3 && tb.p.valueTerms === 2 && tb.t.valueTerms === 2) return runNewton11;
+    if (tb.p.q === 5 && tb.t.q === 5 && tb.p.valueTerms === 4 && tb.t.valueTerms === 4) return runNewton33;
+    return runNewtonFast;
+  }
+  return plan.pchip ? runPchipFast : null;
+}
+
+/** Cell search through the axis' lookup table, then at most a step or two of correction. */
+function cellIn(ax: AxisIndex, t: number): number {
+  const n = ax.n;
+  if (n < 2) return 0;
+  let b = Math.floor((t - ax.lo) * ax.scale);
+  b = b < 0 ? 0 : b > ax.last ? ax.last : b;
+  let k = ax.lut[b]!;
+  const x = ax.nodes;
+  while (k > 0 && t < x[k]!) k--;
+  while (k < n - 2 && t >= x[k + 1]!) k++;
+  return k;
+}
+
+/** Newton of any degree on a complete grid (the loop form). */
 export function runNewtonFast(
   plan: Plan,
   ps: Float64Array,
@@ -32,7 +58,7 @@ export function runNewtonFast(
   const vp = tb.p.valueTerms;
   const qt = tb.t.q;
   const vt = tb.t.valueTerms;
-  const { coef, zoneLo, zoneHi, zoneMonotone, invT, wp, wt, r, e, d } = tb;
+  const { coef, zoneLo, zoneHi, invT, wp, wt, r, e, d } = tb;
   const px = tb.p.x;
   const tx = tb.t.x;
   const tOrd = tb.t.order;
@@ -41,6 +67,7 @@ export function runNewtonFast(
   const tAsc = tb.t.asc;
   const newton = plan.method === "newton";
   const eps4 = 4 * Number.EPSILON;
+  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
 
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -52,9 +79,9 @@ export function runNewtonFast(
     // overshoot is judged between the zone's nodes only; outside the table a steady rise continues
     const checkOvershoot = newton && (flags & W_EXTRAPOLATED) === 0;
     // cells and half-cells (the even-degree tie-break): variant = 2k + h
-    const kp = pAxis.cell(p);
+    const kp = cellIn(pAxis, p);
     const varP = N < 2 ? 0 : 2 * kp + (p - P[kp]! <= P[kp + 1]! - p ? 0 : 1);
-    const kt = tAxis.cell(t);
+    const kt = cellIn(tAxis, t);
     const varT = M < 2 ? 0 : 2 * kt + (t - T[kt]! <= T[kt + 1]! - t ? 0 : 1);
 
     // products (p − x0)(p − x1)… of the Newton form, shared by every column
@@ -78,7 +105,7 @@ export function runNewtonFast(
       if (c < vt) {
         const a = s < 0 ? -s : s;
         if (a > scale) scale = a;
-        if (checkOvershoot && zoneMonotone[zi] === 1 && (s < zoneLo[zi]! || s > zoneHi[zi]!)) flags |= W_OVERSHOOT;
+        if (checkOvershoot && (s < zoneLo[zi]! || s > zoneHi[zi]!)) flags |= W_OVERSHOOT;
       }
     }
 
@@ -103,17 +130,14 @@ export function runNewtonFast(
     if (checkOvershoot && vt > 2) flags |= rowOvershoot(r, tOrd, tAsc, txo, varT * vt, vt, value);
 
     const o = outOffset + idx - from;
-    out.values[o] = value;
-    out.errorEstimates[o] = (dP < 0 ? -dP : dP) + (dT < 0 ? -dT : dT) + eps4 * Math.max(scale, value < 0 ? -value : value);
-    out.warnings[o] = flags;
-    out.pressureStart[o] = pStart[varP]!;
-    out.pressureCount[o] = vp;
-    out.temperatureStart[o] = tStart[varT]!;
-    out.temperatureCount[o] = vt;
-    if (flags & W_OVERSHOOT) {
-      const alt = pchipAt(plan, p, t);
-      out.alternatives[o] = alt.values[0]!;
-    } else out.alternatives[o] = value;
+    values[o] = value;
+    errorEstimates[o] = (dP < 0 ? -dP : dP) + (dT < 0 ? -dT : dT) + eps4 * Math.max(scale, value < 0 ? -value : value);
+    warnings[o] = flags;
+    pressureStart[o] = pStart[varP]!;
+    pressureCount[o] = vp;
+    temperatureStart[o] = tStart[varT]!;
+    temperatureCount[o] = vt;
+    if (flags & W_OVERSHOOT) alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
   }
 }
 
@@ -154,6 +178,254 @@ function rowOvershoot(
   return value < lo - tol || value > hi + tol ? W_OVERSHOOT : 0;
 }
 
+/** Degree [1,1] (linear, or newton [1,1]) on a complete grid with at least 3 nodes per axis. */
+function runNewton11(
+  plan: Plan,
+  ps: Float64Array,
+  ts: Float64Array,
+  from: number,
+  to: number,
+  extrapolate: boolean,
+  out: BatchResult,
+  outOffset: number,
+  batch: boolean,
+): void {
+  const tb = plan.newton!;
+  const prep = plan.prep;
+  const { N, M, P, T, pAxis, tAxis } = prep;
+  const pLo = P[0]!;
+  const pHi = P[N - 1]!;
+  const tLo = T[0]!;
+  const tHi = T[M - 1]!;
+  const { coef, invT } = tb;
+  const px = tb.p.x;
+  const tx = tb.t.x;
+  const tOrd = tb.t.order;
+  const pStart = tb.p.start;
+  const tStart = tb.t.start;
+  const pLut = pAxis.lut;
+  const pLast = pAxis.last;
+  const pScale = pAxis.scale;
+  const tLut = tAxis.lut;
+  const tLast = tAxis.last;
+  const tScale = tAxis.scale;
+  const constFlags = plan.constFlags;
+  const eps4 = 4 * Number.EPSILON;
+  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
+
+  for (let idx = from; idx < to; idx++) {
+    const p = ps[idx]!;
+    const t = ts[idx]!;
+    let flags = constFlags;
+    if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
+      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+    }
+    let b = Math.floor((p - pLo) * pScale);
+    b = b < 0 ? 0 : b > pLast ? pLast : b;
+    let kp = pLut[b]!;
+    while (kp > 0 && p < P[kp]!) kp--;
+    while (kp < N - 2 && p >= P[kp + 1]!) kp++;
+    b = Math.floor((t - tLo) * tScale);
+    b = b < 0 ? 0 : b > tLast ? tLast : b;
+    let kt = tLut[b]!;
+    while (kt > 0 && t < T[kt]!) kt--;
+    while (kt < M - 2 && t >= T[kt + 1]!) kt++;
+    const varP = 2 * kp + (p - P[kp]! <= P[kp + 1]! - p ? 0 : 1);
+    const varT = 2 * kt + (t - T[kt]! <= T[kt + 1]! - t ? 0 : 1);
+
+    const po = varP * 3;
+    const w1 = p - px[po]!;
+    const w2 = w1 * (p - px[po + 1]!);
+    const to3 = varT * 3;
+    const base = varP * M;
+    let cb = (base + tOrd[to3]!) * 3;
+    const r0 = coef[cb]! + coef[cb + 1]! * w1;
+    const e0 = coef[cb + 2]! * w2;
+    cb = (base + tOrd[to3 + 1]!) * 3;
+    const r1 = coef[cb]! + coef[cb + 1]! * w1;
+    const e1 = coef[cb + 2]! * w2;
+    cb = (base + tOrd[to3 + 2]!) * 3;
+    const r2 = coef[cb]! + coef[cb + 1]! * w1;
+
+    const ib = to3 * 3;
+    const i1 = invT[ib + 4]!;
+    const a1 = (r1 - r0) * i1;
+    const a2 = (r2 - r1) * invT[ib + 5]!;
+    const b2 = (a2 - a1) * invT[ib + 8]!;
+    const v1 = t - tx[to3]!;
+    const value = r0 + a1 * v1;
+    const dT = b2 * (v1 * (t - tx[to3 + 1]!));
+    const dP = e0 + (e1 - e0) * i1 * v1;
+
+    const a0 = r0 < 0 ? -r0 : r0;
+    const a11 = r1 < 0 ? -r1 : r1;
+    const av = value < 0 ? -value : value;
+    const o = outOffset + idx - from;
+    values[o] = value;
+    errorEstimates[o] = (dP < 0 ? -dP : dP) + (dT < 0 ? -dT : dT) + eps4 * (a0 > a11 ? (a0 > av ? a0 : av) : a11 > av ? a11 : av);
+    warnings[o] = flags;
+    pressureStart[o] = pStart[varP]!;
+    pressureCount[o] = 2;
+    temperatureStart[o] = tStart[varT]!;
+    temperatureCount[o] = 2;
+  }
+}
+
+/** Degree [3,3] (the default) on a complete grid with at least 5 nodes per axis. */
+function runNewton33(
+  plan: Plan,
+  ps: Float64Array,
+  ts: Float64Array,
+  from: number,
+  to: number,
+  extrapolate: boolean,
+  out: BatchResult,
+  outOffset: number,
+  batch: boolean,
+): void {
+  const tb = plan.newton!;
+  const prep = plan.prep;
+  const { N, M, P, T, pAxis, tAxis } = prep;
+  const pLo = P[0]!;
+  const pHi = P[N - 1]!;
+  const tLo = T[0]!;
+  const tHi = T[M - 1]!;
+  const { coef, invT, zoneLo, zoneHi } = tb;
+  const px = tb.p.x;
+  const tx = tb.t.x;
+  const tOrd = tb.t.order;
+  const pStart = tb.p.start;
+  const tStart = tb.t.start;
+  const pLut = pAxis.lut;
+  const pLast = pAxis.last;
+  const pScale = pAxis.scale;
+  const tLut = tAxis.lut;
+  const tLast = tAxis.last;
+  const tScale = tAxis.scale;
+  const constFlags = plan.constFlags;
+  const newton = plan.method === "newton";
+  const eps4 = 4 * Number.EPSILON;
+  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
+
+  for (let idx = from; idx < to; idx++) {
+    const p = ps[idx]!;
+    const t = ts[idx]!;
+    let flags = constFlags;
+    if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
+      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+    }
+    let b = Math.floor((p - pLo) * pScale);
+    b = b < 0 ? 0 : b > pLast ? pLast : b;
+    let kp = pLut[b]!;
+    while (kp > 0 && p < P[kp]!) kp--;
+    while (kp < N - 2 && p >= P[kp + 1]!) kp++;
+    b = Math.floor((t - tLo) * tScale);
+    b = b < 0 ? 0 : b > tLast ? tLast : b;
+    let kt = tLut[b]!;
+    while (kt > 0 && t < T[kt]!) kt--;
+    while (kt < M - 2 && t >= T[kt + 1]!) kt++;
+    const varP = 2 * kp + (p - P[kp]! <= P[kp + 1]! - p ? 0 : 1);
+    const varT = 2 * kt + (t - T[kt]! <= T[kt + 1]! - t ? 0 : 1);
+
+    // Newton products along pressure
+    const po = varP * 5;
+    const w1 = p - px[po]!;
+    const w2 = w1 * (p - px[po + 1]!);
+    const w3 = w2 * (p - px[po + 2]!);
+    const w4 = w3 * (p - px[po + 3]!);
+    // step one on the five columns (four of the zone, then the extra one for the estimate)
+    const to5 = varT * 5;
+    const base = varP * M;
+    const z0 = base + tOrd[to5]!;
+    const z1 = base + tOrd[to5 + 1]!;
+    const z2 = base + tOrd[to5 + 2]!;
+    const z3 = base + tOrd[to5 + 3]!;
+    let cb = z0 * 5;
+    const r0 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const e0 = coef[cb + 4]! * w4;
+    cb = z1 * 5;
+    const r1 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const e1 = coef[cb + 4]! * w4;
+    cb = z2 * 5;
+    const r2 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const e2 = coef[cb + 4]! * w4;
+    cb = z3 * 5;
+    const r3 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const e3 = coef[cb + 4]! * w4;
+    cb = (base + tOrd[to5 + 4]!) * 5;
+    const r4 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+
+    // step two: divided differences along temperature (precomputed reciprocal spacings)
+    const ib = to5 * 5;
+    const a1 = (r1 - r0) * invT[ib + 6]!;
+    const a2 = (r2 - r1) * invT[ib + 7]!;
+    const a3 = (r3 - r2) * invT[ib + 8]!;
+    const a4 = (r4 - r3) * invT[ib + 9]!;
+    const b2 = (a2 - a1) * invT[ib + 12]!;
+    const b3 = (a3 - a2) * invT[ib + 13]!;
+    const b4 = (a4 - a3) * invT[ib + 14]!;
+    const c3 = (b3 - b2) * invT[ib + 18]!;
+    const c4 = (b4 - b3) * invT[ib + 19]!;
+    const d4 = (c4 - c3) * invT[ib + 24]!;
+    const v1 = t - tx[to5]!;
+    const v2 = v1 * (t - tx[to5 + 1]!);
+    const v3 = v2 * (t - tx[to5 + 2]!);
+    const value = r0 + a1 * v1 + b2 * v2 + c3 * v3;
+    const dT = d4 * (v3 * (t - tx[to5 + 3]!));
+    // pressure corrections carried along temperature
+    const ea1 = (e1 - e0) * invT[ib + 6]!;
+    const ea2 = (e2 - e1) * invT[ib + 7]!;
+    const ea3 = (e3 - e2) * invT[ib + 8]!;
+    const eb2 = (ea2 - ea1) * invT[ib + 12]!;
+    const eb3 = (ea3 - ea2) * invT[ib + 13]!;
+    const ec3 = (eb3 - eb2) * invT[ib + 18]!;
+    const dP = e0 + ea1 * v1 + eb2 * v2 + ec3 * v3;
+
+    if (newton && (flags & W_EXTRAPOLATED) === 0) {
+      if (
+        r0 < zoneLo[z0]! ||
+        r0 > zoneHi[z0]! ||
+        r1 < zoneLo[z1]! ||
+        r1 > zoneHi[z1]! ||
+        r2 < zoneLo[z2]! ||
+        r2 > zoneHi[z2]! ||
+        r3 < zoneLo[z3]! ||
+        r3 > zoneHi[z3]!
+      ) {
+        flags |= W_OVERSHOOT;
+      }
+      // the zone's four columns are in ascending temperature order here
+      const up = r0 <= r1 && r1 <= r2 && r2 <= r3;
+      const down = r0 >= r1 && r1 >= r2 && r2 >= r3;
+      if (up || down) {
+        const lo = up ? r0 : r3;
+        const hi = up ? r3 : r0;
+        const tol = overshootTolerance(lo, hi);
+        if (value < lo - tol || value > hi + tol) flags |= W_OVERSHOOT;
+      }
+    }
+
+    let scale = r0 < 0 ? -r0 : r0;
+    const s1 = r1 < 0 ? -r1 : r1;
+    const s2 = r2 < 0 ? -r2 : r2;
+    const s3 = r3 < 0 ? -r3 : r3;
+    const sv = value < 0 ? -value : value;
+    if (s1 > scale) scale = s1;
+    if (s2 > scale) scale = s2;
+    if (s3 > scale) scale = s3;
+    if (sv > scale) scale = sv;
+    const o = outOffset + idx - from;
+    values[o] = value;
+    errorEstimates[o] = (dP < 0 ? -dP : dP) + (dT < 0 ? -dT : dT) + eps4 * scale;
+    warnings[o] = flags;
+    pressureStart[o] = pStart[varP]!;
+    pressureCount[o] = 4;
+    temperatureStart[o] = tStart[varT]!;
+    temperatureCount[o] = 4;
+    if (flags & W_OVERSHOOT) alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
+  }
+}
+
 /** pchip value for one point on the same grid (the alternative shown with an overshoot). */
 export function pchipAt(plan: Plan, p: number, t: number): BatchResult {
   let pp = plan.pchipPlan;
@@ -186,8 +458,10 @@ export function runPchipFast(
   const pHi = P[N - 1]!;
   const tLo = T[0]!;
   const tHi = T[M - 1]!;
-  const { d, b, r, e } = tb;
+  const { cells, hT, invHT, invSumT, r, e } = tb;
   const eps4 = 4 * Number.EPSILON;
+  const stride = (N - 1) * 7;
+  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
     const t = ts[idx]!;
@@ -195,29 +469,19 @@ export function runPchipFast(
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
       flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
     }
-    const kp = pAxis.cell(p);
-    const kt = tAxis.cell(t);
+    const kp = cellIn(pAxis, p);
+    const kt = cellIn(tAxis, t);
     const jLo = kt > 0 ? kt - 1 : 0;
     const jHi = kt + 2 < M ? kt + 2 : M - 1;
     let scale = 0;
+    // step one: the cubic of each needed column's pressure cell, precomputed in powers of (p − P[kp])
     if (N >= 3) {
-      const x0 = P[kp]!;
-      const h = P[kp + 1]! - x0;
-      const dx = p - x0;
+      const dx = p - P[kp]!;
       for (let j = jLo; j <= jHi; j++) {
-        const o = j * N + kp;
-        const y0 = V[o]!;
-        const y1 = V[o + 1]!;
-        const d0 = d[o]!;
-        const d1 = d[o + 1]!;
-        const slope = (y1 - y0) / h;
-        const c1 = (3 * slope - 2 * d0 - d1) / h;
-        const c0 = (d0 + d1 - 2 * slope) / (h * h);
-        const s = ((c0 * dx + c1) * dx + d0) * dx + y0;
+        const c = j * stride + kp * 7;
+        const s = ((cells[c + 3]! * dx + cells[c + 2]!) * dx + cells[c + 1]!) * dx + cells[c]!;
         r[j] = s;
-        const e0 = d0 - b[o]!;
-        const e1 = d1 - b[o + 1]!;
-        e[j] = ((((e0 + e1) / (h * h)) * dx + (-2 * e0 - e1) / h) * dx + e0) * dx;
+        e[j] = ((cells[c + 6]! * dx + cells[c + 5]!) * dx + cells[c + 4]!) * dx;
         const a = s < 0 ? -s : s;
         if (a > scale) scale = a;
       }
@@ -230,25 +494,89 @@ export function runPchipFast(
         if (a > scale) scale = a;
       }
     }
-    pchipCell(T, 0, r, 0, M, kt, t);
-    const value = pchipOut.value;
-    const eT = pchipOut.estimate;
-    let eP: number;
-    if (M < 2) eP = Math.abs(e[0]!);
-    else {
-      let w = (t - T[kt]!) / (T[kt + 1]! - T[kt]!);
-      w = w < 0 ? 0 : w > 1 ? 1 : w;
-      eP = (1 - w) * Math.abs(e[kt]!) + w * Math.abs(e[kt + 1]!);
+    // step two: pchip along temperature on the new row, slopes from the (up to) four columns around t
+    let value: number;
+    let eT: number;
+    if (M >= 3) {
+      const k = kt;
+      const h = hT[k]!;
+      const ih = invHT[k]!;
+      const y0 = r[k]!;
+      const y1 = r[k + 1]!;
+      const m = (y1 - y0) * ih;
+      let d0: number;
+      let b0: number;
+      if (k === 0) {
+        const h1 = hT[1]!;
+        const m1 = (r[2]! - y1) * invHT[1]!;
+        b0 = ((2 * h + h1) * m - h * m1) * invSumT[1]!;
+        d0 = endSlope(b0, m, m1);
+      } else {
+        const hl = hT[k - 1]!;
+        const ml = (y0 - r[k - 1]!) * invHT[k - 1]!;
+        b0 = (h * ml + hl * m) * invSumT[k]!;
+        d0 = harmonicSlope(hl, h, ml, m);
+      }
+      let d1: number;
+      let b1: number;
+      if (k + 2 === M) {
+        const hl = hT[k - 1]!;
+        const ml = (y0 - r[k - 1]!) * invHT[k - 1]!;
+        b1 = ((2 * h + hl) * m - h * ml) * invSumT[k]!;
+        d1 = endSlope(b1, m, ml);
+      } else {
+        const hr = hT[k + 1]!;
+        const mr = (r[k + 2]! - y1) * invHT[k + 1]!;
+        b1 = (hr * m + h * mr) * invSumT[k + 1]!;
+        d1 = harmonicSlope(h, hr, m, mr);
+      }
+      const dx = t - T[k]!;
+      const c1 = (3 * m - 2 * d0 - d1) * ih;
+      const c0 = (d0 + d1 - 2 * m) * ih * ih;
+      value = ((c0 * dx + c1) * dx + d0) * dx + y0;
+      const e0 = d0 - b0;
+      const e1 = d1 - b1;
+      eT = (((e0 + e1) * ih * ih * dx + (-2 * e0 - e1) * ih) * dx + e0) * dx;
+    } else {
+      pchipCell(T, 0, r, 0, M, kt, t);
+      value = pchipOut.value;
+      eT = pchipOut.estimate;
     }
+    let eP: number;
+    if (M < 2) eP = e[0]! < 0 ? -e[0]! : e[0]!;
+    else {
+      let w = (t - T[kt]!) * invHT[kt]!;
+      w = w < 0 ? 0 : w > 1 ? 1 : w;
+      const ea = e[kt]!;
+      const eb = e[kt + 1]!;
+      eP = (1 - w) * (ea < 0 ? -ea : ea) + w * (eb < 0 ? -eb : eb);
+    }
+    const av = value < 0 ? -value : value;
     const o = outOffset + idx - from;
-    out.values[o] = value;
-    out.errorEstimates[o] = eP + Math.abs(eT) + eps4 * Math.max(scale, Math.abs(value));
-    out.warnings[o] = flags;
-    out.alternatives[o] = value;
+    values[o] = value;
+    errorEstimates[o] = eP + (eT < 0 ? -eT : eT) + eps4 * (scale > av ? scale : av);
+    warnings[o] = flags;
     const pS = kp > 0 ? kp - 1 : 0;
-    out.pressureStart[o] = pS;
-    out.pressureCount[o] = (kp + 2 < N ? kp + 2 : N - 1) - pS + 1;
-    out.temperatureStart[o] = jLo;
-    out.temperatureCount[o] = jHi - jLo + 1;
+    pressureStart[o] = pS;
+    pressureCount[o] = (kp + 2 < N ? kp + 2 : N - 1) - pS + 1;
+    temperatureStart[o] = jLo;
+    temperatureCount[o] = jHi - jLo + 1;
   }
+}
+
+/** Interior pchip slope (weighted harmonic mean), as pchipInteriorDerivative with one division. */
+function harmonicSlope(hl: number, hr: number, ml: number, mr: number): number {
+  if ((ml > 0 && mr > 0) || (ml < 0 && mr < 0)) {
+    const w1 = 2 * hr + hl;
+    const w2 = hr + 2 * hl;
+    return ((w1 + w2) * ml * mr) / (w1 * mr + w2 * ml);
+  }
+  return 0;
+}
+
+/** End pchip slope from the three-point slope d (as pchipEndDerivative). */
+function endSlope(d: number, m0: number, m1: number): number {
+  if (Math.sign(d) !== Math.sign(m0)) return 0;
+  if (Math.sign(m0) !== Math.sign(m1) && Math.abs(d) > 3 * Math.abs(m0)) return 3 * m0;
+  return d;
 }

@@ -6,7 +6,7 @@ import { pchipEndDerivative, pchipInteriorDerivative } from "./pchip";
 import type { PreparedGrid } from "./prepare";
 import type { BatchResult, Method } from "./types";
 import { MAX_DEGREE } from "./validate";
-import { W_BUBBLE_POINT_UNKNOWN, W_DEGREE_REDUCED } from "./warnings";
+import { W_BUBBLE_POINT_UNKNOWN, W_DEGREE_REDUCED, W_OVERSHOOT } from "./warnings";
 
 /**
  * The zone of every cell of one axis, for a fixed degree. A cell k has two variants, v = 2k + h, where
@@ -63,10 +63,12 @@ export type NewtonTables = {
   t: AxisVariants;
   /** coef[(vp*M + j)*q + i]: Newton coefficients of column j on pressure variant vp. */
   coef: Float64Array;
-  /** Range of the zone's values, widened by a rounding tolerance, and whether they are monotone. */
+  /**
+   * Range of each zone's values widened by a rounding tolerance, for the overshoot check; −∞/+∞ when the
+   * zone's values do not rise or fall steadily (no overshoot is possible then).
+   */
   zoneLo: Float64Array;
   zoneHi: Float64Array;
-  zoneMonotone: Uint8Array;
   /** invT[(vt*q + l)*q + i] = 1 / (x_i − x_{i−l}) on the ordered temperature nodes of variant vt. */
   invT: Float64Array;
   wp: Float64Array;
@@ -80,6 +82,16 @@ export type NewtonTables = {
 export type PchipTables = {
   d: Float64Array;
   b: Float64Array;
+  /**
+   * Per column j and pressure cell k (N ≥ 3), at ((j*(N−1) + k) * 7): the cell's cubic in powers of
+   * (p − P[k]) — y0, d0, c1, c0 — and the cubic of the difference from the three-point-slope cubic
+   * — g1, g2, g3 (no constant term).
+   */
+  cells: Float64Array;
+  /** Temperature spacings, their reciprocals, and 1/(h[k−1] + h[k]) at node k. */
+  hT: Float64Array;
+  invHT: Float64Array;
+  invSumT: Float64Array;
   r: Float64Array;
   e: Float64Array;
 };
@@ -109,6 +121,19 @@ export type Scratch = {
   idealCol: Int32Array;
 };
 
+/** A fast evaluator of points [from, to) into `out` from index outOffset (see kernels.ts). */
+export type Kernel = (
+  plan: Plan,
+  ps: Float64Array,
+  ts: Float64Array,
+  from: number,
+  to: number,
+  extrapolate: boolean,
+  out: BatchResult,
+  outOffset: number,
+  batch: boolean,
+) => void;
+
 export type Plan = {
   readonly prep: PreparedGrid;
   readonly method: Method;
@@ -125,25 +150,33 @@ export type Plan = {
   readonly singleT: Float64Array;
   /** pchip plan on the same grid, for the value given alongside an overshoot. */
   pchipPlan: Plan | null;
+  /** The fast kernel, or null for the general evaluator; chosen on first use. */
+  kernel: Kernel | null | undefined;
 };
 
 export const STRIDE = MAX_DEGREE + 2;
 
-const plans = new WeakMap<PreparedGrid, Map<string, Plan>>();
-
 export function getPlan(prep: PreparedGrid, method: Method, m: number, n: number): Plan {
-  let map = plans.get(prep);
-  if (!map) {
-    map = new Map();
-    plans.set(prep, map);
-  }
-  const key = method === "pchip" ? "pchip" : `${method}:${m}:${n}`;
-  let plan = map.get(key);
-  if (!plan) {
+  // degrees are 1..MAX_DEGREE (validated), so this is a small dense index
+  const key = method === "pchip" ? 0 : method === "linear" ? 1 : 2 + m * STRIDE + n;
+  let plan = prep.plans[key];
+  if (plan === undefined) {
     plan = buildPlan(prep, method, m, n);
-    map.set(key, plan);
+    prep.plans[key] = plan;
   }
   return plan;
+}
+
+/** The alternatives array of a batch, created on the first overshoot (see `finishAlternatives`). */
+export function alternativesOf(out: BatchResult): Float64Array {
+  return (out.alternatives ??= new Float64Array(out.count));
+}
+
+/** After a range was evaluated: points without an overshoot get their own value as the alternative. */
+export function finishAlternatives(out: BatchResult, from: number, to: number): void {
+  const alt = out.alternatives;
+  if (!alt) return;
+  for (let k = from; k < to; k++) if ((out.warnings[k]! & W_OVERSHOOT) === 0) alt[k] = out.values[k]!;
 }
 
 export function allocateBatch(count: number, withBranches: boolean): BatchResult {
@@ -151,8 +184,8 @@ export function allocateBatch(count: number, withBranches: boolean): BatchResult
     count,
     values: new Float64Array(count),
     errorEstimates: new Float64Array(count),
-    warnings: new Uint16Array(count),
-    alternatives: new Float64Array(count),
+    warnings: new Uint8Array(count),
+    alternatives: null,
     pressureStart: new Int32Array(count),
     pressureCount: new Uint8Array(count),
     temperatureStart: new Int32Array(count),
@@ -210,6 +243,7 @@ function buildPlan(prep: PreparedGrid, method: Method, m: number, n: number): Pl
     singleP: new Float64Array(1),
     singleT: new Float64Array(1),
     pchipPlan: null,
+    kernel: undefined,
   };
 }
 
@@ -221,7 +255,6 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
   const coef = new Float64Array(vpCount * M * p.q);
   const zoneLo = new Float64Array(vpCount * M);
   const zoneHi = new Float64Array(vpCount * M);
-  const zoneMonotone = new Uint8Array(vpCount * M);
   for (let vp = 0; vp < vpCount; vp++) {
     for (let j = 0; j < M; j++) {
       const cb = (vp * M + j) * p.q;
@@ -242,9 +275,8 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
         }
       }
       const tol = overshootTolerance(lo, hi);
-      zoneLo[vp * M + j] = lo - tol;
-      zoneHi[vp * M + j] = hi + tol;
-      zoneMonotone[vp * M + j] = up || down ? 1 : 0;
+      zoneLo[vp * M + j] = up || down ? lo - tol : -Infinity;
+      zoneHi[vp * M + j] = up || down ? hi + tol : Infinity;
     }
   }
   const vtCount = t.order.length / t.q;
@@ -261,7 +293,6 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
     coef,
     zoneLo,
     zoneHi,
-    zoneMonotone,
     invT,
     wp: new Float64Array(p.q),
     wt: new Float64Array(t.q),
@@ -307,5 +338,37 @@ function buildPchipTables(prep: PreparedGrid): PchipTables {
       }
     }
   }
-  return { d, b, r: new Float64Array(M), e: new Float64Array(M) };
+  const cells = new Float64Array(N >= 3 ? M * (N - 1) * 7 : 0);
+  if (N >= 3) {
+    for (let j = 0; j < M; j++) {
+      for (let k = 0; k < N - 1; k++) {
+        const o = j * N + k;
+        const h = P[k + 1]! - P[k]!;
+        const y0 = V[o]!;
+        const slope = (V[o + 1]! - y0) / h;
+        const d0 = d[o]!;
+        const d1 = d[o + 1]!;
+        const e0 = d0 - b[o]!;
+        const e1 = d1 - b[o + 1]!;
+        const c = (j * (N - 1) + k) * 7;
+        cells[c] = y0;
+        cells[c + 1] = d0;
+        cells[c + 2] = (3 * slope - 2 * d0 - d1) / h;
+        cells[c + 3] = (d0 + d1 - 2 * slope) / (h * h);
+        cells[c + 4] = e0;
+        cells[c + 5] = (-2 * e0 - e1) / h;
+        cells[c + 6] = (e0 + e1) / (h * h);
+      }
+    }
+  }
+  const T = prep.T;
+  const hT = new Float64Array(Math.max(1, M - 1));
+  const invHT = new Float64Array(Math.max(1, M - 1));
+  const invSumT = new Float64Array(M);
+  for (let k = 0; k + 1 < M; k++) {
+    hT[k] = T[k + 1]! - T[k]!;
+    invHT[k] = 1 / hT[k]!;
+  }
+  for (let k = 1; k + 1 < M; k++) invSumT[k] = 1 / (hT[k - 1]! + hT[k]!);
+  return { d, b, cells, hT, invHT, invSumT, r: new Float64Array(M), e: new Float64Array(M) };
 }

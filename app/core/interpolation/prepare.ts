@@ -2,6 +2,7 @@
 // Indices are in range by construction.
 import { AxisIndex } from "./axis";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
+import type { Plan } from "./plan";
 import type { Grid } from "./types";
 import { validateGrid } from "./validate";
 
@@ -54,41 +55,36 @@ export type PreparedGrid = {
   readonly bubbleUnknown: boolean;
   /** Index 0: all nodes (no bubble point); 1: saturated branch; 2: undersaturated branch. */
   readonly branches: readonly [BranchNodes, BranchNodes | null, BranchNodes | null];
+  /** Evaluation plans by method and degree (see plan.ts), built on first use. */
+  readonly plans: (Plan | undefined)[];
 };
 
 const cache = new WeakMap<Grid, PreparedGrid>();
+let last: PreparedGrid | null = null;
 
 function refsOf(grid: Grid): unknown[] {
-  return [grid.pressures, grid.temperatures, grid.values, grid.bubblePoints, ...grid.values];
+  return [grid.pressures, grid.temperatures, grid.values, grid.bubblePoints];
 }
 
 /**
- * Validates and prepares a grid, or returns the prepared form cached for this grid object. The cache is
- * checked against the identity of every array in the grid, so replacing an axis, a row or the bubble
- * points is noticed; changing a number inside an existing array is not: treat grids as immutable values.
+ * Validates and prepares a grid, or returns the prepared form cached for this grid object (kept as long
+ * as the grid object lives). The cache notices when the grid's pressures, temperatures, values or
+ * bubblePoints array is replaced by another; it does not notice a number or a row changed inside them.
+ * Treat a grid as an immutable value: to change it, make a new grid object.
  */
 export function prepareGrid(grid: Grid): PreparedGrid {
+  const l = last;
+  if (l !== null && l.source === grid && sameRefs(l.refs, grid)) return l;
   const hit = cache.get(grid);
-  if (hit && sameRefs(hit.refs, grid)) return hit;
+  if (hit && sameRefs(hit.refs, grid)) return (last = hit);
   validateGrid(grid);
   const prepared = buildPrepared(grid);
   cache.set(grid, prepared);
-  return prepared;
+  return (last = prepared);
 }
 
 function sameRefs(refs: readonly unknown[], grid: Grid): boolean {
-  const values = grid.values;
-  if (
-    refs[0] !== grid.pressures ||
-    refs[1] !== grid.temperatures ||
-    refs[2] !== values ||
-    refs[3] !== grid.bubblePoints ||
-    refs.length !== values.length + 4
-  ) {
-    return false;
-  }
-  for (let i = 0; i < values.length; i++) if (refs[i + 4] !== values[i]) return false;
-  return true;
+  return refs[0] === grid.pressures && refs[1] === grid.temperatures && refs[2] === grid.values && refs[3] === grid.bubblePoints;
 }
 
 function buildPrepared(grid: Grid): PreparedGrid {
@@ -132,6 +128,7 @@ function buildPrepared(grid: Grid): PreparedGrid {
     bubble,
     bubbleUnknown,
     branches,
+    plans: [],
   };
 }
 

@@ -57,7 +57,8 @@ export type PointColumns = { pressures: Float64Array; temperatures: Float64Array
  *
  * - `values`, `errorEstimates`: as `Result.value` / `Result.errorEstimate`.
  * - `warnings`: bitmask per point; bits in WARNING_FLAGS, expand with `warningsFromFlags`.
- * - `alternatives`: the pchip value where the `overshoot` bit is set, otherwise equal to `values`.
+ * - `alternatives`: null when no point has the `overshoot` warning; otherwise the pchip value where the
+ *   `overshoot` bit is set and a copy of `values` elsewhere.
  * - `pressureStart`/`pressureCount`, `temperatureStart`/`temperatureCount`: the first grid index and the
  *   span (last − first + 1) of the stencil along each axis. On a complete grid without bubble points this
  *   is exactly the zone of the zone rule. With missing cells or bubble points a column may use its own
@@ -68,8 +69,8 @@ export type BatchResult = {
   count: number;
   values: Float64Array;
   errorEstimates: Float64Array;
-  warnings: Uint16Array;
-  alternatives: Float64Array;
+  warnings: Uint8Array;
+  alternatives: Float64Array | null;
   pressureStart: Int32Array;
   pressureCount: Uint8Array;
   temperatureStart: Int32Array;

@@ -125,7 +125,8 @@ function checkDegree(d: unknown, what: string): number {
   return d;
 }
 
-export function normalizeOptions(options: Options): NormalizedOptions {
+/** Reads and checks options into `into` (reused by callers on the hot path) and returns it. */
+export function normalizeOptions(options: Options, into: NormalizedOptions = { method: "linear", m: 1, n: 1, extrapolate: false }): NormalizedOptions {
   if (typeof options !== "object" || options === null) {
     throw new InterpolationError("invalid-options", "Options are required, e.g. { method: 'newton' }.");
   }
@@ -157,5 +158,9 @@ export function normalizeOptions(options: Options): NormalizedOptions {
     throw new InterpolationError("invalid-options", `extrapolate must be true or false; got ${describeBadNumber(extrapolate)}.`);
   }
   if (method === "linear") m = n = 1;
-  return { method, m, n, extrapolate: extrapolate === true };
+  into.method = method;
+  into.m = m;
+  into.n = n;
+  into.extrapolate = extrapolate === true;
+  return into;
 }
