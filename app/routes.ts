@@ -8,6 +8,7 @@ export default [
     route("compare", "routes/_app/compare/index.tsx"),
     route("tokens", "routes/_app/tokens/index.tsx"),
     route("account", "routes/_app/account/index.tsx"),
+    route("api-docs", "routes/_app/api-docs/index.tsx"),
     ...prefix("admin", [
       route("people", "routes/_app/admin/people/index.tsx"),
       route("audit", "routes/_app/admin/audit/index.tsx"),
@@ -21,5 +22,12 @@ export default [
     route("invitation/:token", "routes/_auth/invitation/$token.tsx"),
   ]),
   route("sign-out", "routes/sign-out.ts"),
-  ...prefix("api", [route("health", "routes/api/health.ts")]),
+  ...prefix("api", [
+    route("health", "routes/api/health.ts"),
+    ...prefix("v1", [
+      route("openapi.json", "routes/api/v1/openapi.ts"),
+      route("samples", "routes/api/v1/samples/index.ts"),
+      route("samples/:sampleId", "routes/api/v1/samples/$sampleId/index.ts"),
+    ]),
+  ]),
 ] satisfies RouteConfig;

@@ -29,6 +29,7 @@ const EnvSchema = z
       .transform((v) => v === "true"),
     MAIL_FROM: z.string().min(3).default("Isopleth <no-reply@isopleth.invalid>"),
     MAIL_CAPTURE_URL: z.url().optional(),
+    API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(6000),
     TRUST_PROXY: z
       .enum(["true", "false"])
       .default("false")

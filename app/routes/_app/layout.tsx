@@ -1,12 +1,13 @@
 import { Form, href, NavLink, Outlet } from "react-router";
 import { requireUser } from "~/.server/auth/guards";
+import { getEnv } from "~/.server/env";
 import { EstimateCaution } from "~/components/estimate-caution";
 import { can, ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/layout";
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requireUser(args);
-  return { user };
+  return { user, mailCapture: !!getEnv().MAIL_CAPTURE_URL };
 }
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
@@ -15,7 +16,7 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
   }`;
 
 export default function AppLayout({ loaderData }: Route.ComponentProps) {
-  const { user } = loaderData;
+  const { user, mailCapture } = loaderData;
   const nav = [
     { to: href("/samples"), label: "Samples" },
     { to: href("/lookup"), label: "Lookup" },
@@ -26,6 +27,7 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
     ? [
         { to: href("/admin/people"), label: "People" },
         { to: href("/admin/audit"), label: "Audit log" },
+        ...(mailCapture ? [{ to: href("/admin/mail"), label: "Captured e-mail" }] : []),
       ]
     : [];
   return (

@@ -154,3 +154,29 @@ export async function countRevisions(sampleId: number, db: Executor = getDb()): 
     .where(eq(sampleRevisions.sampleId, sampleId));
   return Number(row?.n ?? 0);
 }
+
+export async function getRevisionByNumber(sampleId: number, number: number, db: Executor = getDb()) {
+  const [row] = await db
+    .select({ id: sampleRevisions.id, number: sampleRevisions.number, status: sampleRevisions.status, reviewedAt: sampleRevisions.reviewedAt, createdAt: sampleRevisions.createdAt })
+    .from(sampleRevisions)
+    .where(and(eq(sampleRevisions.sampleId, sampleId), eq(sampleRevisions.number, number)));
+  return row ?? null;
+}
+
+/** Grid ids and properties of many revisions at once (for listings). */
+export async function listRevisionProperties(revisionIds: number[], db: Executor = getDb()) {
+  if (revisionIds.length === 0) return [];
+  return db
+    .select({ revisionId: propertyGrids.revisionId, property: propertyGrids.property })
+    .from(propertyGrids)
+    .where(inArray(propertyGrids.revisionId, revisionIds));
+}
+
+export async function listBubblePointsOfRevisions(revisionIds: number[], db: Executor = getDb()) {
+  if (revisionIds.length === 0) return [];
+  return db
+    .select({ revisionId: revisionBubblePoints.revisionId, temperatureF: revisionBubblePoints.temperatureF, bubblePointPsia: revisionBubblePoints.bubblePointPsia })
+    .from(revisionBubblePoints)
+    .where(inArray(revisionBubblePoints.revisionId, revisionIds))
+    .orderBy(asc(revisionBubblePoints.temperatureF));
+}

@@ -49,3 +49,63 @@ export async function countCatalogue(db: Executor = getDb()) {
   const [s] = await db.select({ n: count() }).from(samples);
   return { fields: f?.n ?? 0, wells: w?.n ?? 0, samples: s?.n ?? 0 };
 }
+
+export async function getSampleWithPlace(id: number, db: Executor = getDb()) {
+  const [row] = await db
+    .select({
+      id: samples.id,
+      label: samples.label,
+      sampleType: samples.sampleType,
+      samplingDate: samples.samplingDate,
+      samplingDepthFt: samples.samplingDepthFt,
+      reservoirPressurePsia: samples.reservoirPressurePsia,
+      reservoirTemperatureF: samples.reservoirTemperatureF,
+      stockTankApi: samples.stockTankApi,
+      gasSpecificGravity: samples.gasSpecificGravity,
+      standardPressurePsia: samples.standardPressurePsia,
+      standardTemperatureF: samples.standardTemperatureF,
+      laboratory: samples.laboratory,
+      reportReference: samples.reportReference,
+      notes: samples.notes,
+      wellId: wells.id,
+      wellName: wells.name,
+      fieldId: fields.id,
+      fieldName: fields.name,
+      updatedAt: samples.updatedAt,
+    })
+    .from(samples)
+    .innerJoin(wells, eq(wells.id, samples.wellId))
+    .innerJoin(fields, eq(fields.id, wells.fieldId))
+    .where(eq(samples.id, id));
+  return row ?? null;
+}
+
+/** Every sample with its place and latest approved revision (id and number), for listings and the API. */
+export async function listSamplesWithApproved(db: Executor = getDb()) {
+  const approved = db
+    .select({
+      sampleId: sampleRevisions.sampleId,
+      number: sql<number>`max(${sampleRevisions.number})`.as("approved_number"),
+    })
+    .from(sampleRevisions)
+    .where(eq(sampleRevisions.status, "approved"))
+    .groupBy(sampleRevisions.sampleId)
+    .as("approved");
+  return db
+    .select({
+      id: samples.id,
+      label: samples.label,
+      sampleType: samples.sampleType,
+      fieldId: fields.id,
+      fieldName: fields.name,
+      wellName: wells.name,
+      reservoirPressurePsia: samples.reservoirPressurePsia,
+      reservoirTemperatureF: samples.reservoirTemperatureF,
+      approvedRevision: approved.number,
+    })
+    .from(samples)
+    .innerJoin(wells, eq(wells.id, samples.wellId))
+    .innerJoin(fields, eq(fields.id, wells.fieldId))
+    .leftJoin(approved, eq(approved.sampleId, samples.id))
+    .orderBy(asc(fields.name), asc(wells.name), asc(samples.label));
+}

@@ -1,19 +1,205 @@
-import { requirePermission } from "~/.server/auth/guards";
+import { useState } from "react";
+import { Form, useNavigation } from "react-router";
+import { z } from "zod";
+import { issueApiToken, MAX_TOKEN_LIFETIME_DAYS } from "~/.server/api/tokens";
+import { getCaller, requirePermission } from "~/.server/auth/guards";
+import { getApiTokenOwner, listApiTokens, revokeApiToken } from "~/.server/db/queries/api-tokens";
+import { recordAudit } from "~/.server/db/queries/audit";
+import { listFieldsAndSamples } from "~/.server/db/queries/catalogue";
+import { badRequest } from "~/.server/forms";
+import { Button, FieldError, FormAlert, TextField } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
+import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "API tokens · Isopleth" }];
 
+const CreateSchema = z.object({
+  intent: z.literal("create"),
+  name: z.string().trim().min(1, "Give the token a name, e.g. the model or script that uses it.").max(120),
+  scopes: z.array(z.enum(["tables:read", "lookup"])).min(1, "Choose at least one scope."),
+  fieldIds: z.array(z.coerce.number().int().positive()),
+  sampleIds: z.array(z.coerce.number().int().positive()),
+  expiresInDays: z.coerce.number().int().min(1, "At least one day.").max(MAX_TOKEN_LIFETIME_DAYS, `At most ${MAX_TOKEN_LIFETIME_DAYS} days (one year).`),
+});
+const RevokeSchema = z.object({ intent: z.literal("revoke"), tokenId: z.uuid() });
+
 export async function loader(args: Route.LoaderArgs) {
-  requirePermission(args, "manage:own-tokens");
-  return null;
+  const user = requirePermission(args, "manage:own-tokens");
+  const seeAll = can(user, "revoke:any-token");
+  const [tokens, catalogue] = await Promise.all([listApiTokens(seeAll ? {} : { userId: user.id }), listFieldsAndSamples()]);
+  return { user, seeAll, tokens, ...catalogue, maxDays: MAX_TOKEN_LIFETIME_DAYS };
 }
 
-export default function Tokens() {
+export async function action(args: Route.ActionArgs) {
+  const user = requirePermission(args, "manage:own-tokens");
+  const { ipAddress } = getCaller(args);
+  const form = await args.request.formData();
+  if (form.get("intent") === "revoke") {
+    const parsed = RevokeSchema.safeParse(Object.fromEntries(form));
+    if (!parsed.success) return badRequest({ errors: {}, formError: "That token cannot be found." });
+    const owner = await getApiTokenOwner(parsed.data.tokenId);
+    if (!owner) return badRequest({ errors: {}, formError: "That token cannot be found." });
+    if (owner.userId !== user.id && !can(user, "revoke:any-token")) {
+      throw new Response("You may revoke only your own tokens.", { status: 403 });
+    }
+    if (await revokeApiToken(parsed.data.tokenId, user.id)) {
+      await recordAudit({ action: "api_token_revoked", userId: user.id, apiTokenId: parsed.data.tokenId, entityType: "api_token", entityId: parsed.data.tokenId, details: { owner: owner.userId, name: owner.name }, ipAddress });
+    }
+    return { errors: {}, done: `Token “${owner.name}” is revoked; it stops working on its next request.` };
+  }
+  const parsed = CreateSchema.safeParse({
+    intent: form.get("intent"),
+    name: form.get("name"),
+    scopes: form.getAll("scopes"),
+    fieldIds: form.getAll("fieldIds"),
+    sampleIds: form.getAll("sampleIds"),
+    expiresInDays: form.get("expiresInDays"),
+  });
+  if (!parsed.success) {
+    const errors: Record<string, string[]> = {};
+    for (const issue of parsed.error.issues) (errors[String(issue.path[0])] ??= []).push(issue.message);
+    return badRequest({ errors });
+  }
+  const { name, scopes, fieldIds, sampleIds, expiresInDays } = parsed.data;
+  const restriction = fieldIds.length || sampleIds.length ? { fieldIds, sampleIds } : null;
+  const issued = await issueApiToken({ userId: user.id, name, scopes, restriction, expiresInDays, ipAddress });
+  return { errors: {}, created: { name, token: issued.token, expiresAt: issued.expiresAt.toISOString() } };
+}
+
+export default function Tokens({ loaderData, actionData }: Route.ComponentProps) {
+  const { tokens, fields, samples, seeAll, user, maxDays } = loaderData;
+  const navigation = useNavigation();
+  const errors: Record<string, string[] | undefined> = actionData?.errors ?? {};
+  const created = actionData && "created" in actionData ? actionData.created : null;
+  const done = actionData && "done" in actionData ? actionData.done : null;
+  const [copied, setCopied] = useState(false);
   return (
-    <PageHeader title="API tokens">
-      Tokens let a reservoir simulator or a script pull approved tables without a person in the loop. Token
-      management is being built.
-    </PageHeader>
+    <>
+      <PageHeader title="API tokens">
+        A token lets a reservoir simulator or a script read approved tables and run lookups through the API without a
+        person signing in. It is shown once; keep it like a password. See the <a className="text-accent underline" href="/api-docs">API documentation</a>.
+      </PageHeader>
+      <FormAlert message={done} tone="ok" />
+      {created ? (
+        <section className="mb-6 rounded-lg border border-accent bg-accent-soft p-5" aria-labelledby="new-token">
+          <h2 id="new-token" className="font-semibold text-accent-strong">
+            Token “{created.name}” created — copy it now, it will not be shown again
+          </h2>
+          <textarea readOnly aria-label="New token" className="mt-2 h-24 w-full rounded border border-line bg-panel p-2 font-mono text-xs break-all" value={created.token} />
+          <div className="mt-2 flex items-center gap-3 text-sm">
+            <Button type="button" variant="secondary" onClick={() => void navigator.clipboard.writeText(created.token).then(() => setCopied(true))}>
+              {copied ? "Copied" : "Copy token"}
+            </Button>
+            <span className="text-ink-muted">Expires {created.expiresAt.slice(0, 10)}. Send it as <code>Authorization: Bearer …</code>.</span>
+          </div>
+        </section>
+      ) : null}
+      <section className="rounded-lg border border-line bg-panel p-5">
+        <h2 className="font-semibold">New token</h2>
+        <Form method="post" className="mt-3 grid gap-4 md:grid-cols-2">
+          <input type="hidden" name="intent" value="create" />
+          <TextField label="Name" name="name" required errors={errors.name} hint="What will use it, e.g. “Calder full-field model”." />
+          <TextField label="Expires after (days)" name="expiresInDays" type="number" min={1} max={maxDays} defaultValue={90} required errors={errors.expiresInDays} hint={`At most ${maxDays} days.`} />
+          <fieldset>
+            <legend className="text-sm font-semibold">Scopes</legend>
+            <label className="mt-1 flex items-center gap-2 text-sm">
+              <input type="checkbox" name="scopes" value="tables:read" defaultChecked /> Read samples, grids and resampled tables (<code>tables:read</code>)
+            </label>
+            <label className="mt-1 flex items-center gap-2 text-sm">
+              <input type="checkbox" name="scopes" value="lookup" defaultChecked /> Run lookups (<code>lookup</code>)
+            </label>
+            <FieldError errors={errors.scopes} />
+          </fieldset>
+          <fieldset>
+            <legend className="text-sm font-semibold">Restrict to (optional)</legend>
+            <p className="text-xs text-ink-muted">Leave both empty for every sample you may read.</p>
+            <div className="mt-1 grid grid-cols-2 gap-2">
+              <label className="text-sm">
+                Fields
+                <select name="fieldIds" multiple className="mt-1 block h-24 w-full rounded border border-line text-sm">
+                  {fields.map((f) => (
+                    <option key={f.id} value={f.id}>
+                      {f.name}
+                    </option>
+                  ))}
+                </select>
+              </label>
+              <label className="text-sm">
+                Samples
+                <select name="sampleIds" multiple className="mt-1 block h-24 w-full rounded border border-line text-sm">
+                  {samples.map((s) => (
+                    <option key={s.id} value={s.id}>
+                      {s.label}
+                    </option>
+                  ))}
+                </select>
+              </label>
+            </div>
+          </fieldset>
+          <div className="md:col-span-2">
+            <Button type="submit" disabled={navigation.state === "submitting"}>
+              Create token
+            </Button>
+          </div>
+        </Form>
+      </section>
+      <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
+        <table className="w-full text-sm">
+          <caption className="sr-only">{seeAll ? "All API tokens" : "Your API tokens"}</caption>
+          <thead className="bg-surface text-left text-ink-muted">
+            <tr>
+              <th className="px-3 py-2 font-semibold">Name</th>
+              {seeAll ? <th className="px-3 py-2 font-semibold">Owner</th> : null}
+              <th className="px-3 py-2 font-semibold">Scopes</th>
+              <th className="px-3 py-2 font-semibold">Restricted to</th>
+              <th className="px-3 py-2 font-semibold">Expires</th>
+              <th className="px-3 py-2 font-semibold">Last used</th>
+              <th className="px-3 py-2 font-semibold">Status</th>
+              <th className="px-3 py-2">
+                <span className="sr-only">Actions</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {tokens.map((t) => {
+              const expired = new Date(t.expiresAt).getTime() < Date.now();
+              const restricted = [
+                ...(t.restriction?.fieldIds ?? []).map((id) => fields.find((f) => f.id === id)?.name ?? `field ${id}`),
+                ...(t.restriction?.sampleIds ?? []).map((id) => samples.find((s) => s.id === id)?.label ?? `sample ${id}`),
+              ];
+              return (
+                <tr key={t.id} className="border-t border-line">
+                  <td className="px-3 py-2 font-semibold">{t.name}</td>
+                  {seeAll ? <td className="px-3 py-2">{t.ownerEmail}</td> : null}
+                  <td className="px-3 py-2 font-mono text-xs">{t.scopes.join(" ")}</td>
+                  <td className="px-3 py-2">{restricted.length ? restricted.join(", ") : "everything readable"}</td>
+                  <td className="px-3 py-2 tabular-nums">{new Date(t.expiresAt).toISOString().slice(0, 10)}</td>
+                  <td className="px-3 py-2 tabular-nums">{t.lastUsedAt ? new Date(t.lastUsedAt).toISOString().replace("T", " ").slice(0, 16) : "never"}</td>
+                  <td className="px-3 py-2">{t.revokedAt ? <span className="text-danger">Revoked</span> : expired ? "Expired" : "Active"}</td>
+                  <td className="px-3 py-2 text-right">
+                    {!t.revokedAt && (t.userId === user.id || seeAll) ? (
+                      <Form method="post">
+                        <input type="hidden" name="tokenId" value={t.id} />
+                        <Button type="submit" name="intent" value="revoke" variant="danger" className="px-2 py-1" aria-label={`Revoke ${t.name}`}>
+                          Revoke
+                        </Button>
+                      </Form>
+                    ) : null}
+                  </td>
+                </tr>
+              );
+            })}
+            {tokens.length === 0 ? (
+              <tr>
+                <td colSpan={8} className="px-3 py-6 text-center text-ink-muted">
+                  No tokens yet.
+                </td>
+              </tr>
+            ) : null}
+          </tbody>
+        </table>
+      </div>
+    </>
   );
 }

@@ -1,0 +1,75 @@
+import { getSampleWithPlace, listSamplesWithApproved } from "~/.server/db/queries/samples";
+import { listBubblePointsOfRevisions, listRevisionProperties } from "~/.server/db/queries/revisions";
+import { getCurrentApprovedRevision } from "~/.server/db/queries/revisions";
+import { problem } from "~/.server/http";
+import { getRevisionData, resolveRevision, type RevisionData } from "~/.server/samples/revision-data";
+import type { PropertyKey } from "~/core/units";
+import { callerMayReadSample, type ApiCaller } from "./caller";
+import { toOutputPressure, toOutputTemperature, toOutputValue, unitLabel, type OutputSystem } from "./units";
+
+const round = (v: number, digits = 10) => Number(v.toPrecision(digits));
+
+export async function listSamplesForCaller(caller: ApiCaller, system: OutputSystem) {
+  const all = (await listSamplesWithApproved()).filter((s) => callerMayReadSample(caller, { id: s.id, fieldId: s.fieldId }));
+  const revisionIds = new Map<number, number>();
+  for (const s of all) {
+    if (s.approvedRevision === null) continue;
+    const r = await getCurrentApprovedRevision(s.id);
+    if (r) revisionIds.set(s.id, r.id);
+  }
+  const ids = [...revisionIds.values()];
+  const [props, bubbles] = await Promise.all([listRevisionProperties(ids), listBubblePointsOfRevisions(ids)]);
+  return all.map((s) => {
+    const rid = revisionIds.get(s.id);
+    const own = bubbles.filter((b) => b.revisionId === rid);
+    const nearest = s.reservoirTemperatureF === null ? own[own.length - 1] : own.slice().sort((a, b) => Math.abs(a.temperatureF - s.reservoirTemperatureF!) - Math.abs(b.temperatureF - s.reservoirTemperatureF!))[0];
+    return {
+      id: s.id,
+      label: s.label,
+      field: s.fieldName,
+      well: s.wellName,
+      sampleType: s.sampleType,
+      reservoirTemperature: s.reservoirTemperatureF === null ? null : round(toOutputTemperature(s.reservoirTemperatureF, system)),
+      reservoirPressure: s.reservoirPressurePsia === null ? null : round(toOutputPressure(s.reservoirPressurePsia, system)),
+      bubblePoint: nearest ? round(toOutputPressure(nearest.bubblePointPsia, system)) : null,
+      approvedRevision: s.approvedRevision === null ? null : Number(s.approvedRevision),
+      properties: props.filter((p) => p.revisionId === rid).map((p) => p.property as PropertyKey),
+    };
+  });
+}
+
+/** The sample the caller asked for, or a thrown 404/403 problem. */
+export async function requireSampleForCaller(caller: ApiCaller, sampleId: number) {
+  const sample = await getSampleWithPlace(sampleId);
+  if (!sample) throw problem(404, "sample_not_found", `There is no sample ${sampleId}.`);
+  if (!callerMayReadSample(caller, { id: sample.id, fieldId: sample.fieldId })) {
+    throw problem(403, "outside_restriction", `This token is restricted to other samples or fields than sample ${sampleId}.`);
+  }
+  return sample;
+}
+
+/** The revision's data, or a thrown 404 problem (no approved revision, or no such revision number). */
+export async function requireRevisionData(sampleId: number, number?: number): Promise<RevisionData> {
+  const revision = await resolveRevision(sampleId, number);
+  if (!revision) {
+    throw number === undefined
+      ? problem(404, "no_approved_revision", `Sample ${sampleId} has no approved revision yet.`)
+      : problem(404, "revision_not_found", `Sample ${sampleId} has no revision ${number}.`);
+  }
+  return getRevisionData(revision);
+}
+
+export function gridsForOutput(data: RevisionData, system: OutputSystem) {
+  return Object.entries(data.grids).map(([key, grid]) => {
+    const property = key as PropertyKey;
+    return {
+      property,
+      unit: unitLabel(system, property),
+      laboratoryUnit: grid.sourceUnit,
+      pressures: grid.pressures.map((p) => round(toOutputPressure(p, system))),
+      temperatures: grid.temperatures.map((t) => round(toOutputTemperature(t, system))),
+      values: grid.values.map((row) => row.map((v) => (v === null ? null : round(toOutputValue(v, property, system))))),
+      ...(grid.bubblePoints ? { bubblePoints: grid.bubblePoints.map((b) => (b === null ? null : round(toOutputPressure(b, system)))) } : {}),
+    };
+  });
+}

@@ -1,0 +1,142 @@
+import { extendZodWithOpenApi, OpenAPIRegistry } from "@asteasolutions/zod-to-openapi";
+import { z } from "zod";
+import { PROPERTY_KEYS } from "~/core/units";
+
+extendZodWithOpenApi(z);
+
+/** The zod schemas of the /api/v1 boundary; the OpenAPI document is generated from them (openapi.ts). */
+export const registry = new OpenAPIRegistry();
+
+export const UnitsParam = z.enum(["field", "metric"]).default("field").openapi({
+  description: "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
+});
+export const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
+  description: "oil_fvf (Bo), solution_gor (Rs), oil_viscosity, oil_density, gas_fvf (Bg), gas_viscosity, z_factor",
+});
+export const MethodSchema = z.enum(["auto", "newton", "pchip", "linear"]).openapi("Method", {
+  description: "auto = Newton divided differences of the given degree (default [3,3]), with the shape-preserving pchip value wherever Newton overshoots the data.",
+});
+const Degree = z
+  .union([z.number().int().min(1).max(6), z.tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])])
+  .openapi({ description: "Polynomial degree for newton: one number, or [along pressure, along temperature]. Default 3." });
+
+export const SampleIdParams = z.object({ sampleId: z.coerce.number().int().positive().openapi({ example: 1 }) });
+
+export const SampleQuery = z.object({
+  revision: z.coerce.number().int().positive().optional().openapi({ description: "Revision number; default the latest approved one." }),
+  units: UnitsParam,
+});
+
+export const MAX_LOOKUP_POINTS = 100_000;
+export const LookupBody = z
+  .object({
+    property: PropertyKeySchema,
+    points: z
+      .array(z.object({ pressure: z.number().finite(), temperature: z.number().finite() }).strict())
+      .min(1)
+      .max(MAX_LOOKUP_POINTS)
+      .openapi({ description: "Conditions in the chosen unit system (pressure absolute)." }),
+    method: MethodSchema.default("auto"),
+    degree: Degree.optional(),
+    units: UnitsParam,
+    extrapolate: z.boolean().default(false).openapi({ description: "Allow points outside the measured range; they are flagged `extrapolated`." }),
+    revision: z.number().int().positive().optional().openapi({ description: "Revision number; default the latest approved one." }),
+  })
+  .strict()
+  .openapi("LookupRequest");
+export type LookupBody = z.infer<typeof LookupBody>;
+
+const StencilSchema = z.object({
+  pressure: z.array(z.number()).openapi({ description: "Measured pressures of the data zone used (output units)." }),
+  temperature: z.array(z.number()).openapi({ description: "Measured temperatures of the data zone used (output units)." }),
+});
+
+export const LookupResultSchema = z
+  .object({
+    value: z.number(),
+    errorEstimate: z.number().openapi({ description: "Estimated interpolation error (same unit as value), never zero; see the engine's documentation." }),
+    warnings: z.array(z.string()).openapi({ description: "Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells." }),
+    method: z.string().openapi({ description: "Method that produced this value." }),
+    stencil: StencilSchema,
+    branch: z.enum(["saturated", "undersaturated"]).optional(),
+    bubblePointPressure: z.number().optional(),
+  })
+  .openapi("LookupResult");
+
+export const LookupResponse = z
+  .object({
+    sampleId: z.number(),
+    revision: z.number(),
+    property: PropertyKeySchema,
+    method: MethodSchema,
+    units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string(), value: z.string() }),
+    results: z.array(LookupResultSchema),
+  })
+  .openapi("LookupResponse");
+
+export const TableQuery = z.object({
+  temperature: z.coerce.number().finite().openapi({ example: 212, description: "Temperature of the table (°F field, °C metric)." }),
+  pressures: z.string().min(1).openapi({ example: "500:5000:250", description: "A list `a,b,c` or `start:stop:step` (absolute pressure)." }),
+  units: UnitsParam,
+  format: z.enum(["json", "csv", "text"]).default("json"),
+  method: MethodSchema.default("auto"),
+  revision: z.coerce.number().int().positive().optional(),
+  extrapolate: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+});
+
+export const ProblemSchema = z
+  .object({
+    type: z.string(),
+    title: z.string(),
+    status: z.number(),
+    detail: z.string(),
+    code: z.string(),
+    issues: z.array(z.object({ path: z.array(z.union([z.string(), z.number()])), message: z.string() })).optional(),
+  })
+  .openapi("Problem", { description: "RFC 9457 problem details (application/problem+json)." });
+
+export const SampleSummarySchema = z
+  .object({
+    id: z.number(),
+    label: z.string(),
+    field: z.string(),
+    well: z.string(),
+    sampleType: z.string(),
+    reservoirTemperature: z.number().nullable(),
+    reservoirPressure: z.number().nullable(),
+    bubblePoint: z.number().nullable().openapi({ description: "Bubble point at (or nearest measured to) the reservoir temperature." }),
+    approvedRevision: z.number().nullable(),
+    properties: z.array(PropertyKeySchema),
+  })
+  .openapi("SampleSummary");
+
+export const SampleListResponse = z
+  .object({ units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string() }), samples: z.array(SampleSummarySchema) })
+  .openapi("SampleList");
+
+export const GridSchema = z
+  .object({
+    property: PropertyKeySchema,
+    unit: z.string(),
+    laboratoryUnit: z.string().nullable(),
+    pressures: z.array(z.number()),
+    temperatures: z.array(z.number()),
+    values: z.array(z.array(z.number().nullable())).openapi({ description: "values[i][j] at pressures[i], temperatures[j]; null = not measured." }),
+    bubblePoints: z.array(z.number().nullable()).optional(),
+  })
+  .openapi("Grid");
+
+export const SampleDetailResponse = z
+  .object({
+    sample: z.record(z.string(), z.unknown()),
+    revision: z.object({ number: z.number(), status: z.string() }),
+    units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string() }),
+    bubblePoints: z.array(z.object({ temperature: z.number(), pressure: z.number() })),
+    grids: z.array(GridSchema),
+  })
+  .openapi("SampleDetail");
+
+/** zod issues → the `issues` member of a 400 problem. */
+export function zodIssues(error: z.ZodError) {
+  return error.issues.map((i) => ({ path: i.path.map((p) => (typeof p === "symbol" ? String(p) : p)), message: i.message }));
+}

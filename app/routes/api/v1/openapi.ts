@@ -1,0 +1,9 @@
+import { openApiDocument } from "~/.server/api/openapi";
+import { json } from "~/.server/api/respond";
+import { getEnv } from "~/.server/env";
+import type { Route } from "./+types/openapi";
+
+/** GET /api/v1/openapi.json — the OpenAPI 3.1 description, generated from the zod schemas. Public. */
+export async function loader({ request }: Route.LoaderArgs) {
+  return json(request, openApiDocument(getEnv().APP_BASE_URL));
+}
