@@ -2,12 +2,13 @@
  * Rule smooth-fit-outlier: a value that stands off a smooth curve through its neighbours on the same
  * branch. For each interior point, a quadratic is fitted by least squares to up to two neighbours on each
  * side (three or four points, the point itself left out) in a transformed coordinate (1/Bg, ln μ, or the
- * value), and the prediction at the point is compared with the value. A point is flagged when it is off by
- * more than the property's tolerance AND by more than three times the disagreement between that quadratic
- * and a straight line through the two nearest neighbours (so that coarse, strongly curved data — such as
- * the last step of a differential liberation down to atmospheric pressure — are not flagged). The worst
- * point is flagged first and left out before looking again.
- */
+ * value), and its prediction at the point is compared with the value. A point is flagged when
+ *   - it is off the prediction by more than the property's tolerance, and
+ *   - it is a local spike: the curvature (second divided difference) at the point has the opposite sign to
+ *     the curvature at each neighbouring point, in the direction of the departure.
+ * The second condition keeps coarse but smooth, strongly curved data — such as the last step of a
+ * differential liberation down to atmospheric pressure — from being flagged. The worst point is flagged
+ * first and left out before looking again. */
 
 export interface FitPoint {
   readonly x: number;
@@ -88,6 +89,31 @@ function neighbours(kept: readonly number[], position: number): number[] {
   return [...l, ...r];
 }
 
+/** Second divided difference of y at kept position pos (needs a neighbour each side). */
+function curvature(kept: readonly number[], pos: number, xs: readonly number[], ys: readonly number[]): number | null {
+  const a = kept[pos - 1];
+  const b = kept[pos];
+  const c = kept[pos + 1];
+  if (a === undefined || b === undefined || c === undefined) return null;
+  const [xa, xb, xc] = [xs[a] ?? 0, xs[b] ?? 0, xs[c] ?? 0];
+  const [ya, yb, yc] = [ys[a] ?? 0, ys[b] ?? 0, ys[c] ?? 0];
+  const left = (yb - ya) / (xb - xa || 1);
+  const right = (yc - yb) / (xc - xb || 1);
+  return (right - left) / (xc - xa || 1);
+}
+
+/**
+ * A spike of sign s (+1 above the curve, −1 below): curvature at the point of sign −s, and at every
+ * neighbouring point that has a curvature, of sign s.
+ */
+function isSpike(kept: readonly number[], pos: number, xs: readonly number[], ys: readonly number[], s: number): boolean {
+  if (s === 0) return false;
+  const here = curvature(kept, pos, xs, ys);
+  if (here === null || Math.sign(here) !== -s) return false;
+  const around = [curvature(kept, pos - 1, xs, ys), curvature(kept, pos + 1, xs, ys)].filter((c): c is number => c !== null);
+  return around.length > 0 && around.every((c) => Math.sign(c) === s);
+}
+
 /**
  * Flag outliers in a series sorted by x (values must be valid for the transform: > 0 for LOG/RECIPROCAL).
  * `tolerance(value)` is the largest acceptable |value − expected| in value units.
@@ -113,18 +139,13 @@ export function findOutliers(
       if (around.length < 3) continue;
       const x0 = xs[i] ?? 0;
       const fit = quadraticAt(around.map((k) => ({ x: xs[k] ?? 0, y: ys[k] ?? 0 })), x0);
-      const left = kept[pos - 1] ?? 0;
-      const right = kept[pos + 1] ?? 0;
-      const xl = xs[left] ?? 0;
-      const xr = xs[right] ?? 0;
-      const line = (ys[left] ?? 0) + (((ys[right] ?? 0) - (ys[left] ?? 0)) * (x0 - xl)) / (xr - xl || 1);
       if (fit === null) continue;
       const expected = transform.inverse(fit);
       const value = values[i] ?? 0;
       const off = Math.abs(value - expected);
-      const shape = Math.abs(expected - transform.inverse(line));
-      const allowed = Math.max(tolerance(expected), 3 * shape);
+      const allowed = tolerance(expected);
       if (!(off > allowed)) continue;
+      if (!isSpike(kept, pos, xs, ys, Math.sign(transform.forward(value) - fit))) continue;
       const score = off / allowed;
       if (!worst || score > worst.score) {
         worst = { index: i, expected, deviation: expected !== 0 ? (value - expected) / Math.abs(expected) : 0, score, position: pos };

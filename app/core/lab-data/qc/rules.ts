@@ -67,6 +67,11 @@ export const RULES = {
     severities: ["warning"],
     source: "Oil viscosity falls strongly with temperature (Beggs & Robinson, JPT 1975).",
   },
+  "oil-density-undersaturated-rising": {
+    title: "Oil density rises with pressure above the bubble point",
+    severities: ["warning"],
+    source: "Above pb the oil mass is fixed and its volume shrinks, so ρo ∝ 1/Bo rises with pressure (McCain 1990).",
+  },
   "gas-viscosity-rising": {
     title: "Gas viscosity rises with pressure",
     severities: ["warning"],

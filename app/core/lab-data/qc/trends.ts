@@ -1,7 +1,8 @@
 /**
  * Trend rules, per temperature and split at the bubble point:
  *   rs-saturated-rising, rs-undersaturated-flat, bo-saturated-rising, bo-undersaturated-falling, bg-falling,
- *   oil-viscosity-saturated-falling, oil-viscosity-undersaturated-rising, gas-viscosity-rising,
+ *   oil-viscosity-saturated-falling, oil-viscosity-undersaturated-rising, oil-density-undersaturated-rising,
+ *   gas-viscosity-rising,
  *   oil-viscosity-temperature, bubble-point-temperature, undersaturated-compressibility.
  */
 import type { PropertyKey } from "../../units";
@@ -85,6 +86,15 @@ const TREND_RULES: readonly TrendRule[] = [
     expectation: "above the bubble point oil viscosity should rise with pressure",
   },
   {
+    rule: "oil-density-undersaturated-rising",
+    code: "OIL_DENSITY_NOT_RISING_ABOVE_PB",
+    severity: "warning",
+    property: "oil_density",
+    branch: "undersaturated",
+    direction: "rising",
+    expectation: "above the bubble point the oil is only compressed, so its density should rise with pressure",
+  },
+  {
     rule: "gas-viscosity-rising",
     code: "GAS_VISCOSITY_NOT_RISING",
     severity: "warning",
@@ -163,13 +173,20 @@ function checkRsFlat(ctx: QcContext, t: number, bubble: BubbleAt): void {
   );
 }
 
-/** undersaturated-compressibility: co from successive Bo above pb within 2–60 × 10⁻⁶ 1/psi. */
+/** Shortest pressure step (psi) over which co is computed; shorter steps are merged, so reading noise is not amplified. */
+export const MIN_COMPRESSIBILITY_STEP = 250;
+
+/** undersaturated-compressibility: co from Bo above pb, over steps of at least 250 psi, within 2–60 × 10⁻⁶ 1/psi. */
 function checkUndersaturatedCompressibility(ctx: QcContext, t: number, bubble: BubbleAt): void {
   if (bubble.lowerBound) return;
   const under = branchOf(ctx.series("oil_fvf", t), bubble, "undersaturated");
-  for (let i = 1; i < under.length; i++) {
-    const a = under[i - 1];
-    const b = under[i];
+  let i = 0;
+  while (i < under.length - 1) {
+    const a = under[i];
+    let k = i + 1;
+    while (k < under.length - 1 && (under[k]?.pressure ?? 0) - (a?.pressure ?? 0) < MIN_COMPRESSIBILITY_STEP) k++;
+    const b = under[k];
+    i = k;
     if (!a || !b || !(a.value > 0) || !(b.value > 0)) continue;
     const co = -Math.log(b.value / a.value) / (b.pressure - a.pressure);
     if (co <= 0) continue; // Bo rising: reported by bo-undersaturated-falling.
