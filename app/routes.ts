@@ -3,7 +3,15 @@ import { type RouteConfig, index, layout, prefix, route } from "@react-router/de
 export default [
   layout("routes/_app/layout.tsx", [
     index("routes/_app/index.tsx"),
-    route("samples", "routes/_app/samples/index.tsx"),
+    ...prefix("samples", [
+      index("routes/_app/samples/index.tsx"),
+      route("new", "routes/_app/samples/new.tsx"),
+      route(":sampleId", "routes/_app/samples/$sampleId/index.tsx"),
+      route(":sampleId/edit", "routes/_app/samples/$sampleId/edit.tsx"),
+      route(":sampleId/upload", "routes/_app/samples/$sampleId/upload.tsx"),
+      route(":sampleId/revisions/:number", "routes/_app/samples/$sampleId/revisions/$number.tsx"),
+      route(":sampleId/diff", "routes/_app/samples/$sampleId/diff.tsx"),
+    ]),
     route("lookup", "routes/_app/lookup/index.tsx"),
     route("compare", "routes/_app/compare/index.tsx"),
     route("tokens", "routes/_app/tokens/index.tsx"),
@@ -22,6 +30,7 @@ export default [
     route("invitation/:token", "routes/_auth/invitation/$token.tsx"),
   ]),
   route("sign-out", "routes/sign-out.ts"),
+  route("templates/:file", "routes/templates/$file.ts"),
   ...prefix("api", [
     route("health", "routes/api/health.ts"),
     ...prefix("v1", [

@@ -1,6 +1,11 @@
 import type { RouteConfigEntry } from "@react-router/dev/routes";
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import routes from "../../app/routes";
+import { CORE_RULES } from "../support/access-rules/core";
+import { API_RULES } from "../support/access-rules/api";
+import { LOOKUP_RULES } from "../support/access-rules/lookup";
+import { SAMPLE_RULES } from "../support/access-rules/samples";
+import type { Rule } from "../support/access-rules/types";
 import { apiContextFor, type DemoRole } from "../support/e2e";
 
 /*
@@ -12,42 +17,7 @@ type Who = "anonymous" | DemoRole;
 const ROLES: DemoRole[] = ["viewer", "engineer", "lab_lead", "admin"];
 const EVERYONE: Who[] = ["anonymous", ...ROLES];
 
-type Rule =
-  | { kind: "layout" }
-  | { kind: "public"; path: string }
-  | { kind: "signed-out-only"; path: string }
-  | { kind: "page"; path: string; allowed: DemoRole[]; post?: { allowed: DemoRole[]; form: Record<string, string> } }
-  | { kind: "api"; path: string; allowed: DemoRole[] | "public" }
-  | { kind: "post-only"; path: string };
-
-const ALL = ROLES;
-const ENGINEER_UP: DemoRole[] = ["engineer", "lab_lead", "admin"];
-const ADMIN: DemoRole[] = ["admin"];
-
-const RULES: Record<string, Rule> = {
-  "routes/_app/layout.tsx": { kind: "layout" },
-  "routes/_auth/layout.tsx": { kind: "layout" },
-  "routes/_app/index.tsx": { kind: "page", path: "/", allowed: ALL },
-  "routes/_app/samples/index.tsx": { kind: "page", path: "/samples", allowed: ALL },
-  "routes/_app/lookup/index.tsx": { kind: "page", path: "/lookup", allowed: ALL },
-  "routes/_app/compare/index.tsx": { kind: "page", path: "/compare", allowed: ALL },
-  "routes/_app/tokens/index.tsx": { kind: "page", path: "/tokens", allowed: ENGINEER_UP },
-  "routes/_app/account/index.tsx": { kind: "page", path: "/account", allowed: ALL },
-  "routes/_app/admin/people/index.tsx": {
-    kind: "page",
-    path: "/admin/people",
-    allowed: ADMIN,
-    post: { allowed: ADMIN, form: { intent: "invite", email: "not-an-email", role: "viewer" } },
-  },
-  "routes/_app/admin/audit/index.tsx": { kind: "page", path: "/admin/audit", allowed: ADMIN },
-  "routes/_app/admin/mail/index.tsx": { kind: "page", path: "/admin/mail", allowed: ADMIN },
-  "routes/_auth/sign-in/index.tsx": { kind: "signed-out-only", path: "/sign-in" },
-  "routes/_auth/forgot-password/index.tsx": { kind: "signed-out-only", path: "/forgot-password" },
-  "routes/_auth/reset-password/$token.tsx": { kind: "public", path: "/reset-password/not-a-real-token" },
-  "routes/_auth/invitation/$token.tsx": { kind: "public", path: "/invitation/not-a-real-token" },
-  "routes/sign-out.ts": { kind: "post-only", path: "/sign-out" },
-  "routes/api/health.ts": { kind: "api", path: "/api/health", allowed: "public" },
-};
+const RULES: Record<string, Rule> = { ...CORE_RULES, ...SAMPLE_RULES, ...LOOKUP_RULES, ...API_RULES };
 
 function flatten(entries: RouteConfigEntry[]): string[] {
   return entries.flatMap((e) => [e.file, ...flatten(e.children ?? [])]);

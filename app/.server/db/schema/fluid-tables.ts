@@ -170,3 +170,63 @@ export type NewSample = typeof samples.$inferInsert;
 export type SampleRevision = typeof sampleRevisions.$inferSelect;
 export type PropertyGrid = typeof propertyGrids.$inferSelect;
 export type GridPoint = typeof gridPoints.$inferSelect;
+
+/** People who asked to be told by e-mail when a sample gets a newly approved revision. */
+export const sampleFollows = mysqlTable(
+  "sample_follows",
+  {
+    id: id(),
+    sampleId: ref("sample_id")
+      .notNull()
+      .references(() => samples.id, { onDelete: "cascade" }),
+    userId: ref("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("sample_follows_sample_id_user_id_unique").on(t.sampleId, t.userId)],
+);
+
+/** A named set of conditions (e.g. a well's depletion path) that an engineer re-runs against a sample. */
+export const lookupSets = mysqlTable(
+  "lookup_sets",
+  {
+    id: id(),
+    userId: ref("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    sampleId: ref("sample_id")
+      .notNull()
+      .references(() => samples.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 120 }).notNull(),
+    properties: json("properties").$type<PropertyKey[]>().notNull(),
+    /** Conditions in canonical units (psia, °F). */
+    conditions: json("conditions").$type<{ pressurePsia: number; temperatureF: number }[]>().notNull(),
+    method: varchar("method", { length: 16 }).notNull(),
+    degree: json("degree").$type<number | [number, number] | null>(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("lookup_sets_user_id_idx").on(t.userId)],
+);
+
+/** One run of a lookup set: which revision and method produced which values (canonical units). */
+export const lookupRuns = mysqlTable(
+  "lookup_runs",
+  {
+    id: id(),
+    setId: ref("set_id")
+      .notNull()
+      .references(() => lookupSets.id, { onDelete: "cascade" }),
+    revisionId: ref("revision_id").references(() => sampleRevisions.id, { onDelete: "set null" }),
+    revisionNumber: int("revision_number", { unsigned: true }).notNull(),
+    method: varchar("method", { length: 16 }).notNull(),
+    results: json("results").$type<Record<string, { value: number; errorEstimate: number; warnings: string[] }[]>>().notNull(),
+    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("lookup_runs_set_id_idx").on(t.setId)],
+);
+
+export type LookupSet = typeof lookupSets.$inferSelect;
+export type LookupRun = typeof lookupRuns.$inferSelect;

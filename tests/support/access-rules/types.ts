@@ -1,0 +1,14 @@
+/** Access rule of one route module, for the authorization matrix (tests/e2e/access-matrix.spec.ts). */
+export type DemoRoleName = "viewer" | "engineer" | "lab_lead" | "admin";
+export type Rule =
+  | { kind: "layout" }
+  | { kind: "public"; path: string }
+  | { kind: "signed-out-only"; path: string }
+  | { kind: "page"; path: string; allowed: DemoRoleName[]; post?: { allowed: DemoRoleName[]; form: Record<string, string> } }
+  | { kind: "api"; path: string; allowed: DemoRoleName[] | "public"; method?: "GET" | "POST"; body?: unknown; okStatus?: number }
+  | { kind: "post-only"; path: string };
+
+export const ALL: DemoRoleName[] = ["viewer", "engineer", "lab_lead", "admin"];
+export const ENGINEER_UP: DemoRoleName[] = ["engineer", "lab_lead", "admin"];
+export const LAB_LEAD_UP: DemoRoleName[] = ["lab_lead", "admin"];
+export const ADMIN: DemoRoleName[] = ["admin"];
