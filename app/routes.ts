@@ -37,6 +37,7 @@ export default [
       route("openapi.json", "routes/api/v1/openapi.ts"),
       route("samples", "routes/api/v1/samples/index.ts"),
       route("samples/:sampleId", "routes/api/v1/samples/$sampleId/index.ts"),
+      route("samples/:sampleId/lookup", "routes/api/v1/samples/$sampleId/lookup.ts"),
     ]),
   ]),
 ] satisfies RouteConfig;

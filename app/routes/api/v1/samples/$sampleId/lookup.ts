@@ -1,0 +1,24 @@
+import { readJsonBody } from "~/.server/api/body";
+import { requireApiCaller } from "~/.server/api/caller";
+import { lookupResponse } from "~/.server/api/lookup";
+import { LookupBody, SampleIdParams, zodIssues } from "~/.server/api/schemas";
+import { requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
+import { problem } from "~/.server/http";
+import type { Route } from "./+types/lookup";
+
+/** POST /api/v1/samples/:sampleId/lookup — interpolate one property at up to 100,000 conditions. */
+export async function action(args: Route.ActionArgs) {
+  if (args.request.method !== "POST") return problem(405, "method_not_allowed", "Use POST.", { headers: { Allow: "POST" } });
+  const caller = await requireApiCaller(args, "lookup");
+  const params = SampleIdParams.safeParse(args.params);
+  if (!params.success) return problem(400, "invalid_path", "The sample id must be a positive whole number.", { issues: zodIssues(params.error) });
+  const body = LookupBody.safeParse(await readJsonBody(args.request));
+  if (!body.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: zodIssues(body.error) });
+  const sample = await requireSampleForCaller(caller, params.data.sampleId);
+  const data = await requireRevisionData(sample.id, body.data.revision);
+  return lookupResponse(args.request, sample.id, data, body.data);
+}
+
+export async function loader() {
+  return problem(405, "method_not_allowed", "Use POST with a JSON body.", { headers: { Allow: "POST" } });
+}
