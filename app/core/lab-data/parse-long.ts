@@ -84,7 +84,16 @@ export function parseLongSheet(ctx: SheetContext, sheet: RawSheet): SheetResult 
   if (!pressure && headerOk) missing("pressure", 'add one such as "pressure (psia)".');
   if (!temperature && headerOk) missing("temperature", 'add one such as "temperature (°F)", even when every row is at the same temperature.');
   if (propertyColumns.length === 0 && headerOk) missing("property", 'add at least one, such as "oil viscosity (cP)".');
-  if (!pressure || !temperature || !headerOk) return result;
+  if (!pressure || !temperature || !headerOk) {
+    // The rows cannot be converted, but their cells can still be checked, so that one upload lists all problems.
+    for (const row of rows.slice(1)) {
+      for (let c = 0; c < width; c++) {
+        const cell = cellAt(row, c);
+        if (!isEmptyCell(cellAt(headerRow, c))) readNumber(ctx, cell, at(row.row, c + 1), "the value");
+      }
+    }
+    return result;
+  }
 
   for (const column of propertyColumns) {
     const property = column.header.name as PropertyKey;

@@ -179,7 +179,7 @@ test("wrong type: a ZIP archive that is not a workbook, and a damaged one", asyn
   expect(notBook[0]?.message).toBe("In archive.xlsx, the file is a ZIP archive, not an Excel workbook; save the results as .xlsx or .csv.");
   const damaged = errorsOf(await parseUpload({ filename: "cut.xlsx", bytes: good.subarray(0, 200) }));
   expect(damaged[0]?.code).toBe("UNREADABLE_WORKBOOK");
-});
+}, 30_000);
 
 test("over 5 MB is refused before anything is read", async () => {
   const big = new Uint8Array(MAX_UPLOAD_BYTES + 1).fill(0x31);
@@ -199,7 +199,7 @@ test("empty: no bytes, only blanks, only comments, an empty workbook", async () 
   wb.addWorksheet("empty");
   const bytes = new Uint8Array(await wb.xlsx.writeBuffer());
   expect(errorsOf(await parseUpload({ filename: "e.xlsx", bytes }))[0]?.message).toBe("In e.xlsx, the workbook's sheets hold no table.");
-});
+}, 30_000);
 
 test("binary junk is refused with the position of the first non-text character", async () => {
   const junk = Uint8Array.from([0x70, 0x72, 0x65, 0x00, 0x01, 0x02, 0xff, 0x10]);
@@ -331,7 +331,7 @@ test("too many problems are listed up to 100, then summarised", async () => {
   const errors = errorsOf(await parseText("many.csv", rows.join("\n")));
   expect(errors).toHaveLength(101);
   expect(errors[100]?.message).toBe("In many.csv, 50 more problems were found and are not listed; fix the ones above and upload again.");
-});
+}, 30_000);
 
 // ---------------------------------------------------------------------------------------------------
 // XLSX
@@ -356,7 +356,7 @@ test("XLSX long layout: numbers, text numbers, formulas with results; detected b
   expect(column(d, "oil_fvf")).toEqual([1.46, 1.44]);
   expect(d.properties.oil_fvf?.sources?.[0]?.[0]).toEqual({ sheet: "Lab", row: 3, column: 3 });
   expect(outcome.warnings.map((w) => w.code)).toContain("CONTENT_TYPE_MISMATCH");
-});
+}, 30_000);
 
 test("XLSX grid layout: one sheet per property, merged title cells, a hidden sheet ignored", async () => {
   const bytes = await workbook((wb) => {
@@ -380,7 +380,7 @@ test("XLSX grid layout: one sheet per property, merged title cells, a hidden she
   expect(d.properties.oil_fvf?.values).toEqual([[1.3, 1.33]]);
   expect(d.properties.oil_viscosity?.pressures).toEqual([2000, 3000]);
   expect(outcome.warnings.map((w) => w.code)).toContain("HIDDEN_SHEET_IGNORED");
-});
+}, 30_000);
 
 test("XLSX: messages name the sheet; dates, booleans, errors and formulas without results are not numbers", async () => {
   const bytes = await workbook((wb) => {
@@ -396,7 +396,7 @@ test("XLSX: messages name the sheet; dates, booleans, errors and formulas withou
   findingAt(errors, "NOT_A_NUMBER", { sheet: "Viscosity data", row: 2, column: 4, value: "TRUE" });
   findingAt(errors, "NOT_A_NUMBER", { sheet: "Viscosity data", row: 3, column: 3, value: "#N/A" });
   expect(findingAt(errors, "NOT_A_NUMBER", { sheet: "Viscosity data", row: 3, column: 4, value: "=A1*2" }).message).toContain("formula without a stored result");
-});
+}, 30_000);
 
 test("XLSX: a property given on two sheets is refused", async () => {
   const bytes = await workbook((wb) => {
@@ -408,4 +408,10 @@ test("XLSX: a property given on two sheets is refused", async () => {
   });
   const errors = errorsOf(await parseUpload({ filename: "twice.xlsx", bytes }));
   expect(findingAt(errors, "DUPLICATE_PROPERTY", { sheet: "two", row: 1, column: 3, value: "Bo (rb/STB)" }).message).toContain('first at sheet "one", row 1');
+}, 30_000);
+
+test("a bad header does not hide bad cells: one upload lists both", async () => {
+  const errors = errorsOf(await parseText("both.csv", "pressure (psi),temperature (°F),Bo (rb/STB)\n1000,200,n/a\n"));
+  findingAt(errors, "AMBIGUOUS_UNIT", { row: 1, column: 1, value: "pressure (psi)" });
+  findingAt(errors, "NOT_A_NUMBER", { row: 2, column: 3, value: "n/a" });
 });

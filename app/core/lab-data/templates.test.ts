@@ -56,7 +56,7 @@ for (const layout of ["long", "grid"] as const) {
     expect(d.file).toMatchObject({ format: "xlsx", layout });
     if (layout === "grid") expect(d.file?.sheets?.length).toBe(8); // a bubble-point sheet and one per property
     expectSameGrids(d, templateDataset());
-  });
+  }, 30_000);
 }
 
 test("the template's invented example passes QC without errors or warnings (fluid: 35 °API, γg 0.75)", () => {
@@ -100,7 +100,7 @@ test("writers: a metric dataset written with semicolons and decimal commas, or t
     const xlsx = await toXlsx(layoutSheets(dataset, layout));
     expectSameGrids(datasetOf(await parseUpload({ filename: `metric-${layout}.xlsx`, bytes: xlsx })), dataset);
   }
-});
+}, 30_000);
 
 test("an unknown layout is a typed error", () => {
   expect(() => buildTemplateCsv("wide" as never)).toThrow(expect.objectContaining({ code: "UNKNOWN_LAYOUT" }));

@@ -8,7 +8,7 @@ import { massBalanceOilDensity } from "../../properties/oil-density";
 import { saturatedConsistencyTest } from "../../properties/saturated-branch";
 import type { QcCell } from "../types";
 import { cell, samePressure, type QcContext } from "./context";
-import { formatNumber, percent } from "./format";
+import { formatNumber, percent, signedPercent } from "./format";
 import { branchOf } from "./trends";
 
 function standardConditions(ctx: QcContext): StandardConditions {
@@ -147,7 +147,7 @@ export function checkGasConsistency(ctx: QcContext): void {
         "BG_Z_MISMATCH",
         "warning",
         mismatch.cells,
-        `At ${ctx.t(t, "gas_fvf")}, Bg differs from (psc/Tsc)·zT/p with the given Z by up to ${percent(mismatch.ratio - 1)} (at ${ctx.p(mismatch.p, "gas_fvf")}${mismatch.cells.length > 2 ? `, ${mismatch.cells.length / 2} pressures in all` : ""}); ${slipHint(mismatch.ratio)}.`,
+        `At ${ctx.t(t, "gas_fvf")}, Bg differs from (psc/Tsc)·zT/p with the given Z by up to ${signedPercent(mismatch.ratio - 1)} (at ${ctx.p(mismatch.p, "gas_fvf")}${mismatch.cells.length > 2 ? `, ${mismatch.cells.length / 2} pressures in all` : ""}); ${slipHint(mismatch.ratio)}.`,
       );
     }
     if (implied.cells.length > 0) {
@@ -192,7 +192,7 @@ export function checkDensityMassBalance(ctx: QcContext): void {
       "DENSITY_MASS_BALANCE",
       "warning",
       cells,
-      `At ${ctx.t(t, "oil_density")} and ${ctx.p(worst.p, "oil_density")}, the oil density ${ctx.v("oil_density", worst.measured)} differs by ${percent(worst.dev)} from the mass balance of the stock-tank oil and its dissolved gas (${ctx.v("oil_density", worst.computed)})${cells.length > 1 ? `, and ${cells.length - 1} other value${cells.length > 2 ? "s" : ""} by more than 5 %` : ""}; check the density, Rs, Bo and the sample's API and gas gravities.`,
+      `At ${ctx.t(t, "oil_density")} and ${ctx.p(worst.p, "oil_density")}, the oil density ${ctx.v("oil_density", worst.measured)} is ${percent(Math.abs(worst.dev))} ${worst.dev > 0 ? "above" : "below"} the mass balance of the stock-tank oil and its dissolved gas (${ctx.v("oil_density", worst.computed)})${cells.length > 1 ? `, and ${cells.length - 1} other value${cells.length > 2 ? "s" : ""} by more than 5 %` : ""}; check the density, Rs, Bo and the sample's API and gas gravities.`,
     );
   });
 }

@@ -18,7 +18,7 @@ import type { PropertyKey } from "../../units";
 import { HEADER_LABELS } from "../header-names";
 import type { QcCell, Severity } from "../types";
 import { cell, samePressure, type QcContext } from "./context";
-import { percent } from "./format";
+import { percent, signedPercent } from "./format";
 
 export const CORRELATION_BANDS = {
   bubblePoint: 0.2,
@@ -83,21 +83,21 @@ export function checkCorrelations(ctx: QcContext): void {
     if (bubble.origin !== "inferred") {
       const c = closest(pb, [tryValue(() => standingBubblePoint(at)), tryValue(() => vasquezBeggsBubblePoint(at))]);
       report(ctx, c, CORRELATION_BANDS.bubblePoint, [cell("bubble_point", pb, t)], (d, e) =>
-        `At ${ctx.t(t)} the bubble point ${ctx.p(pb)} departs by ${percent(d)} from the closest correlation estimate (${ctx.p(e)}, Standing or Vasquez–Beggs at Rsb); worth a look, not necessarily wrong.`,
+        `At ${ctx.t(t)} the bubble point ${ctx.p(pb)} departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.p(e)}, Standing or Vasquez–Beggs at Rsb); worth a look, not necessarily wrong.`,
       );
     }
     const bob = ctx.valueAt("oil_fvf", pb, t);
     if (bob !== undefined) {
       const c = closest(bob, [tryValue(() => standingOilFvf(at)), tryValue(() => vasquezBeggsOilFvf(at))]);
       report(ctx, c, CORRELATION_BANDS.oilFvf, [cell("oil_fvf", pb, t)], (d, e) =>
-        `At ${ctx.t(t, "oil_fvf")} Bo at the bubble point (${ctx.v("oil_fvf", bob)}) departs by ${percent(d)} from the closest correlation estimate (${ctx.v("oil_fvf", e)}, Standing or Vasquez–Beggs); worth a look, not necessarily wrong.`,
+        `At ${ctx.t(t, "oil_fvf")} Bo at the bubble point (${ctx.v("oil_fvf", bob)}) departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.v("oil_fvf", e)}, Standing or Vasquez–Beggs); worth a look, not necessarily wrong.`,
       );
     }
     const mub = ctx.valueAt("oil_viscosity", pb, t);
     if (mub !== undefined) {
       const c = closest(mub, [tryValue(() => beggsRobinsonOilViscosity(at))]);
       report(ctx, c, CORRELATION_BANDS.oilViscosity, [cell("oil_viscosity", pb, t)], (d, e) =>
-        `At ${ctx.t(t, "oil_viscosity")} the oil viscosity at the bubble point (${ctx.v("oil_viscosity", mub)}) departs by ${percent(d)} from the Beggs–Robinson estimate (${ctx.v("oil_viscosity", e)}); correlation errors this large are common, so this is worth a look only.`,
+        `At ${ctx.t(t, "oil_viscosity")} the oil viscosity at the bubble point (${ctx.v("oil_viscosity", mub)}) departs by ${signedPercent(d)} from the Beggs–Robinson estimate (${ctx.v("oil_viscosity", e)}); correlation errors this large are common, so this is worth a look only.`,
       );
     }
   }
@@ -138,7 +138,7 @@ export function checkCorrelations(ctx: QcContext): void {
           "CORRELATION_DEPARTURE",
           severity,
           g.cells,
-          `At ${ctx.t(t, key)} the ${HEADER_LABELS[key]} departs from ${method} by up to ${percent(g.worst)} (${ctx.v(key, g.measured)} against ${ctx.v(key, g.estimate)} at ${ctx.p(g.p, key)}${g.cells.length > 1 ? `; ${g.cells.length} values beyond ${percent(severity === "warning" ? 2 * band : band)}` : ""}); check the gas gravity of the sample, or the values.`,
+          `At ${ctx.t(t, key)} the ${HEADER_LABELS[key]} departs from ${method} by up to ${signedPercent(g.worst)} (${ctx.v(key, g.measured)} against ${ctx.v(key, g.estimate)} at ${ctx.p(g.p, key)}${g.cells.length > 1 ? `; ${g.cells.length} values beyond ${percent(severity === "warning" ? 2 * band : band)}` : ""}); check the gas gravity of the sample, or the values.`,
         );
       }
     });

@@ -63,3 +63,9 @@ export function pairWithUnit(a: number, b: number, ref: UnitRef | undefined, bar
 export function percent(fraction: number): string {
   return `${formatNumber(fraction * 100, 2)} %`;
 }
+
+/** "+12 %" or "−7.5 %". */
+export function signedPercent(fraction: number): string {
+  const text = formatNumber(Math.abs(fraction) * 100, 2);
+  return `${fraction < 0 ? "−" : "+"}${text} %`;
+}
