@@ -39,5 +39,6 @@ export default [
       route("samples/:sampleId", "routes/api/v1/samples/$sampleId/index.ts"),
       route("samples/:sampleId/lookup", "routes/api/v1/samples/$sampleId/lookup.ts"),
     ]),
+    route("*", "routes/api/not-found.ts"),
   ]),
 ] satisfies RouteConfig;

@@ -60,10 +60,14 @@ for (const [file, rule] of Object.entries(RULES)) {
           expect(status, label).toBe(302);
           break;
         }
-        case "api":
-          if (rule.allowed === "public" || (who !== "anonymous" && rule.allowed.includes(who))) expect(status, label).toBe(200);
-          else expect(status, label).toBe(who === "anonymous" ? 401 : 403);
+        case "api": {
+          const r = rule.method === "POST" ? await context.post(rule.path, { data: rule.body, maxRedirects: 0 }) : response;
+          const apiStatus = r.status();
+          const apiLabel = `${who} ${rule.method ?? "GET"} ${rule.path}`;
+          if (rule.allowed === "public" || (who !== "anonymous" && rule.allowed.includes(who))) expect(apiStatus, apiLabel).toBe(rule.okStatus ?? 200);
+          else expect(apiStatus, apiLabel).toBe(who === "anonymous" ? 401 : 403);
           break;
+        }
         case "page":
           if (who === "anonymous") {
             expect(status, label).toBe(302);

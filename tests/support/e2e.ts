@@ -28,6 +28,8 @@ export const APP_SERVER_ENV: Record<string, string> = {
   SMTP_HOST: "127.0.0.1",
   SMTP_PORT: String(SMTP_PORT),
   MAIL_CAPTURE_URL: MAIL_URL,
+  // Low enough that a test can exceed one token's budget quickly; other tests use their own tokens.
+  API_RATE_LIMIT_PER_MINUTE: "120",
 };
 
 export async function signIn(page: Page, role: DemoRole, password = DEMO_PASSWORD) {
