@@ -45,6 +45,11 @@ export function buildGrid(record: PropertyRecord, points: readonly PointRecord[]
   };
 }
 
+/** Most distinct pressures, temperatures and cells one property grid may have (far above any laboratory table). */
+export const MAX_GRID_PRESSURES = 5_000;
+export const MAX_GRID_TEMPERATURES = 500;
+export const MAX_GRID_CELLS = 200_000;
+
 export interface Assembled {
   readonly properties: { [K in PropertyKey]?: PropertyGrid };
   readonly bubblePoints: BubblePoint[];
@@ -87,6 +92,17 @@ export function assemble(results: readonly SheetResult[], findings: FindingList)
         "EMPTY_COLUMN",
         record.place,
         `the ${HEADER_LABELS[key]} ${quote(record.headerText)} has no values and was left out.`,
+        record.headerText,
+      );
+      continue;
+    }
+    const np = new Set(list.map((p) => p.pressure)).size;
+    const nt = new Set(list.map((p) => p.temperature)).size;
+    if (np > MAX_GRID_PRESSURES || nt > MAX_GRID_TEMPERATURES || np * nt > MAX_GRID_CELLS) {
+      findings.error(
+        "GRID_TOO_LARGE",
+        record.place,
+        `the ${HEADER_LABELS[key]} ${quote(record.headerText)} has ${np} distinct pressures and ${nt} distinct temperatures, more than one sample's table can hold (at most ${MAX_GRID_PRESSURES} pressures, ${MAX_GRID_TEMPERATURES} temperatures and ${MAX_GRID_CELLS} cells); check that pressure and temperature are in the right columns.`,
         record.headerText,
       );
       continue;

@@ -3,6 +3,7 @@
  * units with checks, and the records they produce for the assembler.
  */
 import {
+  CANONICAL_UNITS,
   getUnit,
   isUnitError,
   toCanonical,
@@ -103,6 +104,9 @@ export function toCanonicalChecked(
   what: string,
 ): number | undefined {
   const text = cellText(cell);
+  if (unit.id === CANONICAL_UNITS[unit.quantity] && unit.quantity !== "pressure" && unit.quantity !== "temperature") {
+    return value; // Already canonical: nothing to convert or tidy.
+  }
   let canonical: number;
   try {
     canonical = toCanonical(value, unit.quantity, unit.id as UnitId<Quantity>, {

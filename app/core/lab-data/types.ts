@@ -21,6 +21,7 @@ export type ParseFindingCode =
   | "NOT_UTF8"
   | "UNREADABLE_WORKBOOK"
   | "TOO_MANY_ROWS"
+  | "GRID_TOO_LARGE"
   | "CSV_SYNTAX"
   | "UNKNOWN_LAYOUT"
   | "UNKNOWN_COLUMN"

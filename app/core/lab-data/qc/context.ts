@@ -9,6 +9,8 @@ import { RULES, type RuleId } from "./rules";
 
 /** Temperatures closer than this (°F) are the same temperature. */
 export const TEMPERATURE_TOLERANCE = 0.01;
+/** Findings listed per rule; the rest are counted in one closing note. */
+export const MAX_FINDINGS_PER_RULE = 50;
 /** Pressures closer than this fraction are the same pressure. */
 export const PRESSURE_TOLERANCE = 1e-6;
 
@@ -107,8 +109,33 @@ export class QcContext {
     return undefined;
   }
 
+  private readonly perRule = new Map<RuleId, { count: number; dropped: number; cells: number }>();
+
   add(rule: RuleId, code: QcFindingCode, severity: Severity, cells: readonly QcCell[], message: string): void {
+    const tally = this.perRule.get(rule) ?? { count: 0, dropped: 0, cells: 0 };
+    this.perRule.set(rule, tally);
+    if (tally.count >= MAX_FINDINGS_PER_RULE) {
+      tally.dropped++;
+      tally.cells += cells.length;
+      return;
+    }
+    tally.count++;
     this.findings.push({ code, severity, message, cells, rule, source: RULES[rule].source });
+  }
+
+  /** One closing note per rule whose findings were cut short. */
+  summarizeDropped(): void {
+    for (const [rule, tally] of this.perRule) {
+      if (tally.dropped === 0) continue;
+      this.findings.push({
+        code: "CHECK_SKIPPED",
+        severity: "info",
+        message: `The rule "${RULES[rule].title}" found ${tally.dropped} more problems than the ${MAX_FINDINGS_PER_RULE} listed; fix those first and check again.`,
+        cells: [],
+        rule,
+        source: RULES[rule].source,
+      });
+    }
   }
 }
 

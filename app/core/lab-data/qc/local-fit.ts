@@ -68,6 +68,9 @@ export const IDENTITY: Transform = { forward: (v) => v, inverse: (y) => y };
 export const LOG: Transform = { forward: (v) => Math.log(v), inverse: (y) => Math.exp(y) };
 export const RECIPROCAL: Transform = { forward: (v) => 1 / v, inverse: (y) => 1 / y };
 
+/** At most this many points are flagged per series; the rest would only repeat the message. */
+export const MAX_FLAGS = 10;
+
 export interface Outlier {
   readonly index: number;
   /** The smooth value expected at the point, in value units. */
@@ -130,7 +133,7 @@ export function findOutliers(
   if (!ys.every(Number.isFinite)) return [];
   let kept = xs.map((_, i) => i);
   const flagged: Outlier[] = [];
-  const maxFlags = Math.floor(n / 3);
+  const maxFlags = Math.min(MAX_FLAGS, Math.floor(n / 3));
   while (flagged.length < maxFlags && kept.length >= 4) {
     let worst: (Outlier & { score: number; position: number }) | null = null;
     for (let pos = 1; pos < kept.length - 1; pos++) {

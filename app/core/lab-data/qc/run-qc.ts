@@ -40,6 +40,7 @@ export function runQc(dataset: ParsedDataset, meta: QcMeta = {}): Finding[] {
       break;
     }
   }
+  ctx.summarizeDropped();
   return ctx.findings
     .map((f, i) => ({ f, i }))
     .sort((a, b) => ORDER[a.f.severity] - ORDER[b.f.severity] || a.i - b.i)
