@@ -45,7 +45,7 @@ const SAMPLE = {
 };
 
 async function newSample(label: string, wellName = "T-1", fieldName = "Test Field") {
-  const result = await app.records.createSampleRecord({ ...SAMPLE, fieldName, wellName, label }, labLeadId);
+  const result = await app.records.createSampleRecord({ ...SAMPLE, fieldName, wellName, label }, { userId: labLeadId });
   if (!result.ok) throw new Error("sample not created");
   return result.id;
 }
@@ -104,11 +104,11 @@ afterAll(async () => cleanup?.());
 
 describe("field → well → sample records", () => {
   test("creates the field and well once, refuses a second sample of the same label in a well", async () => {
-    const first = await app.records.createSampleRecord({ ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S1" }, labLeadId);
+    const first = await app.records.createSampleRecord({ ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S1" }, { userId: labLeadId });
     expect(first).toMatchObject({ ok: true, createdField: true, createdWell: true });
-    const second = await app.records.createSampleRecord({ ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S2" }, labLeadId);
+    const second = await app.records.createSampleRecord({ ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S2" }, { userId: labLeadId });
     expect(second).toMatchObject({ ok: true, createdField: false, createdWell: false });
-    const duplicate = await app.records.createSampleRecord({ ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S1" }, labLeadId);
+    const duplicate = await app.records.createSampleRecord({ ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S1" }, { userId: labLeadId });
     expect(duplicate).toEqual({ ok: false, conflict: "label" });
     // Nothing half-made by the refused one.
     const [n] = await sql<{ n: number }>("SELECT COUNT(*) AS n FROM samples WHERE label = 'S1'");
@@ -119,10 +119,12 @@ describe("field → well → sample records", () => {
     const id = await newSample("Move me", "M-1", "Move Field");
     await newSample("Taken", "M-2", "Move Field");
     const record = (await app.records.getSampleRecord(id))!;
-    const moved = await app.records.updateSampleRecord(id, { ...record, fieldRegion: null, wellName: "M-3", notes: "moved" });
-    expect(moved).toMatchObject({ ok: true, createdWell: true });
+    const moved = await app.records.updateSampleRecord(id, { ...record, fieldRegion: null, wellName: "M-3", notes: "moved" }, { userId: labLeadId });
+    expect(moved).toMatchObject({ ok: true, createdWell: true, changed: ["notes", "well"] });
+    const [audit] = await sql<{ n: number }>("SELECT COUNT(*) AS n FROM audit_log WHERE action = 'sample_updated' AND entity_id = ?", [String(id)]);
+    expect(Number(audit!.n)).toBe(1);
     expect(await app.records.getSampleRecord(id)).toMatchObject({ wellName: "M-3", notes: "moved" });
-    const clash = await app.records.updateSampleRecord(id, { ...record, fieldRegion: null, wellName: "M-2", label: "Taken" });
+    const clash = await app.records.updateSampleRecord(id, { ...record, fieldRegion: null, wellName: "M-2", label: "Taken" }, { userId: labLeadId });
     expect(clash).toEqual({ ok: false, conflict: "label" });
     expect(await app.records.getSampleRecord(id)).toMatchObject({ wellName: "M-3", label: "Move me" });
   });
@@ -198,14 +200,15 @@ describe("storing an upload", () => {
     expect(counts.audits).toBe(7);
   });
 
-  test("concurrent uploads to two samples do not wait on each other's numbers", async () => {
-    const a = await newSample("Parallel A");
-    const b = await newSample("Parallel B");
-    const [ra, rb] = await Promise.all([
-      templateRevision(a).then(({ revision }) => app.review.storeDraftRevision(revision)),
-      templateRevision(b).then(({ revision }) => app.review.storeDraftRevision(revision)),
-    ]);
-    expect([ra.number, rb.number]).toEqual([1, 1]);
+  test("first uploads to neighbouring samples at the same moment do not deadlock, and each sample numbers from 1", async () => {
+    // Under REPEATABLE READ the "next number" reads of empty samples took the same index gap and deadlocked.
+    const ids = [];
+    for (let k = 0; k < 4; k++) ids.push(await newSample(`Parallel ${k}`));
+    const revisions = await Promise.all(ids.map(async (id) => (await templateRevision(id)).revision));
+    const stored = await Promise.all(revisions.flatMap((r) => [app.review.storeDraftRevision(r), app.review.storeDraftRevision(r)]));
+    for (let k = 0; k < ids.length; k++) {
+      expect([stored[2 * k]!.number, stored[2 * k + 1]!.number].sort()).toEqual([1, 2]);
+    }
   });
 });
 

@@ -15,6 +15,13 @@ import { createRevision, getRevisionGrids, listRevisionBubblePoints, type NewRev
 const uploader = alias(users, "uploader");
 const reviewer = alias(users, "reviewer");
 
+/*
+ * READ COMMITTED: InnoDB then takes no gap locks for the "next number" read (SELECT MAX … FOR UPDATE), which under
+ * REPEATABLE READ made two first uploads to neighbouring samples deadlock on the same index gap. Uploads to one
+ * sample are serialised by the lock on its row instead.
+ */
+const WRITE_TX = { isolationLevel: "read committed" } as const;
+
 /** Locks the sample row for the rest of the transaction; false when there is no such sample. */
 async function lockSample(sampleId: number, db: Executor): Promise<boolean> {
   const [row] = await db.select({ id: samples.id }).from(samples).where(eq(samples.id, sampleId)).for("update");
@@ -45,7 +52,7 @@ export async function storeDraftRevision(input: DraftUpload, db: Executor = getD
       tx,
     );
     return stored;
-  });
+  }, WRITE_TX);
 }
 
 const revisionColumns = {
@@ -185,7 +192,7 @@ export async function reviewRevision(input: ReviewDecision, db: Executor = getDb
       tx,
     );
     return { ok: true, revisionId: revision.id, previousApproved: previous?.number ?? null, ownUpload };
-  });
+  }, WRITE_TX);
 }
 
 export async function isFollowing(sampleId: number, userId: number, db: Executor = getDb()): Promise<boolean> {

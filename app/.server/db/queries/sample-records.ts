@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, like, or, sql, TransactionRollbackError, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { fields, sampleRevisions, samples, wells, type SampleType } from "../schema";
+import { recordAudit } from "./audit";
 
 /*
  * Field → well → sample records: create, edit, and the searchable, sortable, paged list of samples.
@@ -26,6 +27,12 @@ export type SampleRecordInput = {
   reportReference: string | null;
   notes: string | null;
 };
+
+/** No gap locks for the find-or-create reads (see review.ts); the unique keys still refuse duplicates. */
+const WRITE_TX = { isolationLevel: "read committed" } as const;
+
+/** Who makes the change, for the audit log. */
+export type Actor = { userId: number; ipAddress?: string | null };
 
 export type SampleRecordResult =
   | { ok: true; id: number; createdField: boolean; createdWell: boolean }
@@ -93,42 +100,68 @@ async function labelTaken(wellId: number, label: string, exceptId: number | null
   return rows.some((r) => r.id !== exceptId);
 }
 
-/** Creates the sample, with its field and well when they are new, in one transaction. */
-export async function createSampleRecord(
-  input: SampleRecordInput,
-  createdBy: number,
-  db: Executor = getDb(),
-): Promise<SampleRecordResult> {
-  return db.transaction(async (tx) => {
-    const place = await findOrCreatePlace(input, tx);
-    if (await labelTaken(place.wellId, input.label, null, tx)) tx.rollback();
-    const [inserted] = await tx
-      .insert(samples)
-      .values({ ...sampleColumns(input), wellId: place.wellId, createdBy })
-      .$returningId();
-    if (!inserted) throw new Error("sample insert returned no id");
-    return { ok: true as const, id: inserted.id, createdField: place.createdField, createdWell: place.createdWell };
-  }).catch((error: unknown) => {
-    if (isRollback(error)) return { ok: false as const, conflict: "label" as const };
-    throw error;
-  });
+/** Creates the sample, with its field and well when they are new, and its audit record, in one transaction. */
+export async function createSampleRecord(input: SampleRecordInput, actor: Actor, db: Executor = getDb()): Promise<SampleRecordResult> {
+  return db
+    .transaction(async (tx) => {
+      const place = await findOrCreatePlace(input, tx);
+      if (await labelTaken(place.wellId, input.label, null, tx)) tx.rollback();
+      const [inserted] = await tx
+        .insert(samples)
+        .values({ ...sampleColumns(input), wellId: place.wellId, createdBy: actor.userId })
+        .$returningId();
+      if (!inserted) throw new Error("sample insert returned no id");
+      await recordAudit(
+        {
+          action: "sample_created",
+          userId: actor.userId,
+          entityType: "sample",
+          entityId: inserted.id,
+          details: { label: input.label, well: input.wellName, field: input.fieldName, newField: place.createdField, newWell: place.createdWell },
+          ipAddress: actor.ipAddress ?? null,
+        },
+        tx,
+      );
+      return { ok: true as const, id: inserted.id, createdField: place.createdField, createdWell: place.createdWell };
+    }, WRITE_TX)
+    .catch((error: unknown) => {
+      if (isRollback(error)) return { ok: false as const, conflict: "label" as const };
+      throw error;
+    });
 }
 
-/** Updates the sample (and moves it to another well, created if new), in one transaction. */
+/**
+ * Updates the sample (moving it to another well, created if new) and records which fields changed, in one
+ * transaction. Returns changed: [] when nothing differed (and records nothing).
+ */
 export async function updateSampleRecord(
   id: number,
   input: SampleRecordInput,
+  actor: Actor,
   db: Executor = getDb(),
-): Promise<SampleRecordResult> {
-  return db.transaction(async (tx) => {
-    const place = await findOrCreatePlace(input, tx);
-    if (await labelTaken(place.wellId, input.label, id, tx)) tx.rollback();
-    await tx.update(samples).set({ ...sampleColumns(input), wellId: place.wellId }).where(eq(samples.id, id));
-    return { ok: true as const, id, createdField: place.createdField, createdWell: place.createdWell };
-  }).catch((error: unknown) => {
-    if (isRollback(error)) return { ok: false as const, conflict: "label" as const };
-    throw error;
-  });
+): Promise<SampleRecordResult & { changed?: string[] }> {
+  return db
+    .transaction(async (tx) => {
+      const before = await getSampleRecord(id, tx);
+      if (!before) throw new Error(`sample ${id} does not exist`);
+      const place = await findOrCreatePlace(input, tx);
+      if (await labelTaken(place.wellId, input.label, id, tx)) tx.rollback();
+      const changed = (Object.keys(sampleColumns(input)) as (keyof ReturnType<typeof sampleColumns>)[])
+        .filter((k) => before[k] !== input[k])
+        .concat(before.wellName !== input.wellName || before.fieldName !== input.fieldName ? ["well"] : []);
+      if (changed.length > 0) {
+        await tx.update(samples).set({ ...sampleColumns(input), wellId: place.wellId }).where(eq(samples.id, id));
+        await recordAudit(
+          { action: "sample_updated", userId: actor.userId, entityType: "sample", entityId: id, details: { changed }, ipAddress: actor.ipAddress ?? null },
+          tx,
+        );
+      }
+      return { ok: true as const, id, createdField: place.createdField, createdWell: place.createdWell, changed };
+    }, WRITE_TX)
+    .catch((error: unknown) => {
+      if (isRollback(error)) return { ok: false as const, conflict: "label" as const };
+      throw error;
+    });
 }
 
 /** Our own rollback for a taken label, or the unique index catching two saves of the same label at once. */
