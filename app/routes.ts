@@ -13,6 +13,7 @@ export default [
       route(":sampleId/diff", "routes/_app/samples/$sampleId/diff.tsx"),
     ]),
     route("lookup", "routes/_app/lookup/index.tsx"),
+    route("lookup/sets/:setId", "routes/_app/lookup/sets/$setId.tsx"),
     route("compare", "routes/_app/compare/index.tsx"),
     route("tokens", "routes/_app/tokens/index.tsx"),
     route("account", "routes/_app/account/index.tsx"),

@@ -9,5 +9,5 @@ export E2E_DATABASE_URL="$(database_url "${DB_NAME}_e2e")"
 bash scripts/db.sh reset-db "${DB_NAME}_e2e"
 DATABASE_URL="$E2E_DATABASE_URL" node_modules/.bin/tsx scripts/migrate.ts
 DATABASE_URL="$E2E_DATABASE_URL" node_modules/.bin/tsx scripts/seed.ts
-if [ "${SKIP_BUILD:-0}" != 1 ]; then node_modules/.bin/react-router build >/dev/null; fi
+if [ "${SKIP_BUILD:-0}" != 1 ]; then npm run -s build >/dev/null; fi
 node_modules/.bin/playwright test -c tests/playwright.config.ts "$@"

@@ -44,13 +44,13 @@ node_modules/.bin/tsx scripts/seed.ts
 stamp=build/.source-stamp
 if [ ! -f "$stamp" ] || [ -n "$(find app public package-lock.json vite.config.ts react-router.config.ts -newer "$stamp" -print -quit)" ]; then
   log "building the production bundle"
-  node_modules/.bin/react-router build >/dev/null
+  npm run -s build >/dev/null
   touch "$stamp"
 fi
 
 node_modules/.bin/tsx scripts/fake-smtp.ts "$SMTP_PORT" "$SMTP_HTTP_PORT" &
 pids+=($!)
 log "ready in $((SECONDS - started)) s: serving Isopleth on http://$HOST:$PORT"
-node --import ./scripts/peer-address.mjs node_modules/@react-router/serve/bin.js ./build/server/index.js &
+node --import ./scripts/serve-hooks.mjs node_modules/@react-router/serve/bin.js ./build/server/index.js &
 pids+=($!)
 wait -n "${pids[@]}"

@@ -34,7 +34,7 @@ log "unit and integration tests"
 node_modules/.bin/vitest run
 
 log "production build"
-node_modules/.bin/react-router build >/dev/null
+npm run -s build >/dev/null
 touch build/.source-stamp
 
 log "end-to-end tests (Debian chromium)"

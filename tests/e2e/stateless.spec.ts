@@ -12,7 +12,7 @@ let second: ChildProcess;
 test.beforeAll(async () => {
   second = spawn(
     "node",
-    ["--import", "./scripts/peer-address.mjs", "node_modules/@react-router/serve/bin.js", "./build/server/index.js"],
+    ["--import", "./scripts/serve-hooks.mjs", "node_modules/@react-router/serve/bin.js", "./build/server/index.js"],
     { env: { ...process.env, ...APP_SERVER_ENV, PORT: String(SECOND_PORT) }, stdio: "ignore" },
   );
   await expect

@@ -1,7 +1,7 @@
 import { isLookupError, runLookup, type LookupResult } from "~/core/lookup";
 import { problem } from "~/.server/http";
 import type { RevisionData } from "~/.server/samples/revision-data";
-import { json } from "./respond";
+import { respondWithEtag } from "./respond";
 import type { LookupBody } from "./schemas";
 
 /** Runs a validated lookup against a revision and shapes the API response (or a problem). */
@@ -28,12 +28,11 @@ export function computeLookup(data: RevisionData, body: LookupBody): LookupResul
   }
 }
 
-export function lookupResponse(request: Request, sampleId: number, data: RevisionData, body: LookupBody): Response {
+/** `startedAt` (performance.now() when the request arrived) gives the Server-Timing header. */
+export function lookupResponse(request: Request, sampleId: number, data: RevisionData, body: LookupBody, startedAt = performance.now()): Response {
   const result = computeLookup(data, body);
   if (result instanceof Response) return result;
-  return json(
-    request,
-    {
+  const payload = JSON.stringify({
       sampleId,
       revision: data.number,
       property: body.property,
@@ -55,7 +54,10 @@ export function lookupResponse(request: Request, sampleId: number, data: Revisio
         ...(r.branch ? { branch: r.branch } : {}),
         ...(r.bubblePointPressure !== null ? { bubblePointPressure: r.bubblePointPressure } : {}),
       })),
-    },
-    data.number,
-  );
+  });
+  return respondWithEtag(request, payload, {
+    contentType: "application/json; charset=utf-8",
+    revision: data.number,
+    headers: { "Server-Timing": `app;dur=${(performance.now() - startedAt).toFixed(1)}` },
+  });
 }

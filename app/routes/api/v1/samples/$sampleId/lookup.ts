@@ -8,6 +8,7 @@ import type { Route } from "./+types/lookup";
 
 /** POST /api/v1/samples/:sampleId/lookup — interpolate one property at up to 100,000 conditions. */
 export async function action(args: Route.ActionArgs) {
+  const startedAt = performance.now();
   if (args.request.method !== "POST") return problem(405, "method_not_allowed", "Use POST.", { headers: { Allow: "POST" } });
   const caller = await requireApiCaller(args, "lookup");
   const params = SampleIdParams.safeParse(args.params);
@@ -16,7 +17,7 @@ export async function action(args: Route.ActionArgs) {
   if (!body.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: zodIssues(body.error) });
   const sample = await requireSampleForCaller(caller, params.data.sampleId);
   const data = await requireRevisionData(sample.id, body.data.revision);
-  return lookupResponse(args.request, sample.id, data, body.data);
+  return lookupResponse(args.request, sample.id, data, body.data, startedAt);
 }
 
 export async function loader() {

@@ -1,0 +1,75 @@
+import { and, desc, eq } from "drizzle-orm";
+import { getDb, type Executor } from "../client";
+import { lookupRuns, lookupSets, samples } from "../schema";
+import type { PropertyKey } from "~/core/units";
+
+export async function listLookupSets(userId: number, db: Executor = getDb()) {
+  return db
+    .select({
+      id: lookupSets.id,
+      name: lookupSets.name,
+      sampleId: lookupSets.sampleId,
+      sampleLabel: samples.label,
+      properties: lookupSets.properties,
+      conditions: lookupSets.conditions,
+      method: lookupSets.method,
+      degree: lookupSets.degree,
+      updatedAt: lookupSets.updatedAt,
+    })
+    .from(lookupSets)
+    .innerJoin(samples, eq(samples.id, lookupSets.sampleId))
+    .where(eq(lookupSets.userId, userId))
+    .orderBy(desc(lookupSets.updatedAt));
+}
+
+export async function getLookupSet(id: number, userId: number, db: Executor = getDb()) {
+  const [row] = await db
+    .select()
+    .from(lookupSets)
+    .where(and(eq(lookupSets.id, id), eq(lookupSets.userId, userId)));
+  return row ?? null;
+}
+
+export async function createLookupSet(
+  input: {
+    userId: number;
+    sampleId: number;
+    name: string;
+    properties: PropertyKey[];
+    conditions: { pressurePsia: number; temperatureF: number }[];
+    method: string;
+    degree: number | [number, number] | null;
+  },
+  db: Executor = getDb(),
+): Promise<number> {
+  const [row] = await db.insert(lookupSets).values(input).$returningId();
+  if (!row) throw new Error("lookup set insert returned no id");
+  return row.id;
+}
+
+export async function deleteLookupSet(id: number, userId: number, db: Executor = getDb()) {
+  await db.delete(lookupSets).where(and(eq(lookupSets.id, id), eq(lookupSets.userId, userId)));
+}
+
+export async function createLookupRun(
+  input: {
+    setId: number;
+    revisionId: number;
+    revisionNumber: number;
+    method: string;
+    results: Record<string, { value: number; errorEstimate: number; warnings: string[] }[]>;
+    createdBy: number;
+  },
+  db: Executor = getDb(),
+) {
+  await db.insert(lookupRuns).values(input);
+}
+
+export async function listLookupRuns(setId: number, limit = 10, db: Executor = getDb()) {
+  return db
+    .select()
+    .from(lookupRuns)
+    .where(eq(lookupRuns.setId, setId))
+    .orderBy(desc(lookupRuns.createdAt), desc(lookupRuns.id))
+    .limit(limit);
+}

@@ -1,0 +1,190 @@
+import { useState } from "react";
+import { describeWarningCode, PROPERTY_NAMES, type LookupWarning } from "~/core/lookup";
+import type { PropertyKey } from "~/core/units";
+import type { Condition } from "~/utils/conditions";
+import { NEAR_BUBBLE_POINT_FRACTION, SERIOUS_WARNINGS, WARNING_LABELS } from "~/utils/warning-labels";
+
+export type LookupApiResult = {
+  value: number;
+  errorEstimate: number;
+  warnings: string[];
+  method: string;
+  stencil: { pressure: number[]; temperature: number[] };
+  branch?: "saturated" | "undersaturated";
+  bubblePointPressure?: number;
+};
+
+export type PropertyRun =
+  | { property: PropertyKey; ok: true; revision: number; unit: string; methodDescription: string; degree: [number, number] | null; results: LookupApiResult[]; serverMs: number }
+  | { property: PropertyKey; ok: false; error: string; serverMs: number };
+
+const CAUTION =
+  "Interpolated and extrapolated properties are estimates. Check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.";
+
+const fmt = (v: number) => Number(v.toPrecision(6)).toString();
+
+/** Warnings of one result, plus "near the bubble point" when the point lies within 2 % of it. */
+export function warningsOf(r: LookupApiResult, pressure: number): string[] {
+  const list = [...r.warnings];
+  if (r.bubblePointPressure !== undefined && Math.abs(pressure - r.bubblePointPressure) <= NEAR_BUBBLE_POINT_FRACTION * r.bubblePointPressure) {
+    list.push("near-bubble-point");
+  }
+  return list;
+}
+
+function describe(code: string): string {
+  if (code === "near-bubble-point") return "Within 2 % of the bubble point, where the property's slope changes abruptly: check the branch.";
+  return describeWarningCode(code as LookupWarning);
+}
+
+function toDelimited(conditions: Condition[], runs: PropertyRun[], units: { pressure: string; temperature: string }, sep: string, meta: string[]): string {
+  const ok = runs.filter((r): r is Extract<PropertyRun, { ok: true }> => r.ok);
+  const quote = (s: string) => (sep === "," && /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
+  const header = [`pressure (${units.pressure})`, `temperature (${units.temperature})`];
+  for (const r of ok) header.push(`${r.property} (${r.unit})`, `${r.property} error estimate (${r.unit})`, `${r.property} method`, `${r.property} warnings`);
+  const lines = conditions.map((c, i) => {
+    const cells = [String(c.pressure), String(c.temperature)];
+    for (const r of ok) {
+      const x = r.results[i]!;
+      cells.push(String(x.value), String(x.errorEstimate), x.method, warningsOf(x, c.pressure).join(" "));
+    }
+    return cells.map(quote).join(sep);
+  });
+  return [...meta.map((m) => `# ${m}`), header.map(quote).join(sep), ...lines].join("\n") + "\n";
+}
+
+export function LookupResultsTable({
+  conditions,
+  runs,
+  units,
+  method,
+  sampleLabel,
+  onExplain,
+  elapsedMs,
+}: {
+  conditions: Condition[];
+  runs: PropertyRun[];
+  units: { pressure: string; temperature: string };
+  method: string;
+  sampleLabel: string;
+  onExplain: (conditionIndex: number, property: PropertyKey) => void;
+  elapsedMs: number;
+}) {
+  const [copied, setCopied] = useState(false);
+  const ok = runs.filter((r): r is Extract<PropertyRun, { ok: true }> => r.ok);
+  const failed = runs.filter((r): r is Extract<PropertyRun, { ok: false }> => !r.ok);
+  const revisions = [...new Set(ok.map((r) => r.revision))];
+  const meta = [
+    `Isopleth lookup — sample ${sampleLabel}, revision ${revisions.join(", ")}, method ${ok[0]?.methodDescription ?? method}`,
+    `generated ${new Date().toISOString()}`,
+    CAUTION,
+  ];
+  const serverMs = ok.reduce((m, r) => Math.max(m, Number.isFinite(r.serverMs) ? r.serverMs : 0), 0);
+  const flagged = ok.reduce((n, r) => n + r.results.filter((x, i) => warningsOf(x, conditions[i]!.pressure).length > 0).length, 0);
+
+  function download() {
+    const blob = new Blob([toDelimited(conditions, runs, units, ",", meta)], { type: "text/csv" });
+    const url = URL.createObjectURL(blob);
+    const a = Object.assign(document.createElement("a"), { href: url, download: `isopleth-lookup-${sampleLabel.replace(/\W+/g, "-")}.csv` });
+    a.click();
+    URL.revokeObjectURL(url);
+  }
+  async function copy() {
+    await navigator.clipboard.writeText(toDelimited(conditions, runs, units, "\t", []));
+    setCopied(true);
+  }
+
+  return (
+    <section className="mt-6" aria-labelledby="results-title">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h2 id="results-title" className="text-lg font-semibold">
+            Results
+          </h2>
+          <p className="text-sm text-ink-muted" data-testid="results-meta">
+            {sampleLabel} · revision {revisions.join(", ")} · {ok[0]?.methodDescription ?? method} · {conditions.length} condition{conditions.length === 1 ? "" : "s"} ·
+            answered in {Math.round(elapsedMs)} ms (server {serverMs.toFixed(1)} ms)
+            {flagged ? ` · ${flagged} value${flagged === 1 ? "" : "s"} flagged` : ""}
+          </p>
+        </div>
+        <div className="flex gap-2">
+          <button type="button" onClick={download} className="rounded border border-line bg-panel px-3 py-1.5 text-sm font-semibold hover:border-accent">
+            Export CSV
+          </button>
+          <button type="button" onClick={() => void copy()} className="rounded border border-line bg-panel px-3 py-1.5 text-sm font-semibold hover:border-accent">
+            {copied ? "Copied" : "Copy to clipboard"}
+          </button>
+        </div>
+      </div>
+      {failed.map((f) => (
+        <p key={f.property} role="alert" className="mt-2 rounded border border-danger/40 bg-red-50 px-3 py-2 text-sm text-danger">
+          {PROPERTY_NAMES[f.property]}: {f.error}
+        </p>
+      ))}
+      {ok.length > 0 ? (
+        <div className="mt-3 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
+          <table className="w-full text-sm" data-testid="results-table">
+            <thead className="sticky top-0 bg-surface text-ink-muted">
+              <tr>
+                <th className="px-3 py-2 text-right font-semibold">Pressure ({units.pressure})</th>
+                <th className="px-3 py-2 text-right font-semibold">Temperature ({units.temperature})</th>
+                {ok.map((r) => (
+                  <th key={r.property} className="px-3 py-2 text-right font-semibold">
+                    {PROPERTY_NAMES[r.property]} ({r.unit})
+                  </th>
+                ))}
+                <th className="px-3 py-2 text-left font-semibold">Warnings</th>
+              </tr>
+            </thead>
+            <tbody>
+              {conditions.map((c, i) => {
+                const codes = new Set<string>();
+                for (const r of ok) for (const w of warningsOf(r.results[i]!, c.pressure)) codes.add(w);
+                return (
+                  <tr key={i} className="border-t border-line align-top">
+                    <td className="px-3 py-1.5 text-right tabular-nums">{c.pressure}</td>
+                    <td className="px-3 py-1.5 text-right tabular-nums">{c.temperature}</td>
+                    {ok.map((r) => {
+                      const x = r.results[i]!;
+                      const serious = x.warnings.some((w) => SERIOUS_WARNINGS.has(w));
+                      return (
+                        <td key={r.property} className="px-3 py-1.5 text-right tabular-nums">
+                          <button
+                            type="button"
+                            onClick={() => onExplain(i, r.property)}
+                            className={`rounded px-1 font-semibold underline decoration-dotted underline-offset-2 hover:bg-accent-soft ${serious ? "text-caution" : ""}`}
+                            aria-label={`How ${PROPERTY_NAMES[r.property]} ${fmt(x.value)} at ${c.pressure} ${units.pressure}, ${c.temperature} ${units.temperature} was obtained`}
+                            data-testid={`value-${r.property}-${i}`}
+                            data-value={x.value}
+                          >
+                            {fmt(x.value)}
+                          </button>
+                          <div className="text-xs text-ink-muted">
+                            ± {fmt(x.errorEstimate)} · {x.method}
+                            {x.branch ? ` · ${x.branch}` : ""}
+                          </div>
+                        </td>
+                      );
+                    })}
+                    <td className="px-3 py-1.5 text-xs">
+                      {[...codes].map((code) => (
+                        <span
+                          key={code}
+                          title={describe(code)}
+                          className={`mr-1 mb-1 inline-block rounded px-1.5 py-0.5 ${SERIOUS_WARNINGS.has(code) ? "bg-caution-soft text-caution" : "bg-surface text-ink-muted"}`}
+                        >
+                          {WARNING_LABELS[code] ?? code}
+                        </span>
+                      ))}
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      ) : null}
+      <p className="mt-2 text-xs text-ink-muted">Select a value to see how it was obtained. Hover a warning for its explanation.</p>
+    </section>
+  );
+}
