@@ -89,14 +89,3 @@ export function resolveHeaderName(name: string): HeaderName | null {
 export function isPropertyName(name: HeaderName): name is PropertyKey {
   return (PROPERTY_KEYS as readonly string[]).includes(name);
 }
-
-/** "pressure, temperature, bubble point, oil formation volume factor (Bo), …" for messages. */
-export function knownNamesSentence(): string {
-  return (Object.keys(HEADER_NAMES) as HeaderName[])
-    .map((key) => {
-      const [first, ...rest] = HEADER_NAMES[key];
-      const short = rest.filter((n) => n.length <= 3 && /^[a-z]/i.test(n));
-      return short.length > 0 ? `"${first}" (or ${short.map((s) => `"${s}"`).join(", ")})` : `"${first}"`;
-    })
-    .join(", ");
-}

@@ -103,12 +103,16 @@ export async function readXlsx(bytes: Uint8Array, findings: FindingList): Promis
       tooBig = true;
       return;
     }
+    if (worksheet.columnCount > MAX_SHEET_COLUMNS) {
+      findings.error("TOO_MANY_ROWS", { sheet: name }, `the sheet has ${worksheet.columnCount} columns; at most ${MAX_SHEET_COLUMNS} are read.`);
+      tooBig = true;
+      return;
+    }
     const rows: RawRow[] = [];
     for (let r = 1; r <= rowCount; r++) {
       const row = worksheet.findRow(r);
       const cells: RawCell[] = [];
       row?.eachCell({ includeEmpty: false }, (cell, column) => {
-        if (column > MAX_SHEET_COLUMNS) return;
         // A cell covered by a merge repeats its master's value: treat it as empty.
         const isMergeSlave = cell.isMerged && cell.master !== cell;
         while (cells.length < column - 1) cells.push(EMPTY_CELL);

@@ -18,7 +18,6 @@ export type ParseFindingCode =
   | "EMPTY_FILE"
   | "WRONG_FILE_TYPE"
   | "BINARY_CONTENT"
-  | "NOT_UTF8"
   | "UNREADABLE_WORKBOOK"
   | "TOO_MANY_ROWS"
   | "GRID_TOO_LARGE"
