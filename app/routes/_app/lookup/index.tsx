@@ -378,8 +378,8 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
       ) : null}
       {explain ? <ExplanationPanel target={explain} onClose={() => setExplain(null)} /> : null}
 
+      {run ? <EstimateCaution className="mt-4 rounded border border-caution/30 bg-caution-soft p-3 text-sm text-caution" /> : null}
       {canSave ? <SavedSets sets={sets} onLoad={loadSet} /> : null}
-      <EstimateCaution className="mt-6 rounded border border-caution/30 bg-caution-soft p-3 text-sm text-caution" />
     </>
   );
 }
