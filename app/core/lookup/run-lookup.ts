@@ -1,0 +1,535 @@
+/**
+ * runLookup: property values at many (pressure, temperature) points of a measured grid, in the caller's unit
+ * system. Points arrive in field (psia, °F) or metric (bara, °C) units, are converted to canonical units,
+ * interpolated by the engine's typed-array batch path, and values, error estimates, stencil coordinates and
+ * bubble points are converted back to the units of that system.
+ */
+import { DEFAULT_DEGREE, InterpolationError, MAX_DEGREE, type Branch, type Grid } from "../interpolation";
+import { isPropertyKey, type PropertyKey } from "../units";
+import { lookupCanonical, LOOKUP_METHODS, METHOD_CODES, type CanonicalLookup, type LookupMethod, type UsedMethod } from "./compute";
+import { LookupError } from "./errors";
+import {
+  affineToCanonical,
+  LOOKUP_UNITS,
+  propertyQuantity,
+  PROPERTY_NAMES,
+  unitLabel,
+  unitSystemOf,
+  type Affine,
+  type LookupUnits,
+  type UnitLabel,
+} from "./unit-map";
+import { expandWarningFlags, type LookupWarning } from "./warnings";
+
+/** Most points one lookup accepts (the API's limit). */
+export const MAX_LOOKUP_POINTS = 100_000;
+
+export type LookupOptions = {
+  /** 'auto': newton (degree [3,3] unless given) with the pchip value wherever Newton overshoots. */
+  method: LookupMethod;
+  /** Newton degree, one number for both axes or [pressure, temperature]; 1 to MAX_DEGREE. Default 3. */
+  degree?: number | [number, number];
+  /** Serve points outside the measured range (marked 'extrapolated'); otherwise they are refused. */
+  extrapolate?: boolean;
+  property: PropertyKey;
+  /** Unit system of the points and of everything returned. */
+  units: LookupUnits;
+  /** Plain-word messages next to the warning codes (default true). */
+  messages?: boolean;
+};
+
+export type LookupPoint = { pressure: number; temperature: number };
+
+/** Many points as two columns of equal length (typed arrays avoid a copy). */
+export type LookupPointColumns = {
+  pressures: Float64Array | readonly number[];
+  temperatures: Float64Array | readonly number[];
+};
+
+export type LookupPoints = readonly LookupPoint[] | LookupPointColumns;
+
+/**
+ * The measured nodes behind a value: grid row indices (pressures) and column indices (temperatures) of
+ * the zone, and their pressures and temperatures in the output units. On an oil grid the zone's pressure
+ * nodes may also include the bubble point itself (not a grid row; see `bubblePointPressure`), and a
+ * column may use its own rows within this span; `explainInterpolation` lists every node of one point.
+ */
+export type LookupStencil = {
+  readonly pressureIndices: readonly number[];
+  readonly temperatureIndices: readonly number[];
+  readonly pressures: readonly number[];
+  readonly temperatures: readonly number[];
+};
+
+export type LookupPointResult = {
+  value: number;
+  /** ≥ 0, in the value's unit; see the engine README, "Error estimate". */
+  errorEstimate: number;
+  /** Machine codes (shared frozen arrays: copy before changing). */
+  warnings: readonly LookupWarning[];
+  /** One plain-word sentence per warning (absent when there are none or messages: false). */
+  messages?: readonly string[];
+  /** The method that produced `value` ('pchip' where the automatic method fell back). */
+  method: UsedMethod;
+  stencil: LookupStencil;
+  /** Oil grids (with bubble points): the branch of the point; null for gas grids. */
+  branch: Branch | null;
+  /** Oil grids: bubble-point pressure at the point's temperature, in the output pressure unit. */
+  bubblePointPressure: number | null;
+  /** Explicit newton only, where it overshoots: the shape-preserving value for the same point. */
+  alternative?: { method: "pchip"; value: number; errorEstimate: number };
+};
+
+export type LookupUnitLabels = {
+  system: LookupUnits;
+  pressure: UnitLabel;
+  temperature: UnitLabel;
+  /** Unit of `value`, `errorEstimate` and `alternative`. */
+  value: UnitLabel;
+  /** Reference conditions of gas and oil volumes in this system (Rs, Bg, Bo). */
+  standardConditions: string;
+};
+
+export type LookupSummary = {
+  count: number;
+  methodCounts: Record<UsedMethod, number>;
+  warningCounts: Partial<Record<LookupWarning, number>>;
+};
+
+export type LookupResult = {
+  property: PropertyKey;
+  method: LookupMethod;
+  /** [pressure, temperature] degree of the polynomial method; null for pchip. */
+  degree: [number, number] | null;
+  /** Plain words for the method, e.g. "automatic: newton [3,3], pchip where newton overshoots". */
+  methodDescription: string;
+  extrapolate: boolean;
+  units: LookupUnitLabels;
+  results: LookupPointResult[];
+  summary: LookupSummary;
+};
+
+/** The typed-array form (no object per point): for plots and large batches. */
+export type LookupColumnsResult = {
+  property: PropertyKey;
+  method: LookupMethod;
+  degree: [number, number] | null;
+  methodDescription: string;
+  extrapolate: boolean;
+  units: LookupUnitLabels;
+  count: number;
+  values: Float64Array;
+  errorEstimates: Float64Array;
+  /** Warning mask per point: the engine's WARNING_FLAGS plus W_PCHIP_FALLBACK; see lookupWarningsFromFlags. */
+  warnings: Uint16Array;
+  /** Index into METHOD_CODES ('newton', 'pchip', 'linear') per point. */
+  methods: Uint8Array;
+  /** 1 saturated, 2 undersaturated (oil grids), else null. */
+  branches: Uint8Array | null;
+  /** Output pressure unit (oil grids), else null. */
+  bubblePointPressures: Float64Array | null;
+  /** Explicit newton: pchip value where it overshoots, NaN elsewhere; null when there is none. */
+  alternatives: Float64Array | null;
+  alternativeErrors: Float64Array | null;
+  /** First grid index and span of the stencil along each axis (see the engine's BatchResult). */
+  pressureStart: Int32Array;
+  pressureCount: Uint8Array;
+  temperatureStart: Int32Array;
+  temperatureCount: Uint8Array;
+};
+
+export type NormalizedLookupOptions = {
+  method: LookupMethod;
+  degree: [number, number];
+  extrapolate: boolean;
+  property: PropertyKey;
+  units: LookupUnits;
+  messages: boolean;
+};
+
+function describe(value: unknown): string {
+  if (typeof value === "string") return JSON.stringify(value);
+  if (typeof value === "number" || typeof value === "boolean" || value === null || value === undefined) return String(value);
+  return `a ${Array.isArray(value) ? "list" : typeof value}`;
+}
+
+function checkDegree(d: unknown, what: string): number {
+  if (typeof d !== "number" || !Number.isInteger(d) || d < 1 || d > MAX_DEGREE) {
+    throw new LookupError("INVALID_OPTIONS", `${what} must be a whole number from 1 to ${MAX_DEGREE}; got ${describe(d)}.`, {
+      field: "degree",
+    });
+  }
+  return d;
+}
+
+/** Checks lookup options; throws LookupError INVALID_OPTIONS naming the field. */
+export function normalizeLookupOptions(options: LookupOptions): NormalizedLookupOptions {
+  if (typeof options !== "object" || options === null) {
+    throw new LookupError("INVALID_OPTIONS", "Lookup options are required: { method, property, units }.");
+  }
+  const method: unknown = options.method;
+  if (typeof method !== "string" || !(LOOKUP_METHODS as readonly string[]).includes(method)) {
+    throw new LookupError("INVALID_OPTIONS", `method must be one of ${LOOKUP_METHODS.join(", ")}; got ${describe(method)}.`, {
+      field: "method",
+    });
+  }
+  const property: unknown = options.property;
+  if (typeof property !== "string" || !isPropertyKey(property)) {
+    throw new LookupError(
+      "INVALID_OPTIONS",
+      `property must be one of oil_fvf, solution_gor, oil_viscosity, oil_density, gas_fvf, gas_viscosity, z_factor; got ${describe(property)}.`,
+      { field: "property" },
+    );
+  }
+  const units: unknown = options.units;
+  if (typeof units !== "string" || !(LOOKUP_UNITS as readonly string[]).includes(units)) {
+    throw new LookupError("INVALID_OPTIONS", `units must be 'field' or 'metric'; got ${describe(units)}.`, { field: "units" });
+  }
+  const extrapolate: unknown = options.extrapolate;
+  if (extrapolate !== undefined && typeof extrapolate !== "boolean") {
+    throw new LookupError("INVALID_OPTIONS", `extrapolate must be true or false; got ${describe(extrapolate)}.`, {
+      field: "extrapolate",
+    });
+  }
+  const messages: unknown = options.messages;
+  if (messages !== undefined && typeof messages !== "boolean") {
+    throw new LookupError("INVALID_OPTIONS", `messages must be true or false; got ${describe(messages)}.`, { field: "messages" });
+  }
+  const degree: unknown = options.degree;
+  let m = DEFAULT_DEGREE;
+  let n = DEFAULT_DEGREE;
+  if (Array.isArray(degree)) {
+    if (degree.length !== 2) {
+      throw new LookupError(
+        "INVALID_OPTIONS",
+        `degree as a list must be [pressure degree, temperature degree]; got ${degree.length} entries.`,
+        { field: "degree" },
+      );
+    }
+    m = checkDegree(degree[0], "The pressure degree");
+    n = checkDegree(degree[1], "The temperature degree");
+  } else if (degree !== undefined) {
+    m = n = checkDegree(degree, "degree");
+  }
+  if (method === "linear") m = n = 1;
+  return {
+    method: method as LookupMethod,
+    degree: [m, n],
+    extrapolate: extrapolate === true,
+    property,
+    units: units as LookupUnits,
+    messages: messages !== false,
+  };
+}
+
+/** Plain words for a method and degree. */
+export function describeLookupMethod(method: LookupMethod, degree: [number, number] = [DEFAULT_DEGREE, DEFAULT_DEGREE]): string {
+  const d = `[${degree[0]},${degree[1]}]`;
+  switch (method) {
+    case "auto":
+      return `automatic: newton ${d}, pchip where newton overshoots`;
+    case "newton":
+      return `newton ${d}`;
+    case "pchip":
+      return "pchip (shape-preserving cubic)";
+    case "linear":
+      return "linear";
+  }
+}
+
+export type UnitContext = {
+  pressure: Affine;
+  temperature: Affine;
+  value: Affine;
+  labels: LookupUnitLabels;
+};
+
+export function unitContext(property: PropertyKey, units: LookupUnits): UnitContext {
+  const system = unitSystemOf(units);
+  const quantity = propertyQuantity(property);
+  return {
+    pressure: affineToCanonical("pressure", system),
+    temperature: affineToCanonical("temperature", system),
+    value: affineToCanonical(quantity, system),
+    labels: {
+      system: units,
+      pressure: unitLabel("pressure", system),
+      temperature: unitLabel("temperature", system),
+      value: unitLabel(quantity, system),
+      standardConditions: system.standardConditions.label,
+    },
+  };
+}
+
+const ABSOLUTE_ZERO_F = -459.67;
+
+function badPoint(index: number, axis: "pressure" | "temperature", value: unknown, ctx: UnitContext, why: string): LookupError {
+  const unit = axis === "pressure" ? ctx.labels.pressure.symbol : ctx.labels.temperature.symbol;
+  return new LookupError("INVALID_POINT", `Point ${index} has ${axis} ${describe(value)} ${unit}: ${why}`, {
+    pointIndex: index,
+    axis,
+    value,
+    unit,
+  });
+}
+
+function checkedPoint(i: number, p: unknown, t: unknown, ctx: UnitContext, ps: Float64Array, ts: Float64Array): void {
+  if (typeof p !== "number" || !Number.isFinite(p)) throw badPoint(i, "pressure", p, ctx, "a finite number is needed.");
+  if (typeof t !== "number" || !Number.isFinite(t)) throw badPoint(i, "temperature", t, ctx, "a finite number is needed.");
+  const pc = p * ctx.pressure.scale + ctx.pressure.offset;
+  const tc = t * ctx.temperature.scale + ctx.temperature.offset;
+  if (!(pc > 0)) throw badPoint(i, "pressure", p, ctx, "pressures are absolute and must be above zero.");
+  if (!(tc > ABSOLUTE_ZERO_F)) throw badPoint(i, "temperature", t, ctx, "that is at or below absolute zero.");
+  ps[i] = pc;
+  ts[i] = tc;
+}
+
+function checkCount(count: number): void {
+  if (count > MAX_LOOKUP_POINTS) {
+    throw new LookupError("TOO_MANY_POINTS", `${count} points were sent; one lookup takes at most ${MAX_LOOKUP_POINTS}.`, {
+      count,
+      max: MAX_LOOKUP_POINTS,
+    });
+  }
+}
+
+const NOT_POINTS = "Points must be a list of { pressure, temperature } or columns { pressures, temperatures } (number lists or Float64Array).";
+
+/** Converts the caller's points to canonical typed arrays, checking each. */
+function canonicalPoints(points: LookupPoints, ctx: UnitContext): { ps: Float64Array; ts: Float64Array } {
+  if (Array.isArray(points)) {
+    const list = points as readonly unknown[];
+    const count = list.length;
+    checkCount(count);
+    const ps = new Float64Array(count);
+    const ts = new Float64Array(count);
+    for (let i = 0; i < count; i++) {
+      const pt = list[i];
+      if (typeof pt !== "object" || pt === null) {
+        throw new LookupError("INVALID_POINTS", `Point ${i} must be an object { pressure, temperature }; got ${describe(pt)}.`, {
+          pointIndex: i,
+        });
+      }
+      checkedPoint(i, (pt as LookupPoint).pressure, (pt as LookupPoint).temperature, ctx, ps, ts);
+    }
+    return { ps, ts };
+  }
+  if (typeof points !== "object" || points === null) throw new LookupError("INVALID_POINTS", NOT_POINTS);
+  const pc: unknown = (points as LookupPointColumns).pressures;
+  const tc: unknown = (points as LookupPointColumns).temperatures;
+  const ok = (c: unknown): c is Float64Array | readonly number[] => c instanceof Float64Array || Array.isArray(c);
+  if (!ok(pc) || !ok(tc)) throw new LookupError("INVALID_POINTS", NOT_POINTS);
+  if (pc.length !== tc.length) {
+    throw new LookupError("INVALID_POINTS", `pressures has ${pc.length} entries but temperatures has ${tc.length}; they must pair up.`, {
+      pressures: pc.length,
+      temperatures: tc.length,
+    });
+  }
+  const count = pc.length;
+  checkCount(count);
+  const ps = new Float64Array(count);
+  const ts = new Float64Array(count);
+  for (let i = 0; i < count; i++) checkedPoint(i, pc[i], tc[i], ctx, ps, ts);
+  return { ps, ts };
+}
+
+function fmt(x: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  return String(Number(x.toPrecision(6)));
+}
+
+function back(a: Affine, canonical: number): number {
+  return (canonical - a.offset) / a.scale;
+}
+
+/** Re-expresses an engine error in the caller's units and with the lookup's codes. */
+export function toLookupError(error: unknown, property: PropertyKey, ctx: UnitContext): unknown {
+  if (!(error instanceof InterpolationError)) return error;
+  const d = error.details;
+  const index = typeof d.pointIndex === "number" ? d.pointIndex : undefined;
+  const pUnit = ctx.labels.pressure.symbol;
+  const tUnit = ctx.labels.temperature.symbol;
+  const engineMessage = `${error.message} (numbers in psia and °F)`;
+  switch (error.code) {
+    case "out-of-range": {
+      const axis = d.axis === "temperature" ? "temperature" : "pressure";
+      const a = axis === "pressure" ? ctx.pressure : ctx.temperature;
+      const unit = axis === "pressure" ? pUnit : tUnit;
+      const value = back(a, Number(d.value));
+      const min = back(a, Number(d.min));
+      const max = back(a, Number(d.max));
+      const where = index === undefined ? "The point" : `Point ${index}`;
+      const range =
+        min === max
+          ? `the table of ${PROPERTY_NAMES[property]} was measured at a single ${axis}, ${fmt(min)} ${unit}`
+          : `the measured ${axis}s of ${PROPERTY_NAMES[property]} run from ${fmt(min)} to ${fmt(max)} ${unit}`;
+      return new LookupError(
+        "OUT_OF_RANGE",
+        `${where} has ${axis} ${fmt(value)} ${unit}, outside the measured range: ${range}. Allow extrapolation to get a value anyway; it is then marked 'extrapolated'.`,
+        { pointIndex: index, axis, value, min, max, unit, engineMessage },
+        error,
+      );
+    }
+    case "no-valid-zone": {
+      const p = back(ctx.pressure, Number(d.pressure));
+      const t = back(ctx.temperature, Number(d.temperature));
+      const where = index === undefined ? "The point" : `Point ${index}`;
+      const branch = d.branch === "saturated" || d.branch === "undersaturated" ? ` on the ${d.branch} branch` : "";
+      return new LookupError(
+        "NO_VALID_ZONE",
+        `${where} (${fmt(p)} ${pUnit}, ${fmt(t)} ${tUnit}): no measured values of ${PROPERTY_NAMES[property]} surround it${branch}. Cells around it were not measured, or it lies beyond the last measured pressure of the neighbouring temperatures. Allow extrapolation to get a value from the nearest measured values; it is then marked 'extrapolated'.`,
+        { pointIndex: index, pressure: p, temperature: t, branch: d.branch, engineMessage },
+        error,
+      );
+    }
+    case "invalid-point":
+      return new LookupError("INVALID_POINT", error.message, { ...d }, error);
+    case "invalid-options":
+      return new LookupError("INVALID_OPTIONS", error.message, { ...d }, error);
+    default:
+      return new LookupError("INVALID_GRID", `The stored table of ${PROPERTY_NAMES[property]} cannot be used: ${error.message}`, { ...d, engineCode: error.code }, error);
+  }
+}
+
+function prepare(grid: Grid, points: LookupPoints, options: LookupOptions) {
+  const opts = normalizeLookupOptions(options);
+  const ctx = unitContext(opts.property, opts.units);
+  const { ps, ts } = canonicalPoints(points, ctx);
+  let raw: CanonicalLookup;
+  try {
+    raw = lookupCanonical(grid, ps, ts, opts);
+  } catch (error) {
+    throw toLookupError(error, opts.property, ctx);
+  }
+  return { opts, ctx, raw };
+}
+
+function header(opts: NormalizedLookupOptions, ctx: UnitContext) {
+  const degree: [number, number] | null = opts.method === "pchip" ? null : opts.degree;
+  return {
+    property: opts.property,
+    method: opts.method,
+    degree,
+    methodDescription: describeLookupMethod(opts.method, opts.degree),
+    extrapolate: opts.extrapolate,
+    units: ctx.labels,
+  };
+}
+
+/**
+ * Interpolates `property` of a canonical grid at points given in the caller's unit system and returns one
+ * result per point in that system. Throws LookupError (codes in errors.ts) for bad options or points, a
+ * point outside the measured range (unless `extrapolate`), or an unusable grid.
+ */
+export function runLookup(grid: Grid, points: LookupPoints, options: LookupOptions): LookupResult {
+  const { opts, ctx, raw } = prepare(grid, points, options);
+  const n = raw.count;
+  const va = ctx.value;
+  const vScale = Math.abs(va.scale);
+  const pa = ctx.pressure;
+  const ta = ctx.temperature;
+  const P = grid.pressures;
+  const T = grid.temperatures;
+  const stencils = new Map<number, LookupStencil>();
+  const methodCounts: Record<UsedMethod, number> = { newton: 0, pchip: 0, linear: 0 };
+  const flagCounts = new Map<number, number>();
+  const results: LookupPointResult[] = new Array<LookupPointResult>(n);
+  const { values, errorEstimates, flags, methods, branches, bubblePoints, alternatives, alternativeErrors } = raw;
+  for (let i = 0; i < n; i++) {
+    const ps = raw.pressureStart[i]!;
+    const pc = raw.pressureCount[i]!;
+    const tsI = raw.temperatureStart[i]!;
+    const tc = raw.temperatureCount[i]!;
+    const key = ((ps * 256 + pc) * 65536 + tsI) * 256 + tc;
+    let stencil = stencils.get(key);
+    if (!stencil) {
+      const pressureIndices: number[] = [];
+      const pressures: number[] = [];
+      for (let r = ps; r < ps + pc; r++) {
+        pressureIndices.push(r);
+        pressures.push((P[r]! - pa.offset) / pa.scale);
+      }
+      const temperatureIndices: number[] = [];
+      const temperatures: number[] = [];
+      for (let c = tsI; c < tsI + tc; c++) {
+        temperatureIndices.push(c);
+        temperatures.push((T[c]! - ta.offset) / ta.scale);
+      }
+      stencil = Object.freeze({
+        pressureIndices: Object.freeze(pressureIndices),
+        temperatureIndices: Object.freeze(temperatureIndices),
+        pressures: Object.freeze(pressures),
+        temperatures: Object.freeze(temperatures),
+      });
+      stencils.set(key, stencil);
+    }
+    const f = flags[i]!;
+    const expanded = expandWarningFlags(f);
+    if (f !== 0) flagCounts.set(f, (flagCounts.get(f) ?? 0) + 1);
+    const method = METHOD_CODES[methods[i]!]!;
+    methodCounts[method]++;
+    const result: LookupPointResult = {
+      value: (values[i]! - va.offset) / va.scale,
+      errorEstimate: errorEstimates[i]! * (1 / vScale),
+      warnings: expanded.warnings,
+      method,
+      stencil,
+      branch: branches ? (branches[i] === 1 ? "saturated" : "undersaturated") : null,
+      bubblePointPressure: bubblePoints ? (bubblePoints[i]! - pa.offset) / pa.scale : null,
+    };
+    if (opts.messages && f !== 0) result.messages = expanded.messages;
+    if (alternatives && !Number.isNaN(alternatives[i]!)) {
+      result.alternative = {
+        method: "pchip",
+        value: (alternatives[i]! - va.offset) / va.scale,
+        errorEstimate: alternativeErrors![i]! / vScale,
+      };
+    }
+    results[i] = result;
+  }
+  const warningCounts: Partial<Record<LookupWarning, number>> = {};
+  for (const [f, c] of flagCounts) {
+    for (const code of expandWarningFlags(f).warnings) warningCounts[code] = (warningCounts[code] ?? 0) + c;
+  }
+  return { ...header(opts, ctx), results, summary: { count: n, methodCounts, warningCounts } };
+}
+
+/**
+ * As runLookup, but returns typed arrays instead of an object per point (plots, very large batches).
+ * Values, error estimates and bubble points are in the output units; warnings are bit masks.
+ */
+export function runLookupColumns(grid: Grid, points: LookupPoints, options: LookupOptions): LookupColumnsResult {
+  const { opts, ctx, raw } = prepare(grid, points, options);
+  const n = raw.count;
+  const va = ctx.value;
+  const vScale = Math.abs(va.scale);
+  const pa = ctx.pressure;
+  const { values, errorEstimates, bubblePoints, alternatives, alternativeErrors } = raw;
+  for (let i = 0; i < n; i++) {
+    values[i] = (values[i]! - va.offset) / va.scale;
+    errorEstimates[i] = errorEstimates[i]! / vScale;
+  }
+  if (bubblePoints) for (let i = 0; i < n; i++) bubblePoints[i] = (bubblePoints[i]! - pa.offset) / pa.scale;
+  if (alternatives && alternativeErrors) {
+    for (let i = 0; i < n; i++) {
+      alternatives[i] = (alternatives[i]! - va.offset) / va.scale;
+      alternativeErrors[i] = alternativeErrors[i]! / vScale;
+    }
+  }
+  return {
+    ...header(opts, ctx),
+    count: n,
+    values,
+    errorEstimates,
+    warnings: raw.flags,
+    methods: raw.methods,
+    branches: raw.branches,
+    bubblePointPressures: bubblePoints,
+    alternatives,
+    alternativeErrors,
+    pressureStart: raw.pressureStart,
+    pressureCount: raw.pressureCount,
+    temperatureStart: raw.temperatureStart,
+    temperatureCount: raw.temperatureCount,
+  };
+}
