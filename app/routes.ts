@@ -39,6 +39,7 @@ export default [
       route("samples", "routes/api/v1/samples/index.ts"),
       route("samples/:sampleId", "routes/api/v1/samples/$sampleId/index.ts"),
       route("samples/:sampleId/lookup", "routes/api/v1/samples/$sampleId/lookup.ts"),
+      route("samples/:sampleId/table", "routes/api/v1/samples/$sampleId/table.ts"),
     ]),
     route("*", "routes/api/not-found.ts"),
   ]),
