@@ -34,7 +34,9 @@ for await (const file of walk(root)) {
         gzip(data, { level: 9 }),
         brotli(data, {
           params: {
-            [zlib.constants.BROTLI_PARAM_QUALITY]: 11,
+            // Highest quality for ordinary files; 9 for the multi-megabyte plot bundle, where 11 would take
+            // ~20 s of every build for 10 % fewer bytes.
+            [zlib.constants.BROTLI_PARAM_QUALITY]: data.length > 1_000_000 ? 9 : 11,
             [zlib.constants.BROTLI_PARAM_SIZE_HINT]: data.length,
           },
         }),
