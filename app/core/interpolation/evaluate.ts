@@ -22,8 +22,20 @@ export function evaluateRange(
 ): void {
   let kernel = plan.kernel;
   if (kernel === undefined) kernel = plan.kernel = fastKernel(plan);
-  if (kernel) kernel(plan, ps, ts, from, to, extrapolate, out, outOffset, batch);
-  else {
+  if (kernel) {
+    kernel(plan, ps, ts, from, to, extrapolate, out, outOffset, batch);
+    const tb = plan.newton;
+    if (tb) {
+      // zone sizes are the same for every point on a complete grid
+      if (to - from === 1) {
+        out.pressureCount[outOffset] = tb.p.valueTerms;
+        out.temperatureCount[outOffset] = tb.t.valueTerms;
+      } else {
+        out.pressureCount.fill(tb.p.valueTerms, outOffset, outOffset + to - from);
+        out.temperatureCount.fill(tb.t.valueTerms, outOffset, outOffset + to - from);
+      }
+    }
+  } else {
     for (let idx = from; idx < to; idx++) {
       evaluateGeneral(plan, ps[idx]!, ts[idx]!, extrapolate, out, outOffset + idx - from, batch ? idx : -1, null);
     }
@@ -56,10 +68,23 @@ export function evaluatePoint(plan: Plan, point: Point, extrapolate: boolean, po
   return toResult(plan);
 }
 
+/** start, start+1, …, start+count−1 (literals for the usual zone sizes: exactly sized, no growth). */
 function span(start: number, count: number): number[] {
-  const out: number[] = [];
-  for (let i = 0; i < count; i++) out.push(start + i);
-  return out;
+  switch (count) {
+    case 1:
+      return [start];
+    case 2:
+      return [start, start + 1];
+    case 3:
+      return [start, start + 1, start + 2];
+    case 4:
+      return [start, start + 1, start + 2, start + 3];
+    default: {
+      const out = new Array<number>(count);
+      for (let i = 0; i < count; i++) out[i] = start + i;
+      return out;
+    }
+  }
 }
 
 /** The Result for the point last evaluated into plan.single. */

@@ -115,7 +115,7 @@ export function evaluateGeneral(
       const zone = c < vT;
       if (zone) flags |= statusFlag(sc.status[u]!);
       flags |= newtonColumn(plan, br, j, p, c, zone);
-      if (zone) scale = Math.max(scale, Math.abs(sc.r[c]!));
+      if (zone) scale += Math.abs(sc.r[c]!);
       if (trace) trace.stepOne.push(traceNewtonColumn(plan, br, j, c, zone, sc.status[u]!));
     }
     // step two along temperature on the new row; then the pressure corrections along temperature
@@ -154,7 +154,7 @@ export function evaluateGeneral(
       pchipCell(br.x, off, br.y, off, cnt, k, p);
       sc.r[u] = pchipOut.value;
       sc.e[u] = pchipOut.estimate;
-      scale = Math.max(scale, Math.abs(pchipOut.value));
+      scale += Math.abs(pchipOut.value);
       sc.cols[c] = j;
       sc.colOff[c] = off;
       sc.vFrom[c] = cnt < 2 ? 0 : Math.max(0, k - 1);
@@ -180,7 +180,7 @@ export function evaluateGeneral(
     trace.errorTemperature = errT;
   }
   out.values[o] = value;
-  out.errorEstimates[o] = Math.abs(errP) + Math.abs(errT) + 4 * Number.EPSILON * Math.max(scale, Math.abs(value));
+  out.errorEstimates[o] = Math.abs(errP) + Math.abs(errT) + 4 * Number.EPSILON * (scale + Math.abs(value));
   out.warnings[o] = flags;
   if (out.branches) out.branches[o] = b;
   writeStencilSpan(plan, br, out, o);

@@ -11,7 +11,10 @@ import { checkRange } from "./range";
 import type { BatchResult } from "./types";
 import { W_EXTRAPOLATED, W_OVERSHOOT } from "./warnings";
 
-/** The fast kernel for a plan, or null when the general evaluator must be used. */
+/**
+ * The fast kernel for a plan, or null when the general evaluator must be used. The Newton kernels leave
+ * pressureCount/temperatureCount to the caller: they are the same for every point (the zone sizes).
+ */
 export function fastKernel(plan: Plan): Kernel | null {
   const tb = plan.newton;
   if (tb) {
@@ -67,7 +70,7 @@ export function runNewtonFast(
   const tAsc = tb.t.asc;
   const newton = plan.method === "newton";
   const eps4 = 4 * Number.EPSILON;
-  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
+  const { values, errorEstimates, warnings, pressureStart, temperatureStart } = out;
 
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -103,8 +106,7 @@ export function runNewtonFast(
       r[c] = s;
       e[c] = qp > 1 ? coef[cb + qp - 1]! * wp[qp - 1]! : 0;
       if (c < vt) {
-        const a = s < 0 ? -s : s;
-        if (a > scale) scale = a;
+        scale += Math.abs(s);
         if (checkOvershoot && (s < zoneLo[zi]! || s > zoneHi[zi]!)) flags |= W_OVERSHOOT;
       }
     }
@@ -131,12 +133,10 @@ export function runNewtonFast(
 
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = (dP < 0 ? -dP : dP) + (dT < 0 ? -dT : dT) + eps4 * Math.max(scale, value < 0 ? -value : value);
+    errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * (scale + Math.abs(value));
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
-    pressureCount[o] = vp;
     temperatureStart[o] = tStart[varT]!;
-    temperatureCount[o] = vt;
     if (flags & W_OVERSHOOT) alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
   }
 }
@@ -211,7 +211,7 @@ function runNewton11(
   const tScale = tAxis.scale;
   const constFlags = plan.constFlags;
   const eps4 = 4 * Number.EPSILON;
-  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
+  const { values, errorEstimates, warnings, pressureStart, temperatureStart } = out;
 
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -257,17 +257,12 @@ function runNewton11(
     const dT = b2 * (v1 * (t - tx[to3 + 1]!));
     const dP = e0 + (e1 - e0) * i1 * v1;
 
-    const a0 = r0 < 0 ? -r0 : r0;
-    const a11 = r1 < 0 ? -r1 : r1;
-    const av = value < 0 ? -value : value;
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = (dP < 0 ? -dP : dP) + (dT < 0 ? -dT : dT) + eps4 * (a0 > a11 ? (a0 > av ? a0 : av) : a11 > av ? a11 : av);
+    errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * (Math.abs(r0) + Math.abs(r1) + Math.abs(value));
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
-    pressureCount[o] = 2;
     temperatureStart[o] = tStart[varT]!;
-    temperatureCount[o] = 2;
   }
 }
 
@@ -290,7 +285,8 @@ function runNewton33(
   const pHi = P[N - 1]!;
   const tLo = T[0]!;
   const tHi = T[M - 1]!;
-  const { coef, invT, zoneLo, zoneHi } = tb;
+  const { coef, invT, zoneLo, zoneHi, zoneSafe } = tb;
+  const vtCount = tb.t.order.length / 5;
   const px = tb.p.x;
   const tx = tb.t.x;
   const tOrd = tb.t.order;
@@ -305,7 +301,7 @@ function runNewton33(
   const constFlags = plan.constFlags;
   const newton = plan.method === "newton";
   const eps4 = 4 * Number.EPSILON;
-  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
+  const { values, errorEstimates, warnings, pressureStart, temperatureStart } = out;
 
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -383,14 +379,15 @@ function runNewton33(
 
     if (newton && (flags & W_EXTRAPOLATED) === 0) {
       if (
-        r0 < zoneLo[z0]! ||
+        zoneSafe[varP * vtCount + varT] === 0 &&
+        (r0 < zoneLo[z0]! ||
         r0 > zoneHi[z0]! ||
         r1 < zoneLo[z1]! ||
         r1 > zoneHi[z1]! ||
         r2 < zoneLo[z2]! ||
         r2 > zoneHi[z2]! ||
         r3 < zoneLo[z3]! ||
-        r3 > zoneHi[z3]!
+        r3 > zoneHi[z3]!)
       ) {
         flags |= W_OVERSHOOT;
       }
@@ -405,23 +402,13 @@ function runNewton33(
       }
     }
 
-    let scale = r0 < 0 ? -r0 : r0;
-    const s1 = r1 < 0 ? -r1 : r1;
-    const s2 = r2 < 0 ? -r2 : r2;
-    const s3 = r3 < 0 ? -r3 : r3;
-    const sv = value < 0 ? -value : value;
-    if (s1 > scale) scale = s1;
-    if (s2 > scale) scale = s2;
-    if (s3 > scale) scale = s3;
-    if (sv > scale) scale = sv;
+    const scale = Math.abs(r0) + Math.abs(r1) + Math.abs(r2) + Math.abs(r3) + Math.abs(value);
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = (dP < 0 ? -dP : dP) + (dT < 0 ? -dT : dT) + eps4 * scale;
+    errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * scale;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
-    pressureCount[o] = 4;
     temperatureStart[o] = tStart[varT]!;
-    temperatureCount[o] = 4;
     if (flags & W_OVERSHOOT) alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
   }
 }
@@ -482,16 +469,14 @@ export function runPchipFast(
         const s = ((cells[c + 3]! * dx + cells[c + 2]!) * dx + cells[c + 1]!) * dx + cells[c]!;
         r[j] = s;
         e[j] = ((cells[c + 6]! * dx + cells[c + 5]!) * dx + cells[c + 4]!) * dx;
-        const a = s < 0 ? -s : s;
-        if (a > scale) scale = a;
+        scale += Math.abs(s);
       }
     } else {
       for (let j = jLo; j <= jHi; j++) {
         pchipCell(P, 0, V, j * N, N, kp, p);
         r[j] = pchipOut.value;
         e[j] = pchipOut.estimate;
-        const a = Math.abs(pchipOut.value);
-        if (a > scale) scale = a;
+        scale += Math.abs(pchipOut.value);
       }
     }
     // step two: pchip along temperature on the new row, slopes from the (up to) four columns around t
@@ -551,10 +536,9 @@ export function runPchipFast(
       const eb = e[kt + 1]!;
       eP = (1 - w) * (ea < 0 ? -ea : ea) + w * (eb < 0 ? -eb : eb);
     }
-    const av = value < 0 ? -value : value;
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = eP + (eT < 0 ? -eT : eT) + eps4 * (scale > av ? scale : av);
+    errorEstimates[o] = eP + Math.abs(eT) + eps4 * (scale + Math.abs(value));
     warnings[o] = flags;
     const pS = kp > 0 ? kp - 1 : 0;
     pressureStart[o] = pS;

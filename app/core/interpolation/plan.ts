@@ -71,6 +71,12 @@ export type NewtonTables = {
   zoneHi: Float64Array;
   /** invT[(vt*q + l)*q + i] = 1 / (x_i − x_{i−l}) on the ordered temperature nodes of variant vt. */
   invT: Float64Array;
+  /**
+   * For cubic pressure zones only (else empty): 1 at [vp * (number of temperature variants) + vt] when no
+   * column of that temperature zone can overshoot anywhere on pressure variant vp's half-cell, so the
+   * step-one check can be skipped. Worked out from each cubic's extremes on the half-cell, with margin.
+   */
+  zoneSafe: Uint8Array;
   wp: Float64Array;
   wt: Float64Array;
   r: Float64Array;
@@ -287,10 +293,12 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
       for (let i = l; i < t.q; i++) invT[(vt * t.q + l) * t.q + i] = 1 / (t.x[xo + i]! - t.x[xo + i - l]!);
     }
   }
+  const zoneSafe = p.valueTerms === 4 && N >= 2 ? buildZoneSafe(P, p, t, coef, zoneLo, zoneHi, M) : new Uint8Array(0);
   return {
     p,
     t,
     coef,
+    zoneSafe,
     zoneLo,
     zoneHi,
     invT,
@@ -300,6 +308,77 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
     e: new Float64Array(t.q),
     d: new Float64Array(t.q),
   };
+}
+
+/** See NewtonTables.zoneSafe. */
+function buildZoneSafe(
+  P: Float64Array,
+  p: AxisVariants,
+  t: AxisVariants,
+  coef: Float64Array,
+  zoneLo: Float64Array,
+  zoneHi: Float64Array,
+  M: number,
+): Uint8Array {
+  const vpCount = p.order.length / p.q;
+  const vtCount = t.order.length / t.q;
+  const colSafe = new Uint8Array(vpCount * M);
+  for (let vp = 0; vp < vpCount; vp++) {
+    const k = vp >> 1;
+    const mid = (P[k]! + P[k + 1]!) / 2;
+    const a = vp & 1 ? mid : P[k]!;
+    const b = vp & 1 ? P[k + 1]! : mid;
+    const x0 = p.x[vp * p.q]!;
+    const x1 = p.x[vp * p.q + 1]!;
+    const x2 = p.x[vp * p.q + 2]!;
+    for (let j = 0; j < M; j++) {
+      const zi = vp * M + j;
+      const lo = zoneLo[zi]!;
+      const hi = zoneHi[zi]!;
+      if (lo === -Infinity) {
+        colSafe[zi] = 1; // not monotone: never checked
+        continue;
+      }
+      const cb = zi * p.q;
+      const c0 = coef[cb]!;
+      const c1 = coef[cb + 1]!;
+      const c2 = coef[cb + 2]!;
+      const c3 = coef[cb + 3]!;
+      const q = (x: number): number => c0 + c1 * (x - x0) + c2 * (x - x0) * (x - x1) + c3 * (x - x0) * (x - x1) * (x - x2);
+      // q in powers of u = x − x0: A u³ + B u² + C u + c0; extremes at the ends and where q' = 0
+      const d1 = x1 - x0;
+      const d2 = x2 - x0;
+      const A = c3;
+      const B = c2 - c3 * (d1 + d2);
+      const C = c1 - c2 * d1 + c3 * d1 * d2;
+      const candidates = [a, b];
+      const disc = 4 * B * B - 12 * A * C;
+      if (A !== 0 && disc >= 0) {
+        const r = Math.sqrt(disc);
+        candidates.push(x0 + (-2 * B + r) / (6 * A), x0 + (-2 * B - r) / (6 * A));
+      } else if (A === 0 && B !== 0) candidates.push(x0 - C / (2 * B));
+      let min = Infinity;
+      let max = -Infinity;
+      for (const x of candidates) {
+        if (!(x >= a && x <= b)) continue;
+        const y = q(x);
+        min = Math.min(min, y);
+        max = Math.max(max, y);
+      }
+      // half the tolerance is kept back for the rounding of the evaluation itself
+      const slack = (hi - lo) * 1e-10 + 64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi));
+      colSafe[zi] = min >= lo + slack && max <= hi - slack ? 1 : 0;
+    }
+  }
+  const zoneSafe = new Uint8Array(vpCount * vtCount);
+  for (let vp = 0; vp < vpCount; vp++) {
+    for (let vt = 0; vt < vtCount; vt++) {
+      let safe = 1;
+      for (let c = 0; c < t.valueTerms; c++) safe &= colSafe[vp * M + t.order[vt * t.q + c]!]!;
+      zoneSafe[vp * vtCount + vt] = safe;
+    }
+  }
+  return zoneSafe;
 }
 
 /**
