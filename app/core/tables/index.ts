@@ -1,6 +1,6 @@
 // Black-oil style tables at one temperature, resampled on requested pressures, in the order simulators
 // need, and written as JSON, CSV or our own plain text layout. Pure TypeScript; see README.md.
-export { MAX_TABLE_ROWS, parsePressureSpec } from "./pressure-spec";
+export { MAX_TABLE_ROWS, parsePressureSpec, tableConditionsToCanonical } from "./pressure-spec";
 export type { PressureSpec } from "./pressure-spec";
 export { buildBlackOilTable, correctionReason, TABLE_RULE_TEXT } from "./build-table";
 export type {

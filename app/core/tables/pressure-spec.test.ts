@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { MAX_TABLE_ROWS, parsePressureSpec, TableError } from "./index";
+import { MAX_TABLE_ROWS, parsePressureSpec, TableError, tableConditionsToCanonical } from "./index";
 
 function failure(spec: string): string {
   try {
@@ -62,5 +62,15 @@ describe("parsePressureSpec", () => {
 
   test("text that is not a string is refused", () => {
     expect(failure(500 as unknown as string)).toMatch(/^MALFORMED_PRESSURES/);
+  });
+});
+
+describe("tableConditionsToCanonical", () => {
+  test("field numbers pass through; metric bara and °C become psia and °F (1 bar = 14.503774 psi, °F = 1.8 °C + 32)", () => {
+    expect(tableConditionsToCanonical({ pressures: [500, 1000], temperature: 212 }, "field")).toEqual({ pressures: [500, 1000], temperature: 212 });
+    const m = tableConditionsToCanonical({ pressures: parsePressureSpec("100:200:100").pressures, temperature: 100 }, "metric");
+    expect(m.pressures[0]!).toBeCloseTo(1450.3774, 4);
+    expect(m.pressures[1]!).toBeCloseTo(2900.7548, 4);
+    expect(m.temperature).toBeCloseTo(212, 10);
   });
 });

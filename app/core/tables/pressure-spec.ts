@@ -3,6 +3,7 @@
  * (start, stop, step; the stop is included when the steps land on it). Numbers are taken as written, in
  * the caller's pressure unit; converting them is the caller's business.
  */
+import { affineToCanonical, toCanonicalWith, unitSystemOf, type LookupUnits } from "../lookup";
 import { TableError } from "./errors";
 
 /** Most rows a table may have (the bubble-point row comes on top). */
@@ -109,4 +110,18 @@ function parseRange(text: string): PressureSpec {
     if (pressures.length === 0 || p > pressures[pressures.length - 1]!) pressures.push(p);
   }
   return { kind: "range", pressures };
+}
+
+/**
+ * The table's pressures and temperature, given in the caller's unit system (field: psia and °F; metric:
+ * bara and °C), in canonical units (psia, °F) for buildBlackOilTable.
+ */
+export function tableConditionsToCanonical(
+  conditions: { pressures: readonly number[]; temperature: number },
+  units: LookupUnits,
+): { pressures: number[]; temperature: number } {
+  const system = unitSystemOf(units);
+  const p = affineToCanonical("pressure", system);
+  const t = affineToCanonical("temperature", system);
+  return { pressures: conditions.pressures.map((v) => toCanonicalWith(p, v)), temperature: toCanonicalWith(t, conditions.temperature) };
 }
