@@ -1,6 +1,5 @@
 import { getSampleWithPlace, listSamplesWithApproved } from "~/.server/db/queries/samples";
 import { listBubblePointsOfRevisions, listRevisionProperties } from "~/.server/db/queries/revisions";
-import { getCurrentApprovedRevision } from "~/.server/db/queries/revisions";
 import { problem } from "~/.server/http";
 import { getRevisionData, resolveRevision, type RevisionData } from "~/.server/samples/revision-data";
 import type { PropertyKey } from "~/core/units";
@@ -12,11 +11,7 @@ const round = (v: number, digits = 10) => Number(v.toPrecision(digits));
 export async function listSamplesForCaller(caller: ApiCaller, system: OutputSystem) {
   const all = (await listSamplesWithApproved()).filter((s) => callerMayReadSample(caller, { id: s.id, fieldId: s.fieldId }));
   const revisionIds = new Map<number, number>();
-  for (const s of all) {
-    if (s.approvedRevision === null) continue;
-    const r = await getCurrentApprovedRevision(s.id);
-    if (r) revisionIds.set(s.id, r.id);
-  }
+  for (const s of all) if (s.approvedRevisionId !== null) revisionIds.set(s.id, Number(s.approvedRevisionId));
   const ids = [...revisionIds.values()];
   const [props, bubbles] = await Promise.all([listRevisionProperties(ids), listBubblePointsOfRevisions(ids)]);
   return all.map((s) => {
@@ -48,9 +43,19 @@ export async function requireSampleForCaller(caller: ApiCaller, sampleId: number
   return sample;
 }
 
-/** The revision's data, or a thrown 404 problem (no approved revision, or no such revision number). */
-export async function requireRevisionData(sampleId: number, number?: number): Promise<RevisionData> {
-  const revision = await resolveRevision(sampleId, number);
+/**
+ * The revision's data, or a thrown 404 problem (no approved revision, or no such revision number). The
+ * sample row already names its latest approved revision, so the common case needs no further query.
+ */
+export async function requireRevisionData(
+  sample: { id: number; approvedRevisionId: number | null; approvedRevisionNumber: number | null },
+  number?: number,
+): Promise<RevisionData> {
+  const sampleId = sample.id;
+  const revision =
+    number === undefined && sample.approvedRevisionId !== null && sample.approvedRevisionNumber !== null
+      ? { id: Number(sample.approvedRevisionId), number: Number(sample.approvedRevisionNumber), status: "approved" }
+      : await resolveRevision(sampleId, number);
   if (!revision) {
     throw number === undefined
       ? problem(404, "no_approved_revision", `Sample ${sampleId} has no approved revision yet.`)

@@ -14,7 +14,7 @@ export async function loader(args: Route.LoaderArgs) {
   const query = SampleQuery.safeParse(Object.fromEntries(new URL(args.request.url).searchParams));
   if (!query.success) return problem(400, "invalid_query", "The query string is not valid.", { issues: zodIssues(query.error) });
   const sample = await requireSampleForCaller(caller, params.data.sampleId);
-  const data = await requireRevisionData(sample.id, query.data.revision);
+  const data = await requireRevisionData(sample, query.data.revision);
   const system = query.data.units;
   return json(
     args.request,

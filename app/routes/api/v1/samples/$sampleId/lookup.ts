@@ -16,7 +16,7 @@ export async function action(args: Route.ActionArgs) {
   const body = LookupBody.safeParse(await readJsonBody(args.request));
   if (!body.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: zodIssues(body.error) });
   const sample = await requireSampleForCaller(caller, params.data.sampleId);
-  const data = await requireRevisionData(sample.id, body.data.revision);
+  const data = await requireRevisionData(sample, body.data.revision);
   return lookupResponse(args.request, sample.id, data, body.data, startedAt);
 }
 

@@ -37,7 +37,7 @@ export async function loader(args: Route.LoaderArgs) {
   if (!query.success) return problem(400, "invalid_query", "The query string is not valid; see issues.", { issues: zodIssues(query.error) });
   const q = query.data;
   const sample = await requireSampleForCaller(caller, params.data.sampleId);
-  const data = await requireRevisionData(sample.id, q.revision);
+  const data = await requireRevisionData(sample, q.revision);
   try {
     const spec = parsePressureSpec(q.pressures);
     const table = buildBlackOilTable({
