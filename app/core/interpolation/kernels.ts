@@ -397,8 +397,10 @@ function runNewton33(
       if (up || down) {
         const lo = up ? r0 : r3;
         const hi = up ? r3 : r0;
-        const tol = overshootTolerance(lo, hi);
-        if (value < lo - tol || value > hi + tol) flags |= W_OVERSHOOT;
+        if (value < lo || value > hi) {
+          const tol = overshootTolerance(lo, hi);
+          if (value < lo - tol || value > hi + tol) flags |= W_OVERSHOOT;
+        }
       }
     }
 
