@@ -184,6 +184,19 @@ describe("every corrected value is flagged with its interpolated value", () => {
   }, 120_000);
 });
 
+describe("extrapolating below the measured pressures", () => {
+  test("Rs that would go negative is set to 0 (repeated where no gas is dissolved), flagged, and the order holds", () => {
+    const t = buildBlackOilTable({ grids: clean.grids, temperature: 212, pressures: [20, 50, 100, 300, 500, 1000], method: "linear", extrapolate: true });
+    const rs = t.rows.map((r) => r.cells.solution_gor!);
+    expect(rs[0]!.interpolated).toBeLessThan(0); // the straight line through 500 and 750 psia crosses zero
+    expect(rs[0]!.value).toBe(0);
+    expect(rs.every((c) => c.value >= 0)).toBe(true);
+    expect(t.corrections.find((c) => c.row === 0 && c.column === "solution_gor")!.rules).toContain("rs-non-negative");
+    expect(rs[0]!.warnings).toContain("extrapolated");
+    expect(findOrderViolations(t)).toEqual([]);
+  });
+});
+
 describe("notes", () => {
   test("a bubble point above the measured pressures: no pb row, all rows saturated, said in plain words", () => {
     const low = generateSample({ ...FLUID, rsb: 900, pressures: PRESSURES.slice(0, 9), temperatures: TEMPERATURES }); // up to 2500 psia

@@ -369,8 +369,12 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
       }
     }
     apply(rs, 0, k + 1, "rs-increasing-below-pb", (y) =>
-      enforceIncreasing(rowsP.slice(0, k + 1), y, { anchor: pbRow === k && k >= 0 ? k : null, lower: 0 }),
+      enforceIncreasing(rowsP.slice(0, k + 1), y, { anchor: pbRow === k && k >= 0 ? k : null }),
     );
+    // a run that started at 0 may dip a hair below it: no gas dissolved is Rs = 0, repeated if need be
+    apply(rs, 0, k + 1, "rs-non-negative", (y) => {
+      for (let i = 0; i < y.length; i++) if (y[i]! < 0) y[i] = 0;
+    });
   }
   const bo = work.get("oil_fvf");
   if (bo) {

@@ -47,6 +47,8 @@ export function findOrderViolations(table: BlackOilTable | BlackOilTableJson): O
   const pbRow = rows.findIndex((r) => r.bubblePoint);
   const strict = (key: TableColumnKey, y: number[], from: number, to: number, up: boolean, what: string): void => {
     for (let i = from + 1; i <= to; i++) {
+      // Rs = 0 (no gas dissolved) may repeat at the lowest pressures
+      if (key === "solution_gor" && y[i] === 0 && y[i - 1] === 0) continue;
       if (up ? !(y[i]! > y[i - 1]!) : !(y[i]! < y[i - 1]!)) out.push({ row: i, column: key, message: `${COLUMN_INFO[key].name} ${what}` });
     }
   };
