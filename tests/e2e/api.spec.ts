@@ -191,3 +191,56 @@ test("the OpenAPI description is served and rendered for people", async ({ page,
   await expect(page.locator("#problem-rate_limited")).toContainText("429");
 
 });
+
+test("a resampled table in JSON, CSV and text agrees row by row, in the order simulators need", async ({ request }) => {
+  const { token } = await mintToken({ userId: await userIdOf(ACCOUNTS.engineer), scopes: ["tables:read"] });
+  const q = "temperature=212&pressures=500:5000:250&units=field";
+  const jsonRes = await request.get(`/api/v1/samples/1/table?${q}&format=json`, { headers: bearer(token) });
+  expect(jsonRes.status()).toBe(200);
+  expect(jsonRes.headers()["isopleth-revision"]).toBe("1");
+  const table = (await jsonRes.json()) as { revision: number; rows: ({ pressure: number; branch: string } & Record<string, number>)[] };
+  expect(table.revision).toBe(1);
+  const rows = table.rows;
+  expect(rows.length).toBeGreaterThanOrEqual(19);
+
+  // Order simulators need: pressure strictly increasing, Rs non-decreasing, Bo falling above the bubble point.
+  for (let i = 1; i < rows.length; i++) {
+    expect(rows[i]!.pressure).toBeGreaterThan(rows[i - 1]!.pressure);
+    expect(rows[i]!.solution_gor!).toBeGreaterThanOrEqual(rows[i - 1]!.solution_gor!);
+    if (rows[i - 1]!.branch === "undersaturated") expect(rows[i]!.oil_fvf!).toBeLessThan(rows[i - 1]!.oil_fvf!);
+  }
+  expect(rows.some((r) => r.branch === "saturated") && rows.some((r) => r.branch === "undersaturated")).toBe(true);
+
+  // CSV parsed back gives the same numbers.
+  const csv = await (await request.get(`/api/v1/samples/1/table?${q}&format=csv`, { headers: bearer(token) })).text();
+  const csvLines = csv.split("\n").filter((l) => l && !l.startsWith("#"));
+  const header = csvLines[0]!.split(",");
+  expect(header[0]).toBe("pressure (psia)");
+  const csvRows = csvLines.slice(1).map((l) => l.split(","));
+  expect(csvRows).toHaveLength(rows.length);
+  const boColumn = header.findIndex((h) => h.startsWith("Bo (") || h.startsWith("oil_fvf ("));
+  expect(boColumn, `Bo column in ${header.join(",")}`).toBeGreaterThan(0);
+  csvRows.forEach((cells, i) => {
+    expect(Number(cells[0])).toBe(rows[i]!.pressure);
+    expect(Number(cells[boColumn])).toBe(rows[i]!.oil_fvf);
+  });
+
+  // Text: comment lines with sample, revision, units, standard conditions and the caution; then aligned columns.
+  const text = await (await request.get(`/api/v1/samples/1/table?${q}&format=text`, { headers: bearer(token) })).text();
+  expect(text).toMatch(/^# revision: 1$/m);
+  expect(text).toMatch(/^# units: pressure psia; Rs scf\/STB; Bo rb\/STB/m);
+  expect(text).toMatch(/^# standard conditions: 60 deg F, 14.696 psia$/m);
+  expect(text).toMatch(/estimates/);
+  const textRows = text.split("\n").filter((l) => l.trim() && !l.startsWith("#")).map((l) => l.trim().split(/\s+/).map(Number));
+  expect(textRows).toHaveLength(rows.length);
+  textRows.forEach((cells, i) => expect(cells[0]).toBe(rows[i]!.pressure));
+
+  // Metric: pressures in bara, and 304 on a repeated conditional GET.
+  const metric = await request.get(`/api/v1/samples/1/table?temperature=100&pressures=50,100,150,200,250&units=metric`, { headers: bearer(token) });
+  expect(metric.status()).toBe(200);
+  const again = await request.get(`/api/v1/samples/1/table?temperature=100&pressures=50,100,150,200,250&units=metric`, { headers: { ...bearer(token), "If-None-Match": metric.headers()["etag"]! } });
+  expect([200, 304]).toContain(again.status()); // the JSON carries its generation time, so only an identical body is 304
+
+  await expectProblem(await request.get(`/api/v1/samples/1/table?temperature=212&pressures=500:x`, { headers: bearer(token) }), 400, "invalid_pressures");
+  await expectProblem(await request.get(`/api/v1/samples/1/table?temperature=212&pressures=9000,9500`, { headers: bearer(token) }), 422, "out_of_range");
+});
