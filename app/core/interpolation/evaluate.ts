@@ -62,6 +62,21 @@ function badPoint(value: unknown, axis: "" | "pressure" | "temperature", pointIn
 /** Evaluates one point into plan.single and returns it as a Result. */
 export function evaluatePoint(plan: Plan, point: Point, extrapolate: boolean, pointIndex: number): Result {
   checkPoint(point, pointIndex);
+  const kernel = plan.kernel;
+  if (kernel && pointIndex < 0) {
+    // the common case, kept short: a single point on a complete grid
+    plan.singleP[0] = point.pressure;
+    plan.singleT[0] = point.temperature;
+    const out = plan.single;
+    out.alternatives = null;
+    kernel(plan, plan.singleP, plan.singleT, 0, 1, extrapolate, out, 0, false);
+    const tb = plan.newton;
+    if (tb) {
+      out.pressureCount[0] = tb.p.valueTerms;
+      out.temperatureCount[0] = tb.t.valueTerms;
+    }
+    return toResult(plan);
+  }
   plan.singleP[0] = point.pressure;
   plan.singleT[0] = point.temperature;
   evaluateRange(plan, plan.singleP, plan.singleT, 0, 1, extrapolate, plan.single, 0, false);
