@@ -37,3 +37,13 @@ export function summarizeFindings(findings: readonly Finding[]): QcSummary {
 export function summarizeReport(report: StoredQcReport): QcSummary {
   return summarizeFindings([...report.fileFindings, ...report.findings]);
 }
+
+const RANK = { error: 0, warning: 1, info: 2 } as const;
+
+/** File and check findings in one list: errors, then warnings, then notes (stable within each). */
+export function orderFindings(findings: readonly Finding[]): Finding[] {
+  return findings
+    .map((f, i) => ({ f, i }))
+    .sort((a, b) => RANK[a.f.severity] - RANK[b.f.severity] || a.i - b.i)
+    .map(({ f }) => f);
+}

@@ -36,3 +36,9 @@ export const SEVERITY_LABELS: Record<"error" | "warning" | "info", string> = {
   warning: "Warning",
   info: "Note",
 };
+
+/** How the sample list can be sorted and filtered (query string values). */
+export const SAMPLE_SORTS = ["field", "well", "label", "type", "sampled", "pressure", "temperature", "revision", "updated"] as const;
+export type SampleSort = (typeof SAMPLE_SORTS)[number];
+export const SAMPLE_STATUS_FILTERS = ["approved", "none", "draft"] as const;
+export type SampleStatusFilter = (typeof SAMPLE_STATUS_FILTERS)[number];

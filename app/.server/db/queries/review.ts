@@ -72,6 +72,8 @@ const revisionColumns = {
   reviewComment: sampleRevisions.reviewComment,
 };
 
+const QC_STATUSES = ["pass", "warn", "fail"] as const;
+
 /** Every revision of a sample, newest first, with who uploaded and who reviewed it and the QC status. */
 export async function listRevisionsOfSample(sampleId: number, db: Executor = getDb()) {
   const rows = await db
@@ -86,7 +88,7 @@ export async function listRevisionsOfSample(sampleId: number, db: Executor = get
     .orderBy(desc(sampleRevisions.number));
   return rows.map((r) => ({
     ...r,
-    qcStatus: r.qcStatus === "pass" || r.qcStatus === "warn" || r.qcStatus === "fail" ? r.qcStatus : null,
+    qcStatus: QC_STATUSES.find((s) => s === r.qcStatus) ?? null,
   }));
 }
 

@@ -2,6 +2,7 @@ import { and, asc, count, desc, eq, like, or, sql, TransactionRollbackError, typ
 import { getDb, type Executor } from "../client";
 import { fields, sampleRevisions, samples, wells, type SampleType } from "../schema";
 import { recordAudit } from "./audit";
+import { SAMPLE_SORTS, SAMPLE_STATUS_FILTERS, type SampleSort, type SampleStatusFilter } from "~/components/samples/labels";
 
 /*
  * Field → well → sample records: create, edit, and the searchable, sortable, paged list of samples.
@@ -146,9 +147,9 @@ export async function updateSampleRecord(
       if (!before) throw new Error(`sample ${id} does not exist`);
       const place = await findOrCreatePlace(input, tx);
       if (await labelTaken(place.wellId, input.label, id, tx)) tx.rollback();
-      const changed = (Object.keys(sampleColumns(input)) as (keyof ReturnType<typeof sampleColumns>)[])
-        .filter((k) => before[k] !== input[k])
-        .concat(before.wellName !== input.wellName || before.fieldName !== input.fieldName ? ["well"] : []);
+      const changed: string[] = (Object.keys(sampleColumns(input)) as (keyof ReturnType<typeof sampleColumns>)[])
+        .filter((k) => before[k] !== input[k]);
+      changed.push(...(before.wellName !== input.wellName || before.fieldName !== input.fieldName ? ["well"] : []));
       if (changed.length > 0) {
         await tx.update(samples).set({ ...sampleColumns(input), wellId: place.wellId }).where(eq(samples.id, id));
         await recordAudit(
@@ -200,10 +201,7 @@ export async function getSampleRecord(id: number, db: Executor = getDb()) {
   return row ?? null;
 }
 
-export const SAMPLE_SORTS = ["field", "well", "label", "type", "sampled", "pressure", "temperature", "revision", "updated"] as const;
-export type SampleSort = (typeof SAMPLE_SORTS)[number];
-export const SAMPLE_STATUS_FILTERS = ["approved", "none", "draft"] as const;
-export type SampleStatusFilter = (typeof SAMPLE_STATUS_FILTERS)[number];
+export { SAMPLE_SORTS, SAMPLE_STATUS_FILTERS, type SampleSort, type SampleStatusFilter };
 
 export type SampleSearch = {
   q?: string;

@@ -1,13 +1,85 @@
-import { requirePermission } from "~/.server/auth/guards";
+import { data, Form, href, Link, redirect, useNavigation } from "react-router";
+import { getCaller, requirePermission } from "~/.server/auth/guards";
+import { getSampleRecord, listFieldsAndWells, updateSampleRecord } from "~/.server/db/queries/sample-records";
+import { badRequest, parseForm } from "~/.server/forms";
+import { sampleIdFrom } from "~/.server/samples/params";
+import { formDefaultsFromRecord, recordInputFromForm, standardLabel, standardPresetOf } from "~/.server/samples/sample-input";
+import { Button, FormAlert, useZodForm } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
+import { SampleFormFields, sampleFormSchema } from "~/components/samples/sample-form";
 import type { Route } from "./+types/edit";
 
-// Placeholder until the lab-results pages land.
-export async function loader(args: Route.LoaderArgs) {
-  requirePermission(args, "edit:samples");
-  return null;
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `Edit ${data?.label ?? "sample"} · Isopleth` }];
+
+async function requireRecord(params: { sampleId?: string }) {
+  const id = sampleIdFrom(params);
+  const record = await getSampleRecord(id);
+  if (!record) throw data(`There is no sample ${id}.`, { status: 404 });
+  return record;
 }
 
-export default function Placeholder() {
-  return <PageHeader title="Coming soon">This page is being built.</PageHeader>;
+export async function loader(args: Route.LoaderArgs) {
+  const user = requirePermission(args, "edit:samples");
+  const record = await requireRecord(args.params);
+  const places = await listFieldsAndWells();
+  return {
+    id: record.id,
+    label: record.label,
+    system: user.unitSystem,
+    defaults: formDefaultsFromRecord(record, user.unitSystem),
+    currentStandard: standardPresetOf(record) ? null : { label: standardLabel(record) },
+    fieldNames: places.fields.map((f) => f.name),
+    wellNames: [...new Set(places.wells.map((w) => w.name))],
+  };
+}
+
+export async function action(args: Route.ActionArgs) {
+  const user = requirePermission(args, "edit:samples");
+  const { ipAddress } = getCaller(args);
+  const record = await requireRecord(args.params);
+  const form = await parseForm(args.request, sampleFormSchema(user.unitSystem));
+  if (!form.ok) return badRequest({ errors: form.errors, formError: "Some fields need attention; nothing was saved." });
+  const converted = recordInputFromForm(form.data, user.unitSystem, record);
+  if (!converted.ok) return badRequest({ errors: converted.errors, formError: "Some fields need attention; nothing was saved." });
+  const result = await updateSampleRecord(record.id, converted.input, { userId: user.id, ipAddress });
+  if (!result.ok) {
+    return badRequest({
+      errors: { label: [`Well ${converted.input.wellName} already has a sample labelled "${converted.input.label}"; choose another label.`] },
+      formError: "Some fields need attention; nothing was saved.",
+    });
+  }
+  throw redirect(`${href("/samples/:sampleId", { sampleId: String(record.id) })}?saved=1`);
+}
+
+export default function EditSample({ loaderData, actionData }: Route.ComponentProps) {
+  const { id, label, system, defaults, currentStandard, fieldNames, wellNames } = loaderData;
+  const navigation = useNavigation();
+  const form = useZodForm(sampleFormSchema(system), actionData?.errors);
+  const back = href("/samples/:sampleId", { sampleId: String(id) });
+  return (
+    <>
+      <PageHeader title={`Edit ${label}`}>
+        Change the sample&apos;s record. Uploaded revisions are never changed: upload a new revision to correct measured values.
+      </PageHeader>
+      <Form method="post" noValidate onSubmit={form.onSubmit} className="space-y-6">
+        <FormAlert message={actionData?.formError} />
+        <SampleFormFields
+          system={system}
+          errors={form.errors}
+          defaults={defaults}
+          fieldNames={fieldNames}
+          wellNames={wellNames}
+          currentStandard={currentStandard}
+        />
+        <div className="flex items-center gap-4">
+          <Button type="submit" disabled={navigation.state === "submitting"}>
+            Save changes
+          </Button>
+          <Link to={back} className="text-sm text-accent underline">
+            Cancel
+          </Link>
+        </div>
+      </Form>
+    </>
+  );
 }
