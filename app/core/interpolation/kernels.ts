@@ -285,7 +285,7 @@ function runNewton33(
   const pHi = P[N - 1]!;
   const tLo = T[0]!;
   const tHi = T[M - 1]!;
-  const { coef, invT, zoneLo, zoneHi, zoneSafe } = tb;
+  const { coef, invT, zoneLo, zoneHi, zoneSafe, topT } = tb;
   const vtCount = tb.t.order.length / 5;
   const px = tb.p.x;
   const tx = tb.t.x;
@@ -338,16 +338,12 @@ function runNewton33(
     const z3 = base + tOrd[to5 + 3]!;
     let cb = z0 * 5;
     const r0 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
-    const e0 = coef[cb + 4]! * w4;
     cb = z1 * 5;
     const r1 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
-    const e1 = coef[cb + 4]! * w4;
     cb = z2 * 5;
     const r2 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
-    const e2 = coef[cb + 4]! * w4;
     cb = z3 * 5;
     const r3 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
-    const e3 = coef[cb + 4]! * w4;
     cb = (base + tOrd[to5 + 4]!) * 5;
     const r4 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
 
@@ -368,14 +364,9 @@ function runNewton33(
     const v3 = v2 * (t - tx[to5 + 2]!);
     const value = r0 + a1 * v1 + b2 * v2 + c3 * v3;
     const dT = d4 * (v3 * (t - tx[to5 + 3]!));
-    // pressure corrections carried along temperature
-    const ea1 = (e1 - e0) * invT[ib + 6]!;
-    const ea2 = (e2 - e1) * invT[ib + 7]!;
-    const ea3 = (e3 - e2) * invT[ib + 8]!;
-    const eb2 = (ea2 - ea1) * invT[ib + 12]!;
-    const eb3 = (ea3 - ea2) * invT[ib + 13]!;
-    const ec3 = (eb3 - eb2) * invT[ib + 18]!;
-    const dP = e0 + ea1 * v1 + eb2 * v2 + ec3 * v3;
+    // pressure corrections carried along temperature: their Newton coefficients are precomputed
+    const go = (varP * vtCount + varT) * 4;
+    const dP = w4 * (topT[go]! + topT[go + 1]! * v1 + topT[go + 2]! * v2 + topT[go + 3]! * v3);
 
     if (newton && (flags & W_EXTRAPOLATED) === 0) {
       if (

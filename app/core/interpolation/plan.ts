@@ -77,6 +77,12 @@ export type NewtonTables = {
    * step-one check can be skipped. Worked out from each cubic's extremes on the half-cell, with margin.
    */
   zoneSafe: Uint8Array;
+  /**
+   * Degree-[3,3] zones with an extra node on both axes only (else empty): at ((vp * VT + vt) * 4 + i), the
+   * Newton coefficients along temperature of the four zone columns' last pressure coefficients, so that
+   * the pressure part of the error estimate is one short Newton sum per point.
+   */
+  topT: Float64Array;
   wp: Float64Array;
   wt: Float64Array;
   r: Float64Array;
@@ -294,11 +300,24 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
     }
   }
   const zoneSafe = p.valueTerms === 4 && N >= 2 ? buildZoneSafe(P, p, t, coef, zoneLo, zoneHi, M) : new Uint8Array(0);
+  let topT = new Float64Array(0);
+  if (p.q === 5 && p.valueTerms === 4 && t.q === 5 && t.valueTerms === 4) {
+    const vtCount = t.order.length / 5;
+    topT = new Float64Array(vpCount * vtCount * 4);
+    for (let vp = 0; vp < vpCount; vp++) {
+      for (let vt = 0; vt < vtCount; vt++) {
+        const o = (vp * vtCount + vt) * 4;
+        for (let c = 0; c < 4; c++) topT[o + c] = coef[(vp * M + t.order[vt * 5 + c]!) * 5 + 4]!;
+        dividedDifferences(t.x, vt * 5, topT, o, 4);
+      }
+    }
+  }
   return {
     p,
     t,
     coef,
     zoneSafe,
+    topT,
     zoneLo,
     zoneHi,
     invT,
