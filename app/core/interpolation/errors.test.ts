@@ -125,6 +125,10 @@ describe("points", () => {
       "must pair up",
     );
     expectError(() => interpolateGridMany(good(), [at, { pressure: "x" } as unknown as typeof at], newton), "invalid-point", "Point 1");
+    const e2 = thrown(() => interpolateGridMany(good(), [at, at, { pressure: 9000, temperature: 120 }], newton));
+    expect(e2.code).toBe("out-of-range");
+    expect(e2.message).toMatch(/^Point 2: The measured pressures run from 1000 to 3000/);
+    expect(e2.details).toMatchObject({ pointIndex: 2, axis: "pressure" });
   });
 });
 

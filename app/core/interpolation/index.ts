@@ -48,7 +48,17 @@ export function interpolateGridMany(
   const plan = getPlan(prep, opts.method, opts.m, opts.n);
   if (Array.isArray(points)) {
     const list: readonly Point[] = points;
-    return list.map((point, i) => evaluatePoint(plan, point, opts.extrapolate, i));
+    return list.map((point, i) => {
+      try {
+        return evaluatePoint(plan, point, opts.extrapolate, i);
+      } catch (e) {
+        // name the point in errors raised without its index (range, missing data)
+        if (e instanceof InterpolationError && e.details.pointIndex === undefined) {
+          throw new InterpolationError(e.code, `Point ${i}: ${e.message}`, { ...e.details, pointIndex: i });
+        }
+        throw e;
+      }
+    });
   }
   const columns = points as PointColumns;
   if (
