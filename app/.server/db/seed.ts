@@ -129,8 +129,12 @@ export async function seedDemo(db: Database, options: SeedOptions): Promise<void
   }
 }
 
+/** Relative standard deviation of the artificial noise: small enough that the invented tables keep the trends
+ * the physics requires (and pass the QC checks), large enough that they do not look perfectly smooth. */
+export const DEMO_NOISE = 0.001;
+
 /** The invented grids of one demo sample, in canonical units. */
-export function demoGrids(s: DemoSample, seed: number) {
+export function demoGrids(s: DemoSample, seed: number, noise = DEMO_NOISE) {
   const generated = generateSample({
     apiGravity: s.stockTankApi,
     gasGravity: s.gasSpecificGravity,
@@ -138,7 +142,7 @@ export function demoGrids(s: DemoSample, seed: number) {
     bubblePointTemperature: s.reservoirTemperatureF,
     temperatures: s.temperaturesF,
     pressures: s.pressuresPsia,
-    noise: 0.003,
+    noise,
     seed,
   });
   return {
