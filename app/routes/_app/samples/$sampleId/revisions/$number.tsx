@@ -217,7 +217,7 @@ export default function RevisionPage({ loaderData, actionData }: Route.Component
         </div>
         <div>
           <dt className="text-xs font-semibold text-ink-muted">File</dt>
-          <dd className="break-all">
+          <dd className="[overflow-wrap:anywhere]">
             {r.sourceFilename ?? "—"}
             {view.file ? (
               <span className="text-ink-muted">
