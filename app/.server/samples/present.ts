@@ -23,6 +23,8 @@ export type CanonicalGrid = {
 export type CanonicalBubblePoint = { temperatureF: number; bubblePointPsia: number };
 
 const round = (v: number) => Number(v.toPrecision(10));
+/** Numbers inside sentences: 6 significant digits. */
+const short = (v: number) => Number(v.toPrecision(6));
 const TEMPERATURE_TOLERANCE = 0.01;
 const samePressure = (a: number, b: number) => Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b), 1);
 const RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 };
@@ -63,10 +65,10 @@ export function presentFindings(findings: readonly Finding[], system: OutputSyst
       ...(f.location ? { location: { ...f.location } } : {}),
       cells: (f.cells ?? []).map((c) => {
         const name = c.property === "bubble_point" ? "Bubble point" : PROPERTY_LABELS[c.property].symbol;
-        const at = `${round(toOutputTemperature(c.temperature, system))} ${t}`;
+        const at = `${short(toOutputTemperature(c.temperature, system))} ${t}`;
         return c.property === "bubble_point"
-          ? `${name} ${round(toOutputPressure(c.pressure, system))} ${p} at ${at}`
-          : `${name} at ${round(toOutputPressure(c.pressure, system))} ${p}, ${at}`;
+          ? `${name} ${short(toOutputPressure(c.pressure, system))} ${p} at ${at}`
+          : `${name} at ${short(toOutputPressure(c.pressure, system))} ${p}, ${at}`;
       }),
     };
   });
