@@ -1,0 +1,403 @@
+/**
+ * Plotly figures (traces and layout as plain objects) for the surface and slice plots. Pure: it imports only
+ * Plotly's types, never Plotly itself, so it is unit-tested without a browser.
+ *
+ * Readability for colour-blind people: the surface uses the Cividis scale; series and slices are told apart by
+ * the Okabe–Ito colours and, in addition, by line dash and marker symbol; query points have their own symbols
+ * (a filled diamond or star, and a vermilion cross when flagged).
+ */
+import type { Annotation, Data, Layout, ScatterData, Scatter3dData, Shape, SurfaceData } from "plotly.js-dist-min";
+import {
+  curveOf,
+  DEFAULT_CURVE_RESOLUTION,
+  DEFAULT_SURFACE_RESOLUTION,
+  evaluateQueries,
+  measuredPoints,
+  QUERY_FLAG_TEXT,
+  surfaceOf,
+  type EvaluatedQuery,
+} from "./compute";
+import { SLICES_HEIGHT, sceneGrid, surfaceHeight } from "./size";
+import type { PlotMethod, PlotSeries, PlotUnits, PropertySlicesProps, PropertySurfaceProps, QueryPoint } from "./types";
+
+/** Okabe–Ito colours (distinguishable with the common colour-vision deficiencies). */
+export const SERIES_COLOURS = ["#0072B2", "#E69F00", "#009E73", "#CC79A7"] as const;
+export const DASHES = ["solid", "dash", "dot", "dashdot"] as const;
+const SYMBOLS_2D = ["circle", "square", "triangle-up", "triangle-down"] as const;
+const SYMBOLS_3D = ["circle", "square", "circle-open", "square-open"] as const;
+const INK = "#1c2733";
+const FLAG = "#D55E00";
+const GRID_LINE = "#dfe4e1";
+export const FONT = { family: "Noto Sans, ui-sans-serif, system-ui, sans-serif", size: 12, color: INK };
+
+export type Figure = { data: Data[]; layout: Partial<Layout> & Record<string, unknown> };
+
+const pick = <T,>(list: readonly T[], i: number): T => list[i % list.length]!;
+
+/** Text for Plotly hover templates and annotations: its tags and %{…} placeholders are neutralised. */
+export function plotText(s: string): string {
+  return s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/%/g, "&#37;");
+}
+
+const NUM = ",.5~g";
+
+function axisTitles(units: PlotUnits, valueLabel: string) {
+  return {
+    pressure: `Pressure (${units.pressure})`,
+    temperature: `Temperature (${units.temperature})`,
+    value: units.value ? `${valueLabel} (${units.value})` : valueLabel,
+  };
+}
+
+function hoverLines(units: PlotUnits, valueLabel: string, x = "x", y = "y", z = "z") {
+  const u = plotText(units.value);
+  return [
+    `p ${"%{"}${x}:${NUM}} ${plotText(units.pressure)}`,
+    `T ${"%{"}${y}:${NUM}} ${plotText(units.temperature)}`,
+    `${plotText(valueLabel)} ${"%{"}${z}:${NUM}}${u ? ` ${u}` : ""}`,
+  ];
+}
+
+function formatNumber(v: number): string {
+  return Number(v.toPrecision(5)).toLocaleString("en-US", { maximumFractionDigits: 6 });
+}
+
+function queryHover(q: EvaluatedQuery, series: string, units: PlotUnits, valueLabel: string): string {
+  const value = q.value === null ? "no value" : `${formatNumber(q.value)}${units.value ? ` ${units.value}` : ""}`;
+  return plotText(
+    `${q.label} · ${series}\np ${formatNumber(q.pressure)} ${units.pressure}\nT ${formatNumber(q.temperature)} ${units.temperature}\n${valueLabel} ${value}\n${QUERY_FLAG_TEXT[q.flag]}`,
+  ).replace(/\n/g, "<br>");
+}
+
+/** Two traces: query points inside the data, and flagged ones (extrapolated or beyond the envelope). */
+function queryTraces3d(queries: EvaluatedQuery[], series: PlotSeries, units: PlotUnits, valueLabel: string, scene: string, showlegend: boolean): Partial<Scatter3dData>[] {
+  const shown = queries.filter((q) => q.value !== null);
+  const ok = shown.filter((q) => q.flag === "inside");
+  const flagged = shown.filter((q) => q.flag !== "inside");
+  const out: Partial<Scatter3dData>[] = [];
+  const common = (list: EvaluatedQuery[]) => ({
+    type: "scatter3d" as const,
+    mode: "text+markers" as const,
+    scene,
+    x: list.map((q) => q.pressure),
+    y: list.map((q) => q.temperature),
+    z: list.map((q) => q.value),
+    hovertext: list.map((q) => queryHover(q, series.label, units, valueLabel)),
+    hoverinfo: "text" as const,
+    textposition: "top center" as const,
+    legendgroup: "query",
+    showlegend,
+  });
+  if (ok.length > 0) {
+    out.push({
+      ...common(ok),
+      name: "Query points",
+      text: ok.map((q) => plotText(q.label)),
+      marker: { symbol: "diamond", size: 7, color: "#000000", line: { color: "#ffffff", width: 1 } },
+      textfont: { color: "#000000", size: 12, family: FONT.family },
+    });
+  }
+  if (flagged.length > 0) {
+    out.push({
+      ...common(flagged),
+      name: "Query points, extrapolated",
+      legendgroup: "query-flagged",
+      text: flagged.map((q) => plotText(`${q.label} (${q.flag === "extrapolated" ? "extrapolated" : "beyond data"})`)),
+      marker: { symbol: "x", size: 7, color: FLAG },
+      textfont: { color: FLAG, size: 12, family: FONT.family },
+    });
+  }
+  return out;
+}
+
+type SurfaceInput = Pick<PropertySurfaceProps, "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "arrangement" | "resolution" | "height">;
+
+export function surfaceFigure(input: SurfaceInput): Figure {
+  const method: PlotMethod = input.method ?? "auto";
+  const series = input.series.filter((s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0);
+  const arrangement = series.length > 1 ? (input.arrangement ?? "side-by-side") : "side-by-side";
+  const titles = axisTitles(input.units, input.valueLabel);
+  const resolution = input.resolution ?? DEFAULT_SURFACE_RESOLUTION;
+  const surfaces = series.map((s) => surfaceOf(s.grid, method, input.degree, resolution));
+  const cmin = Math.min(...surfaces.map((s) => s.min));
+  const cmax = Math.max(...surfaces.map((s) => s.max));
+  const queries = input.queryPoints ?? [];
+  const data: Data[] = [];
+  const overlaid = arrangement === "overlaid";
+  const sceneCount = overlaid ? 1 : series.length;
+  const sceneId = (k: number) => (overlaid || k === 0 ? "scene" : `scene${k + 1}`);
+  const hover = hoverLines(input.units, input.valueLabel);
+
+  series.forEach((s, k) => {
+    const surface = surfaces[k]!;
+    const colour = pick(SERIES_COLOURS, k);
+    const scene = sceneId(k);
+    const trace: Partial<SurfaceData> = {
+      type: "surface",
+      name: plotText(s.label),
+      scene,
+      x: surface.pressures,
+      y: surface.temperatures,
+      z: surface.z,
+      connectgaps: false,
+      hovertemplate: `<b>${plotText(s.label)}</b><br>${hover.join("<br>")}<extra>interpolated</extra>`,
+      contours: { z: { show: false } },
+    };
+    if (overlaid) {
+      Object.assign(trace, {
+        colorscale: [
+          [0, colour],
+          [1, colour],
+        ],
+        showscale: false,
+        opacity: 0.82,
+        showlegend: true,
+        legendgroup: `series-${k}`,
+        lighting: { ambient: 0.65, diffuse: 0.6, specular: 0.05, roughness: 0.9 },
+      });
+    } else {
+      Object.assign(trace, {
+        colorscale: "Cividis",
+        cmin,
+        cmax,
+        showscale: k === series.length - 1,
+        showlegend: false,
+        colorbar: { title: { text: plotText(titles.value), side: "right" }, thickness: 14, len: 0.75, outlinewidth: 0, tickfont: { size: 11 } },
+      });
+    }
+    data.push(trace);
+
+    const measured = measuredPoints(s.grid);
+    const markers: Partial<Scatter3dData> = {
+      type: "scatter3d",
+      mode: "markers",
+      scene,
+      name: overlaid ? `${plotText(s.label)}, measured` : "Measured",
+      x: measured.map((m) => m.pressure),
+      y: measured.map((m) => m.temperature),
+      z: measured.map((m) => m.value),
+      hovertemplate: `<b>${plotText(s.label)}</b><br>${hover.join("<br>")}<extra>measured</extra>`,
+      marker: overlaid
+        ? { symbol: pick(SYMBOLS_3D, k), size: 3.5, color: colour, line: { color: INK, width: 1 } }
+        : { symbol: "circle", size: 3, color: "#ffffff", line: { color: INK, width: 1.5 } },
+      legendgroup: overlaid ? `series-${k}` : "measured",
+      showlegend: overlaid ? false : k === 0,
+    };
+    data.push(markers);
+    const evaluated = evaluateQueries(s.grid, queries, method, input.degree);
+    data.push(...queryTraces3d(evaluated, s, input.units, input.valueLabel, scene, overlaid ? k === 0 : k === 0));
+  });
+
+  const { columns, rows } = sceneGrid(sceneCount);
+  const sceneLayout = (k: number) => {
+    const col = k % columns;
+    const row = Math.floor(k / columns);
+    const colourbarRoom = overlaid ? 0 : 0.06;
+    const width = (1 - colourbarRoom) / columns;
+    const heightShare = 1 / rows;
+    const titleRoom = sceneCount > 1 ? 0.07 / rows : 0;
+    return {
+      domain: {
+        x: [col * width, (col + 1) * width - 0.01],
+        y: [1 - (row + 1) * heightShare, 1 - row * heightShare - titleRoom],
+      },
+      xaxis: { title: { text: plotText(titles.pressure) }, gridcolor: GRID_LINE, backgroundcolor: "#ffffff", showbackground: true, hoverformat: NUM },
+      yaxis: { title: { text: plotText(titles.temperature) }, gridcolor: GRID_LINE, backgroundcolor: "#ffffff", showbackground: true, hoverformat: NUM },
+      zaxis: { title: { text: plotText(titles.value) }, gridcolor: GRID_LINE, backgroundcolor: "#f6f7f5", showbackground: true, hoverformat: NUM },
+      aspectmode: "manual",
+      aspectratio: { x: 1.35, y: 1, z: 0.75 },
+      // narrow side-by-side scenes need the camera further back, or the axis titles fall outside
+      camera: sceneCount > 1 ? { eye: { x: 1.6, y: -1.75, z: 0.95 }, center: { x: 0, y: 0, z: -0.1 } } : { eye: { x: 1.35, y: -1.5, z: 0.8 }, center: { x: 0, y: 0, z: -0.1 } },
+    };
+  };
+  const layout: Figure["layout"] = {
+    font: FONT,
+    paper_bgcolor: "#ffffff",
+    margin: { l: 0, r: 0, t: sceneCount > 1 ? 8 : 4, b: 0 },
+    height: input.height ?? surfaceHeight(series.length, arrangement),
+    autosize: true,
+    showlegend: true,
+    legend: { orientation: "h", x: 0, y: 0, yanchor: "bottom", bgcolor: "rgba(255,255,255,0.8)", font: { size: 12 } },
+    hoverlabel: { font: { family: FONT.family, size: 12 } },
+    uirevision: "isopleth-surface",
+  };
+  for (let k = 0; k < sceneCount; k++) layout[sceneId(k)] = sceneLayout(k);
+  if (sceneCount > 1) {
+    const annotations: Partial<Annotation>[] = series.map((s, k) => {
+      const domain = sceneLayout(k).domain;
+      return {
+        text: `<b>${plotText(s.label)}</b>`,
+        xref: "paper",
+        yref: "paper",
+        x: (domain.x[0]! + domain.x[1]!) / 2,
+        y: domain.y[1]! + 0.01,
+        xanchor: "center",
+        yanchor: "bottom",
+        showarrow: false,
+        font: { size: 13, color: INK, family: FONT.family },
+      };
+    });
+    layout.annotations = annotations;
+  }
+  return { data, layout };
+}
+
+type SlicesInput = Pick<PropertySlicesProps, "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "temperatures" | "resolution" | "height">;
+
+/** The default slice temperatures: the measured temperatures of the first series. */
+export function defaultSliceTemperatures(series: PlotSeries[]): number[] {
+  return series[0]?.grid.temperatures.slice() ?? [];
+}
+
+export function slicesFigure(input: SlicesInput): Figure {
+  const method: PlotMethod = input.method ?? "auto";
+  const series = input.series.filter((s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0);
+  const temperatures = (input.temperatures && input.temperatures.length > 0 ? input.temperatures : defaultSliceTemperatures(series)).filter(Number.isFinite);
+  const titles = axisTitles(input.units, input.valueLabel);
+  const units = input.units;
+  const many = series.length > 1;
+  const data: Data[] = [];
+  const shapes: Partial<Shape>[] = [];
+  const annotations: Partial<Annotation>[] = [];
+  const hover = hoverLines(units, input.valueLabel);
+  const tUnit = units.temperature;
+  const curves = series.flatMap((s, k) => temperatures.map((t, j) => ({ s, k, t, j, curve: curveOf(s.grid, t, method, input.degree, input.resolution ?? DEFAULT_CURVE_RESOLUTION) })));
+  const annotateBubble = curves.filter((c) => c.curve.bubblePoint).length <= 6;
+  let bubbleIndex = 0;
+  let anyBubble = false;
+
+  for (const { s, k, t, j, curve } of curves) {
+    const colour = many ? pick(SERIES_COLOURS, k) : pick(SERIES_COLOURS, j);
+    const dash = many && temperatures.length > 1 ? pick(DASHES, j) : many ? pick(DASHES, k) : pick(DASHES, j);
+    const symbol = many ? pick(SYMBOLS_2D, k) : pick(SYMBOLS_2D, j);
+    const name = many ? `${s.label} · ${formatNumber(t)} ${tUnit}` : `${formatNumber(t)} ${tUnit}`;
+    const group = `curve-${k}-${j}`;
+    const tLine = `T ${formatNumber(t)} ${plotText(tUnit)}`;
+    data.push({
+      type: "scatter",
+      mode: "lines",
+      name: plotText(name),
+      legendgroup: group,
+      x: curve.pressures,
+      y: curve.values,
+      connectgaps: false,
+      line: { color: colour, dash, width: 2 },
+      hovertemplate: `<b>${plotText(s.label)}</b><br>${hover[0]}<br>${tLine}<br>${hover[2]}<extra>interpolated</extra>`,
+    } satisfies Partial<ScatterData>);
+    if (curve.measured.length > 0) {
+      data.push({
+        type: "scatter",
+        mode: "markers",
+        name: plotText(`${name}, measured`),
+        legendgroup: group,
+        showlegend: false,
+        x: curve.measured.map((m) => m.pressure),
+        y: curve.measured.map((m) => m.value),
+        marker: { symbol, size: 8, color: colour, line: { color: INK, width: 1 } },
+        hovertemplate: `<b>${plotText(s.label)}</b><br>${hover[0]}<br>${tLine}<br>${hover[2]}<extra>measured</extra>`,
+      } satisfies Partial<ScatterData>);
+    }
+    const pb = curve.bubblePoint;
+    if (pb) {
+      anyBubble = true;
+      shapes.push({
+        type: "line",
+        xref: "x",
+        yref: "paper",
+        x0: pb.pressure,
+        x1: pb.pressure,
+        y0: 0,
+        y1: 1,
+        line: { color: colour, width: 1.5, dash: "dash" },
+        opacity: 0.75,
+      });
+      if (pb.value !== null) {
+        data.push({
+          type: "scatter",
+          mode: "markers",
+          name: "Bubble point",
+          legendgroup: group,
+          showlegend: false,
+          x: [pb.pressure],
+          y: [pb.value],
+          marker: { symbol: "diamond-wide", size: 13, color: "#ffffff", line: { color: colour, width: 2.5 } },
+          hovertemplate: plotText(`Bubble point of ${s.label}`) + `<br>pb ${formatNumber(pb.pressure)} ${plotText(units.pressure)}<br>${tLine}<br>${plotText(input.valueLabel)} %{y:${NUM}} ${plotText(units.value)}<extra></extra>`,
+        } satisfies Partial<ScatterData>);
+      }
+      if (annotateBubble) {
+        annotations.push({
+          text: plotText(`pb ${formatNumber(pb.pressure)} ${units.pressure}`),
+          xref: "x",
+          yref: "paper",
+          x: pb.pressure,
+          y: 1 - 0.075 * bubbleIndex,
+          xanchor: "left",
+          yanchor: "top",
+          xshift: 3,
+          showarrow: false,
+          font: { size: 11, color: many ? colour : INK, family: FONT.family },
+          bgcolor: "rgba(255,255,255,0.85)",
+        });
+        bubbleIndex++;
+      }
+    }
+  }
+  if (anyBubble) {
+    data.push({
+      type: "scatter",
+      mode: "markers",
+      name: "Bubble point",
+      x: [null],
+      y: [null],
+      marker: { symbol: "diamond-wide", size: 13, color: "#ffffff", line: { color: INK, width: 2 } },
+      hoverinfo: "skip",
+    } satisfies Partial<ScatterData>);
+  }
+
+  // query points on every series, at their own temperature
+  const queries: QueryPoint[] = input.queryPoints ?? [];
+  if (queries.length > 0) {
+    // labelled once (on the first sample's curve); the other samples' markers say which point they are on hover
+    const all = series.flatMap((s, k) => evaluateQueries(s.grid, queries, method, input.degree).map((q) => ({ q, s, labelled: k === 0 })));
+    const shown = all.filter(({ q }) => q.value !== null);
+    const groups = [
+      { list: shown.filter(({ q }) => q.flag === "inside"), name: "Query points", marker: { symbol: "star" as const, size: 13, color: "#000000", line: { color: "#ffffff", width: 1 } }, text: "#000000" },
+      { list: shown.filter(({ q }) => q.flag !== "inside"), name: "Query points, extrapolated", marker: { symbol: "x" as const, size: 11, color: FLAG, line: { color: "#ffffff", width: 0.5 } }, text: FLAG },
+    ];
+    for (const g of groups) {
+      if (g.list.length === 0) continue;
+      data.push({
+        type: "scatter",
+        mode: "text+markers",
+        name: g.name,
+        x: g.list.map(({ q }) => q.pressure),
+        y: g.list.map(({ q }) => q.value),
+        text: g.list.map(({ q, labelled }) => (labelled ? plotText(q.flag === "inside" ? q.label : `${q.label} (${q.flag === "extrapolated" ? "extrapolated" : "beyond data"})`) : "")),
+        textposition: "top center",
+        textfont: { color: g.text, size: 12, family: FONT.family },
+        marker: g.marker,
+        hovertext: g.list.map(({ q, s }) => queryHover(q, s.label, units, input.valueLabel)),
+        hoverinfo: "text",
+      } satisfies Partial<ScatterData>);
+    }
+  }
+
+  const layout: Figure["layout"] = {
+    font: FONT,
+    paper_bgcolor: "#ffffff",
+    plot_bgcolor: "#ffffff",
+    height: input.height ?? SLICES_HEIGHT,
+    autosize: true,
+    margin: { l: 72, r: 16, t: 16, b: 56 },
+    xaxis: { title: { text: plotText(titles.pressure) }, gridcolor: GRID_LINE, zeroline: false, hoverformat: NUM, linecolor: "#9aa5a0", ticks: "outside" },
+    yaxis: { title: { text: plotText(titles.value) }, gridcolor: GRID_LINE, zeroline: false, hoverformat: NUM, linecolor: "#9aa5a0", ticks: "outside" },
+    hovermode: "closest",
+    showlegend: true,
+    legend: { orientation: "v", x: 1.01, xanchor: "left", y: 1, font: { size: 12 } },
+    hoverlabel: { font: { family: FONT.family, size: 12 } },
+    shapes,
+    annotations,
+    uirevision: "isopleth-slices",
+  };
+  return { data, layout };
+}
