@@ -20,12 +20,10 @@ describe("axisWith", () => {
 });
 
 describe("surfaceOf", () => {
-  test("covers the measured range on the fine grid plus the measured nodes, exact on a plane", () => {
+  test("covers the measured range on an evenly spaced grid (Plotly refines uneven ones enormously), exact on a plane", () => {
     const s = surfaceOf(grid, "newton", 3, { pressures: 11, temperatures: 4 });
-    expect(s.pressures[0]).toBe(500);
-    expect(s.pressures.at(-1)).toBe(3000);
-    for (const p of P) expect(s.pressures).toContain(p);
-    for (const t of T) expect(s.temperatures).toContain(t);
+    expect(s.pressures).toEqual([500, 750, 1000, 1250, 1500, 1750, 2000, 2250, 2500, 2750, 3000]);
+    expect(s.temperatures).toEqual([150, 180, 210, 240]);
     expect(s.z).toHaveLength(s.temperatures.length);
     s.z.forEach((row, k) => {
       expect(row).toHaveLength(s.pressures.length);
@@ -73,7 +71,15 @@ describe("evaluatePoints", () => {
 
 describe("evaluateQueries", () => {
   test("inside, extrapolated and labelled", () => {
-    const q = evaluateQueries(grid, [{ pressure: 1750, temperature: 200 }, { pressure: 3300, temperature: 200, label: "Res." }], "auto", 3);
+    const q = evaluateQueries(
+      grid,
+      [
+        { pressure: 1750, temperature: 200 },
+        { pressure: 3300, temperature: 200, label: "Res." },
+      ],
+      "auto",
+      3,
+    );
     expect(q[0]).toMatchObject({ label: "Q1", flag: "inside" });
     expect(q[0]!.value).toBeCloseTo(plane(1750, 200), 10);
     expect(q[1]).toMatchObject({ label: "Res.", flag: "extrapolated" });
@@ -106,6 +112,13 @@ describe("curveOf", () => {
 });
 
 test("measuredPoints skips empty cells", () => {
-  const g: PlotGrid = { pressures: [1, 2], temperatures: [1, 2], values: [[1, null], [3, 4]] };
+  const g: PlotGrid = {
+    pressures: [1, 2],
+    temperatures: [1, 2],
+    values: [
+      [1, null],
+      [3, 4],
+    ],
+  };
   expect(measuredPoints(g)).toHaveLength(3);
 });

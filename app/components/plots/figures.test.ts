@@ -9,7 +9,12 @@ const T = [150, 180, 210, 240];
 const series = (id: number, shift: number): PlotSeries => ({
   id,
   label: `Sample ${id}`,
-  grid: { pressures: P, temperatures: T, values: P.map((p) => T.map((t) => 1.05 + shift + 0.0001 * p + 0.0005 * t)), bubblePoints: [1800, 1900, 2000, 2100] },
+  grid: {
+    pressures: P,
+    temperatures: T,
+    values: P.map((p) => T.map((t) => 1.05 + shift + 0.0001 * p + 0.0005 * t)),
+    bubblePoints: [1800, 1900, 2000, 2100],
+  },
 });
 const units = { pressure: "psia", temperature: "°F", value: "rb/STB" };
 
@@ -17,7 +22,13 @@ type Trace = Record<string, unknown>;
 
 describe("surfaceFigure", () => {
   test("side by side: one scene per sample, Cividis on a shared range, one colour bar, titles", () => {
-    const f = surfaceFigure({ series: [series(1, 0), series(2, 0.1)], valueLabel: "Bo", units, resolution: { pressures: 10, temperatures: 5 } });
+    const f = surfaceFigure({
+      series: [series(1, 0), series(2, 0.1)],
+      valueLabel: "Bo",
+      units,
+      arrangement: "side-by-side",
+      resolution: { pressures: 10, temperatures: 5 },
+    });
     const surfaces = f.data.filter((d) => d.type === "surface") as Trace[];
     expect(surfaces.map((s) => s.scene)).toEqual(["scene", "scene2"]);
     expect(surfaces.every((s) => s.colorscale === "Cividis")).toBe(true);
@@ -33,8 +44,8 @@ describe("surfaceFigure", () => {
     expect(String(surfaces[0]!.hovertemplate)).toContain("rb/STB");
   });
 
-  test("overlaid: one scene, a legend entry and its own colour and marker symbol per sample", () => {
-    const f = surfaceFigure({ series: [series(1, 0), series(2, 0.1)], valueLabel: "Bo", units, arrangement: "overlaid", resolution: { pressures: 10, temperatures: 5 } });
+  test("overlaid (the default): one scene, a legend entry and its own colour and marker symbol per sample", () => {
+    const f = surfaceFigure({ series: [series(1, 0), series(2, 0.1)], valueLabel: "Bo", units, resolution: { pressures: 10, temperatures: 5 } });
     const surfaces = f.data.filter((d) => d.type === "surface") as Trace[];
     expect(surfaces.map((s) => s.scene)).toEqual(["scene", "scene"]);
     expect(surfaces.every((s) => s.showlegend === true)).toBe(true);
@@ -49,14 +60,17 @@ describe("surfaceFigure", () => {
       series: [series(1, 0)],
       valueLabel: "Bo",
       units,
-      queryPoints: [{ pressure: 1750, temperature: 200 }, { pressure: 3500, temperature: 200 }],
+      queryPoints: [
+        { pressure: 1750, temperature: 200 },
+        { pressure: 3500, temperature: 200 },
+      ],
       resolution: { pressures: 10, temperatures: 5 },
     });
     const q = f.data.filter((d) => String(d.name).startsWith("Query")) as { name: string; text: string[]; marker: { symbol: string } }[];
-    expect(q.map((t) => t.name)).toEqual(["Query points", "Query points, extrapolated"]);
+    expect(q.map((t) => t.name)).toEqual(["Query points", "Query points outside the data (*)"]);
     expect(q[0]!.marker.symbol).toBe("diamond");
-    expect(q[1]!.marker.symbol).toBe("x");
-    expect(q[1]!.text).toEqual(["Q2 (extrapolated)"]);
+    expect(q[1]!.marker.symbol).toBe("diamond-open");
+    expect(q[1]!.text).toEqual(["Q2*"]);
   });
 });
 

@@ -32,7 +32,10 @@ export const FONT = { family: "Noto Sans, ui-sans-serif, system-ui, sans-serif",
 
 export type Figure = { data: Data[]; layout: Partial<Layout> & Record<string, unknown> };
 
-const pick = <T,>(list: readonly T[], i: number): T => list[i % list.length]!;
+/** Legend entry of query points outside the measured data (extrapolated or beyond the envelope). */
+export const FLAGGED_NAME = "Query points outside the data (*)";
+
+const pick = <T>(list: readonly T[], i: number): T => list[i % list.length]!;
 
 /** Text for Plotly hover templates and annotations: its tags and %{…} placeholders are neutralised. */
 export function plotText(s: string): string {
@@ -70,7 +73,14 @@ function queryHover(q: EvaluatedQuery, series: string, units: PlotUnits, valueLa
 }
 
 /** Two traces: query points inside the data, and flagged ones (extrapolated or beyond the envelope). */
-function queryTraces3d(queries: EvaluatedQuery[], series: PlotSeries, units: PlotUnits, valueLabel: string, scene: string, showlegend: boolean): Partial<Scatter3dData>[] {
+function queryTraces3d(
+  queries: EvaluatedQuery[],
+  series: PlotSeries,
+  units: PlotUnits,
+  valueLabel: string,
+  scene: string,
+  showlegend: boolean,
+): Partial<Scatter3dData>[] {
   const shown = queries.filter((q) => q.value !== null);
   const ok = shown.filter((q) => q.flag === "inside");
   const flagged = shown.filter((q) => q.flag !== "inside");
@@ -100,22 +110,26 @@ function queryTraces3d(queries: EvaluatedQuery[], series: PlotSeries, units: Plo
   if (flagged.length > 0) {
     out.push({
       ...common(flagged),
-      name: "Query points, extrapolated",
+      name: FLAGGED_NAME,
       legendgroup: "query-flagged",
-      text: flagged.map((q) => plotText(`${q.label} (${q.flag === "extrapolated" ? "extrapolated" : "beyond data"})`)),
-      marker: { symbol: "x", size: 7, color: FLAG },
+      text: flagged.map((q) => plotText(`${q.label}*`)),
+      // 3D markers are drawn as text glyphs: "x" and "cross" have none in the app's font, the open diamond has
+      marker: { symbol: "diamond-open", size: 8, color: FLAG, line: { color: FLAG, width: 2 } },
       textfont: { color: FLAG, size: 12, family: FONT.family },
     });
   }
   return out;
 }
 
-type SurfaceInput = Pick<PropertySurfaceProps, "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "arrangement" | "resolution" | "height">;
+type SurfaceInput = Pick<
+  PropertySurfaceProps,
+  "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "arrangement" | "resolution" | "height"
+>;
 
 export function surfaceFigure(input: SurfaceInput): Figure {
   const method: PlotMethod = input.method ?? "auto";
   const series = input.series.filter((s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0);
-  const arrangement = series.length > 1 ? (input.arrangement ?? "side-by-side") : "side-by-side";
+  const arrangement = series.length > 1 ? (input.arrangement ?? "overlaid") : "side-by-side";
   const titles = axisTitles(input.units, input.valueLabel);
   const resolution = input.resolution ?? DEFAULT_SURFACE_RESOLUTION;
   const surfaces = series.map((s) => surfaceOf(s.grid, method, input.degree, resolution));
@@ -202,12 +216,21 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         y: [1 - (row + 1) * heightShare, 1 - row * heightShare - titleRoom],
       },
       xaxis: { title: { text: plotText(titles.pressure) }, gridcolor: GRID_LINE, backgroundcolor: "#ffffff", showbackground: true, hoverformat: NUM },
-      yaxis: { title: { text: plotText(titles.temperature) }, gridcolor: GRID_LINE, backgroundcolor: "#ffffff", showbackground: true, hoverformat: NUM },
+      yaxis: {
+        title: { text: plotText(titles.temperature) },
+        gridcolor: GRID_LINE,
+        backgroundcolor: "#ffffff",
+        showbackground: true,
+        hoverformat: NUM,
+      },
       zaxis: { title: { text: plotText(titles.value) }, gridcolor: GRID_LINE, backgroundcolor: "#f6f7f5", showbackground: true, hoverformat: NUM },
       aspectmode: "manual",
       aspectratio: { x: 1.35, y: 1, z: 0.75 },
       // narrow side-by-side scenes need the camera further back, or the axis titles fall outside
-      camera: sceneCount > 1 ? { eye: { x: 1.6, y: -1.75, z: 0.95 }, center: { x: 0, y: 0, z: -0.1 } } : { eye: { x: 1.35, y: -1.5, z: 0.8 }, center: { x: 0, y: 0, z: -0.1 } },
+      camera:
+        sceneCount > 1
+          ? { eye: { x: 1.6, y: -1.75, z: 0.95 }, center: { x: 0, y: 0, z: -0.1 } }
+          : { eye: { x: 1.3, y: -1.45, z: 0.75 }, center: { x: 0, y: 0, z: -0.2 } },
     };
   };
   const layout: Figure["layout"] = {
@@ -242,7 +265,10 @@ export function surfaceFigure(input: SurfaceInput): Figure {
   return { data, layout };
 }
 
-type SlicesInput = Pick<PropertySlicesProps, "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "temperatures" | "resolution" | "height">;
+type SlicesInput = Pick<
+  PropertySlicesProps,
+  "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "temperatures" | "resolution" | "height"
+>;
 
 /** The default slice temperatures: the measured temperatures of the first series. */
 export function defaultSliceTemperatures(series: PlotSeries[]): number[] {
@@ -252,7 +278,9 @@ export function defaultSliceTemperatures(series: PlotSeries[]): number[] {
 export function slicesFigure(input: SlicesInput): Figure {
   const method: PlotMethod = input.method ?? "auto";
   const series = input.series.filter((s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0);
-  const temperatures = (input.temperatures && input.temperatures.length > 0 ? input.temperatures : defaultSliceTemperatures(series)).filter(Number.isFinite);
+  const temperatures = (input.temperatures && input.temperatures.length > 0 ? input.temperatures : defaultSliceTemperatures(series)).filter(
+    Number.isFinite,
+  );
   const titles = axisTitles(input.units, input.valueLabel);
   const units = input.units;
   const many = series.length > 1;
@@ -261,7 +289,10 @@ export function slicesFigure(input: SlicesInput): Figure {
   const annotations: Partial<Annotation>[] = [];
   const hover = hoverLines(units, input.valueLabel);
   const tUnit = units.temperature;
-  const curves = series.flatMap((s, k) => temperatures.map((t, j) => ({ s, k, t, j, curve: curveOf(s.grid, t, method, input.degree, input.resolution ?? DEFAULT_CURVE_RESOLUTION) })));
+  const curves = series.flatMap((s, k) =>
+    temperatures.map((t, j) => ({ s, k, t, j, curve: curveOf(s.grid, t, method, input.degree, input.resolution ?? DEFAULT_CURVE_RESOLUTION) })),
+  );
+  // with many curves the dashed lines and labels would bury the data: the hollow diamonds remain
   const annotateBubble = curves.filter((c) => c.curve.bubblePoint).length <= 6;
   let bubbleIndex = 0;
   let anyBubble = false;
@@ -300,17 +331,18 @@ export function slicesFigure(input: SlicesInput): Figure {
     const pb = curve.bubblePoint;
     if (pb) {
       anyBubble = true;
-      shapes.push({
-        type: "line",
-        xref: "x",
-        yref: "paper",
-        x0: pb.pressure,
-        x1: pb.pressure,
-        y0: 0,
-        y1: 1,
-        line: { color: colour, width: 1.5, dash: "dash" },
-        opacity: 0.75,
-      });
+      if (annotateBubble)
+        shapes.push({
+          type: "line",
+          xref: "x",
+          yref: "paper",
+          x0: pb.pressure,
+          x1: pb.pressure,
+          y0: 0,
+          y1: 1,
+          line: { color: colour, width: 1.5, dash: "dash" },
+          opacity: 0.75,
+        });
       if (pb.value !== null) {
         data.push({
           type: "scatter",
@@ -321,7 +353,9 @@ export function slicesFigure(input: SlicesInput): Figure {
           x: [pb.pressure],
           y: [pb.value],
           marker: { symbol: "diamond-wide", size: 13, color: "#ffffff", line: { color: colour, width: 2.5 } },
-          hovertemplate: plotText(`Bubble point of ${s.label}`) + `<br>pb ${formatNumber(pb.pressure)} ${plotText(units.pressure)}<br>${tLine}<br>${plotText(input.valueLabel)} %{y:${NUM}} ${plotText(units.value)}<extra></extra>`,
+          hovertemplate:
+            plotText(`Bubble point of ${s.label}`) +
+            `<br>pb ${formatNumber(pb.pressure)} ${plotText(units.pressure)}<br>${tLine}<br>${plotText(input.valueLabel)} %{y:${NUM}} ${plotText(units.value)}<extra></extra>`,
         } satisfies Partial<ScatterData>);
       }
       if (annotateBubble) {
@@ -361,8 +395,18 @@ export function slicesFigure(input: SlicesInput): Figure {
     const all = series.flatMap((s, k) => evaluateQueries(s.grid, queries, method, input.degree).map((q) => ({ q, s, labelled: k === 0 })));
     const shown = all.filter(({ q }) => q.value !== null);
     const groups = [
-      { list: shown.filter(({ q }) => q.flag === "inside"), name: "Query points", marker: { symbol: "star" as const, size: 13, color: "#000000", line: { color: "#ffffff", width: 1 } }, text: "#000000" },
-      { list: shown.filter(({ q }) => q.flag !== "inside"), name: "Query points, extrapolated", marker: { symbol: "x" as const, size: 11, color: FLAG, line: { color: "#ffffff", width: 0.5 } }, text: FLAG },
+      {
+        list: shown.filter(({ q }) => q.flag === "inside"),
+        name: "Query points",
+        marker: { symbol: "star" as const, size: 13, color: "#000000", line: { color: "#ffffff", width: 1 } },
+        text: "#000000",
+      },
+      {
+        list: shown.filter(({ q }) => q.flag !== "inside"),
+        name: FLAGGED_NAME,
+        marker: { symbol: "x" as const, size: 11, color: FLAG, line: { color: "#ffffff", width: 0.5 } },
+        text: FLAG,
+      },
     ];
     for (const g of groups) {
       if (g.list.length === 0) continue;
@@ -372,7 +416,7 @@ export function slicesFigure(input: SlicesInput): Figure {
         name: g.name,
         x: g.list.map(({ q }) => q.pressure),
         y: g.list.map(({ q }) => q.value),
-        text: g.list.map(({ q, labelled }) => (labelled ? plotText(q.flag === "inside" ? q.label : `${q.label} (${q.flag === "extrapolated" ? "extrapolated" : "beyond data"})`) : "")),
+        text: g.list.map(({ q, labelled }) => (labelled ? plotText(q.flag === "inside" ? q.label : `${q.label}*`) : "")),
         textposition: "top center",
         textfont: { color: g.text, size: 12, family: FONT.family },
         marker: g.marker,
@@ -389,8 +433,22 @@ export function slicesFigure(input: SlicesInput): Figure {
     height: input.height ?? SLICES_HEIGHT,
     autosize: true,
     margin: { l: 72, r: 16, t: 16, b: 56 },
-    xaxis: { title: { text: plotText(titles.pressure) }, gridcolor: GRID_LINE, zeroline: false, hoverformat: NUM, linecolor: "#9aa5a0", ticks: "outside" },
-    yaxis: { title: { text: plotText(titles.value) }, gridcolor: GRID_LINE, zeroline: false, hoverformat: NUM, linecolor: "#9aa5a0", ticks: "outside" },
+    xaxis: {
+      title: { text: plotText(titles.pressure) },
+      gridcolor: GRID_LINE,
+      zeroline: false,
+      hoverformat: NUM,
+      linecolor: "#9aa5a0",
+      ticks: "outside",
+    },
+    yaxis: {
+      title: { text: plotText(titles.value) },
+      gridcolor: GRID_LINE,
+      zeroline: false,
+      hoverformat: NUM,
+      linecolor: "#9aa5a0",
+      ticks: "outside",
+    },
     hovermode: "closest",
     showlegend: true,
     legend: { orientation: "v", x: 1.01, xanchor: "left", y: 1, font: { size: 12 } },

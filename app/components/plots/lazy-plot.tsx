@@ -51,7 +51,11 @@ class PlotErrorBoundary extends Component<{ height: number; children: ReactNode 
   render() {
     if (!this.state.failed) return this.props.children;
     return (
-      <div role="alert" className="flex items-center justify-center rounded border border-line bg-panel p-6 text-sm text-danger" style={{ height: this.props.height }}>
+      <div
+        role="alert"
+        className="flex items-center justify-center rounded border border-line bg-panel p-6 text-sm text-danger"
+        style={{ height: this.props.height }}
+      >
         The plotting code could not be loaded. Check the connection and reload the page; the numbers above do not depend on it.
       </div>
     );
@@ -59,7 +63,7 @@ class PlotErrorBoundary extends Component<{ height: number; children: ReactNode 
 }
 
 function surfaceHeightOf(props: PropertySurfaceProps) {
-  return props.height ?? surfaceHeight(props.series.length, props.series.length > 1 ? props.arrangement : "side-by-side");
+  return props.height ?? surfaceHeight(props.series.length, props.series.length > 1 ? (props.arrangement ?? "overlaid") : "side-by-side");
 }
 
 /** 3D surface of one property for one or several samples (see README.md). */

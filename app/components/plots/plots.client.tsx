@@ -60,7 +60,11 @@ function FigureView({
   }, [failed]);
   if (!result.figure) {
     return (
-      <div role="alert" className={`flex items-center justify-center rounded border border-line bg-panel p-6 text-sm text-danger ${className ?? ""}`} style={{ height }}>
+      <div
+        role="alert"
+        className={`flex items-center justify-center rounded border border-line bg-panel p-6 text-sm text-danger ${className ?? ""}`}
+        style={{ height }}
+      >
         The plot could not be drawn: {result.error}
       </div>
     );

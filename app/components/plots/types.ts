@@ -62,9 +62,12 @@ export type CommonPlotProps = {
 };
 
 export type PropertySurfaceProps = CommonPlotProps & {
-  /** Several series: one scene per series side by side (default), or all surfaces in one scene. */
+  /**
+   * Several series: all surfaces in one scene, each in its own colour (default), or one scene per series side
+   * by side. Every scene is one more WebGL context to set up, so "overlaid" draws sooner.
+   */
   arrangement?: "side-by-side" | "overlaid";
-  /** Fine grid the surface is interpolated on (measured pressures and temperatures are added); default 40 × 25. */
+  /** Evenly spaced grid the surface is interpolated on; default 60 × 30 (see DEFAULT_SURFACE_RESOLUTION). */
   resolution?: { pressures: number; temperatures: number };
 };
 
