@@ -7,6 +7,11 @@ export const MAX_JSON_BODY_BYTES = 8 * 1024 * 1024;
  * body that is not application/json and 400 for JSON that does not parse. Throws problem Responses.
  */
 export async function readJsonBody(request: Request, maxBytes = MAX_JSON_BODY_BYTES): Promise<unknown> {
+  return (await readJsonBodyWithText(request, maxBytes)).value;
+}
+
+/** As readJsonBody, also returning the body's text (e.g. to derive an ETag from the request). */
+export async function readJsonBodyWithText(request: Request, maxBytes = MAX_JSON_BODY_BYTES): Promise<{ value: unknown; text: string }> {
   const type = request.headers.get("Content-Type") ?? "";
   if (!/^application\/(.+\+)?json\b/i.test(type)) {
     throw problem(415, "unsupported_media_type", "Send the body as JSON with Content-Type: application/json.");
@@ -34,8 +39,9 @@ export async function readJsonBody(request: Request, maxBytes = MAX_JSON_BODY_BY
     bytes.set(c, offset);
     offset += c.byteLength;
   }
+  const text = new TextDecoder().decode(bytes);
   try {
-    return JSON.parse(new TextDecoder().decode(bytes));
+    return { value: JSON.parse(text) as unknown, text };
   } catch (error) {
     throw problem(400, "invalid_body", `The body is not valid JSON: ${(error as Error).message}`);
   }

@@ -66,8 +66,18 @@ function serialiseResults(results: LookupResult["results"]): string {
  * is derived from what determines its answer — the revision, the validated request and the build — so the 
  * multi-megabyte body need not be hashed.
  */
-export function lookupResponse(request: Request, sampleId: number, data: RevisionData, body: LookupBody, startedAt = performance.now()): Response {
+export function lookupResponse(
+  request: Request,
+  sampleId: number,
+  data: RevisionData,
+  body: LookupBody,
+  startedAt = performance.now(),
+  readMs = 0,
+  bodyText?: string,
+): Response {
+  const computeStarted = performance.now();
   const result = computeLookup(data, body);
+  const computeMs = performance.now() - computeStarted;
   if (result instanceof Response) return result;
   const head = JSON.stringify({
     sampleId,
@@ -83,8 +93,12 @@ export function lookupResponse(request: Request, sampleId: number, data: Revisio
       value: result.units.value.symbol,
     },
   });
+  const writeStarted = performance.now();
   const payload = `${head.slice(0, -1)},"results":${serialiseResults(result.results)}}`;
-  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${JSON.stringify(body)}`).digest("base64url")}"`;
+  const writeMs = performance.now() - writeStarted;
+  const etagStarted = performance.now();
+  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|`).update(bodyText ?? JSON.stringify(body)).digest("base64url")}"`;
+  const etagMs = performance.now() - etagStarted;
   return new Response(payload, {
     status: 200,
     headers: {
@@ -92,7 +106,8 @@ export function lookupResponse(request: Request, sampleId: number, data: Revisio
       ETag: etag,
       "Cache-Control": "private, no-cache",
       "Isopleth-Revision": String(data.number),
-      "Server-Timing": `app;dur=${(performance.now() - startedAt).toFixed(1)}`,
+      // app = the whole request in the server; read = body read and JSON parse; compute = interpolation.
+      "Server-Timing": `app;dur=${(performance.now() - startedAt).toFixed(1)}, read;dur=${readMs.toFixed(1)}, compute;dur=${computeMs.toFixed(1)}, write;dur=${writeMs.toFixed(1)}, etag;dur=${etagMs.toFixed(1)}`,
     },
   });
 }

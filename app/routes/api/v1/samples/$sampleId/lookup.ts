@@ -1,7 +1,7 @@
-import { readJsonBody } from "~/.server/api/body";
+import { readJsonBodyWithText } from "~/.server/api/body";
 import { requireApiCaller } from "~/.server/api/caller";
 import { lookupResponse } from "~/.server/api/lookup";
-import { LookupBody, SampleIdParams, zodIssues } from "~/.server/api/schemas";
+import { parseLookupBody, SampleIdParams, zodIssues } from "~/.server/api/schemas";
 import { requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
 import { problem } from "~/.server/http";
 import type { Route } from "./+types/lookup";
@@ -13,11 +13,13 @@ export async function action(args: Route.ActionArgs) {
   const caller = await requireApiCaller(args, "lookup");
   const params = SampleIdParams.safeParse(args.params);
   if (!params.success) return problem(400, "invalid_path", "The sample id must be a positive whole number.", { issues: zodIssues(params.error) });
-  const body = LookupBody.safeParse(await readJsonBody(args.request));
-  if (!body.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: zodIssues(body.error) });
+  const { value: raw, text } = await readJsonBodyWithText(args.request);
+  const readMs = performance.now() - startedAt;
+  const body = parseLookupBody(raw);
+  if (!body.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: body.issues });
   const sample = await requireSampleForCaller(caller, params.data.sampleId);
   const data = await requireRevisionData(sample, body.data.revision);
-  return lookupResponse(args.request, sample.id, data, body.data, startedAt);
+  return lookupResponse(args.request, sample.id, data, body.data, startedAt, readMs, text);
 }
 
 export async function loader() {
