@@ -10,6 +10,7 @@ import { badRequest } from "~/.server/forms";
 import { Button, FormAlert } from "~/components/form";
 import { EstimateCaution } from "~/components/estimate-caution";
 import { ExplanationPanel, type ExplainTarget } from "~/components/lookup/explanation-panel";
+import { LookupPlots } from "~/components/lookup/lookup-plots";
 import { LookupResultsTable, type PropertyRun } from "~/components/lookup/results-table";
 import { PageHeader } from "~/components/page-header";
 import type { Grid, Method } from "~/core/interpolation";
@@ -169,6 +170,20 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     }
   }
 
+  /** The measured grids of a revision in the units on screen, fetched once per sample, units and revision. */
+  function loadGrids(id: number, system: "field" | "metric", revision: number): Promise<GridPayload> {
+    const key = `${id}:${system}:${revision}`;
+    let payload = gridCache.current.get(key);
+    if (!payload) {
+      payload = fetch(`/api/v1/samples/${id}?units=${system}&revision=${revision}`).then((r) => {
+        if (!r.ok) throw new Error(`grids of sample ${id}: ${r.status}`);
+        return r.json() as Promise<GridPayload>;
+      });
+      gridCache.current.set(key, payload);
+    }
+    return payload;
+  }
+
   async function openExplanation(conditionIndex: number, property: PropertyKey) {
     if (!run) return;
     const propertyRun = run.runs.find((r) => r.property === property);
@@ -176,13 +191,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     const result = propertyRun.results[conditionIndex];
     const condition = run.conditions[conditionIndex];
     if (!result || !condition) return;
-    const key = `${run.sampleId}:${run.units}:${propertyRun.revision}`;
-    let payload = gridCache.current.get(key);
-    if (!payload) {
-      payload = fetch(`/api/v1/samples/${run.sampleId}?units=${run.units}&revision=${propertyRun.revision}`).then((r) => r.json() as Promise<GridPayload>);
-      gridCache.current.set(key, payload);
-    }
-    const data = await payload;
+    const data = await loadGrids(run.sampleId, run.units, propertyRun.revision);
     const grid = data.grids.find((g) => g.property === property);
     if (!grid) return;
     setExplain({
@@ -197,6 +206,13 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
       units: { pressure: pressureUnit, temperature: temperatureUnit, value: propertyRun.unit },
     });
   }
+
+  const plotRun = run?.runs.find((r): r is Extract<PropertyRun, { ok: true }> => r.ok) ?? null;
+  const plotLoader = useMemo(
+    () => (run && plotRun ? () => loadGrids(run.sampleId, run.units, plotRun.revision) : () => Promise.reject(new Error("no run"))),
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [run],
+  );
 
   useEffect(() => {
     if (explain) document.getElementById("explanation-title")?.scrollIntoView({ behavior: "smooth", block: "start" });
@@ -377,6 +393,23 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
         />
       ) : null}
       {explain ? <ExplanationPanel target={explain} onClose={() => setExplain(null)} /> : null}
+      {run && plotRun ? (
+        <LookupPlots
+          key={`${run.sampleId}-${run.units}-${plotRun.revision}-${run.conditions.length}`}
+          properties={run.runs.filter((r) => r.ok).map((r) => r.property)}
+          load={plotLoader}
+          conditions={run.conditions}
+          units={{ pressure: pressureUnit, temperature: temperatureUnit }}
+          unitOf={(p) => {
+            const r = run.runs.find((x) => x.property === p);
+            return r?.ok ? r.unit : "";
+          }}
+          method={run.method as "auto"}
+          degree={plotRun.degree}
+          sampleLabel={samples.find((s) => s.id === run.sampleId)?.label ?? ""}
+          sampleId={run.sampleId}
+        />
+      ) : null}
 
       {run ? <EstimateCaution className="mt-4 rounded border border-caution/30 bg-caution-soft p-3 text-sm text-caution" /> : null}
       {canSave ? <SavedSets sets={sets} onLoad={loadSet} /> : null}
