@@ -124,7 +124,7 @@ function queryTraces3d(
 type SurfaceInput = Pick<
   PropertySurfaceProps,
   "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "arrangement" | "resolution" | "height"
->;
+> & { narrow?: boolean };
 
 export function surfaceFigure(input: SurfaceInput): Figure {
   const method: PlotMethod = input.method ?? "auto";
@@ -202,7 +202,8 @@ export function surfaceFigure(input: SurfaceInput): Figure {
     data.push(...queryTraces3d(evaluated, s, input.units, input.valueLabel, scene, overlaid ? k === 0 : k === 0));
   });
 
-  const { columns, rows } = sceneGrid(sceneCount);
+  const narrow = input.narrow ?? false;
+  const { columns, rows } = sceneGrid(sceneCount, narrow);
   const sceneLayout = (k: number) => {
     const col = k % columns;
     const row = Math.floor(k / columns);
@@ -227,8 +228,9 @@ export function surfaceFigure(input: SurfaceInput): Figure {
       aspectmode: "manual",
       aspectratio: { x: 1.35, y: 1, z: 0.75 },
       // narrow side-by-side scenes need the camera further back, or the axis titles fall outside
-      camera:
-        sceneCount > 1
+      camera: narrow
+        ? { eye: { x: 1.85, y: -2.0, z: 1.1 }, center: { x: 0, y: 0, z: -0.1 } }
+        : sceneCount > 1
           ? { eye: { x: 1.6, y: -1.75, z: 0.95 }, center: { x: 0, y: 0, z: -0.1 } }
           : { eye: { x: 1.3, y: -1.45, z: 0.75 }, center: { x: 0, y: 0, z: -0.2 } },
     };
@@ -237,7 +239,7 @@ export function surfaceFigure(input: SurfaceInput): Figure {
     font: FONT,
     paper_bgcolor: "#ffffff",
     margin: { l: 0, r: 0, t: sceneCount > 1 ? 8 : 4, b: 0 },
-    height: input.height ?? surfaceHeight(series.length, arrangement),
+    height: input.height ?? surfaceHeight(series.length, arrangement, narrow),
     autosize: true,
     showlegend: true,
     legend: { orientation: "h", x: 0, y: 0, yanchor: "bottom", bgcolor: "rgba(255,255,255,0.8)", font: { size: 12 } },
@@ -268,7 +270,7 @@ export function surfaceFigure(input: SurfaceInput): Figure {
 type SlicesInput = Pick<
   PropertySlicesProps,
   "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "temperatures" | "resolution" | "height"
->;
+> & { narrow?: boolean };
 
 /** The default slice temperatures: the measured temperatures of the first series. */
 export function defaultSliceTemperatures(series: PlotSeries[]): number[] {
@@ -430,9 +432,13 @@ export function slicesFigure(input: SlicesInput): Figure {
     font: FONT,
     paper_bgcolor: "#ffffff",
     plot_bgcolor: "#ffffff",
-    height: input.height ?? SLICES_HEIGHT,
+    height:
+      input.height ??
+      (input.narrow
+        ? SLICES_HEIGHT + 24 * Math.ceil(data.filter((d) => (d as { showlegend?: boolean }).showlegend !== false).length / 2)
+        : SLICES_HEIGHT),
     autosize: true,
-    margin: { l: 72, r: 16, t: 16, b: 56 },
+    margin: input.narrow ? { l: 56, r: 8, t: 16, b: 56 } : { l: 72, r: 16, t: 16, b: 56 },
     xaxis: {
       title: { text: plotText(titles.pressure) },
       gridcolor: GRID_LINE,
@@ -451,7 +457,10 @@ export function slicesFigure(input: SlicesInput): Figure {
     },
     hovermode: "closest",
     showlegend: true,
-    legend: { orientation: "v", x: 1.01, xanchor: "left", y: 1, font: { size: 12 } },
+    // narrow screens: the legend goes under the axes instead of taking half the width
+    legend: input.narrow
+      ? { orientation: "h", x: 0, xanchor: "left", y: -0.18, yanchor: "top", font: { size: 11 } }
+      : { orientation: "v", x: 1.01, xanchor: "left", y: 1, font: { size: 12 } },
     hoverlabel: { font: { family: FONT.family, size: 12 } },
     shapes,
     annotations,

@@ -7,6 +7,7 @@ import Plotly from "plotly.js-dist-min";
 import { useEffect, useMemo, useState } from "react";
 import createPlotlyComponent from "react-plotly.js/factory";
 import { slicesFigure, surfaceFigure, type Figure } from "./figures";
+import { NARROW_WIDTH } from "./size";
 import type { PropertySlicesProps, PropertySurfaceProps } from "./types";
 
 const Plot = createPlotlyComponent(Plotly);
@@ -25,6 +26,18 @@ const CONFIG = {
 };
 
 type State = "drawing" | "drawn" | "error";
+
+/** True on screens narrower than NARROW_WIDTH (after mount; this module never runs on the server). */
+function useNarrow(): boolean {
+  const [narrow, setNarrow] = useState(() => window.matchMedia(`(max-width: ${NARROW_WIDTH}px)`).matches);
+  useEffect(() => {
+    const query = window.matchMedia(`(max-width: ${NARROW_WIDTH}px)`);
+    const update = () => setNarrow(query.matches);
+    query.addEventListener("change", update);
+    return () => query.removeEventListener("change", update);
+  }, []);
+  return narrow;
+}
 
 function FigureView({
   build,
@@ -93,6 +106,7 @@ function FigureView({
 }
 
 export function SurfaceFigure(props: PropertySurfaceProps) {
+  const narrow = useNarrow();
   const { series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height, className, onReady } = props;
   return (
     <FigureView
@@ -101,13 +115,14 @@ export function SurfaceFigure(props: PropertySurfaceProps) {
       height={height ?? 460}
       className={className}
       onReady={onReady}
-      build={() => surfaceFigure({ series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height })}
-      inputs={[series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height]}
+      build={() => surfaceFigure({ series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height, narrow })}
+      inputs={[series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height, narrow]}
     />
   );
 }
 
 export function SlicesFigure(props: PropertySlicesProps) {
+  const narrow = useNarrow();
   const { series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height, className, onReady } = props;
   return (
     <FigureView
@@ -116,8 +131,8 @@ export function SlicesFigure(props: PropertySlicesProps) {
       height={height ?? 420}
       className={className}
       onReady={onReady}
-      build={() => slicesFigure({ series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height })}
-      inputs={[series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height]}
+      build={() => slicesFigure({ series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height, narrow })}
+      inputs={[series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height, narrow]}
     />
   );
 }

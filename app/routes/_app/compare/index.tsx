@@ -68,12 +68,14 @@ export async function loader(args: Route.LoaderArgs) {
       return { id: s.id, label: s.label, revision: data.number, grid };
     }),
   );
+  const valueUnit = unitLabel(system, query.property);
   return {
     units: {
       system,
       pressure: unitLabel(system, "pressure"),
       temperature: unitLabel(system, "temperature"),
-      value: unitLabel(system, query.property),
+      // a dimensionless property (z) has no unit to show: "z", not "z (–)"
+      value: /^[-–—]?$/.test(valueUnit) ? "" : valueUnit,
     },
     property: query.property,
     view: query.view,
@@ -521,7 +523,7 @@ function ValuesTable({
   const cellOf = (id: number, k: number) => lookups.cells[id]?.[k];
   return (
     <div>
-      <div className="w-fit max-w-full overflow-x-auto rounded-lg border border-line bg-panel">
+      <div className="relative w-fit max-w-full overflow-x-auto rounded-lg border border-line bg-panel">
         <table className="text-sm" aria-label={`${propertyName} by sample`} aria-busy={lookups.status === "loading"}>
           <thead className="bg-surface text-ink-muted">
             <tr className="text-xs">
