@@ -36,7 +36,14 @@ const CHROMIUM_ARGS = [
   "--enable-unsafe-swiftshader",
 ];
 
-type Marks = { chunk: number | null; plotly: number | null; canvas: number | null; drawn: number | null; html: number | null };
+type Marks = {
+  chunk: number | null;
+  chunkStart: number | null;
+  plotly: number | null;
+  canvas: number | null;
+  drawn: number | null;
+  html: number | null;
+};
 
 declare global {
   interface Window {
@@ -70,6 +77,7 @@ const READ_MARKS = `(() => {
   const mark = (name) => { const m = performance.getEntriesByName(name)[0]; return m ? m.startTime : null; };
   return {
     chunk: chunk ? chunk.responseEnd : null,
+    chunkStart: chunk ? chunk.startTime : null,
     html: nav ? nav.responseEnd : null,
     plotly: mark("isopleth:plotly-ready"),
     canvas: window.__benchMarks.canvas,
@@ -101,7 +109,7 @@ async function oneRun(run: number): Promise<Marks> {
     await context.close();
     const s = (v: number | null) => (v === null ? "—" : `${(v / 1000).toFixed(2)} s`);
     console.log(
-      `run ${run}: HTML ${s(marks.html)}, plot chunk received ${s(marks.chunk)}, Plotly evaluated ${s(marks.plotly)}, 3D canvas in the page ${s(marks.canvas)}, surface drawn ${s(marks.drawn)}`,
+      `run ${run}: HTML ${s(marks.html)}, plot chunk requested ${s(marks.chunkStart)} and received ${s(marks.chunk)}, Plotly evaluated ${s(marks.plotly)}, 3D canvas in the page ${s(marks.canvas)}, surface drawn ${s(marks.drawn)}`,
     );
     return marks;
   } finally {
