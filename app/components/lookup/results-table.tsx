@@ -102,8 +102,8 @@ export function LookupResultsTable({
             Results
           </h2>
           <p className="text-sm text-ink-muted" data-testid="results-meta">
-            {sampleLabel} · revision {revisions.join(", ")} · {ok[0]?.methodDescription ?? method} · {conditions.length} condition{conditions.length === 1 ? "" : "s"} ·
-            answered in {Math.round(elapsedMs)} ms (server {serverMs.toFixed(1)} ms)
+            {sampleLabel} · {revisions.length ? `revision ${revisions.join(", ")}` : "no values"} · {ok[0]?.methodDescription ?? method} · {conditions.length} condition
+            {conditions.length === 1 ? "" : "s"} · answered in {Math.round(elapsedMs)} ms{ok.length ? ` (server ${serverMs.toFixed(1)} ms)` : ""}
             {flagged ? ` · ${flagged} value${flagged === 1 ? "" : "s"} flagged` : ""}
           </p>
         </div>
