@@ -1,9 +1,11 @@
 /**
  * The only module that imports Plotly. It is loaded with a lazy import by PropertySurface and PropertySlices
- * after the page has mounted, so Plotly (about 4.6 MB) is fetched only on pages that plot, never rendered on
- * the server, and never part of another page's bundle.
+ * after the page has mounted, so Plotly is fetched only on pages that plot, never rendered on the server, and
+ * never part of another page's bundle. It uses Plotly's partial bundle with the 3D traces (1.75 MB instead of the
+ * 4.6 MB full bundle; it holds scatter, surface and scatter3d, all these plots draw), which starts in about 2 s
+ * instead of 3.5–7 s on machines without a GPU.
  */
-import Plotly from "plotly.js-dist-min";
+import Plotly from "plotly.js-gl3d-dist-min";
 import { useEffect, useMemo, useState } from "react";
 import createPlotlyComponent from "react-plotly.js/factory";
 import { slicesFigure, surfaceFigure, type Figure } from "./figures";
