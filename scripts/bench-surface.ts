@@ -8,6 +8,7 @@
 // does not delay the reading): the plot chunk's arrival, the 3D canvas in the DOM, and the surface drawn
 // (Plotly's first plot done plus two animation frames). It measures; it never fails on a slow result.
 import { chromium } from "playwright-core";
+import { CHROMIUM_ARGS, CHROMIUM_PATH } from "../tests/support/chromium";
 
 const args = process.argv.slice(2);
 const option = (name: string) => {
@@ -24,17 +25,6 @@ const sideBySide = args.includes("--side-by-side");
 const email = process.env.BENCH_EMAIL ?? "engineer@calder.example";
 const password = process.env.BENCH_PASSWORD ?? "isopleth-demo-2026";
 
-// the flags of tests/playwright.config.ts
-const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-  "--enable-unsafe-swiftshader",
-];
 
 type Marks = {
   chunk: number | null;
@@ -86,7 +76,7 @@ const READ_MARKS = `(() => {
 })()`;
 
 async function oneRun(run: number): Promise<Marks> {
-  const browser = await chromium.launch({ executablePath: "/usr/lib/chromium/chromium", headless: true, args: CHROMIUM_ARGS });
+  const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args: CHROMIUM_ARGS });
   try {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();

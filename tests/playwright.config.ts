@@ -1,5 +1,6 @@
 import { defineConfig, devices } from "@playwright/test";
 
+import { CHROMIUM_ARGS, CHROMIUM_PATH } from "./support/chromium";
 import { APP_SERVER_ENV, APP_URL, SMTP_HTTP_PORT, SMTP_PORT } from "./support/e2e";
 
 export default defineConfig({
@@ -22,17 +23,8 @@ export default defineConfig({
         ...devices["Desktop Chrome"],
         headless: true,
         launchOptions: {
-          executablePath: "/usr/lib/chromium/chromium",
-          args: [
-            "--no-sandbox",
-            "--disable-gpu",
-            "--disable-quic",
-            "--no-first-run",
-            "--disable-background-networking",
-            "--disable-component-update",
-            "--disable-sync",
-            "--enable-unsafe-swiftshader",
-          ],
+          executablePath: CHROMIUM_PATH,
+          args: CHROMIUM_ARGS,
         },
       },
     },
