@@ -45,3 +45,11 @@ test("health route reports the database as up", async ({ request }) => {
   expect(response.status()).toBe(200);
   expect(await response.json()).toEqual({ status: "ok", database: "up" });
 });
+
+test("a viewer's navigation leaves out what the role cannot use", async ({ page }) => {
+  await signIn(page, "viewer");
+  const nav = page.getByRole("navigation", { name: "Main" });
+  await expect(nav.getByRole("link", { name: "Compare" })).toBeVisible();
+  await expect(nav.getByRole("link", { name: "API tokens" })).toHaveCount(0);
+  await expect(page.getByRole("navigation", { name: "Administration" })).toHaveCount(0);
+});

@@ -21,7 +21,7 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
     { to: href("/samples"), label: "Samples" },
     { to: href("/lookup"), label: "Lookup" },
     { to: href("/compare"), label: "Compare" },
-    { to: href("/tokens"), label: "API tokens" },
+    ...(can(user, "manage:own-tokens") ? [{ to: href("/tokens"), label: "API tokens" }] : []),
   ];
   const admin = can(user, "manage:people")
     ? [
