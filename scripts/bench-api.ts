@@ -41,7 +41,7 @@ const server = spawn("node", ["--import", "./scripts/serve-hooks.mjs", "node_mod
   },
   stdio: "ignore",
 });
-process.on("exit", () => server.kill("SIGTERM"));
+process.on("exit", () => server.kill("SIGKILL"));
 for (let i = 0; i < 100; i++) {
   const ok = await fetch(`${BASE}/api/health`).then((r) => r.ok).catch(() => false);
   if (ok) break;
@@ -100,5 +100,5 @@ const one = await load("POST single-point lookup with a token (32 connections, 1
 console.log(
   `lookup/health throughput ratio ${(one.rps / health.rps).toFixed(2)} (target ≥ 0.5); lookup p99 ${one.p99} ms (target < 50 ms); lookup errors ${one.errors} (target 0)`,
 );
-server.kill("SIGTERM");
+server.kill("SIGKILL");
 process.exit(0);
