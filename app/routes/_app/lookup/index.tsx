@@ -210,8 +210,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   const plotRun = run?.runs.find((r): r is Extract<PropertyRun, { ok: true }> => r.ok) ?? null;
   const plotLoader = useMemo(
     () => (run && plotRun ? () => loadGrids(run.sampleId, run.units, plotRun.revision) : () => Promise.reject(new Error("no run"))),
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [run],
+    [run], // plotRun and loadGrids follow from run
   );
 
   useEffect(() => {
@@ -263,7 +262,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
               </option>
             ))}
           </select>
-          {sample ? <SampleFacts sample={sample} pressureUnit={pressureUnit} temperatureUnit={temperatureUnit} units={units} /> : null}
+          {sample ? <SampleFacts sample={sample} pressureUnit={pressureUnit} temperatureUnit={temperatureUnit} /> : null}
         </fieldset>
 
         <fieldset className="space-y-3">
@@ -417,8 +416,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   );
 }
 
-function SampleFacts({ sample, pressureUnit, temperatureUnit, units }: { sample: SampleInfo; pressureUnit: string; temperatureUnit: string; units: "field" | "metric" }) {
-  void units;
+function SampleFacts({ sample, pressureUnit, temperatureUnit }: { sample: SampleInfo; pressureUnit: string; temperatureUnit: string }) {
   return (
     <dl className="grid grid-cols-2 gap-x-3 text-xs text-ink-muted">
       <dt>Reservoir</dt>
