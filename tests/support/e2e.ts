@@ -10,10 +10,11 @@ export const ACCOUNTS = {
 } as const;
 export type DemoRole = keyof typeof ACCOUNTS;
 
-export const APP_PORT = 3100;
+/** Ports of the servers under test; overridable so that two checkouts can run their browser tests at once. */
+export const APP_PORT = Number(process.env.E2E_APP_PORT ?? 3100);
 export const APP_URL = `http://127.0.0.1:${APP_PORT}`;
-export const SMTP_PORT = 2526;
-export const SMTP_HTTP_PORT = 2581;
+export const SMTP_PORT = Number(process.env.E2E_SMTP_PORT ?? 2526);
+export const SMTP_HTTP_PORT = Number(process.env.E2E_SMTP_HTTP_PORT ?? 2581);
 export const MAIL_URL = `http://127.0.0.1:${SMTP_HTTP_PORT}/messages`;
 
 /** Environment of the app server(s) under test: the production build on the e2e database. */
