@@ -27,7 +27,7 @@ sh("node_modules/.bin/tsx", ["scripts/migrate.ts"]);
 sh("node_modules/.bin/tsx", ["scripts/seed.ts"]);
 if (!existsSync("build/server/index.js")) sh("npm", ["run", "-s", "build"]);
 
-const server = spawn("node", ["--import", "./scripts/serve-hooks.mjs", "node_modules/@react-router/serve/bin.js", "./build/server/index.js"], {
+const server = spawn("node", ["scripts/server.mjs", "build/server/index.js"], {
   env: {
     ...process.env,
     NODE_ENV: "production",

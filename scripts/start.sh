@@ -51,6 +51,6 @@ fi
 node_modules/.bin/tsx scripts/fake-smtp.ts "$SMTP_PORT" "$SMTP_HTTP_PORT" &
 pids+=($!)
 log "ready in $((SECONDS - started)) s: serving Isopleth on http://$HOST:$PORT"
-node --import ./scripts/serve-hooks.mjs node_modules/@react-router/serve/bin.js ./build/server/index.js &
+node scripts/server.mjs build/server/index.js &
 pids+=($!)
 wait -n "${pids[@]}"

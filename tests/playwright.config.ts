@@ -37,7 +37,7 @@ export default defineConfig({
       reuseExistingServer: false,
     },
     {
-      command: "node --import ./scripts/serve-hooks.mjs node_modules/@react-router/serve/bin.js ./build/server/index.js",
+      command: "node scripts/server.mjs build/server/index.js",
       cwd: "..",
       url: `${APP_URL}/api/health`,
       reuseExistingServer: false,

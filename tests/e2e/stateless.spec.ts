@@ -3,7 +3,7 @@ import { expect, test } from "@playwright/test";
 import { ACCOUNTS, APP_SERVER_ENV, APP_URL, DEMO_PASSWORD } from "../support/e2e";
 
 /*
- * App processes keep no state of their own: a second react-router-serve process on another port, against the
+ * App processes keep no state of their own: a second app server process on another port, against the
  * same database, accepts the session made by the first.
  */
 const SECOND_PORT = 3102;
@@ -12,7 +12,7 @@ let second: ChildProcess;
 test.beforeAll(async () => {
   second = spawn(
     "node",
-    ["--import", "./scripts/serve-hooks.mjs", "node_modules/@react-router/serve/bin.js", "./build/server/index.js"],
+    ["scripts/server.mjs", "build/server/index.js"],
     { env: { ...process.env, ...APP_SERVER_ENV, PORT: String(SECOND_PORT) }, stdio: "ignore" },
   );
   await expect

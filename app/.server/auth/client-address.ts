@@ -1,14 +1,14 @@
 import { getEnv } from "~/.server/env";
 
 declare global {
-  // Set by scripts/serve-hooks.mjs when the server runs with it preloaded.
+  // Set by scripts/server.mjs, the production server.
   var __isoplethPeerAddressHook: boolean | undefined;
 }
 
 /**
  * The client's network address, for lockout and the audit trail.
  * Behind a reverse proxy (TRUST_PROXY=true) it is the first X-Forwarded-For entry; otherwise the TCP peer address
- * recorded by scripts/serve-hooks.mjs, which strips any client-sent copy of its header.
+ * recorded by scripts/server.mjs, which strips any client-sent copy of its header.
  */
 export function clientAddress(request: Request): string {
   if (getEnv().TRUST_PROXY) {

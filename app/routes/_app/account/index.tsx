@@ -2,7 +2,7 @@ import { Form, useNavigation } from "react-router";
 import { changePassword } from "~/.server/auth/accounts";
 import { getCaller, requireUser } from "~/.server/auth/guards";
 import { updateUserProfile } from "~/.server/db/queries/users";
-import { badRequest, parseForm } from "~/.server/forms";
+import { badRequest, parseForm, readFormData } from "~/.server/forms";
 import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { ChangePasswordSchema, ProfileSchema } from "~/utils/auth-schemas";
@@ -18,7 +18,7 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const user = requireUser(args);
   const caller = getCaller(args);
-  const intent = (await args.request.clone().formData()).get("intent");
+  const intent = (await readFormData(args.request.clone())).get("intent");
   if (intent === "profile") {
     const form = await parseForm(args.request, ProfileSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });

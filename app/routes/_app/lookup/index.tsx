@@ -6,7 +6,7 @@ import { listSamplesForCaller } from "~/.server/api/samples";
 import { fromInputPressure, fromInputTemperature } from "~/.server/api/units";
 import { createLookupSet, deleteLookupSet, listLookupSets } from "~/.server/db/queries/lookup-sets";
 import { updateUserProfile } from "~/.server/db/queries/users";
-import { badRequest } from "~/.server/forms";
+import { badRequest, readFormData, readJsonBody } from "~/.server/forms";
 import { Button, FormAlert } from "~/components/form";
 import { EstimateCaution } from "~/components/estimate-caution";
 import { ExplanationPanel, type ExplainTarget } from "~/components/lookup/explanation-panel";
@@ -43,7 +43,7 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "read:samples");
   const contentType = args.request.headers.get("Content-Type") ?? "";
-  const payload: unknown = contentType.includes("application/json") ? await args.request.json() : Object.fromEntries(await args.request.formData());
+  const payload: unknown = contentType.includes("application/json") ? await readJsonBody(args.request) : Object.fromEntries(await readFormData(args.request));
   const intent = (payload as { intent?: unknown }).intent;
   if (intent === "units") {
     const units = z.enum(["field", "metric"]).safeParse((payload as { units?: unknown }).units);

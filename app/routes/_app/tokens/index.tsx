@@ -6,7 +6,7 @@ import { getCaller, requirePermission } from "~/.server/auth/guards";
 import { getApiTokenOwner, listApiTokens, revokeApiToken } from "~/.server/db/queries/api-tokens";
 import { recordAudit } from "~/.server/db/queries/audit";
 import { listFieldsAndSamples } from "~/.server/db/queries/catalogue";
-import { badRequest } from "~/.server/forms";
+import { badRequest, readFormData } from "~/.server/forms";
 import { Button, FieldError, FormAlert, TextField } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { can } from "~/utils/permissions";
@@ -34,7 +34,7 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "manage:own-tokens");
   const { ipAddress } = getCaller(args);
-  const form = await args.request.formData();
+  const form = await readFormData(args.request);
   if (form.get("intent") === "revoke") {
     const parsed = RevokeSchema.safeParse(Object.fromEntries(form));
     if (!parsed.success) return badRequest({ errors: {}, formError: "That token cannot be found." });

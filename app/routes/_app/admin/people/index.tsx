@@ -3,7 +3,7 @@ import { inviteUser } from "~/.server/auth/accounts";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
 import { recordAudit } from "~/.server/db/queries/audit";
 import { getUserById, getUserCredentialsByEmail, listUsers, setUserDisabled, updateUserRole } from "~/.server/db/queries/users";
-import { badRequest, parseForm } from "~/.server/forms";
+import { badRequest, parseForm, readFormData } from "~/.server/forms";
 import { Button, FieldError, FormAlert, TextField, useZodForm } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { ChangeRoleSchema, InviteSchema, SetDisabledSchema } from "~/utils/auth-schemas";
@@ -20,7 +20,7 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const me = requirePermission(args, "manage:people");
   const { ipAddress } = getCaller(args);
-  const intent = String((await args.request.clone().formData()).get("intent") ?? "");
+  const intent = String((await readFormData(args.request.clone())).get("intent") ?? "");
 
   if (intent === "invite") {
     const form = await parseForm(args.request, InviteSchema);
