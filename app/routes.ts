@@ -34,6 +34,7 @@ export default [
   route("templates/:file", "routes/templates/$file.ts"),
   ...prefix("api", [
     route("health", "routes/api/health.ts"),
+    route("ready", "routes/api/ready.ts"),
     ...prefix("v1", [
       route("openapi.json", "routes/api/v1/openapi.ts"),
       route("samples", "routes/api/v1/samples/index.ts"),

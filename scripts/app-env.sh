@@ -13,6 +13,8 @@ set -a
 # shellcheck disable=SC1090
 source "$SECRETS_FILE"
 set +a
+# the readiness check (GET /api/ready) watches the free space of the data folder
+export ISOPLETH_DATA_DIR="$DATA_DIR"
 export HOST="${HOST:-127.0.0.1}"
 export PORT="${PORT:-3000}"
 export APP_BASE_URL="${APP_BASE_URL:-http://$HOST:$PORT}"

@@ -51,6 +51,17 @@ const http = createServer((req, res) => {
   res.writeHead(404).end();
 });
 
+// A port that is taken is named, with the variable that sets it, and the process ends (start.sh reports it).
+function failOn(server: { on(event: "error", listener: (error: NodeJS.ErrnoException) => void): unknown }, port: number, variable: string) {
+  server.on("error", (error) => {
+    const reason = error.code === "EADDRINUSE" ? "is already in use" : `cannot be listened on (${error.code ?? error.message})`;
+    process.stderr.write(`fake SMTP: port ${port} (${variable}) on 127.0.0.1 ${reason}\n`);
+    process.exit(1);
+  });
+}
+failOn(smtp, smtpPort, "SMTP_PORT");
+failOn(http, httpPort, "SMTP_HTTP_PORT");
+
 smtp.listen(smtpPort, "127.0.0.1", () => {
   http.listen(httpPort, "127.0.0.1", () => {
     console.log(`fake SMTP on 127.0.0.1:${smtpPort}, messages at http://127.0.0.1:${httpPort}/messages`);

@@ -30,12 +30,14 @@ log "type-check"
 node_modules/.bin/react-router typegen >/dev/null 2>&1
 node_modules/.bin/tsc
 
-log "unit and integration tests"
-node_modules/.bin/vitest run
-
+# Built before the integration tests: tests/integration/start-script.db.test.ts runs `npm start`, which then
+# finds the bundle current instead of building it again.
 log "production build"
 npm run -s build >/dev/null
 touch build/.source-stamp
+
+log "unit and integration tests"
+node_modules/.bin/vitest run
 
 log "end-to-end tests (Debian chromium)"
 DATABASE_URL="$E2E_DATABASE_URL" node_modules/.bin/tsx scripts/migrate.ts

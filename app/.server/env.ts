@@ -46,6 +46,9 @@ const EnvSchema = z
       .enum(["true", "false"])
       .default("false")
       .transform((v) => v === "true"),
+    // readiness (GET /api/ready): the data folder to watch, and the free space every watched disk must keep
+    ISOPLETH_DATA_DIR: z.string().min(1).optional(),
+    READY_MIN_FREE_BYTES: z.coerce.number().int().min(0).default(256 * 1024 * 1024),
     DEMO_PASSWORD: z.string().min(8, "must be at least 8 characters").default("isopleth-demo-2026"),
   })
   .superRefine((env, ctx) => {
