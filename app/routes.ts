@@ -31,6 +31,7 @@ export default [
     route("invitation/:token", "routes/_auth/invitation/$token.tsx"),
   ]),
   route("sign-out", "routes/sign-out.ts"),
+  route("metrics", "routes/metrics.ts"),
   route("templates/:file", "routes/templates/$file.ts"),
   ...prefix("api", [
     route("health", "routes/api/health.ts"),

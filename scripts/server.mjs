@@ -284,7 +284,7 @@ app.use((req, res, next) => {
 });
 
 app.use(compression());
-app.use("/assets", precompressed, express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", fallthrough: true }));
+app.use("/assets", precompressed, express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", fallthrough: false }));
 app.use(express.static(clientDir, { maxAge: "1h", index: false }));
 
 app.use(createRequestHandler({ build, mode: "production" }));
@@ -295,6 +295,7 @@ app.use((error, req, res, _next) => {
   const clientFault = (status >= 400 && status < 500) || error instanceof URIError || error instanceof TypeError;
   if (!clientFault) logger.error({ requestId: res.getHeader("X-Request-Id"), error: { kind: error?.name, message: String(error?.message).slice(0, 200) } }, "request failed in the server");
   if (res.headersSent) return res.destroy();
+  if (status === 404) return sendProblem(req, res, 404, "not_found", "There is no such file.");
   if (clientFault) return sendProblem(req, res, status >= 400 && status < 500 ? status : 400, "bad_request", "This request is malformed (its address, headers or body cannot be read).");
   sendProblem(req, res, 500, "internal_error", "The server failed to answer this request. It has been logged.");
 });

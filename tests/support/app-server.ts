@@ -1,4 +1,5 @@
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
+import { createWriteStream } from "node:fs";
 import { expect } from "@playwright/test";
 import { APP_SERVER_ENV } from "./e2e";
 import { createEmptyDatabase } from "./test-database";
@@ -22,6 +23,8 @@ export function startAppServer(port: number, env: Record<string, string>, stdout
     stdio: ["ignore", stdout, "pipe"],
   });
   child.stderr?.on("data", (d) => process.stderr.write(`[server ${port}] ${d}`));
+  // SERVER_LOG_DIR=… keeps each server's JSON log lines, e.g. to see which routes a fuzz run spends its time on.
+  if (stdout === "pipe" && process.env.SERVER_LOG_DIR) child.stdout?.pipe(createWriteStream(`${process.env.SERVER_LOG_DIR}/server-${port}.log`));
   return child;
 }
 

@@ -21,4 +21,6 @@ export const CORE_RULES: Record<string, Rule> = {
   "routes/_auth/reset-password/$token.tsx": { kind: "public", path: "/reset-password/not-a-real-token" },
   "routes/_auth/invitation/$token.tsx": { kind: "public", path: "/invitation/not-a-real-token" },
   "routes/sign-out.ts": { kind: "post-only", path: "/sign-out" },
+  // Served to loopback (every test request comes from 127.0.0.1) or an administrator's token; tests/e2e/ops.spec.ts.
+  "routes/metrics.ts": { kind: "public", path: "/metrics" },
 };
