@@ -16,6 +16,7 @@ export const ROLE_LABELS: Record<Role, string> = {
 export type Permission =
   | "read:samples"
   | "export:tables"
+  | "read:draft-revisions"
   | "manage:own-tokens"
   | "save:lookup-sets"
   | "edit:samples"
@@ -29,6 +30,8 @@ export type Permission =
 const GRANTS: Record<Permission, readonly Role[]> = {
   "read:samples": ["viewer", "engineer", "lab_lead", "admin"],
   "export:tables": ["engineer", "lab_lead", "admin"],
+  // Asked for explicitly (revision=N) in a signed-in session, never with a token; outputs then say "draft".
+  "read:draft-revisions": ["engineer", "lab_lead", "admin"],
   "manage:own-tokens": ["engineer", "lab_lead", "admin"],
   "save:lookup-sets": ["engineer", "lab_lead", "admin"],
   "edit:samples": ["lab_lead", "admin"],

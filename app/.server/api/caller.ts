@@ -1,8 +1,8 @@
 import type { RouterContextProvider } from "react-router";
 import { callerContext } from "~/.server/auth/context";
-import type { ApiScope } from "~/.server/db/schema";
 import { getEnv } from "~/.server/env";
 import { problem } from "~/.server/http";
+import { apiAccess, type ApiOperation } from "~/utils/api-scopes";
 import { can, type Role } from "~/utils/permissions";
 import { RateLimiter } from "./rate-limit";
 import { verifyApiToken, type TokenCaller } from "./tokens";
@@ -16,14 +16,15 @@ export type ApiCaller = {
 let limiter: RateLimiter | undefined;
 
 /**
- * Authenticates an API request and checks the scope it needs. Throws a problem-details Response:
- * 401 (missing, invalid, expired or revoked token), 403 (scope or role), 429 (over the token's budget).
- * Scopes for tokens: `tables:read` for sample listings, grids and tables; `lookup` for lookups (and listings).
- * Browser sessions: every role may read and look up; tables (exports) need the engineer role or above.
+ * Authenticates an API request and checks that the caller may perform `operation`, by the one table of scope
+ * rules (app/utils/api-scopes.ts), on every request. Throws a problem-details Response: 401 (missing,
+ * invalid, expired or revoked token), 403 `insufficient_scope` (the token lacks the scope), 403
+ * `insufficient_role` (the token's owner's current role lacks the permission: a demotion binds existing
+ * tokens at once), 403 `forbidden` (a signed-in person's role), 429 (over the token's budget).
  */
 export async function requireApiCaller(
   { request, context }: { request: Request; context: Readonly<RouterContextProvider> },
-  need: ApiScope | "read",
+  operation: ApiOperation,
 ): Promise<ApiCaller> {
   const caller = context.get(callerContext);
   const authorization = request.headers.get("Authorization");
@@ -33,8 +34,13 @@ export async function requireApiCaller(
     const check = await verifyApiToken(match[1], caller.ipAddress);
     if (!check.ok) throw problem(401, "invalid_token", check.detail, { headers: { "WWW-Authenticate": 'Bearer realm="isopleth", error="invalid_token"' } });
     const { user, ...token } = check.caller;
-    const allowed = need === "read" ? token.scopes.length > 0 : token.scopes.includes(need);
-    if (!allowed) throw problem(403, "insufficient_scope", `This token lacks the \`${need}\` scope.`);
+    const access = apiAccess(token.scopes, user.role, operation);
+    if (!access.ok) {
+      // RFC 6750 §3.1: insufficient_scope, with the scope needed.
+      throw access.reason === "scope"
+        ? problem(403, "insufficient_scope", access.message, { headers: { "WWW-Authenticate": 'Bearer realm="isopleth", error="insufficient_scope"' } })
+        : problem(403, "insufficient_role", access.message);
+    }
     limiter ??= new RateLimiter(getEnv().API_RATE_LIMIT_PER_MINUTE);
     const wait = limiter.take(token.tokenId);
     if (wait !== null) {
@@ -45,10 +51,14 @@ export async function requireApiCaller(
   if (!caller.user) {
     throw problem(401, "unauthenticated", "Send a bearer token, or sign in to Isopleth in this browser.", { headers: { "WWW-Authenticate": 'Bearer realm="isopleth"' } });
   }
-  if (need === "tables:read" && !can(caller.user, "export:tables")) {
-    throw problem(403, "forbidden", "Your role may look at tables in the app but not export them.");
-  }
+  const access = apiAccess(null, caller.user.role, operation);
+  if (!access.ok) throw problem(403, "forbidden", operation === "export-table" ? "Your role may look at tables in the app but not export them." : access.message);
   return { user: caller.user, token: null };
+}
+
+/** True when the caller may read draft (unapproved) revisions: a signed-in person whose role allows it, never a token. */
+export function callerMayReadDrafts(caller: ApiCaller): boolean {
+  return caller.token === null && can(caller.user, "read:draft-revisions");
 }
 
 /** True when the caller's token restriction (if any) lets it read this sample. */

@@ -1,10 +1,22 @@
 import { createHash } from "node:crypto";
-import { statSync } from "node:fs";
-import { fileURLToPath } from "node:url";
 import { isLookupError, runLookup, type LookupResult } from "~/core/lookup";
 import { problem } from "~/.server/http";
 import type { RevisionData } from "~/.server/samples/revision-data";
+import { BUILD_ID, finiteJson, refuseNonFinite } from "./respond";
+import { isApprovedStatus } from "./samples";
 import type { LookupBody } from "./schemas";
+
+/**
+ * A point whose value cannot be computed (the engine gave NaN or ±Infinity, e.g. far beyond the measured
+ * range with extrapolation allowed) is refused on its own: value and errorEstimate null and this refusal;
+ * the other points of the request are served as usual.
+ */
+export const NOT_COMPUTABLE_REFUSAL = {
+  code: "not_computable",
+  message:
+    "The value at this point cannot be computed: the interpolation did not give a finite number (the point lies too far outside the measured data). Choose a point nearer the measured range.",
+} as const;
+const REFUSAL_JSON = JSON.stringify(NOT_COMPUTABLE_REFUSAL);
 
 /** Runs a validated lookup against a revision and shapes the API response (or a problem). */
 export function computeLookup(data: RevisionData, body: LookupBody): LookupResult | Response {
@@ -44,7 +56,7 @@ function serialiseResults(results: LookupResult["results"]): string {
     const r = results[i]!;
     let stencil = stencilJson.get(r.stencil);
     if (stencil === undefined) {
-      stencil = JSON.stringify({ pressure: r.stencil.pressures, temperature: r.stencil.temperatures });
+      stencil = finiteJson({ pressure: r.stencil.pressures, temperature: r.stencil.temperatures });
       stencilJson.set(r.stencil, stencil);
     }
     let warnings = warningsJson.get(r.warnings);
@@ -52,11 +64,12 @@ function serialiseResults(results: LookupResult["results"]): string {
       warnings = JSON.stringify(r.warnings);
       warningsJson.set(r.warnings, warnings);
     }
+    const bubble = r.bubblePointPressure !== null && Number.isFinite(r.bubblePointPressure) ? `,"bubblePointPressure":${r.bubblePointPressure}` : "";
+    const branch = r.branch ? `,"branch":"${r.branch}"` : "";
     parts[i] =
-      `{"value":${r.value},"errorEstimate":${r.errorEstimate},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}` +
-      (r.branch ? `,"branch":"${r.branch}"` : "") +
-      (r.bubblePointPressure !== null ? `,"bubblePointPressure":${r.bubblePointPressure}` : "") +
-      "}";
+      Number.isFinite(r.value) && Number.isFinite(r.errorEstimate)
+        ? `{"value":${r.value},"errorEstimate":${r.errorEstimate},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`
+        : `{"value":null,"errorEstimate":null,"refusal":${REFUSAL_JSON},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`;
   }
   return `[${parts.join(",")}]`;
 }
@@ -79,25 +92,34 @@ export function lookupResponse(
   const result = computeLookup(data, body);
   const computeMs = performance.now() - computeStarted;
   if (result instanceof Response) return result;
-  const head = JSON.stringify({
-    sampleId,
-    revision: data.number,
-    property: body.property,
-    method: body.method,
-    methodDescription: result.methodDescription,
-    degree: result.degree,
-    units: {
-      system: body.units,
-      pressure: result.units.pressure.symbol,
-      temperature: result.units.temperature.symbol,
-      value: result.units.value.symbol,
-    },
-  });
   const writeStarted = performance.now();
-  const payload = `${head.slice(0, -1)},"results":${serialiseResults(result.results)}}`;
+  let head: string;
+  let results: string;
+  try {
+    head = finiteJson({
+      sampleId,
+      revision: data.number,
+      revisionStatus: data.status,
+      approved: isApprovedStatus(data.status),
+      property: body.property,
+      method: body.method,
+      methodDescription: result.methodDescription,
+      degree: result.degree,
+      units: {
+        system: body.units,
+        pressure: result.units.pressure.symbol,
+        temperature: result.units.temperature.symbol,
+        value: result.units.value.symbol,
+      },
+    });
+    results = serialiseResults(result.results);
+  } catch (error) {
+    return refuseNonFinite(error);
+  }
+  const payload = `${head.slice(0, -1)},"results":${results}}`;
   const writeMs = performance.now() - writeStarted;
   const etagStarted = performance.now();
-  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|`).update(bodyText ?? JSON.stringify(body)).digest("base64url")}"`;
+  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${data.status}|`).update(bodyText ?? JSON.stringify(body)).digest("base64url")}"`;
   const etagMs = performance.now() - etagStarted;
   return new Response(payload, {
     status: 200,
@@ -106,18 +128,9 @@ export function lookupResponse(
       ETag: etag,
       "Cache-Control": "private, no-cache",
       "Isopleth-Revision": String(data.number),
+      "Isopleth-Revision-Status": data.status,
       // app = the whole request in the server; read = body read and JSON parse; compute = interpolation.
       "Server-Timing": `app;dur=${(performance.now() - startedAt).toFixed(1)}, read;dur=${readMs.toFixed(1)}, compute;dur=${computeMs.toFixed(1)}, write;dur=${writeMs.toFixed(1)}, etag;dur=${etagMs.toFixed(1)}`,
     },
   });
 }
-
-// The time the server bundle was built (its file's mtime): the same in every process running one build, and
-// different after any rebuild, so an ETag never outlives the code that computed the answer.
-const BUILD_ID = (() => {
-  try {
-    return String(statSync(fileURLToPath(import.meta.url)).mtimeMs);
-  } catch {
-    return String(Date.now());
-  }
-})();

@@ -1,5 +1,8 @@
 import { OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
+import { API_SCOPE_RULES, apiScopeRule, type ApiOperation } from "~/utils/api-scopes";
+import { MAX_JSON_DEPTH } from "./body";
+import { MAX_QUERY_STRING_CHARS } from "./request";
 import {
   LookupBody,
   LookupResponse,
@@ -8,30 +11,33 @@ import {
   SampleDetailResponse,
   SampleIdParams,
   SampleListResponse,
+  SampleListQuery,
   SampleQuery,
   TableQuery,
-  UnitsParam,
 } from "./schemas";
 
 /** Problem codes the API answers with, documented on the API page (anchors `#problem-<code>`). */
 export const PROBLEM_CODES: Record<string, string> = {
-  invalid_body: "400 — the JSON body does not match the schema; `issues` lists each field path and what is wrong.",
-  invalid_query: "400 — a query-string parameter is not valid; `issues` says which.",
-  invalid_path: "400 — a path parameter is not valid.",
+  invalid_body: `400 — the JSON body does not match the schema, or nests deeper than ${MAX_JSON_DEPTH} levels; \`issues\` lists each field path and what is wrong.`,
+  invalid_query: `400 — the query string is not valid: an unknown parameter, a parameter given twice, a value too long, or a number not written as a plain decimal (ids: digits only, so \`0x1\`, \`1e0\`, \`+1\`, \`01\` are refused); \`issues\` names each parameter. At most ${MAX_QUERY_STRING_CHARS} characters in all.`,
+  invalid_path: "400 — a path parameter is not valid (the sample id is a whole number in decimal digits).",
   invalid_pressures: "400 — the pressure list is not a list `a,b,c` or a range `start:stop:step` of positive numbers.",
   unsupported_media_type: "415 — send the body as application/json.",
   unauthenticated: "401 — no bearer token and no signed-in session.",
   invalid_token: "401 — the token is missing, malformed, wrongly signed, expired, revoked, or its owner is disabled.",
-  insufficient_scope: "403 — the token lacks the scope the endpoint needs (tables:read or lookup).",
+  insufficient_scope: "403 — the token lacks the scope the endpoint needs (see the scope table in the description).",
+  insufficient_role: "403 — the token has the scope, but its owner's current role does not allow the request (e.g. an owner who is now a viewer may not export tables). Checked on every request.",
   forbidden: "403 — the signed-in person's role does not allow this.",
   outside_restriction: "403 — the token is restricted to other fields or samples.",
   cross_origin: "403 — a browser request from another site tried to change data.",
   sample_not_found: "404 — there is no such sample.",
-  revision_not_found: "404 — the sample has no revision with that number.",
+  revision_not_found: "404 — the sample has no revision with that number that the caller may read. A draft or rejected revision answers the same to a token or a role that may not read drafts (unreleased work is neither served nor revealed).",
   no_approved_revision: "404 — the sample has no approved revision yet.",
   property_not_measured: "404 — the revision has no grid for that property.",
   payload_too_large: "413 — the body is larger than the API accepts (8 MB, about 100,000 points).",
   out_of_range: "422 — a point lies outside the measured range and extrapolation was not allowed, or no valid data zone exists.",
+  not_computable: "422 — a table with no row (or no bubble point) that can be computed: interpolation gives no finite value there. Single lookup points that cannot be computed are refused inside a 200 answer instead (value null, `refusal`).",
+  internal_error: "500 — a fault of the server (logged); nothing computed wrongly is sent.",
   rate_limited: "429 — the token is over its request budget; wait the seconds given in Retry-After.",
 };
 
@@ -51,13 +57,22 @@ const bearer = registry.registerComponent("securitySchemes", "bearerToken", {
 });
 const security = [{ [bearer.name]: [] }];
 
+/** The scope rule of an operation, in words, for its description. */
+function access(operation: ApiOperation): string {
+  const rule = apiScopeRule(operation);
+  return ` Token scope: ${rule.scopes.map((x) => `\`${x}\``).join(" or ")}; the owner's current role (or the signed-in person's role) needs \`${rule.permission}\`.`;
+}
+
+const STRICT =
+  " Query strings are strict: unknown or repeated parameters and numbers not written as plain decimals are refused with 400 `invalid_query`.";
+
 registry.registerPath({
   method: "get",
   path: "/api/v1/samples",
   summary: "Samples the caller may read",
-  description: "Field, well, reservoir conditions, bubble point, current approved revision and the properties it has.",
+  description: "Field, well, reservoir conditions, bubble point, current approved revision and the properties it has. ETag (hash of the body) and If-None-Match supported." + access("list-samples") + STRICT,
   security,
-  request: { query: z.object({ units: UnitsParam }) },
+  request: { query: SampleListQuery },
   responses: { 200: { description: "The samples.", content: { "application/json": { schema: SampleListResponse } } }, ...problemResponses([400, 401, 403, 429]) },
 });
 
@@ -65,7 +80,10 @@ registry.registerPath({
   method: "get",
   path: "/api/v1/samples/{sampleId}",
   summary: "A sample with the grids of one revision",
-  description: "Metadata and measured grids of the current approved revision (or `revision`), converted to the unit system asked for. ETag and If-None-Match supported.",
+  description:
+    "Metadata and measured grids of the current approved revision (or `revision`), converted to the unit system asked for. `revision.status` and `revision.approved` say whether it is approved (header Isopleth-Revision-Status too). ETag (hash of the body) and If-None-Match supported." +
+    access("read-sample") +
+    STRICT,
   security,
   request: { params: SampleIdParams, query: SampleQuery },
   responses: { 200: { description: "The sample.", content: { "application/json": { schema: SampleDetailResponse } } }, 304: { description: "Not modified." }, ...problemResponses([400, 401, 403, 404, 429]) },
@@ -75,7 +93,9 @@ registry.registerPath({
   method: "post",
   path: "/api/v1/samples/{sampleId}/lookup",
   summary: "Interpolate a property at many conditions",
-  description: "Up to 100,000 points per request. Each result carries its error estimate, warnings, the method used and the data zone (stencil). Needs the `lookup` scope.",
+  description:
+    "Up to 100,000 points per request. Each result carries its error estimate, warnings, the method used and the data zone (stencil). A point whose value cannot be computed (not a finite number, e.g. far beyond the data with extrapolation allowed) is refused on its own: `value` and `errorEstimate` are null and `refusal` says why; the other points are served. No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). No query parameters." +
+    access("lookup"),
   security,
   request: { params: SampleIdParams, body: { content: { "application/json": { schema: LookupBody } } } },
   responses: { 200: { description: "One result per point, in order.", content: { "application/json": { schema: LookupResponse } } }, ...problemResponses([400, 401, 403, 404, 413, 415, 422, 429]) },
@@ -86,7 +106,12 @@ registry.registerPath({
   path: "/api/v1/samples/{sampleId}/table",
   summary: "A black-oil table at one temperature, resampled on given pressures",
   description:
-    "Pressure, Rs, Bo, oil viscosity (and Bg, gas viscosity, Z where measured); the bubble point is a row of its own; pressure strictly increasing, Rs non-decreasing, Bo decreasing above the bubble point; values corrected to keep that order are flagged. Formats: json, csv, text (comment lines starting with #, then whitespace-separated columns). Needs the `tables:read` scope.",
+    "Pressure, Rs, Bo, oil viscosity (and Bg, gas viscosity, Z where measured); the bubble point is a row of its own; pressure strictly increasing, Rs non-decreasing, Bo decreasing above the bubble point; values corrected to keep that order are flagged. Formats: json, csv, text (comment lines starting with #, then whitespace-separated columns). " +
+    "A row that cannot be computed (interpolation gives no finite value, e.g. far beyond the data with extrapolation allowed) is left out, and a note `rows-not-computable` names its pressure (JSON `notes`, a `# note:` line in text and at the top of CSV); if no row can be computed the answer is 422 `not_computable`. No NaN or Infinity is ever written. " +
+    "An unapproved revision (asked for by a signed-in engineer, lab lead or administrator) is marked: JSON `revisionStatus`, `approved: false` and `draftWarning`; CSV and text start with a line `# UNAPPROVED DRAFT: …`; header Isopleth-Revision-Status. " +
+    "ETag: weak, derived from the revision and its status, the normalised query (pressures as parsed, defaults filled in), the format and the units — not from the bytes, which name their generation time — so repeating a request with If-None-Match answers 304 without building the table." +
+    access("export-table") +
+    STRICT,
   security,
   request: { params: SampleIdParams, query: TableQuery },
   responses: {
@@ -105,6 +130,9 @@ export function openApiDocument(serverUrl: string): object {
       title: "Isopleth API",
       version: "1.0.0",
       description:
+        "Scopes of API tokens (a token's authority is its scopes AND its owner's current role, checked on every request):\n\n" +
+        API_SCOPE_RULES.map((r) => `- ${r.method} ${r.path}: scope ${r.scopes.join(" or ")}; role permission ${r.permission}. ${r.description}`).join("\n") +
+        "\n\nTokens read approved revisions only; a draft asked for with a token answers 404 `revision_not_found`, the same as a revision that does not exist, so a token learns nothing about unreleased work. Problem details never quote more than a short piece of the request.\n\n" +
         "Approved reservoir fluid-property tables and interpolation for simulators and scripts. Interpolated and extrapolated values are estimates: check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.",
     },
     servers: [{ url: serverUrl }],

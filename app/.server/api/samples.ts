@@ -3,7 +3,7 @@ import { listBubblePointsOfRevisions, listRevisionProperties } from "~/.server/d
 import { problem } from "~/.server/http";
 import { getRevisionData, resolveRevision, type RevisionData } from "~/.server/samples/revision-data";
 import type { PropertyKey } from "~/core/units";
-import { callerMayReadSample, type ApiCaller } from "./caller";
+import { callerMayReadDrafts, callerMayReadSample, type ApiCaller } from "./caller";
 import { toOutputPressure, toOutputTemperature, toOutputValue, unitLabel, type OutputSystem } from "./units";
 
 const round = (v: number, digits = 10) => Number(v.toPrecision(digits));
@@ -43,25 +43,41 @@ export async function requireSampleForCaller(caller: ApiCaller, sampleId: number
   return sample;
 }
 
+/** Statuses of revisions that were approved (a superseded revision was approved and stays citable). */
+const APPROVED_STATUSES: ReadonlySet<string> = new Set(["approved", "superseded"]);
+
+export const isApprovedStatus = (status: string) => APPROVED_STATUSES.has(status);
+
 /**
  * The revision's data, or a thrown 404 problem (no approved revision, or no such revision number). The
  * sample row already names its latest approved revision, so the common case needs no further query.
+ * Drafts stay drafts: an unapproved revision (draft or rejected) is served only to a signed-in person whose
+ * role may read drafts and who asked for it by number; anyone else (every token) gets the same 404 as for a
+ * number that does not exist, so unreleased work is neither served nor revealed.
  */
 export async function requireRevisionData(
+  caller: ApiCaller,
   sample: { id: number; approvedRevisionId: number | null; approvedRevisionNumber: number | null },
   number?: number,
 ): Promise<RevisionData> {
   const sampleId = sample.id;
-  const revision =
+  const found =
     number === undefined && sample.approvedRevisionId !== null && sample.approvedRevisionNumber !== null
       ? { id: Number(sample.approvedRevisionId), number: Number(sample.approvedRevisionNumber), status: "approved" }
       : await resolveRevision(sampleId, number);
+  const revision = found && (isApprovedStatus(found.status) || callerMayReadDrafts(caller)) ? found : null;
   if (!revision) {
     throw number === undefined
       ? problem(404, "no_approved_revision", `Sample ${sampleId} has no approved revision yet.`)
-      : problem(404, "revision_not_found", `Sample ${sampleId} has no revision ${number}.`);
+      : problem(404, "revision_not_found", `Sample ${sampleId} has no revision ${number} that you may read.`);
   }
   return getRevisionData(revision);
+}
+
+/** How an output names an unapproved revision (a CSV or text header line, the page banner). */
+export function draftWarning(data: { number: number; status: string }, sampleId: number): string | null {
+  if (isApprovedStatus(data.status)) return null;
+  return `UNAPPROVED ${data.status.toUpperCase()}: revision ${data.number} of sample ${sampleId} has not been approved (status ${data.status}); its checks may have failed. Do not use it for decisions.`;
 }
 
 export function gridsForOutput(data: RevisionData, system: OutputSystem) {

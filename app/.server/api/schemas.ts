@@ -20,10 +20,37 @@ const Degree = z
   .union([z.number().int().min(1).max(6), z.tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])])
   .openapi({ description: "Polynomial degree for newton: one number, or [along pressure, along temperature]. Default 3." });
 
-export const SampleIdParams = z.object({ sampleId: z.coerce.number().int().positive().openapi({ example: 1 }) });
+/*
+ * Path and query values arrive as text and are read strictly (app/.server/api/request.ts): an id is written
+ * in plain decimal digits (no sign, leading zero, exponent, hex or fraction: `0x1`, `1e0`, `+1`, `01` and
+ * `1.0` are refused), a number as a plain decimal such as 212 or -40.5.
+ */
+export const IdParam = z
+  .string()
+  .regex(/^[1-9][0-9]{0,14}$/, "Expected a whole number written in decimal digits, e.g. 12 (no sign, leading zero, exponent or hex).")
+  .transform(Number)
+  .openapi({ type: "string", pattern: "^[1-9][0-9]{0,14}$", example: "1" });
+
+export const DecimalParam = z
+  .string()
+  .max(32, "At most 32 characters.")
+  .regex(/^-?[0-9]+(\.[0-9]+)?$/, "Expected a plain decimal number, e.g. 212 or -40.5 (no exponent, hex, units or thousands separators).")
+  .transform(Number)
+  .openapi({ type: "string", pattern: "^-?[0-9]+(\\.[0-9]+)?$", example: "212" });
+
+export const SampleIdParams = z.object({ sampleId: IdParam });
+
+const RevisionParam = IdParam.optional().openapi({
+  description:
+    "Revision number; default the latest approved one. Tokens (and people whose role may not read drafts) get approved revisions only (approved or superseded): a draft or rejected revision answers 404 `revision_not_found`, exactly as a number that does not exist, so unreleased work is neither served nor revealed. A signed-in engineer, lab lead or administrator may name a draft; the output then says it is unapproved (`revision.status`/`revisionStatus`, `approved: false`, the header Isopleth-Revision-Status, and a first line `# UNAPPROVED DRAFT: …` in CSV and text).",
+});
+
+export const SampleListQuery = z.object({ units: UnitsParam });
+/** Endpoints without query parameters: any parameter is refused. */
+export const NoQuery = z.object({});
 
 export const SampleQuery = z.object({
-  revision: z.coerce.number().int().positive().optional().openapi({ description: "Revision number; default the latest approved one." }),
+  revision: RevisionParam,
   units: UnitsParam,
 });
 
@@ -52,6 +79,16 @@ export type LookupBody = z.infer<typeof LookupBody>;
  */
 const LookupHead = LookupBody.omit({ points: true }).extend({ points: z.array(z.unknown()).min(1).max(MAX_LOOKUP_POINTS) });
 
+/** A received value in a few words, never more than ~40 characters of it (no deep walk, no echo). */
+function describeValue(v: unknown): string {
+  if (v === undefined) return "nothing";
+  if (v === null) return "null";
+  if (Array.isArray(v)) return "a list";
+  if (typeof v === "object") return "an object";
+  const text = JSON.stringify(v);
+  return text.length <= 40 ? text : `${text.slice(0, 24)}… (${text.length} characters)`;
+}
+
 export function parseLookupBody(input: unknown): { success: true; data: LookupBody } | { success: false; issues: { path: (string | number)[]; message: string }[] } {
   const head = LookupHead.safeParse(input);
   if (!head.success) return { success: false, issues: zodIssues(head.error) };
@@ -65,10 +102,10 @@ export function parseLookupBody(input: unknown): { success: true; data: LookupBo
     }
     for (const key of ["pressure", "temperature"] as const) {
       const v = p[key];
-      if (typeof v !== "number" || !Number.isFinite(v)) issues.push({ path: ["points", i, key], message: `Expected a finite number, received ${v === undefined ? "nothing" : JSON.stringify(v)}.` });
+      if (typeof v !== "number" || !Number.isFinite(v)) issues.push({ path: ["points", i, key], message: `Expected a finite number, received ${describeValue(v)}.` });
     }
     const extra = Object.keys(p).filter((key) => key !== "pressure" && key !== "temperature");
-    if (extra.length) issues.push({ path: ["points", i], message: `Unrecognized key${extra.length > 1 ? "s" : ""}: ${extra.map((k) => `"${k}"`).join(", ")}` });
+    if (extra.length) issues.push({ path: ["points", i], message: `Unrecognized key${extra.length > 1 ? "s" : ""}: ${extra.slice(0, 5).map((k) => describeValue(k)).join(", ")}` });
   }
   if (issues.length) return { success: false, issues };
   return { success: true, data: head.data as LookupBody };
@@ -79,10 +116,21 @@ const StencilSchema = z.object({
   temperature: z.array(z.number()).openapi({ description: "Measured temperatures of the data zone used (output units)." }),
 });
 
+export const RefusalSchema = z
+  .object({
+    code: z.literal("not_computable"),
+    message: z.string(),
+  })
+  .openapi("Refusal", {
+    description:
+      "Why a point has no value: the interpolation did not give a finite number (e.g. far beyond the measured range with extrapolation allowed). No NaN or Infinity is ever written; such a point gets value null, errorEstimate null and this refusal, and the other points are served.",
+  });
+
 export const LookupResultSchema = z
   .object({
-    value: z.number(),
-    errorEstimate: z.number().openapi({ description: "Estimated interpolation error (same unit as value), never zero; see the engine's documentation." }),
+    value: z.number().nullable().openapi({ description: "In the output unit; null only when the point is refused (see refusal)." }),
+    errorEstimate: z.number().nullable().openapi({ description: "Estimated interpolation error (same unit as value), never zero; see the engine's documentation. null when refused." }),
+    refusal: RefusalSchema.optional(),
     warnings: z.array(z.string()).openapi({ description: "Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells." }),
     method: z.string().openapi({ description: "Method that produced this value." }),
     stencil: StencilSchema,
@@ -95,6 +143,8 @@ export const LookupResponse = z
   .object({
     sampleId: z.number(),
     revision: z.number(),
+    revisionStatus: z.enum(["draft", "approved", "rejected", "superseded"]).openapi({ description: "Status of the revision used; anything but approved or superseded is an unapproved draft." }),
+    approved: z.boolean().openapi({ description: "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for." }),
     property: PropertyKeySchema,
     method: MethodSchema,
     units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string(), value: z.string() }),
@@ -102,15 +152,30 @@ export const LookupResponse = z
   })
   .openapi("LookupResponse");
 
-export const TableQuery = z.object({
-  temperature: z.coerce.number().finite().openapi({ example: 212, description: "Temperature of the table (°F field, °C metric)." }),
-  pressures: z.string().min(1).openapi({ example: "500:5000:250", description: "A list `a,b,c` or `start:stop:step` (absolute pressure)." }),
-  units: UnitsParam,
-  format: z.enum(["json", "csv", "text"]).default("json"),
-  method: MethodSchema.default("auto"),
-  revision: z.coerce.number().int().positive().optional(),
-  extrapolate: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
-});
+export const MAX_PRESSURES_CHARS = 6_000;
+const ABSOLUTE_ZERO = { field: -459.67, metric: -273.15 } as const;
+
+export const TableQuery = z
+  .object({
+    temperature: DecimalParam.openapi({ example: "212", description: "Temperature of the table (°F field, °C metric), a plain decimal above absolute zero." }),
+    pressures: z
+      .string()
+      .min(1)
+      .max(MAX_PRESSURES_CHARS, `At most ${MAX_PRESSURES_CHARS} characters; use a range start:stop:step for long tables.`)
+      .openapi({ example: "500:5000:250", description: "A list `a,b,c` or `start:stop:step` (absolute pressure)." }),
+    units: UnitsParam,
+    format: z.enum(["json", "csv", "text"]).default("json"),
+    method: MethodSchema.default("auto"),
+    revision: RevisionParam,
+    extrapolate: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  })
+  .superRefine((q, ctx) => {
+    const zero = ABSOLUTE_ZERO[q.units];
+    if (!(q.temperature > zero)) {
+      ctx.addIssue({ code: "custom", path: ["temperature"], message: `${q.temperature} is at or below absolute zero (${zero} ${q.units === "field" ? "°F" : "°C"}).` });
+    }
+  });
+export type TableQuery = z.output<typeof TableQuery>;
 
 export const ProblemSchema = z
   .object({
@@ -157,7 +222,11 @@ export const GridSchema = z
 export const SampleDetailResponse = z
   .object({
     sample: z.record(z.string(), z.unknown()),
-    revision: z.object({ number: z.number(), status: z.string() }),
+    revision: z.object({
+      number: z.number(),
+      status: z.enum(["draft", "approved", "rejected", "superseded"]),
+      approved: z.boolean().openapi({ description: "false for an unapproved revision (only signed-in people whose role allows it may ask for one)." }),
+    }),
     units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string() }),
     bubblePoints: z.array(z.object({ temperature: z.number(), pressure: z.number() })),
     grids: z.array(GridSchema),

@@ -5,8 +5,10 @@ import type { Condition } from "~/utils/conditions";
 import { NEAR_BUBBLE_POINT_FRACTION, SERIOUS_WARNINGS, WARNING_LABELS } from "~/utils/warning-labels";
 
 export type LookupApiResult = {
-  value: number;
-  errorEstimate: number;
+  /** null when the server refused the point (see refusal): it never sends NaN or Infinity. */
+  value: number | null;
+  errorEstimate: number | null;
+  refusal?: { code: string; message: string };
   warnings: string[];
   method: string;
   stencil: { pressure: number[]; temperature: number[] };
@@ -15,7 +17,7 @@ export type LookupApiResult = {
 };
 
 export type PropertyRun =
-  | { property: PropertyKey; ok: true; revision: number; unit: string; methodDescription: string; degree: [number, number] | null; results: LookupApiResult[]; serverMs: number }
+  | { property: PropertyKey; ok: true; revision: number; revisionStatus: string; approved: boolean; unit: string; methodDescription: string; degree: [number, number] | null; results: LookupApiResult[]; serverMs: number }
   | { property: PropertyKey; ok: false; error: string; serverMs: number };
 
 const CAUTION =
@@ -46,7 +48,7 @@ function toDelimited(conditions: Condition[], runs: PropertyRun[], units: { pres
     const cells = [String(c.pressure), String(c.temperature)];
     for (const r of ok) {
       const x = r.results[i]!;
-      cells.push(String(x.value), String(x.errorEstimate), x.method, warningsOf(x, c.pressure).join(" "));
+      cells.push(x.value === null ? "" : String(x.value), x.errorEstimate === null ? "" : String(x.errorEstimate), x.method, x.refusal ? `refused: ${x.refusal.message}` : warningsOf(x, c.pressure).join(" "));
     }
     return cells.map(quote).join(sep);
   });
@@ -147,6 +149,14 @@ export function LookupResultsTable({
                     {ok.map((r) => {
                       const x = r.results[i]!;
                       const serious = x.warnings.some((w) => SERIOUS_WARNINGS.has(w));
+                      if (x.value === null || x.errorEstimate === null) {
+                        return (
+                          <td key={r.property} className="max-w-64 px-3 py-1.5 text-right" data-testid={`value-${r.property}-${i}`}>
+                            <span className="font-semibold text-danger">not computed</span>
+                            <div className="text-xs text-danger">{x.refusal?.message ?? "The server gave no value for this point."}</div>
+                          </td>
+                        );
+                      }
                       return (
                         <td key={r.property} className="px-3 py-1.5 text-right tabular-nums">
                           <button

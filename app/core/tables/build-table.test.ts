@@ -279,3 +279,29 @@ describe("published check conditions (domain brief §4; Ahmed, Reservoir Enginee
     expect(rs.corrected).toBe(false);
   });
 });
+
+describe("rows that cannot be computed (hardening item 5)", () => {
+  // RFC 8259 §6: JSON has no NaN or Infinity, so a table must never carry them. Newton of degree 6 pushed
+  // 1e300 psia beyond the data overflows to a non-finite value; such rows are left out and named in a note.
+  test("a row whose value is not finite is left out with a note; the other rows are kept and ordered", () => {
+    const t = build({ pressures: [1000, 3000, 1e300], method: "newton", degree: 6, extrapolate: true });
+    expect(t.rows.map((r) => r.pressure)).not.toContain(1e300);
+    expect(t.rows.filter((r) => r.requested).map((r) => r.pressure)).toEqual([1000, 3000]);
+    for (const r of t.rows) for (const c of Object.values(r.cells)) expect(Number.isFinite(c.value) && Number.isFinite(c.errorEstimate)).toBe(true);
+    const note = t.notes.find((n) => n.code === "rows-not-computable");
+    expect(note?.message).toMatch(/1 row \(at 1e\+300 psia\) cannot be computed/);
+    expect(t.rows.filter((r) => r.bubblePoint)).toHaveLength(1);
+    expect(findOrderViolations(t)).toEqual([]);
+  });
+
+  test("a table whose bubble point cannot be computed is refused with NOT_COMPUTABLE", () => {
+    let error: unknown;
+    try {
+      build({ temperature: 1e300, method: "newton", degree: 6, extrapolate: true });
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(TableError);
+    expect((error as TableError).code).toBe("NOT_COMPUTABLE");
+  });
+});

@@ -113,6 +113,7 @@ export type TableCorrection = {
 
 export type TableNoteCode =
   | "bubble-points-differ"
+  | "rows-not-computable"
   | "bubble-point-row-omitted"
   | "extrapolated-values"
   | "pchip-fallback"
@@ -304,9 +305,17 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     }
   }
 
+  if (pb !== null && !Number.isFinite(pb)) {
+    throw new TableError(
+      "NOT_COMPUTABLE",
+      `The bubble point at ${fmt(temperature)} °F cannot be computed: extrapolating the measured bubble points does not give a finite pressure. Choose a temperature nearer the measured ones.`,
+      { temperature },
+    );
+  }
+
   // rows: the requested pressures, and the bubble point as its own row
-  const rowsP = [...input.pressures];
-  const requested = rowsP.map(() => true);
+  let rowsP = [...input.pressures];
+  let requested = rowsP.map(() => true);
   let pbRow = -1;
   if (pb !== null) {
     const inside = columns.every((k) => {
@@ -331,8 +340,8 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
       });
     }
   }
-  const n = rowsP.length;
-  const branches: (Branch | null)[] = rowsP.map((p) => (pb === null ? null : p <= pb ? "saturated" : "undersaturated"));
+  let n = rowsP.length;
+  let branches: (Branch | null)[] = rowsP.map((p) => (pb === null ? null : p <= pb ? "saturated" : "undersaturated"));
   // last saturated row
   let k = -1;
   for (let i = 0; i < n; i++) if (branches[i] === "saturated") k = i;
@@ -348,6 +357,40 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     } catch (error) {
       throw toTableError(error, key, units, rowsP);
     }
+  }
+
+  // Rows that cannot be computed (a value or its error estimate is NaN or ±Infinity, e.g. far beyond the
+  // measured data with extrapolation allowed) are left out and named in a note: no non-finite number enters
+  // the table, its order corrections or any output.
+  const bad = new Set<number>();
+  for (const key of columns) {
+    const r = raw.get(key)!;
+    for (let i = 0; i < n; i++) if (!Number.isFinite(r.values[i]!) || !Number.isFinite(r.errors[i]!)) bad.add(i);
+  }
+  if (bad.size === n) {
+    throw new TableError(
+      "NOT_COMPUTABLE",
+      `No row of the table can be computed: interpolation does not give finite values at ${n === 1 ? "this pressure" : "these pressures"} and ${fmt(temperature)} °F (too far outside the measured data). Choose conditions nearer the measured range.`,
+      { rows: n },
+    );
+  }
+  if (bad.size > 0) {
+    const keep = (_: unknown, i: number) => !bad.has(i);
+    const omitted = [...bad].sort((a, b) => a - b).map((i) => rowsP[i]!);
+    const shown = omitted.slice(0, 10).map((p) => fmt(p)).join(", ");
+    notes.push({
+      code: "rows-not-computable",
+      message: `${bad.size} row${bad.size === 1 ? "" : "s"} (at ${shown}${omitted.length > 10 ? ", …" : ""} psia) cannot be computed: interpolation does not give a finite value there (too far outside the measured data), so ${bad.size === 1 ? "it is" : "they are"} left out of the table.`,
+    });
+    for (const [key, r] of raw) raw.set(key, { values: r.values.filter(keep), errors: r.errors.filter(keep), flags: r.flags.filter(keep), methods: r.methods.filter(keep) });
+    const pbIndex = pbRow;
+    pbRow = pbIndex >= 0 && !bad.has(pbIndex) ? pbIndex - [...bad].filter((b) => b < pbIndex).length : -1;
+    rowsP = rowsP.filter(keep);
+    requested = requested.filter(keep);
+    branches = branches.filter(keep);
+    n = rowsP.length;
+    k = -1;
+    for (let i = 0; i < n; i++) if (branches[i] === "saturated") k = i;
   }
 
   // the order simulators need

@@ -32,7 +32,9 @@ export type TableErrorCode =
   /** a stored grid is malformed */
   | "INVALID_GRID"
   /** a column has no physically possible value at all (e.g. every viscosity ≤ 0) */
-  | "NONPHYSICAL_COLUMN";
+  | "NONPHYSICAL_COLUMN"
+  /** no row (or not the bubble point) gives a finite value: far beyond the measured data */
+  | "NOT_COMPUTABLE";
 
 export class TableError extends Error {
   readonly code: TableErrorCode;

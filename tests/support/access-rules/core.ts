@@ -5,7 +5,8 @@ export const CORE_RULES: Record<string, Rule> = {
   "routes/_app/layout.tsx": { kind: "layout" },
   "routes/_auth/layout.tsx": { kind: "layout" },
   "routes/_app/index.tsx": { kind: "page", path: "/", allowed: ALL },
-  "routes/_app/tokens/index.tsx": { kind: "page", path: "/tokens", allowed: ENGINEER_UP },
+  // Everyone may list and revoke their own tokens; creating one needs engineer or above (api-hardening.spec.ts).
+  "routes/_app/tokens/index.tsx": { kind: "page", path: "/tokens", allowed: ALL },
   "routes/_app/account/index.tsx": { kind: "page", path: "/account", allowed: ALL },
   "routes/_app/api-docs/index.tsx": { kind: "page", path: "/api-docs", allowed: ALL },
   "routes/_app/admin/people/index.tsx": {

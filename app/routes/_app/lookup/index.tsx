@@ -81,6 +81,8 @@ const DEFAULT_PROPERTIES: PropertyKey[] = ["oil_fvf", "solution_gor", "oil_visco
 export default function Lookup({ loaderData }: Route.ComponentProps) {
   const { samples, user, canSave, sets } = loaderData;
   const [params] = useSearchParams();
+  // ?revision=N: a named revision (e.g. a draft, for those whose role may read drafts); default the approved one.
+  const revision = /^[1-9][0-9]{0,14}$/.test(params.get("revision") ?? "") ? Number(params.get("revision")) : undefined;
   const [filter, setFilter] = useState("");
   const [sampleId, setSampleId] = useState<number | null>(Number(params.get("sample")) || samples.find((s) => s.approvedRevision !== null)?.id || null);
   const [properties, setProperties] = useState<PropertyKey[]>(DEFAULT_PROPERTIES);
@@ -153,13 +155,13 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
           const response = await fetch(`/api/v1/samples/${sample.id}/lookup`, {
             method: "POST",
             headers: { "Content-Type": "application/json" },
-            body: JSON.stringify({ property, points: conds, method, degree: method === "newton" ? degree : undefined, units, extrapolate }),
+            body: JSON.stringify({ property, points: conds, method, degree: method === "newton" ? degree : undefined, units, extrapolate, revision }),
           });
           const body = await response.json();
           const timing = response.headers.get("Server-Timing");
           const serverMs = Number(/dur=([\d.]+)/.exec(timing ?? "")?.[1] ?? NaN);
           if (!response.ok) return { property, ok: false, error: body.detail ?? "The lookup failed.", serverMs };
-          return { property, ok: true, revision: body.revision, unit: body.units.value, methodDescription: body.methodDescription, degree: body.degree, results: body.results, serverMs };
+          return { property, ok: true, revision: body.revision, revisionStatus: body.revisionStatus, approved: body.approved, unit: body.units.value, methodDescription: body.methodDescription, degree: body.degree, results: body.results, serverMs };
         }),
       );
       setRun({ conditions: conds, runs, sampleId: sample.id, units, method, serverMs: performance.now() - started });
@@ -190,7 +192,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     if (!propertyRun?.ok) return;
     const result = propertyRun.results[conditionIndex];
     const condition = run.conditions[conditionIndex];
-    if (!result || !condition) return;
+    if (!result || !condition || result.value === null) return;
     const data = await loadGrids(run.sampleId, run.units, propertyRun.revision);
     const grid = data.grids.find((g) => g.property === property);
     if (!grid) return;
@@ -380,6 +382,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
         </fieldset>
       </form>
 
+      {run ? <DraftBanner runs={run.runs} /> : null}
       {run ? (
         <LookupResultsTable
           conditions={run.conditions}
@@ -413,6 +416,19 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
       {run ? <EstimateCaution className="mt-4 rounded border border-caution/30 bg-caution-soft p-3 text-sm text-caution" /> : null}
       {canSave ? <SavedSets sets={sets} onLoad={loadSet} /> : null}
     </>
+  );
+}
+
+/** Said wherever a page shows values of an unapproved revision (asked for with ?revision=N). */
+function DraftBanner({ runs }: { runs: PropertyRun[] }) {
+  const drafts = [...new Map(runs.flatMap((r) => (r.ok && !r.approved ? [[r.revision, r.revisionStatus] as const] : []))).entries()];
+  if (drafts.length === 0) return null;
+  return (
+    <div role="alert" className="mt-6 rounded-lg border border-danger/40 bg-red-50 p-4 text-sm text-danger">
+      <strong>Unapproved draft.</strong>{" "}
+      {drafts.map(([number, status]) => `revision ${number} (${status})`).join(", ")} has not been approved; its checks may have failed. These values are
+      for review only: do not use them for decisions or hand them on.
+    </div>
   );
 }
 

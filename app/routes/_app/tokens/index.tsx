@@ -9,7 +9,8 @@ import { listFieldsAndSamples } from "~/.server/db/queries/catalogue";
 import { badRequest, readFormData } from "~/.server/forms";
 import { Button, FieldError, FormAlert, TextField } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { can } from "~/utils/permissions";
+import { API_SCOPE_RULES, API_SCOPES, SCOPE_LABELS } from "~/utils/api-scopes";
+import { can, ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "API tokens · Isopleth" }];
@@ -17,22 +18,28 @@ export const meta: Route.MetaFunction = () => [{ title: "API tokens · Isopleth"
 const CreateSchema = z.object({
   intent: z.literal("create"),
   name: z.string().trim().min(1, "Give the token a name, e.g. the model or script that uses it.").max(120),
-  scopes: z.array(z.enum(["tables:read", "lookup"])).min(1, "Choose at least one scope."),
+  scopes: z.array(z.enum(API_SCOPES)).min(1, "Choose at least one scope."),
   fieldIds: z.array(z.coerce.number().int().positive()),
   sampleIds: z.array(z.coerce.number().int().positive()),
   expiresInDays: z.coerce.number().int().min(1, "At least one day.").max(MAX_TOKEN_LIFETIME_DAYS, `At most ${MAX_TOKEN_LIFETIME_DAYS} days (one year).`),
 });
 const RevokeSchema = z.object({ intent: z.literal("revoke"), tokenId: z.uuid() });
 
+/*
+ * Everyone signed in may list and revoke their own tokens (a person demoted to viewer keeps control of the
+ * tokens made before); creating one needs manage:own-tokens. What a token can do is bounded by its owner's
+ * current role on every request (app/utils/api-scopes.ts).
+ */
 export async function loader(args: Route.LoaderArgs) {
-  const user = requirePermission(args, "manage:own-tokens");
+  const user = requirePermission(args, "read:samples");
   const seeAll = can(user, "revoke:any-token");
-  const [tokens, catalogue] = await Promise.all([listApiTokens(seeAll ? {} : { userId: user.id }), listFieldsAndSamples()]);
-  return { user, seeAll, tokens, ...catalogue, maxDays: MAX_TOKEN_LIFETIME_DAYS };
+  const canCreate = can(user, "manage:own-tokens");
+  const [tokens, catalogue] = await Promise.all([listApiTokens(seeAll ? {} : { userId: user.id }), canCreate ? listFieldsAndSamples() : { fields: [], samples: [] }]);
+  return { user, seeAll, canCreate, tokens, ...catalogue, maxDays: MAX_TOKEN_LIFETIME_DAYS };
 }
 
 export async function action(args: Route.ActionArgs) {
-  const user = requirePermission(args, "manage:own-tokens");
+  const user = requirePermission(args, "read:samples");
   const { ipAddress } = getCaller(args);
   const form = await readFormData(args.request);
   if (form.get("intent") === "revoke") {
@@ -48,6 +55,7 @@ export async function action(args: Route.ActionArgs) {
     }
     return { errors: {}, done: `Token “${owner.name}” is revoked; it stops working on its next request.` };
   }
+  requirePermission(args, "manage:own-tokens");
   const parsed = CreateSchema.safeParse({
     intent: form.get("intent"),
     name: form.get("name"),
@@ -68,7 +76,7 @@ export async function action(args: Route.ActionArgs) {
 }
 
 export default function Tokens({ loaderData, actionData }: Route.ComponentProps) {
-  const { tokens, fields, samples, seeAll, user, maxDays } = loaderData;
+  const { tokens, fields, samples, seeAll, canCreate, user, maxDays } = loaderData;
   const navigation = useNavigation();
   const errors: Record<string, string[] | undefined> = actionData?.errors ?? {};
   const created = actionData && "created" in actionData ? actionData.created : null;
@@ -95,6 +103,7 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
           </div>
         </section>
       ) : null}
+      {canCreate ? (
       <section className="rounded-lg border border-line bg-panel p-5">
         <h2 className="font-semibold">New token</h2>
         <Form method="post" className="mt-3 grid gap-4 md:grid-cols-2">
@@ -103,12 +112,12 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
           <TextField label="Expires after (days)" name="expiresInDays" type="number" min={1} max={maxDays} defaultValue={90} required errors={errors.expiresInDays} hint={`At most ${maxDays} days.`} />
           <fieldset>
             <legend className="text-sm font-semibold">Scopes</legend>
-            <label className="mt-1 flex items-center gap-2 text-sm">
-              <input type="checkbox" name="scopes" value="tables:read" defaultChecked /> Read samples, grids and resampled tables (<code>tables:read</code>)
-            </label>
-            <label className="mt-1 flex items-center gap-2 text-sm">
-              <input type="checkbox" name="scopes" value="lookup" defaultChecked /> Run lookups (<code>lookup</code>)
-            </label>
+            {API_SCOPES.map((scope) => (
+              <label key={scope} className="mt-1 flex items-center gap-2 text-sm">
+                <input type="checkbox" name="scopes" value={scope} defaultChecked /> {SCOPE_LABELS[scope]} (<code>{scope}</code>)
+              </label>
+            ))}
+            <p className="mt-1 text-xs text-ink-muted">What each scope allows is listed below.</p>
             <FieldError errors={errors.scopes} />
           </fieldset>
           <fieldset>
@@ -144,6 +153,13 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
           </div>
         </Form>
       </section>
+      ) : (
+        <p className="rounded-lg border border-line bg-panel p-5 text-sm">
+          Your role ({ROLE_LABELS[user.role]}) cannot create tokens. You can still see and revoke the tokens you have; they can do no more than your
+          role allows.
+        </p>
+      )}
+      <ScopeTable />
       <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
         <table className="w-full text-sm">
           <caption className="sr-only">{seeAll ? "All API tokens" : "Your API tokens"}</caption>
@@ -201,5 +217,39 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
         </table>
       </div>
     </>
+  );
+}
+
+/** The one table of scope rules (app/utils/api-scopes.ts), as the API enforces it. */
+function ScopeTable() {
+  return (
+    <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
+      <table className="w-full text-sm">
+        <caption className="px-3 pt-3 text-left font-semibold">What each scope allows</caption>
+        <thead className="text-left text-ink-muted">
+          <tr>
+            <th className="px-3 py-2 font-semibold">Request</th>
+            <th className="px-3 py-2 font-semibold">Token needs the scope</th>
+            <th className="px-3 py-2 font-semibold">Owner&apos;s role needs</th>
+            <th className="px-3 py-2 font-semibold">What it gives</th>
+          </tr>
+        </thead>
+        <tbody>
+          {API_SCOPE_RULES.map((rule) => (
+            <tr key={rule.operation} className="border-t border-line">
+              <td className="px-3 py-2 font-mono text-xs">
+                {rule.method} {rule.path}
+              </td>
+              <td className="px-3 py-2 font-mono text-xs">{rule.scopes.join(" or ")}</td>
+              <td className="px-3 py-2 font-mono text-xs">{rule.permission}</td>
+              <td className="px-3 py-2">{rule.description}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="px-3 pb-3 text-xs text-ink-muted">
+        The role is checked on every request: if the owner&apos;s role changes, existing tokens follow at once. Tokens read approved revisions only.
+      </p>
+    </div>
   );
 }

@@ -1,21 +1,19 @@
 import { requireApiCaller } from "~/.server/api/caller";
+import { parseApiPath, parseApiQuery } from "~/.server/api/request";
 import { json } from "~/.server/api/respond";
-import { gridsForOutput, requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
-import { SampleIdParams, SampleQuery, zodIssues } from "~/.server/api/schemas";
+import { gridsForOutput, isApprovedStatus, requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
+import { SampleIdParams, SampleQuery } from "~/.server/api/schemas";
 import { toOutputPressure, toOutputTemperature, unitLabel } from "~/.server/api/units";
-import { problem } from "~/.server/http";
 import type { Route } from "./+types/index";
 
 /** GET /api/v1/samples/:sampleId — metadata and the grids of the current approved revision (or ?revision=N). */
 export async function loader(args: Route.LoaderArgs) {
-  const caller = await requireApiCaller(args, "read");
-  const params = SampleIdParams.safeParse(args.params);
-  if (!params.success) return problem(400, "invalid_path", "The sample id must be a positive whole number.", { issues: zodIssues(params.error) });
-  const query = SampleQuery.safeParse(Object.fromEntries(new URL(args.request.url).searchParams));
-  if (!query.success) return problem(400, "invalid_query", "The query string is not valid.", { issues: zodIssues(query.error) });
-  const sample = await requireSampleForCaller(caller, params.data.sampleId);
-  const data = await requireRevisionData(sample, query.data.revision);
-  const system = query.data.units;
+  const caller = await requireApiCaller(args, "read-sample");
+  const { sampleId } = parseApiPath(args.params, SampleIdParams);
+  const query = parseApiQuery(args.request, SampleQuery);
+  const sample = await requireSampleForCaller(caller, sampleId);
+  const data = await requireRevisionData(caller, sample, query.revision);
+  const system = query.units;
   return json(
     args.request,
     {
@@ -35,11 +33,11 @@ export async function loader(args: Route.LoaderArgs) {
         laboratory: sample.laboratory,
         reportReference: sample.reportReference,
       },
-      revision: { number: data.number, status: data.status },
+      revision: { number: data.number, status: data.status, approved: isApprovedStatus(data.status) },
       units: { system, pressure: unitLabel(system, "pressure"), temperature: unitLabel(system, "temperature") },
       bubblePoints: data.bubblePoints.map((b) => ({ temperature: toOutputTemperature(b.temperatureF, system), pressure: toOutputPressure(b.bubblePointPsia, system) })),
       grids: gridsForOutput(data, system),
     },
-    data.number,
+    data,
   );
 }

@@ -1,7 +1,8 @@
 import { readJsonBodyWithText } from "~/.server/api/body";
 import { requireApiCaller } from "~/.server/api/caller";
 import { lookupResponse } from "~/.server/api/lookup";
-import { parseLookupBody, SampleIdParams, zodIssues } from "~/.server/api/schemas";
+import { parseApiPath, parseApiQuery } from "~/.server/api/request";
+import { NoQuery, parseLookupBody, SampleIdParams } from "~/.server/api/schemas";
 import { requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
 import { problem } from "~/.server/http";
 import type { Route } from "./+types/lookup";
@@ -11,14 +12,14 @@ export async function action(args: Route.ActionArgs) {
   const startedAt = performance.now();
   if (args.request.method !== "POST") return problem(405, "method_not_allowed", "Use POST.", { headers: { Allow: "POST" } });
   const caller = await requireApiCaller(args, "lookup");
-  const params = SampleIdParams.safeParse(args.params);
-  if (!params.success) return problem(400, "invalid_path", "The sample id must be a positive whole number.", { issues: zodIssues(params.error) });
+  const { sampleId } = parseApiPath(args.params, SampleIdParams);
+  parseApiQuery(args.request, NoQuery);
   const { value: raw, text } = await readJsonBodyWithText(args.request);
   const readMs = performance.now() - startedAt;
   const body = parseLookupBody(raw);
   if (!body.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: body.issues });
-  const sample = await requireSampleForCaller(caller, params.data.sampleId);
-  const data = await requireRevisionData(sample, body.data.revision);
+  const sample = await requireSampleForCaller(caller, sampleId);
+  const data = await requireRevisionData(caller, sample, body.data.revision);
   return lookupResponse(args.request, sample.id, data, body.data, startedAt, readMs, text);
 }
 
