@@ -318,6 +318,16 @@ server.on("clientError", (error, socket) => {
   );
 });
 
+// CONNECT (tunnels) is not served; without this, Node closes such a connection with no answer at all.
+server.on("connect", (_req, socket) => {
+  const body = problemBody(405, "method_not_allowed", "The method CONNECT is not accepted here.");
+  socket.on("error", () => socket.destroy());
+  socket.end(
+    `HTTP/1.1 405 Method Not Allowed\r\nContent-Type: application/problem+json; charset=utf-8\r\nAllow: ${[...METHODS].join(", ")}\r\n` +
+      `Content-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`,
+  );
+});
+
 // A fault in one request must not end the process serving everyone else.
 process.on("unhandledRejection", (reason) => logger.error({ error: { kind: reason?.name, message: String(reason?.message ?? reason).slice(0, 200) } }, "unhandled rejection"));
 process.on("uncaughtException", (error) => logger.error({ error: { kind: error?.name, message: String(error?.message).slice(0, 200) } }, "uncaught exception"));

@@ -117,7 +117,12 @@ test("compare: the 3D surface renders (the plot area is not blank), side by side
   expect(html).not.toMatch(PLOT_CHUNK);
 
   const started = Date.now();
-  await page.goto("/compare?samples=1,2&property=oil_fvf");
+  const documentResponse = await page.goto("/compare?samples=1,2&property=oil_fvf");
+  // The plots draw under the production Content-Security-Policy: scripts by nonce only, no 'unsafe-inline' or
+  // 'unsafe-eval' for scripts; a violation would be a console error, and `errors` must stay empty.
+  const csp = documentResponse!.headers()["content-security-policy"] ?? "";
+  expect(csp).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]{16,}'/);
+  expect(csp).not.toMatch(/script-src[^;]*'unsafe-(inline|eval)'/);
   // the numbers do not wait for Plotly
   await expect(
     page
