@@ -17,6 +17,7 @@ import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
 import { SlicePlot } from "~/components/samples/slice-plot";
 import type { DisplayFinding } from "~/components/samples/types";
 import { UPLOAD_ACCEPT, UPLOAD_LIMIT_BYTES } from "~/components/samples/upload-limits";
+import { multilineTextSchema } from "~/utils/labels";
 import type { Route } from "./+types/upload";
 
 /*
@@ -46,7 +47,10 @@ const UploadSchema = z.discriminatedUnion(
     z.object({
       intent: z.literal("confirm"),
       file: fileField,
-      comment: z.string().trim().min(1, "Say what this upload is (the report, what changed); it is kept with the revision.").max(2000, "Use at most 2000 characters."),
+      comment: multilineTextSchema("comment")
+        .trim()
+        .min(1, "Say what this upload is (the report, what changed); it is kept with the revision.")
+        .max(2000, "Use at most 2000 characters."),
       previewSha256: z.string().optional(),
     }),
   ],

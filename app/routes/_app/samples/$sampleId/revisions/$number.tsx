@@ -13,6 +13,7 @@ import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
 import { RevisionStatusBadge } from "~/components/samples/revision-status";
 import { SlicePlot } from "~/components/samples/slice-plot";
+import { multilineTextSchema } from "~/utils/labels";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/$number";
 
@@ -25,12 +26,12 @@ const ReviewSchema = z.discriminatedUnion(
   [
     z.object({
       intent: z.literal("approve"),
-      comment: z.string().trim().max(2000, "Use at most 2000 characters.").optional().default(""),
+      comment: multilineTextSchema("review comment").trim().max(2000, "Use at most 2000 characters.").optional().default(""),
       acknowledge: z.literal("yes").optional(),
     }),
     z.object({
       intent: z.literal("reject"),
-      comment: z.string().trim().min(1, "Say why the revision is rejected; the uploader will read it.").max(2000, "Use at most 2000 characters."),
+      comment: multilineTextSchema("review comment").trim().min(1, "Say why the revision is rejected; the uploader will read it.").max(2000, "Use at most 2000 characters."),
       acknowledge: z.string().optional(),
     }),
   ],
