@@ -4,6 +4,7 @@ import { isStoredQcReport, summarizeReport } from "~/.server/samples/qc-report";
 import { getDb, type Executor } from "../client";
 import { sampleFollows, sampleRevisions, samples, users } from "../schema";
 import { recordAudit } from "./audit";
+import { getFourEyesPolicy } from "./settings";
 import { createRevision, getRevisionGrids, listRevisionBubblePoints, type NewRevision } from "./revisions";
 
 /*
@@ -116,7 +117,8 @@ export type ReviewDecision = {
 
 export type ReviewOutcome =
   | { ok: true; revisionId: number; previousApproved: number | null; ownUpload: boolean }
-  | { ok: false; reason: "not_found" | "not_draft" | "qc_errors" | "no_qc_report" | "warnings_not_acknowledged"; status?: string };
+  /** own_upload: four-eyes approval is on and the reviewer uploaded the revision. */
+  | { ok: false; reason: "not_found" | "not_draft" | "own_upload" | "qc_errors" | "no_qc_report" | "warnings_not_acknowledged"; status?: string };
 
 /**
  * Approves or rejects a draft in one transaction. Approval is refused while the QC report holds errors, and
@@ -134,6 +136,8 @@ export async function reviewRevision(input: ReviewDecision, db: Executor = getDb
     if (revision.status !== "draft") return { ok: false, reason: "not_draft", status: revision.status };
     const ownUpload = revision.createdBy === input.reviewerId;
     const now = new Date();
+    const fourEyes = input.decision === "approve" ? await getFourEyesPolicy(tx) : null;
+    if (fourEyes?.required && ownUpload) return { ok: false, reason: "own_upload" };
 
     if (input.decision === "reject") {
       await tx
@@ -185,6 +189,7 @@ export async function reviewRevision(input: ReviewDecision, db: Executor = getDb
           number: input.number,
           superseded: previous?.number ?? null,
           ownUpload,
+          fourEyes: fourEyes?.required ?? false,
           qcStatus: summary.status,
           acknowledgedWarnings: summary.warnings > 0 ? input.acknowledgedWarnings : undefined,
           comment: input.comment,

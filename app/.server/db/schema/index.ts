@@ -1,2 +1,3 @@
 export * from "./auth";
 export * from "./fluid-tables";
+export * from "./settings";
