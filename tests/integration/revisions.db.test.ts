@@ -202,6 +202,27 @@ describe("storing an upload", () => {
     expect(counts.audits).toBe(7);
   });
 
+  test("an upload identical (SHA-256) to a stored revision is refused unless confirmed, and names that revision", async () => {
+    const sampleId = await newSample("Identical");
+    const { revision } = await templateRevision(sampleId);
+    const first = await app.review.storeUploadedRevision({ ...revision, storeIdentical: false });
+    expect(first).toMatchObject({ ok: true, number: 1 });
+    const before = await rowCounts(sampleId);
+    const again = await app.review.storeUploadedRevision({ ...revision, storeIdentical: false });
+    expect(again).toMatchObject({ ok: false, reason: "identical", identical: { number: 1, status: "draft", uploaderName: "Lead One" } });
+    if (!again.ok && again.reason === "identical") expect(again.identical.createdAt).toBeInstanceOf(Date);
+    expect(await rowCounts(sampleId)).toEqual(before);
+    // A different file goes in without a question; the identical one with the confirmation.
+    const other = { ...revision, sourceSha256: "0".repeat(64) };
+    expect(await app.review.storeUploadedRevision({ ...other, storeIdentical: false })).toMatchObject({ ok: true, number: 2 });
+    expect(await app.review.storeUploadedRevision({ ...revision, storeIdentical: true })).toMatchObject({ ok: true, number: 3 });
+    const [audit] = await sql<{ details: unknown }>(
+      "SELECT details FROM audit_log WHERE action = 'revision_uploaded' AND JSON_VALUE(details, '$.sampleId') = ? AND JSON_VALUE(details, '$.number') = 3",
+      [sampleId],
+    );
+    expect(typeof audit!.details === "string" ? JSON.parse(audit!.details) : audit!.details).toMatchObject({ storedIdentical: true });
+  });
+
   test("first uploads to neighbouring samples at the same moment do not deadlock, and each sample numbers from 1", async () => {
     // Under REPEATABLE READ the "next number" reads of empty samples took the same index gap and deadlocked.
     const ids = [];
