@@ -22,5 +22,6 @@ test("the database down, a conflict and a refusal are told apart, without the da
   expect(refused).toMatchObject({ status: 500, kind: "refused" });
   expect(refused.message).toContain("(error ER_SIGNAL_EXCEPTION)");
   expect(refused.message).not.toContain("secret");
+  expect(describeStoreFailure(wrapped("ER_SIGNAL_EXCEPTION"), 1).log).toBe("ER_SIGNAL_EXCEPTION: driver");
   expect(errorCodeOf("not an error")).toBeNull();
 });

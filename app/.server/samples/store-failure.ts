@@ -5,7 +5,14 @@
  * its error code, for whoever reads the server log.
  */
 
-export type StoreFailure = { status: 409 | 500 | 503; kind: "unavailable" | "conflict" | "refused"; message: string };
+export type StoreFailure = {
+  status: 409 | 500 | 503;
+  kind: "unavailable" | "conflict" | "refused";
+  /** For the user. */
+  message: string;
+  /** For the server log: the code and the driver's message (no query parameters). */
+  log: string;
+};
 
 /** Codes of mysql2 / MariaDB meaning the database could not be reached or stopped answering. */
 const UNAVAILABLE = new Set([
@@ -40,13 +47,26 @@ export function errorCodeOf(error: unknown): string | null {
 const NOTHING = "Nothing was stored: an upload is stored whole or not at all.";
 const KEPT = "Your file and comment are still here";
 
+/** The innermost error's message (drizzle's own message carries the whole query and its parameters). */
+function rootMessage(error: unknown): string {
+  let e: unknown = error;
+  for (let depth = 0; depth < 5; depth++) {
+    const cause = typeof e === "object" && e !== null ? (e as { cause?: unknown }).cause : undefined;
+    if (cause === undefined || cause === null) break;
+    e = cause;
+  }
+  return e instanceof Error ? e.message : String(e);
+}
+
 export function describeStoreFailure(error: unknown, revisionNumber: number): StoreFailure {
   const code = errorCodeOf(error);
+  const log = `${code ?? "no code"}: ${rootMessage(error)}`;
   const store = `Store as draft revision ${revisionNumber}`;
   if (code && UNAVAILABLE.has(code)) {
     return {
       status: 503,
       kind: "unavailable",
+      log,
       message: `The database did not answer, so the draft revision could not be stored. ${NOTHING} ${KEPT}: choose “${store}” again in a minute; if it keeps failing, tell your administrator (error ${code}).`,
     };
   }
@@ -54,12 +74,14 @@ export function describeStoreFailure(error: unknown, revisionNumber: number): St
     return {
       status: 409,
       kind: "conflict",
+      log,
       message: `Another change to this sample was being stored at the same moment, so this one was stopped. ${NOTHING} ${KEPT}: choose “${store}” again.`,
     };
   }
   return {
     status: 500,
     kind: "refused",
+    log,
     message: `The database refused to store the draft revision${code ? ` (error ${code})` : ""}. ${NOTHING} ${KEPT}: you may try “${store}” again; if it fails again, tell your administrator.`,
   };
 }

@@ -174,7 +174,7 @@ export async function action(args: Route.ActionArgs) {
     });
   } catch (error) {
     const failure = describeStoreFailure(error, nextNumber);
-    console.error(`upload of ${checked.fileName} to sample ${sample.id} not stored (${failure.kind}):`, error);
+    console.error(`upload of ${checked.fileName} to sample ${sample.id} not stored (${failure.kind}, ${failure.log})`);
     return data<ActionResult>({ kind: "store_failed", preview, identical, comment, formError: failure.message }, { status: failure.status });
   }
   if (!outcome.ok) {
