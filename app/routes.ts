@@ -22,6 +22,7 @@ export default [
       route("people", "routes/_app/admin/people/index.tsx"),
       route("audit", "routes/_app/admin/audit/index.tsx"),
       route("mail", "routes/_app/admin/mail/index.tsx"),
+      route("settings", "routes/_app/admin/settings/index.tsx"),
     ]),
   ]),
   layout("routes/_auth/layout.tsx", [

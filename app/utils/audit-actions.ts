@@ -20,5 +20,6 @@ export const AUDIT_ACTIONS = [
   "api_token_created",
   "api_token_revoked",
   "api_token_used",
+  "setting_changed",
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];

@@ -23,6 +23,7 @@ export type Permission =
   | "upload:revisions"
   | "review:revisions"
   | "manage:people"
+  | "manage:settings"
   | "revoke:any-token"
   | "read:audit-log"
   | "read:captured-mail";
@@ -38,6 +39,7 @@ const GRANTS: Record<Permission, readonly Role[]> = {
   "upload:revisions": ["lab_lead", "admin"],
   "review:revisions": ["lab_lead", "admin"],
   "manage:people": ["admin"],
+  "manage:settings": ["admin"],
   "revoke:any-token": ["admin"],
   "read:audit-log": ["admin"],
   "read:captured-mail": ["admin"],

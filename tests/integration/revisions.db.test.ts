@@ -15,6 +15,7 @@ let app: {
   review: typeof import("~/.server/db/queries/review");
   revisions: typeof import("~/.server/db/queries/revisions");
   users: typeof import("~/.server/db/queries/users");
+  settings: typeof import("~/.server/db/queries/settings");
   check: typeof import("~/.server/samples/check-upload");
   diff: typeof import("~/.server/samples/diff");
   labData: typeof import("~/core/lab-data");
@@ -91,6 +92,7 @@ beforeAll(async () => {
     review: await import("~/.server/db/queries/review"),
     revisions: await import("~/.server/db/queries/revisions"),
     users: await import("~/.server/db/queries/users"),
+    settings: await import("~/.server/db/queries/settings"),
     check: await import("~/.server/samples/check-upload"),
     diff: await import("~/.server/samples/diff"),
     labData: await import("~/core/lab-data"),
@@ -200,6 +202,27 @@ describe("storing an upload", () => {
     expect(counts.audits).toBe(7);
   });
 
+  test("an upload identical (SHA-256) to a stored revision is refused unless confirmed, and names that revision", async () => {
+    const sampleId = await newSample("Identical");
+    const { revision } = await templateRevision(sampleId);
+    const first = await app.review.storeUploadedRevision({ ...revision, storeIdentical: false });
+    expect(first).toMatchObject({ ok: true, number: 1 });
+    const before = await rowCounts(sampleId);
+    const again = await app.review.storeUploadedRevision({ ...revision, storeIdentical: false });
+    expect(again).toMatchObject({ ok: false, reason: "identical", identical: { number: 1, status: "draft", uploaderName: "Lead One" } });
+    if (!again.ok && again.reason === "identical") expect(again.identical.createdAt).toBeInstanceOf(Date);
+    expect(await rowCounts(sampleId)).toEqual(before);
+    // A different file goes in without a question; the identical one with the confirmation.
+    const other = { ...revision, sourceSha256: "0".repeat(64) };
+    expect(await app.review.storeUploadedRevision({ ...other, storeIdentical: false })).toMatchObject({ ok: true, number: 2 });
+    expect(await app.review.storeUploadedRevision({ ...revision, storeIdentical: true })).toMatchObject({ ok: true, number: 3 });
+    const [audit] = await sql<{ details: unknown }>(
+      "SELECT details FROM audit_log WHERE action = 'revision_uploaded' AND JSON_VALUE(details, '$.sampleId') = ? AND JSON_VALUE(details, '$.number') = 3",
+      [sampleId],
+    );
+    expect(typeof audit!.details === "string" ? JSON.parse(audit!.details) : audit!.details).toMatchObject({ storedIdentical: true });
+  });
+
   test("first uploads to neighbouring samples at the same moment do not deadlock, and each sample numbers from 1", async () => {
     // Under REPEATABLE READ the "next number" reads of empty samples took the same index gap and deadlocked.
     const ids = [];
@@ -212,16 +235,24 @@ describe("storing an upload", () => {
   });
 });
 
+async function draftWith(sampleId: number, findings: { severity: "error" | "warning" | "info" }[]) {
+  const { revision } = await templateRevision(sampleId);
+  const report = revision.qcReport as import("~/.server/samples/qc-report").StoredQcReport;
+  const withFindings = {
+    ...report,
+    findings: findings.map((f, i) => ({ code: "OUTLIER" as const, severity: f.severity, message: `finding ${i}`, cells: [] })),
+  };
+  return app.review.storeDraftRevision({ ...revision, qcReport: withFindings });
+}
+
 describe("review", () => {
-  async function draftWith(sampleId: number, findings: { severity: "error" | "warning" | "info" }[]) {
-    const { revision } = await templateRevision(sampleId);
-    const report = revision.qcReport as import("~/.server/samples/qc-report").StoredQcReport;
-    const withFindings = {
-      ...report,
-      findings: findings.map((f, i) => ({ code: "OUTLIER" as const, severity: f.severity, message: `finding ${i}`, cells: [] })),
-    };
-    return app.review.storeDraftRevision({ ...revision, qcReport: withFindings });
-  }
+  // These tests are about the QC rules; uploader and reviewer are often the same person, so four-eyes is off.
+  beforeAll(async () => {
+    await app.settings.setFourEyesMode({ mode: "off", userId: labLeadId });
+  });
+  afterAll(async () => {
+    await app.settings.setFourEyesMode({ mode: "auto", userId: labLeadId });
+  });
 
   test("errors block approval, warnings need acknowledging, the previous approved revision is superseded", async () => {
     const sampleId = await newSample("Reviewed");
@@ -290,6 +321,81 @@ describe("review", () => {
     const statuses = await sql<{ status: string }>("SELECT status FROM sample_revisions WHERE sample_id = ?", [sampleId]);
     expect(statuses.filter((s) => s.status === "approved")).toHaveLength(1);
     expect(statuses.filter((s) => s.status === "superseded")).toHaveLength(1);
+  });
+});
+
+describe("four-eyes approval (lab policy)", () => {
+  const approve = (sampleId: number, number: number, reviewerId: number) =>
+    app.review.reviewRevision({ sampleId, number, reviewerId, decision: "approve", comment: null, acknowledgedWarnings: false });
+
+  test("by default it is on with two active lab leads and off with one; disabled accounts are not counted", async () => {
+    expect(await app.settings.getFourEyesPolicy()).toEqual({ mode: "auto", activeLabLeads: 2, required: true });
+    await app.users.setUserDisabled(otherLeadId, true);
+    try {
+      expect(await app.settings.getFourEyesPolicy()).toEqual({ mode: "auto", activeLabLeads: 1, required: false });
+      // With one lab lead, the default lets the uploader approve.
+      const sampleId = await newSample("Four eyes, one lead");
+      const own = await draftWith(sampleId, []);
+      expect(await approve(sampleId, own.number, labLeadId)).toMatchObject({ ok: true, ownUpload: true });
+    } finally {
+      await app.users.setUserDisabled(otherLeadId, false);
+    }
+  });
+
+  test("while on, the uploader's own approval is refused and changes nothing; someone else approves; rejecting one's own stays allowed", async () => {
+    const sampleId = await newSample("Four eyes");
+    const own = await draftWith(sampleId, []);
+    const auditsBefore = await sql<{ n: number }>("SELECT COUNT(*) AS n FROM audit_log WHERE action = 'revision_approved'");
+    expect(await approve(sampleId, own.number, labLeadId)).toEqual({ ok: false, reason: "own_upload" });
+    expect((await app.review.getRevisionDetail(sampleId, own.number))?.status).toBe("draft");
+    const auditsAfter = await sql<{ n: number }>("SELECT COUNT(*) AS n FROM audit_log WHERE action = 'revision_approved'");
+    expect(Number(auditsAfter[0]!.n)).toBe(Number(auditsBefore[0]!.n));
+
+    expect(await approve(sampleId, own.number, otherLeadId)).toMatchObject({ ok: true, ownUpload: false });
+    const detail = await app.review.getRevisionDetail(sampleId, own.number);
+    expect(detail).toMatchObject({ status: "approved", uploaderName: "Lead One", reviewerName: "Lead Two" });
+    expect(detail?.reviewedAt).toBeInstanceOf(Date);
+    const [audit] = await sql<{ details: unknown }>(
+      "SELECT details FROM audit_log WHERE action = 'revision_approved' AND JSON_VALUE(details, '$.sampleId') = ?",
+      [sampleId],
+    );
+    const details = typeof audit!.details === "string" ? JSON.parse(audit!.details) : audit!.details;
+    expect(details).toMatchObject({ ownUpload: false, fourEyes: true });
+
+    const second = await draftWith(sampleId, []);
+    expect(await app.review.reviewRevision({ sampleId, number: second.number, reviewerId: labLeadId, decision: "reject", comment: "Withdrawn.", acknowledgedWarnings: false })).toMatchObject({ ok: true });
+  });
+
+  test("an administrator turns it on or off; each change is audited with before and after, a non-change is not", async () => {
+    const sampleId = await newSample("Four eyes, set");
+    const count = async () => Number((await sql<{ n: number }>("SELECT COUNT(*) AS n FROM audit_log WHERE action = 'setting_changed'"))[0]!.n);
+    const before = await count();
+    expect(await app.settings.setFourEyesMode({ mode: "off", userId: viewerId, ipAddress: "192.0.2.7" })).toEqual({ changed: true, from: "auto", to: "off" });
+    const draft = await draftWith(sampleId, []);
+    expect(await approve(sampleId, draft.number, labLeadId)).toMatchObject({ ok: true, ownUpload: true });
+
+    expect(await app.settings.setFourEyesMode({ mode: "on", userId: viewerId })).toEqual({ changed: true, from: "off", to: "on" });
+    expect(await app.settings.setFourEyesMode({ mode: "on", userId: viewerId })).toEqual({ changed: false, from: "on", to: "on" });
+    await app.users.setUserDisabled(otherLeadId, true);
+    try {
+      // "on" holds with a single lab lead.
+      const next = await draftWith(sampleId, []);
+      expect(await approve(sampleId, next.number, labLeadId)).toEqual({ ok: false, reason: "own_upload" });
+    } finally {
+      await app.users.setUserDisabled(otherLeadId, false);
+    }
+    expect(await app.settings.setFourEyesMode({ mode: "auto", userId: viewerId })).toEqual({ changed: true, from: "on", to: "auto" });
+    expect(await count()).toBe(before + 3);
+    const rows = await sql<{ user_id: number; entity_id: string; details: unknown; ip_address: string | null }>(
+      "SELECT user_id, entity_id, details, ip_address FROM audit_log WHERE action = 'setting_changed' ORDER BY id DESC LIMIT 3",
+    );
+    const parsed = rows.map((r) => ({ ...r, details: typeof r.details === "string" ? JSON.parse(r.details) : r.details }));
+    expect(parsed.map((r) => r.details)).toEqual([
+      { key: "four_eyes_approval", from: "on", to: "auto" },
+      { key: "four_eyes_approval", from: "off", to: "on" },
+      { key: "four_eyes_approval", from: "auto", to: "off" },
+    ]);
+    expect(parsed[2]).toMatchObject({ user_id: viewerId, entity_id: "four_eyes_approval", ip_address: "192.0.2.7" });
   });
 });
 

@@ -2,6 +2,7 @@ import { useState } from "react";
 import { describeWarningCode, PROPERTY_NAMES, type LookupWarning } from "~/core/lookup";
 import type { PropertyKey } from "~/core/units";
 import type { Condition } from "~/utils/conditions";
+import { lookupResultsDelimited } from "./results-csv";
 import { NEAR_BUBBLE_POINT_FRACTION, SERIOUS_WARNINGS, WARNING_LABELS } from "~/utils/warning-labels";
 
 export type LookupApiResult = {
@@ -39,22 +40,6 @@ function describe(code: string): string {
   return describeWarningCode(code as LookupWarning);
 }
 
-function toDelimited(conditions: Condition[], runs: PropertyRun[], units: { pressure: string; temperature: string }, sep: string, meta: string[]): string {
-  const ok = runs.filter((r): r is Extract<PropertyRun, { ok: true }> => r.ok);
-  const quote = (s: string) => (sep === "," && /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
-  const header = [`pressure (${units.pressure})`, `temperature (${units.temperature})`];
-  for (const r of ok) header.push(`${r.property} (${r.unit})`, `${r.property} error estimate (${r.unit})`, `${r.property} method`, `${r.property} warnings`);
-  const lines = conditions.map((c, i) => {
-    const cells = [String(c.pressure), String(c.temperature)];
-    for (const r of ok) {
-      const x = r.results[i]!;
-      cells.push(x.value === null ? "" : String(x.value), x.errorEstimate === null ? "" : String(x.errorEstimate), x.method, x.refusal ? `refused: ${x.refusal.message}` : warningsOf(x, c.pressure).join(" "));
-    }
-    return cells.map(quote).join(sep);
-  });
-  return [...meta.map((m) => `# ${m}`), header.map(quote).join(sep), ...lines].join("\n") + "\n";
-}
-
 export function LookupResultsTable({
   conditions,
   runs,
@@ -85,14 +70,14 @@ export function LookupResultsTable({
   const flagged = ok.reduce((n, r) => n + r.results.filter((x, i) => warningsOf(x, conditions[i]!.pressure).length > 0).length, 0);
 
   function download() {
-    const blob = new Blob([toDelimited(conditions, runs, units, ",", meta)], { type: "text/csv" });
+    const blob = new Blob([lookupResultsDelimited(conditions, runs, units, ",", meta, warningsOf)], { type: "text/csv" });
     const url = URL.createObjectURL(blob);
     const a = Object.assign(document.createElement("a"), { href: url, download: `isopleth-lookup-${sampleLabel.replace(/\W+/g, "-")}.csv` });
     a.click();
     URL.revokeObjectURL(url);
   }
   async function copy() {
-    await navigator.clipboard.writeText(toDelimited(conditions, runs, units, "\t", []));
+    await navigator.clipboard.writeText(lookupResultsDelimited(conditions, runs, units, "\t", [], warningsOf));
     setCopied(true);
   }
 

@@ -2,6 +2,7 @@ import { useId } from "react";
 import { z } from "zod";
 import { FieldError, TextField, type FieldErrors } from "~/components/form";
 import { STANDARD_CONDITIONS_PRESETS } from "~/core/units";
+import { labelSchema, multilineTextSchema } from "~/utils/labels";
 import { SAMPLE_TYPE_LABELS } from "./labels";
 
 /*
@@ -25,9 +26,9 @@ const LIMITS: Record<FormSystem, { pressure: [number, number]; temperature: [num
   metric: { pressure: [1, 2000], temperature: [-40, 370], depth: [0, 12000] },
 };
 
-function text(label: string, max: number, required: boolean) {
-  const base = z.string({ error: `Enter the ${label}.` }).trim().max(max, `Use at most ${max} characters.`);
-  return required ? base.min(1, `Enter the ${label}.`) : base.optional().default("");
+/** Multi-line notes: line breaks allowed, other control characters refused (app/utils/labels.ts). */
+function notesText(label: string, max: number) {
+  return multilineTextSchema(label).trim().max(max, `Use at most ${max} characters.`).optional().default("");
 }
 
 function optionalNumber(label: string, range: [number, number], unit = "") {
@@ -53,10 +54,10 @@ export function sampleFormSchema(system: FormSystem) {
   const units = FORM_UNITS[system];
   const limits = LIMITS[system];
   return z.object({
-    fieldName: text("field name", 120, true),
-    fieldRegion: text("region", 120, false),
-    wellName: text("well name", 120, true),
-    label: text("sample label", 120, true),
+    fieldName: labelSchema("field name", 120, true),
+    fieldRegion: labelSchema("region", 120, false),
+    wellName: labelSchema("well name", 120, true),
+    label: labelSchema("sample label", 120, true),
     sampleType: z.enum(SAMPLE_TYPES, { error: "Choose the sample type." }),
     samplingDate: z
       .string()
@@ -72,9 +73,9 @@ export function sampleFormSchema(system: FormSystem) {
     stockTankApi: optionalNumber("stock-tank oil gravity", [5, 80], "°API"),
     gasSpecificGravity: optionalNumber("gas specific gravity", [0.55, 2.5], "(air = 1)"),
     standardConditions: z.string().min(1, "Choose the standard conditions of the report."),
-    laboratory: text("laboratory", 160, false),
-    reportReference: text("report reference", 160, false),
-    notes: text("notes", 4000, false),
+    laboratory: labelSchema("laboratory", 160, false),
+    reportReference: labelSchema("report reference", 160, false),
+    notes: notesText("notes", 4000),
   });
 }
 

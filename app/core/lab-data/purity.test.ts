@@ -1,5 +1,5 @@
 // The lab-data library is pure (the project's code style, "keep the numerics pure"): besides its own modules
-// it imports only the units and properties libraries, csv-parse (text) and exceljs (workbooks, loaded on
+// it imports only the units and properties libraries, the CSV cell writer (../csv), csv-parse (text) and exceljs (workbooks, loaded on
 // demand) — no framework, database, node built-ins or environment.
 import { expect, test } from "vitest";
 
@@ -21,7 +21,7 @@ function target(file: string, specifier: string): string {
   return parts.join("/");
 }
 
-test("library modules import only their own modules, units, properties, csv-parse and exceljs", () => {
+test("library modules import only their own modules, units, properties, the CSV cell writer, csv-parse and exceljs", () => {
   const files = Object.keys(sources);
   expect(files).toContain("./index.ts");
   expect(files).toContain("./qc/run-qc.ts");
@@ -33,7 +33,7 @@ test("library modules import only their own modules, units, properties, csv-pars
     for (const s of specifiers) {
       if (PACKAGES.includes(s)) continue;
       expect(s, `${file} imports ${s}`).toMatch(/^\.{1,2}\//);
-      expect(target(file, s), `${file} imports ${s}`).toMatch(/^(lab-data|units|properties)(\/[a-z-/]+)?$/);
+      expect(target(file, s), `${file} imports ${s}`).toMatch(/^(lab-data|units|properties|csv)(\/[a-z-/]+)?$/);
     }
     expect(text, file).not.toMatch(/process\.env|require\(|from "node:|from "react|drizzle|\.server/);
   }

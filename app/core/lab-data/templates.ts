@@ -62,16 +62,18 @@ export function templateDataset(): ParsedDataset {
   return cached;
 }
 
+// Written as bare comment lines: a note holding a comma or a quote would be quoted as one cell (app/core/csv) and
+// no longer read as a comment, so the notes use neither (tested).
 const NOTES: Readonly<Record<Layout, readonly string[]>> = {
   long: [
-    "Isopleth upload template, long layout: one row per measurement. Lines starting with # are comments.",
-    "The numbers below are INVENTED (from published correlations), not measurements: replace them with yours.",
+    "Isopleth upload template (long layout): one row per measurement. Lines starting with # are comments.",
+    "The numbers below are INVENTED (from published correlations) and are not measurements: replace them with yours.",
     "Units go in brackets in each header. Leave a cell empty where nothing was measured.",
   ],
   grid: [
-    "Isopleth upload template, grid layout: one block per property, blocks separated by a blank row.",
-    "The numbers below are INVENTED (from published correlations), not measurements: replace them with yours.",
-    "Block title row: property (unit), pressure (unit), temperature (unit); next row: temperatures; then pressure and values.",
+    "Isopleth upload template (grid layout): one block per property; a blank row between blocks.",
+    "The numbers below are INVENTED (from published correlations) and are not measurements: replace them with yours.",
+    "Block title row: property (unit); pressure (unit); temperature (unit). Next row: the temperatures. Then pressure and values.",
   ],
 };
 

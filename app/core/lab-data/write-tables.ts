@@ -3,6 +3,7 @@
  * are written in each grid's own units (the units of the uploaded file, or the display units given when the
  * dataset was built). The files they write read back through parseUpload to the same dataset.
  */
+import { csvCommentLine, csvRow } from "../csv";
 import { fromCanonical, PROPERTY_KEYS, type PropertyKey, type Quantity, type UnitId } from "../units";
 import { LabDataError } from "./errors";
 import { HEADER_NAMES } from "./header-names";
@@ -155,17 +156,6 @@ function sheetName(name: string): string {
   return name.replace(/[\\/?*[\]:]/g, " ").slice(0, 31);
 }
 
-function numberText(x: number, mark: "." | ","): string {
-  const text = String(x);
-  return mark === "," ? text.replace(".", ",") : text;
-}
-
-function csvField(cell: Cell, delimiter: string, mark: "." | ","): string {
-  if (cell === null) return "";
-  const text = typeof cell === "number" ? numberText(cell, mark) : cell;
-  return /["\r\n]/.test(text) || text.includes(delimiter) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
 /** CSV text of one sheet. Rows are padded to the same number of fields, as spreadsheet programs write. */
 export function toCsv(rows: readonly Cell[][], options: { delimiter?: "," | ";" | "\t"; decimalMark?: "." | "," } = {}): string {
   const delimiter = options.delimiter ?? ",";
@@ -177,9 +167,9 @@ export function toCsv(rows: readonly Cell[][], options: { delimiter?: "," | ";" 
   return rows
     .map((row) => {
       const isComment = typeof row[0] === "string" && row[0].startsWith("#");
-      if (isComment) return String(row[0]).replace(/[\r\n]+/g, " ");
+      if (isComment) return csvCommentLine(String(row[0]).replace(/^#\s?/, ""), { delimiter });
       const padded = row.length === 0 ? row : [...row, ...Array<Cell>(Math.max(0, width - row.length)).fill(null)];
-      return padded.map((c) => csvField(c, delimiter, mark)).join(delimiter);
+      return csvRow(padded, { delimiter, decimalMark: mark });
     })
     .join("\r\n")
     .concat("\r\n");

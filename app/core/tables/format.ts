@@ -25,6 +25,7 @@ import {
 import type { BlackOilTable, TableNote, TableRule } from "./build-table";
 import { correctionReason, TABLE_RULE_TEXT } from "./build-table";
 import { COLUMN_INFO, type TableColumnKey } from "./columns";
+import { csvCell } from "../csv";
 import { TableError } from "./errors";
 
 export type TableFormatOptions = {
@@ -317,8 +318,9 @@ export function formatTableJson(table: BlackOilTable, options: TableFormatOption
   };
 }
 
+/** Every text cell of the CSV goes through the product's one CSV cell writer (quoting, formula neutralisation). */
 function csvField(text: string): string {
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+  return csvCell(text);
 }
 
 function rowNote(r: BlackOilTable["rows"][number], columns: readonly TableColumnKey[]): string {
@@ -343,8 +345,8 @@ export function formatTableCsv(table: BlackOilTable, options: TableFormatOptions
   for (let i = 0; i < table.rows.length; i++) {
     const r = table.rows[i]!;
     let line = "";
-    for (let j = 0; j < cols.length; j++) line += `${j === 0 ? "" : ","}${cols[j]![i]!}`;
-    lines.push(`${line},${r.branch ?? ""},${csvField(rowNote(r, table.columns))}`);
+    for (let j = 0; j < cols.length; j++) line += `${j === 0 ? "" : ","}${csvCell(cols[j]![i]!)}`;
+    lines.push(`${line},${csvField(r.branch ?? "")},${csvField(rowNote(r, table.columns))}`);
   }
   return `${lines.join("\r\n")}\r\n`;
 }

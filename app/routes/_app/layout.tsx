@@ -27,6 +27,7 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
     ? [
         { to: href("/admin/people"), label: "People" },
         { to: href("/admin/audit"), label: "Audit log" },
+        ...(can(user, "manage:settings") ? [{ to: href("/admin/settings"), label: "Lab policy" }] : []),
         ...(mailCapture ? [{ to: href("/admin/mail"), label: "Captured e-mail" }] : []),
       ]
     : [];

@@ -1,4 +1,4 @@
-import { ALL, LAB_LEAD_UP, type Rule } from "./types";
+import { ADMIN, ALL, LAB_LEAD_UP, type Rule } from "./types";
 
 /**
  * Samples, uploads, revisions (the lab-results issue). Sample 1 and its revision 1 exist in the seeded e2e database.
@@ -39,5 +39,12 @@ export const SAMPLE_RULES: Record<string, Rule> = {
     post: { allowed: LAB_LEAD_UP, form: { intent: "not-an-intent" } },
   },
   "routes/_app/samples/$sampleId/diff.tsx": { kind: "page", path: "/samples/1/diff?from=1&to=1", allowed: ALL },
+  // The lab policy page (four-eyes approval); an invalid choice changes nothing.
+  "routes/_app/admin/settings/index.tsx": {
+    kind: "page",
+    path: "/admin/settings",
+    allowed: ADMIN,
+    post: { allowed: ADMIN, form: { fourEyes: "not-a-mode" } },
+  },
   "routes/templates/$file.ts": { kind: "page", path: "/templates/isopleth-template-long.csv", allowed: ALL },
 };

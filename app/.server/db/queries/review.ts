@@ -2,8 +2,9 @@ import { and, asc, desc, eq, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/mysql-core";
 import { isStoredQcReport, summarizeReport } from "~/.server/samples/qc-report";
 import { getDb, type Executor } from "../client";
-import { sampleFollows, sampleRevisions, samples, users } from "../schema";
+import { sampleFollows, sampleRevisions, samples, users, type RevisionStatus } from "../schema";
 import { recordAudit } from "./audit";
+import { getFourEyesPolicy } from "./settings";
 import { createRevision, getRevisionGrids, listRevisionBubblePoints, type NewRevision } from "./revisions";
 
 /*
@@ -34,24 +35,65 @@ export type DraftUpload = Omit<NewRevision, "status" | "reviewedBy" | "reviewCom
   auditDetails?: Record<string, unknown>;
 };
 
+/** The newest revision of the sample whose uploaded file had this SHA-256, with who uploaded it and when. */
+export async function findIdenticalRevision(sampleId: number, sha256: string, db: Executor = getDb()): Promise<IdenticalRevision | null> {
+  const [row] = await db
+    .select({ number: sampleRevisions.number, status: sampleRevisions.status, uploaderName: uploader.name, createdAt: sampleRevisions.createdAt })
+    .from(sampleRevisions)
+    .leftJoin(uploader, eq(uploader.id, sampleRevisions.createdBy))
+    .where(and(eq(sampleRevisions.sampleId, sampleId), eq(sampleRevisions.sourceSha256, sha256)))
+    .orderBy(desc(sampleRevisions.number))
+    .limit(1);
+  return row ?? null;
+}
+
+export type IdenticalRevision = { number: number; status: RevisionStatus; uploaderName: string | null; createdAt: Date };
+
+async function insertDraft(input: DraftUpload, tx: Executor): Promise<{ id: number; number: number }> {
+  const { ipAddress, auditDetails, ...revision } = input;
+  const stored = await createRevision({ ...revision, status: "draft" }, tx);
+  await recordAudit(
+    {
+      action: "revision_uploaded",
+      userId: input.createdBy,
+      entityType: "sample_revision",
+      entityId: stored.id,
+      details: { sampleId: revision.sampleId, number: stored.number, file: revision.sourceFilename ?? null, ...auditDetails },
+      ipAddress: ipAddress ?? null,
+    },
+    tx,
+  );
+  return stored;
+}
+
 /** Stores an uploaded revision as a draft and records the upload in the audit log, all in one transaction. */
 export async function storeDraftRevision(input: DraftUpload, db: Executor = getDb()): Promise<{ id: number; number: number }> {
-  const { ipAddress, auditDetails, ...revision } = input;
   return db.transaction(async (tx) => {
-    if (!(await lockSample(revision.sampleId, tx))) throw new Error(`sample ${revision.sampleId} does not exist`);
-    const stored = await createRevision({ ...revision, status: "draft" }, tx);
-    await recordAudit(
-      {
-        action: "revision_uploaded",
-        userId: input.createdBy,
-        entityType: "sample_revision",
-        entityId: stored.id,
-        details: { sampleId: revision.sampleId, number: stored.number, file: revision.sourceFilename ?? null, ...auditDetails },
-        ipAddress: ipAddress ?? null,
-      },
-      tx,
-    );
-    return stored;
+    if (!(await lockSample(input.sampleId, tx))) throw new Error(`sample ${input.sampleId} does not exist`);
+    return insertDraft(input, tx);
+  }, WRITE_TX);
+}
+
+export type UploadOutcome =
+  | { ok: true; id: number; number: number }
+  | { ok: false; reason: "identical"; identical: IdenticalRevision }
+  | { ok: false; reason: "sample_gone" };
+
+/**
+ * The upload page's store: like storeDraftRevision, but a file identical (same SHA-256) to one already stored
+ * for the sample is refused unless the uploader confirmed it (`storeIdentical`). Checked after the sample row is
+ * locked, so two identical uploads at once cannot both slip past.
+ */
+export async function storeUploadedRevision(input: DraftUpload & { storeIdentical: boolean }, db: Executor = getDb()): Promise<UploadOutcome> {
+  const { storeIdentical, ...draft } = input;
+  return db.transaction(async (tx): Promise<UploadOutcome> => {
+    if (!(await lockSample(draft.sampleId, tx))) return { ok: false, reason: "sample_gone" };
+    if (draft.sourceSha256 && !storeIdentical) {
+      const identical = await findIdenticalRevision(draft.sampleId, draft.sourceSha256, tx);
+      if (identical) return { ok: false, reason: "identical", identical };
+    }
+    const stored = await insertDraft({ ...draft, auditDetails: { ...draft.auditDetails, ...(storeIdentical ? { storedIdentical: true } : {}) } }, tx);
+    return { ok: true, ...stored };
   }, WRITE_TX);
 }
 
@@ -116,7 +158,8 @@ export type ReviewDecision = {
 
 export type ReviewOutcome =
   | { ok: true; revisionId: number; previousApproved: number | null; ownUpload: boolean }
-  | { ok: false; reason: "not_found" | "not_draft" | "qc_errors" | "no_qc_report" | "warnings_not_acknowledged"; status?: string };
+  /** own_upload: four-eyes approval is on and the reviewer uploaded the revision. */
+  | { ok: false; reason: "not_found" | "not_draft" | "own_upload" | "qc_errors" | "no_qc_report" | "warnings_not_acknowledged"; status?: string };
 
 /**
  * Approves or rejects a draft in one transaction. Approval is refused while the QC report holds errors, and
@@ -134,6 +177,8 @@ export async function reviewRevision(input: ReviewDecision, db: Executor = getDb
     if (revision.status !== "draft") return { ok: false, reason: "not_draft", status: revision.status };
     const ownUpload = revision.createdBy === input.reviewerId;
     const now = new Date();
+    const fourEyes = input.decision === "approve" ? await getFourEyesPolicy(tx) : null;
+    if (fourEyes?.required && ownUpload) return { ok: false, reason: "own_upload" };
 
     if (input.decision === "reject") {
       await tx
@@ -185,6 +230,7 @@ export async function reviewRevision(input: ReviewDecision, db: Executor = getDb
           number: input.number,
           superseded: previous?.number ?? null,
           ownUpload,
+          fourEyes: fourEyes?.required ?? false,
           qcStatus: summary.status,
           acknowledgedWarnings: summary.warnings > 0 ? input.acknowledgedWarnings : undefined,
           comment: input.comment,

@@ -1,3 +1,4 @@
 export * from "./auth";
 export * from "./fluid-tables";
 export * from "./ops";
+export * from "./settings";

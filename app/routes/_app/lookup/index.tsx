@@ -17,6 +17,7 @@ import type { Grid, Method } from "~/core/interpolation";
 import { PROPERTY_NAMES } from "~/core/lookup";
 import { PROPERTY_KEYS, type PropertyKey } from "~/core/units";
 import { depletionPath, parseConditionList, parseNumber, type Condition } from "~/utils/conditions";
+import { labelSchema } from "~/utils/labels";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -24,7 +25,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Lookup · Isopleth" }];
 
 const SaveSetSchema = z.object({
   intent: z.literal("save-set"),
-  name: z.string().trim().min(1, "Name the set, e.g. “CS-1 depletion path”.").max(120),
+  name: labelSchema("set name", 120, true, "Name the set, e.g. “CS-1 depletion path”."),
   sampleId: z.coerce.number().int().positive(),
   properties: z.array(z.enum(PROPERTY_KEYS)).min(1),
   units: z.enum(["field", "metric"]),

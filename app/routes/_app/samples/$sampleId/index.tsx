@@ -203,8 +203,8 @@ export default function SamplePage({ loaderData, actionData }: Route.ComponentPr
               >
                 revision {current.revision.number}
               </Link>
-              , uploaded by {current.revision.uploaderName ?? "someone"} and approved by {current.revision.reviewerName ?? "someone"} on{" "}
-              {formatDateTime(current.revision.reviewedAt)}
+              , uploaded by {current.revision.uploaderName ?? "a removed account"} on {formatDateTime(current.revision.createdAt)} and approved by{" "}
+              {current.revision.reviewerName ?? "a removed account"} on {formatDateTime(current.revision.reviewedAt)}
               {current.revision.ownReview ? " (approved by the person who uploaded it)" : ""}. Values in your unit system.
             </p>
             <QcSummaryLine summary={current.summary} />

@@ -2,21 +2,24 @@ import { useEffect, useId, useRef, useState } from "react";
 import { data, Form, href, Link, redirect, useNavigation } from "react-router";
 import { z } from "zod";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import { listRevisionsOfSample, storeDraftRevision } from "~/.server/db/queries/review";
+import { findIdenticalRevision, listRevisionsOfSample, storeUploadedRevision, type IdenticalRevision } from "~/.server/db/queries/review";
 import { checkUpload, revisionFromUpload } from "~/.server/samples/check-upload";
 import { requireSample } from "~/.server/samples/params";
 import { presentFindings } from "~/.server/samples/present";
 import { buildPreview } from "~/.server/samples/preview";
+import { describeStoreFailure } from "~/.server/samples/store-failure";
 import { megabytes, readCappedFormData } from "~/.server/samples/upload";
 import { uploadGuide } from "~/.server/samples/upload-guide";
 import { Button, FieldError, FormAlert, useZodForm, type FieldErrors } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
+import { formatDateTime } from "~/components/samples/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { GuideBlocks, guideSections, Inline } from "~/components/samples/guide";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
 import { SlicePlot } from "~/components/samples/slice-plot";
 import type { DisplayFinding } from "~/components/samples/types";
 import { UPLOAD_ACCEPT, UPLOAD_LIMIT_BYTES } from "~/components/samples/upload-limits";
+import { multilineTextSchema } from "~/utils/labels";
 import type { Route } from "./+types/upload";
 
 /*
@@ -24,6 +27,9 @@ import type { Route } from "./+types/upload";
  * checks it and returns the preview, storing nothing. "Store as draft revision" posts the same file again
  * (the file input keeps it) with intent=confirm; the server parses and checks it again and stores exactly that,
  * as one draft revision, in one transaction. Leaving the page stores nothing.
+ * A file identical (SHA-256) to a revision already stored for the sample is pointed out in the preview and is
+ * stored only with the "store it anyway" box ticked. When storing fails, the page says that nothing was stored
+ * and why, and keeps the preview (with its hidden fields), the chosen file and the comment for a retry.
  */
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Upload results · ${data?.sample.label ?? "Sample"} · Isopleth` }];
@@ -46,8 +52,12 @@ const UploadSchema = z.discriminatedUnion(
     z.object({
       intent: z.literal("confirm"),
       file: fileField,
-      comment: z.string().trim().min(1, "Say what this upload is (the report, what changed); it is kept with the revision.").max(2000, "Use at most 2000 characters."),
+      comment: multilineTextSchema("comment")
+        .trim()
+        .min(1, "Say what this upload is (the report, what changed); it is kept with the revision.")
+        .max(2000, "Use at most 2000 characters."),
       previewSha256: z.string().optional(),
+      storeIdentical: z.literal("yes").optional(),
     }),
   ],
   { error: "Choose “Check file” or “Store as draft revision”." },
@@ -70,13 +80,27 @@ export async function loader(args: Route.LoaderArgs) {
   };
 }
 
+type Identical = { number: number; status: IdenticalRevision["status"]; uploaderName: string | null; createdAt: string };
+
 type ActionResult = {
-  kind: "too_large" | "invalid" | "refused" | "preview";
+  kind: "too_large" | "invalid" | "refused" | "preview" | "store_failed";
   formError?: string;
   errors?: FieldErrors;
   refused?: { fileName: string; errors: DisplayFinding[]; warnings: DisplayFinding[] };
   preview?: ReturnType<typeof buildPreview>;
+  /** The revision this file is identical to, if any. */
+  identical?: Identical | null;
+  /** The comment as sent, to fill the field again after a failed confirm. */
+  comment?: string;
 };
+
+function identicalOf(r: IdenticalRevision | null): Identical | null {
+  return r ? { number: r.number, status: r.status, uploaderName: r.uploaderName, createdAt: r.createdAt.toISOString() } : null;
+}
+
+function identicalText(r: Identical): string {
+  return `This file is identical (same SHA-256) to revision ${r.number}, uploaded by ${r.uploaderName ?? "a removed account"} on ${formatDateTime(r.createdAt)} (${r.status}).`;
+}
 
 function fieldErrors(issues: readonly z.core.$ZodIssue[]): FieldErrors {
   const errors: FieldErrors = {};
@@ -125,29 +149,61 @@ export async function action(args: Route.ActionArgs) {
     );
   }
   const preview = buildPreview(checked, system);
-  if (basic.data.intent === "preview") return data<ActionResult>({ kind: "preview", preview });
+  const identical = identicalOf(await findIdenticalRevision(sample.id, checked.sha256));
+  if (basic.data.intent === "preview") return data<ActionResult>({ kind: "preview", preview, identical });
 
+  const comment = typeof values.comment === "string" ? values.comment : "";
   const confirm = UploadSchema.safeParse(values);
   if (!confirm.success || confirm.data.intent !== "confirm") {
-    return data<ActionResult>({ kind: "preview", preview, errors: confirm.success ? {} : fieldErrors(confirm.error.issues) }, { status: 400 });
+    return data<ActionResult>({ kind: "preview", preview, identical, comment, errors: confirm.success ? {} : fieldErrors(confirm.error.issues) }, { status: 400 });
   }
   if (confirm.data.previewSha256 !== checked.sha256) {
     return data<ActionResult>(
-      { kind: "preview", preview, formError: "The file differs from the one you checked, so nothing was stored. Look over this new preview and confirm again." },
+      { kind: "preview", preview, identical, comment, formError: "The file differs from the one you checked, so nothing was stored. Look over this new preview and confirm again." },
       { status: 409 },
     );
   }
-  const stored = await storeDraftRevision({
-    ...revisionFromUpload(checked, { sampleId: sample.id, createdBy: user.id, comment: confirm.data.comment }),
-    ipAddress,
-    auditDetails: { qcStatus: checked.status, layout: preview.layout, format: preview.format, sha256: checked.sha256 },
-  });
-  throw redirect(`${href("/samples/:sampleId/revisions/:number", { sampleId: String(sample.id), number: String(stored.number) })}?stored=1`);
+  const nextNumber = ((await listRevisionsOfSample(sample.id))[0]?.number ?? 0) + 1;
+  let outcome: Awaited<ReturnType<typeof storeUploadedRevision>>;
+  try {
+    outcome = await storeUploadedRevision({
+      ...revisionFromUpload(checked, { sampleId: sample.id, createdBy: user.id, comment: confirm.data.comment }),
+      ipAddress,
+      auditDetails: { qcStatus: checked.status, layout: preview.layout, format: preview.format, sha256: checked.sha256 },
+      storeIdentical: confirm.data.storeIdentical === "yes",
+    });
+  } catch (error) {
+    const failure = describeStoreFailure(error, nextNumber);
+    console.error(`upload of ${checked.fileName} to sample ${sample.id} not stored (${failure.kind}, ${failure.log})`);
+    return data<ActionResult>({ kind: "store_failed", preview, identical, comment, formError: failure.message }, { status: failure.status });
+  }
+  if (!outcome.ok) {
+    if (outcome.reason === "sample_gone") throw data(`Sample ${sample.label} no longer exists; nothing was stored.`, { status: 404 });
+    const now = identicalOf(outcome.identical)!;
+    const text = `${identicalText(now)} Nothing was stored. Tick “Store it anyway” to keep it as a new revision.`;
+    return data<ActionResult>({ kind: "preview", preview, identical: now, comment, formError: text, errors: { storeIdentical: [text] } }, { status: 409 });
+  }
+  throw redirect(`${href("/samples/:sampleId/revisions/:number", { sampleId: String(sample.id), number: String(outcome.number) })}?stored=1`);
 }
 
-function Preview({ preview, nextNumber, errors, hasGravities }: { preview: NonNullable<ActionResult["preview"]>; nextNumber: number; errors: FieldErrors; hasGravities: boolean }) {
+function Preview({
+  preview,
+  nextNumber,
+  errors,
+  hasGravities,
+  identical,
+  comment,
+}: {
+  preview: NonNullable<ActionResult["preview"]>;
+  nextNumber: number;
+  errors: FieldErrors;
+  hasGravities: boolean;
+  identical: Identical | null;
+  comment: string | undefined;
+}) {
   const headingRef = useRef<HTMLHeadingElement>(null);
   const commentId = useId();
+  const identicalId = useId();
   useEffect(() => {
     headingRef.current?.focus();
   }, [preview.sha256]);
@@ -188,6 +244,26 @@ function Preview({ preview, nextNumber, errors, hasGravities }: { preview: NonNu
           {errorCount > 0 ? "; with errors it cannot be approved, but the draft keeps a record of the file" : warnings > 0 ? "; the warnings must be acknowledged to approve it" : ""}.
         </p>
         <input type="hidden" name="previewSha256" value={preview.sha256} />
+        {identical ? (
+          <div className="mt-3 rounded border border-caution/40 bg-amber-50 px-3 py-2 text-sm" data-testid="identical">
+            <p>
+              {identicalText(identical)} Storing it again makes a second revision with the same measurements.
+            </p>
+            <div className="mt-2 flex items-start gap-2">
+              <input
+                id={identicalId}
+                type="checkbox"
+                name="storeIdentical"
+                value="yes"
+                className="mt-1"
+                aria-invalid={errors.storeIdentical?.length ? true : undefined}
+                aria-describedby={errors.storeIdentical?.length ? `${identicalId}-error` : undefined}
+              />
+              <label htmlFor={identicalId}>Store it anyway as revision {nextNumber}</label>
+            </div>
+            <FieldError id={`${identicalId}-error`} errors={errors.storeIdentical} />
+          </div>
+        ) : null}
         <div className="mt-3">
           <label htmlFor={commentId} className="block text-sm font-semibold">
             Comment
@@ -195,6 +271,7 @@ function Preview({ preview, nextNumber, errors, hasGravities }: { preview: NonNu
           <textarea
             id={commentId}
             name="comment"
+            defaultValue={comment}
             rows={2}
             className="mt-1 block w-full rounded border border-line bg-panel px-3 py-2 text-sm aria-invalid:border-danger"
             aria-invalid={errors.comment?.length ? true : undefined}
@@ -291,7 +368,7 @@ export default function Upload({ loaderData, actionData }: Route.ComponentProps)
           </div>
         </div>
 
-        <FormAlert message={result?.formError} />
+        {preview ? null : <FormAlert message={result?.formError} />}
 
         {result?.kind === "refused" && result.refused && !stale ? (
           <section aria-labelledby="refused-heading" className="space-y-3" data-testid="refused">
@@ -307,7 +384,18 @@ export default function Upload({ loaderData, actionData }: Route.ComponentProps)
           </section>
         ) : null}
 
-        {preview ? <Preview preview={preview} nextNumber={nextNumber} errors={form.errors} hasGravities={hasGravities} /> : null}
+        {preview ? (
+          <Preview
+            preview={preview}
+            nextNumber={nextNumber}
+            errors={form.errors}
+            hasGravities={hasGravities}
+            identical={result?.identical ?? null}
+            comment={result?.comment}
+          />
+        ) : null}
+
+        {preview ? <FormAlert message={result?.formError} /> : null}
 
         {preview ? (
           <div className="flex flex-wrap items-center gap-4">

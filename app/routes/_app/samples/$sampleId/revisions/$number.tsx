@@ -3,6 +3,7 @@ import { data, Form, href, Link, redirect, useNavigation, useSearchParams } from
 import { z } from "zod";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
 import { reviewRevision } from "~/.server/db/queries/review";
+import { getFourEyesPolicy } from "~/.server/db/queries/settings";
 import { badRequest, parseForm } from "~/.server/forms";
 import { notifyFollowersOfApproval } from "~/.server/samples/notify";
 import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
@@ -13,6 +14,8 @@ import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
 import { RevisionStatusBadge } from "~/components/samples/revision-status";
 import { SlicePlot } from "~/components/samples/slice-plot";
+import { multilineTextSchema } from "~/utils/labels";
+import { describeFourEyes } from "~/utils/four-eyes";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/$number";
 
@@ -25,12 +28,12 @@ const ReviewSchema = z.discriminatedUnion(
   [
     z.object({
       intent: z.literal("approve"),
-      comment: z.string().trim().max(2000, "Use at most 2000 characters.").optional().default(""),
+      comment: multilineTextSchema("review comment").trim().max(2000, "Use at most 2000 characters.").optional().default(""),
       acknowledge: z.literal("yes").optional(),
     }),
     z.object({
       intent: z.literal("reject"),
-      comment: z.string().trim().min(1, "Say why the revision is rejected; the uploader will read it.").max(2000, "Use at most 2000 characters."),
+      comment: multilineTextSchema("review comment").trim().min(1, "Say why the revision is rejected; the uploader will read it.").max(2000, "Use at most 2000 characters."),
       acknowledge: z.string().optional(),
     }),
   ],
@@ -53,6 +56,7 @@ export async function loader(args: Route.LoaderArgs) {
     view,
     canReview: can(user, "review:revisions"),
     isUploader: view.revision.createdBy === user.id,
+    fourEyes: view.revision.status === "draft" ? await getFourEyesPolicy() : null,
   };
 }
 
@@ -77,6 +81,9 @@ export async function action(args: Route.ActionArgs) {
     const messages: Record<typeof outcome.reason, { field?: string; text: string }> = {
       not_found: { text: "This revision no longer exists." },
       not_draft: { text: `Only drafts can be reviewed; this revision is ${outcome.status ?? "already reviewed"}.` },
+      own_upload: {
+        text: `Four-eyes approval is on: a revision must be approved by someone other than the person who uploaded it, and you uploaded revision ${number}. Ask another lab lead or an administrator to approve it. Nothing was changed.`,
+      },
       qc_errors: { text: "The QC checks found errors, so this revision cannot be approved. Reject it and upload a corrected file." },
       no_qc_report: { text: "This revision has no QC report, so it cannot be approved." },
       warnings_not_acknowledged: { field: "acknowledge", text: "Tick the box to confirm you have read the warnings." },
@@ -95,10 +102,12 @@ export async function action(args: Route.ActionArgs) {
 function ReviewPanel({
   view,
   isUploader,
+  fourEyes,
   actionData,
 }: {
   view: Route.ComponentProps["loaderData"]["view"];
   isUploader: boolean;
+  fourEyes: Route.ComponentProps["loaderData"]["fourEyes"];
   actionData: Route.ComponentProps["actionData"];
 }) {
   const navigation = useNavigation();
@@ -107,6 +116,7 @@ function ReviewPanel({
   const commentId = useId();
   const { errors, warnings } = view.summary;
   const blocked = errors > 0;
+  const ownBlocked = isUploader && !!fourEyes?.required;
   return (
     <section aria-labelledby="review" className="rounded-lg border border-caution/40 bg-panel p-5">
       <h2 id="review" className="font-semibold">
@@ -115,8 +125,14 @@ function ReviewPanel({
       <p className="mt-1 text-sm text-ink-muted">
         Approving makes these grids the sample&apos;s current tables (the approved revision before it becomes superseded) and e-mails the sample&apos;s
         followers. Rejecting keeps the revision for the record; nothing else changes.
-        {isUploader ? " You uploaded this revision: you may approve it yourself, and the history will show that you did." : ""}
+        {isUploader && !ownBlocked ? " You uploaded this revision: you may approve it yourself, and the history will show that you did." : ""}
       </p>
+      {ownBlocked ? (
+        <p role="note" className="mt-3 rounded border border-caution/40 bg-amber-50 px-3 py-2 text-sm" data-testid="four-eyes">
+          Four-eyes approval is on ({describeFourEyes(fourEyes!)}): a revision must be approved by someone other than its uploader. You uploaded this
+          one, so another lab lead or an administrator approves it; you may still reject it.
+        </p>
+      ) : null}
       {blocked ? (
         <p role="alert" className="mt-3 rounded border border-danger/40 bg-red-50 px-3 py-2 text-sm text-danger">
           Approval is blocked: the QC checks found {errors} {errors === 1 ? "error" : "errors"} (see the findings below). Reject the revision and upload a
@@ -162,7 +178,7 @@ function ReviewPanel({
           <FieldError id={`${commentId}-error`} errors={form.errors.comment} />
         </div>
         <div className="flex flex-wrap gap-3">
-          <Button type="submit" name="intent" value="approve" disabled={blocked || navigation.state === "submitting"}>
+          <Button type="submit" name="intent" value="approve" disabled={blocked || ownBlocked || navigation.state === "submitting"}>
             Approve revision {view.revision.number}
           </Button>
           <Button type="submit" name="intent" value="reject" variant="danger" disabled={navigation.state === "submitting"}>
@@ -175,7 +191,7 @@ function ReviewPanel({
 }
 
 export default function RevisionPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { sample, view, canReview, isUploader } = loaderData;
+  const { sample, view, canReview, isUploader, fourEyes } = loaderData;
   const [params] = useSearchParams();
   const r = view.revision;
   const sampleUrl = href("/samples/:sampleId", { sampleId: String(sample.id) });
@@ -210,9 +226,9 @@ export default function RevisionPage({ loaderData, actionData }: Route.Component
       </div>
       <dl className="grid gap-x-6 gap-y-3 rounded-lg border border-line bg-panel p-5 text-sm sm:grid-cols-2 lg:grid-cols-3">
         <div>
-          <dt className="text-xs font-semibold text-ink-muted">Uploaded</dt>
-          <dd>
-            {r.uploaderName ?? "—"}, {formatDateTime(r.createdAt)}
+          <dt className="text-xs font-semibold text-ink-muted">Uploaded by</dt>
+          <dd data-testid="uploaded-by">
+            {r.uploaderName ?? "a removed account"}, {formatDateTime(r.createdAt)}
           </dd>
         </div>
         <div>
@@ -228,9 +244,11 @@ export default function RevisionPage({ loaderData, actionData }: Route.Component
           </dd>
         </div>
         <div>
-          <dt className="text-xs font-semibold text-ink-muted">{r.status === "rejected" ? "Rejected" : r.status === "draft" ? "Review" : "Approved"}</dt>
-          <dd>
-            {r.reviewerName ? `${r.reviewerName}, ${formatDateTime(r.reviewedAt)}` : r.status === "draft" ? "awaiting review" : "—"}
+          <dt className="text-xs font-semibold text-ink-muted">{r.status === "rejected" ? "Rejected by" : r.status === "draft" ? "Review" : "Approved by"}</dt>
+          <dd data-testid="reviewed-by">
+            {r.status === "draft"
+              ? "awaiting review"
+              : `${r.reviewerName ?? "a removed account"}, ${r.reviewedAt ? formatDateTime(r.reviewedAt) : "time not recorded"}`}
             {r.ownReview ? <span className="block text-xs font-semibold text-caution">Reviewed by the person who uploaded it.</span> : null}
           </dd>
         </div>
@@ -254,7 +272,7 @@ export default function RevisionPage({ loaderData, actionData }: Route.Component
 
       {r.status === "draft" && canReview ? (
         <div className="mt-6">
-          <ReviewPanel view={view} isUploader={isUploader} actionData={actionData} />
+          <ReviewPanel view={view} isUploader={isUploader} fourEyes={fourEyes} actionData={actionData} />
         </div>
       ) : null}
 
