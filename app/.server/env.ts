@@ -34,6 +34,13 @@ const EnvSchema = z
       .enum(["true", "false"])
       .default("false")
       .transform((v) => v === "true"),
+    // Heavy work (large lookups, tables, upload checks) in worker threads: app/.server/workers/README.md.
+    HEAVY_WORKERS: z.coerce.number().int().min(1).max(64).optional(),
+    HEAVY_QUEUE_LIMIT: z.coerce.number().int().min(0).max(10_000).default(16),
+    HEAVY_WORK_INLINE: z
+      .enum(["true", "false"])
+      .default("false")
+      .transform((v) => v === "true"),
     DEMO_PASSWORD: z.string().min(8, "must be at least 8 characters").default("isopleth-demo-2026"),
   })
   .superRefine((env, ctx) => {
