@@ -4,7 +4,8 @@ import { requireRevisionData, requireSampleForCaller } from "~/.server/api/sampl
 import { SampleIdParams, TableQuery, zodIssues } from "~/.server/api/schemas";
 import { fromInputPressure, fromInputTemperature } from "~/.server/api/units";
 import { problem } from "~/.server/http";
-import { buildBlackOilTable, formatTableCsv, formatTableJson, formatTableText, isTableError, parsePressureSpec } from "~/core/tables";
+import { runHeavy } from "~/.server/workers/pool";
+import { formatTableCsv, formatTableJson, formatTableText, isTableError, parsePressureSpec } from "~/core/tables";
 import type { Route } from "./+types/table";
 
 const STATUS: Record<string, [number, string]> = {
@@ -40,7 +41,7 @@ export async function loader(args: Route.LoaderArgs) {
   const data = await requireRevisionData(sample, q.revision);
   try {
     const spec = parsePressureSpec(q.pressures);
-    const table = buildBlackOilTable({
+    const table = await runHeavy("table", {
       grids: data.grids,
       temperature: fromInputTemperature(q.temperature, q.units),
       pressures: spec.pressures.map((p) => fromInputPressure(p, q.units)),
