@@ -33,6 +33,7 @@ export const PROBLEM_CODES: Record<string, string> = {
   payload_too_large: "413 — the body is larger than the API accepts (8 MB, about 100,000 points).",
   out_of_range: "422 — a point lies outside the measured range and extrapolation was not allowed, or no valid data zone exists.",
   rate_limited: "429 — the token is over its request budget; wait the seconds given in Retry-After.",
+  server_busy: "503 — the server is at its limit of large computations at once (big lookups, tables); wait the seconds given in Retry-After.",
 };
 
 const problemResponses = (codes: number[]) =>
