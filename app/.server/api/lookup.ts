@@ -15,8 +15,14 @@ export async function computeLookup(data: RevisionData, body: LookupBody): Promi
   const grid = data.grids[body.property];
   if (!grid) return problem(404, "property_not_measured", `Revision ${data.number} has no ${body.property} grid.`);
   try {
-    const pressures = Float64Array.from(body.points, (p) => p.pressure);
-    const temperatures = Float64Array.from(body.points, (p) => p.temperature);
+    // A plain loop: Float64Array.from with a mapping function is tens of times slower for 100,000 points.
+    const n = body.points.length;
+    const pressures = new Float64Array(n);
+    const temperatures = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      pressures[i] = body.points[i]!.pressure;
+      temperatures[i] = body.points[i]!.temperature;
+    }
     return await runHeavyTimed("api-lookup", { grid, pressures, temperatures, options: {
       property: body.property,
       method: body.method,
