@@ -21,17 +21,19 @@ import { decodeError, runTask, type HeavyInput, type HeavyOutput, type HeavyTask
 export type { HeavyInput, HeavyOutput, HeavyTask } from "./tasks";
 
 /*
- * Below these sizes a job runs inline. Measured with `npm run bench:heavy` (2-core machine, warm): a round
- * trip through a worker costs about 1–2 ms (message, clone, wake-up); a lookup of 2,000 points costs about
- * 10 ms inline (interpolation plus the JSON), a table of 500 rows about 8 ms, an upload of 64 kB about
- * 8 ms. Under these sizes a job blocks the event loop for less than ~10 ms, which keeps the health p99 far
- * under its 50 ms target, and the bench:api workspace (3 × 1,000 points) keeps its direct path.
+ * Below these sizes a job runs inline. Measured on this 2-core machine (warm, but shared with other work, so
+ * figures are high): a round trip through a worker costs 1–2 ms (message, clone, wake-up). Inline, a lookup of
+ * 1,000 points costs 5–10 ms (interpolation plus the results' JSON), 2,000 points 15–25 ms, 100,000 points
+ * 600+ ms; a table of 23 rows 1–2.5 ms, 10,000 rows 50–270 ms (so 500 rows ≈ 3–13 ms). Under the thresholds a
+ * job blocks the event loop for about 10–20 ms at most, and the lookup workspace's 3 × 1,000 points (bench:api)
+ * keep their direct path. Uploads always go to a worker: even a 7 kB lab file took 65 ms to parse and 70 ms
+ * to check (runQc), far more than the round trip.
  */
 export const MIN_WORKER_SIZE: Readonly<Record<HeavyTask, number>> = Object.freeze({
   "api-lookup": 2_000, // points
   lookup: 2_000, // points
   table: 500, // rows (pressures)
-  "check-upload": 64 * 1024, // bytes
+  "check-upload": 1, // bytes: every upload
 });
 
 /** The size of a job in the unit of MIN_WORKER_SIZE. */
