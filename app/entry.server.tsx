@@ -5,6 +5,7 @@ import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
 import { type EntryContext, type HandleErrorFunction, isRouteErrorResponse, ServerRouter } from "react-router";
 import { closeDb } from "~/.server/db/client";
+import { closeHeavyPool } from "~/.server/workers/pool";
 import { checkDatabaseAtStartup } from "~/.server/ops/startup";
 import { getEnv } from "~/.server/env";
 import { describeError, logger } from "~/.server/ops/logger";
@@ -92,6 +93,7 @@ export const serverHooks = {
   checkDatabaseAtStartup,
   /** Closes what keeps the process alive once the last request has been answered. */
   async close(): Promise<void> {
+    await closeHeavyPool();
     await closeDb();
   },
 };

@@ -49,6 +49,13 @@ const EnvSchema = z
     // readiness (GET /api/ready): the data folder to watch, and the free space every watched disk must keep
     ISOPLETH_DATA_DIR: z.string().min(1).optional(),
     READY_MIN_FREE_BYTES: z.coerce.number().int().min(0).default(256 * 1024 * 1024),
+    // Heavy work (large lookups, tables, upload checks) in worker threads: app/.server/workers/README.md.
+    HEAVY_WORKERS: z.coerce.number().int().min(1).max(64).optional(),
+    HEAVY_QUEUE_LIMIT: z.coerce.number().int().min(0).max(10_000).default(16),
+    HEAVY_WORK_INLINE: z
+      .enum(["true", "false"])
+      .default("false")
+      .transform((v) => v === "true"),
     DEMO_PASSWORD: z.string().min(8, "must be at least 8 characters").default("isopleth-demo-2026"),
   })
   .superRefine((env, ctx) => {

@@ -39,6 +39,7 @@ export const PROBLEM_CODES: Record<string, string> = {
   not_computable: "422 — a table with no row (or no bubble point) that can be computed: interpolation gives no finite value there. Single lookup points that cannot be computed are refused inside a 200 answer instead (value null, `refusal`).",
   internal_error: "500 — a fault of the server (logged); nothing computed wrongly is sent.",
   rate_limited: "429 — the token is over its request budget; wait the seconds given in Retry-After.",
+  server_busy: "503 — the server is at its limit of large computations at once (big lookups, tables); wait the seconds given in Retry-After.",
 };
 
 const problemResponses = (codes: number[]) =>

@@ -1,7 +1,7 @@
 import { problem } from "~/.server/http";
 import type { RevisionData } from "~/.server/samples/revision-data";
+import { runHeavy } from "~/.server/workers/pool";
 import {
-  buildBlackOilTable,
   formatTableCsv,
   formatTableJson,
   formatTableText,
@@ -53,19 +53,20 @@ type SampleForTable = {
  * units — so a fleet of simulators asking again gets 304 without the table being built. It is weak
  * (RFC 9110 §8.8.1): the body's `generatedAt` differs between two builds of the same table.
  */
-export function tableResponse(
+export async function tableResponse(
   request: Request,
   sample: SampleForTable,
   data: RevisionData,
   q: TableQuery,
-): Response {
+): Promise<Response> {
   try {
     const spec = parsePressureSpec(q.pressures);
     const etag = `W/${etagOf("table", data.revisionId, data.status, q.format, q.units, q.method, String(q.extrapolate), q.temperature, spec.pressures.join(","))}`;
     const revision = { number: data.number, status: data.status };
     const unchanged = notModified(request, etag, { revision });
     if (unchanged) return unchanged;
-    const table = buildBlackOilTable({
+    // Large tables are built in a worker thread (app/.server/workers), small ones inline.
+    const table = await runHeavy("table", {
       grids: data.grids,
       temperature: fromInputTemperature(q.temperature, q.units),
       pressures: spec.pressures.map((p) => fromInputPressure(p, q.units)),

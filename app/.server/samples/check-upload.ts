@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import type { NewRevision } from "~/.server/db/queries/revisions";
-import { displayFileName, parseUpload, qcStatus, runQc, type Finding, type ParsedDataset, type QcMeta } from "~/core/lab-data";
+import { runHeavy } from "~/.server/workers/pool";
+import { displayFileName, qcStatus, type Finding, type ParsedDataset, type QcMeta } from "~/core/lab-data";
 import { PROPERTY_KEYS } from "~/core/units";
 import type { StoredQcReport } from "./qc-report";
 import type { CanonicalBubblePoint, CanonicalGrid } from "./present";
@@ -50,10 +51,11 @@ export async function checkUpload(file: { name: string; bytes: Uint8Array }, sam
   const fileName = displayFileName(file.name);
   const sha256 = sha256Hex(file.bytes);
   const sizeBytes = file.bytes.byteLength;
-  const parsed = await parseUpload({ filename: file.name, bytes: file.bytes });
-  if (!parsed.ok) return { ok: false, fileName, sha256, sizeBytes, errors: parsed.errors, warnings: parsed.warnings };
   const meta = qcMetaOf(sample);
-  const findings = runQc(parsed.dataset, meta);
+  // Parsing and QC run in a worker thread for a large file (app/.server/workers); busy → a 503 page.
+  const parsed = await runHeavy("check-upload", { filename: file.name, bytes: file.bytes, meta }, { surface: "page" });
+  if (!parsed.ok) return { ok: false, fileName, sha256, sizeBytes, errors: parsed.errors, warnings: parsed.warnings };
+  const findings = parsed.findings;
   const status = qcStatus([...parsed.warnings, ...findings]);
   return { ok: true, fileName, sha256, sizeBytes, dataset: parsed.dataset, fileFindings: parsed.warnings, findings, meta, status };
 }

@@ -4,9 +4,10 @@ import { createLookupRun, getLookupSet, listLookupRuns } from "~/.server/db/quer
 import { getSampleWithPlace } from "~/.server/db/queries/samples";
 import { invariantResponse } from "~/.server/http";
 import { getRevisionData, resolveRevision } from "~/.server/samples/revision-data";
+import { runHeavy } from "~/.server/workers/pool";
 import { Button, FormAlert } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { PROPERTY_NAMES, runLookup, isLookupError } from "~/core/lookup";
+import { PROPERTY_NAMES, isLookupError } from "~/core/lookup";
 import type { PropertyKey } from "~/core/units";
 import type { Route } from "./+types/$setId";
 
@@ -36,14 +37,14 @@ export async function action(args: Route.ActionArgs) {
     const grid = data.grids[property];
     if (!grid) continue;
     try {
-      const r = runLookup(grid, points, {
+      const r = await runHeavy("lookup", { grid, points, options: {
         property,
         method: set.method as "auto",
         degree: set.degree ?? undefined,
         extrapolate: true,
         units: "field",
         messages: false,
-      });
+      } }, { surface: "page" });
       results[property] = r.results.map((x) => ({ value: x.value, errorEstimate: x.errorEstimate, warnings: [...x.warnings] }));
     } catch (error) {
       if (isLookupError(error)) return { error: `${PROPERTY_NAMES[property]}: ${error.message}` };
