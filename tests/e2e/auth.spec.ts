@@ -102,3 +102,35 @@ test("a cross-origin POST is refused, and a session cookie set before sign-in is
   expect(cookie?.httpOnly).toBe(true);
   expect(cookie?.sameSite).toBe("Lax");
 });
+
+// Open redirects (OWASP Unvalidated Redirects and Forwards Cheat Sheet): after sign-in only same-origin paths are
+// followed. Browsers strip tab, CR and LF inside URLs (WHATWG URL Standard), so "/<TAB>/evil.example" would
+// become "//evil.example", another site.
+test("sign-in follows redirectTo only to a path on this site", async ({ page }) => {
+  await page.goto(`/sign-in?${new URLSearchParams({ redirectTo: "/\t/evil.example" })}`);
+  await page.getByLabel("E-mail address").fill(ACCOUNTS.engineer);
+  await page.getByLabel("Password").fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page).toHaveURL(`${APP_URL}/`);
+  await expect(page.getByText("Reservoir engineer")).toBeVisible();
+
+  // A path on this site is still followed.
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await page.goto(`/sign-in?${new URLSearchParams({ redirectTo: "/samples?page=1" })}`);
+  await page.getByLabel("E-mail address").fill(ACCOUNTS.engineer);
+  await page.getByLabel("Password").fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page).toHaveURL(`${APP_URL}/samples?page=1`);
+});
+
+test("a hostile or broken redirectTo in a posted sign-in form falls back to / (never a 500, never off-site)", async ({ playwright }) => {
+  const hostile = ["/a\nb", "/samples\r\nSet-Cookie: planted=1", "/\t/evil.example", "//evil.example", "/\\evil.example", "https://evil.example/", "/%2F%2Fevil.example", "/%0A"];
+  for (const redirectTo of hostile) {
+    // A fresh context each time: once signed in, the sign-in page sends the browser home instead.
+    const context = await playwright.request.newContext({ baseURL: APP_URL, extraHTTPHeaders: { Origin: APP_URL } });
+    const response = await context.post("/sign-in", { form: { email: ACCOUNTS.engineer, password: DEMO_PASSWORD, redirectTo }, maxRedirects: 0 });
+    expect(response.status(), JSON.stringify(redirectTo)).toBe(302);
+    expect(response.headers()["location"], JSON.stringify(redirectTo)).toBe("/");
+    await context.dispose();
+  }
+});

@@ -3,7 +3,8 @@ import { signIn } from "~/.server/auth/accounts";
 import { getCaller, requireAnonymous } from "~/.server/auth/guards";
 import { badRequest, parseForm } from "~/.server/forms";
 import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
-import { safeRedirect, SignInSchema } from "~/utils/auth-schemas";
+import { SignInSchema } from "~/utils/auth-schemas";
+import { safeRedirect } from "~/utils/safe-redirect";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Isopleth" }];
@@ -41,7 +42,7 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
       <h1 className="text-xl font-bold">Sign in</h1>
       <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate>
         <FormAlert message={actionData?.formError} />
-        <input type="hidden" name="redirectTo" value={params.get("redirectTo") ?? "/"} />
+        <input type="hidden" name="redirectTo" value={safeRedirect(params.get("redirectTo"))} />
         <TextField label="E-mail address" name="email" type="email" autoComplete="username" required errors={errors.email} autoFocus />
         <TextField label="Password" name="password" type="password" autoComplete="current-password" required errors={errors.password} />
         <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
