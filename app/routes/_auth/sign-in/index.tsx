@@ -24,12 +24,10 @@ export async function action(args: Route.ActionArgs) {
     ipAddress: getCaller(args).ipAddress,
     userAgent: args.request.headers.get("User-Agent"),
   });
-  if (!result.ok) {
-    return data(
-      { errors: {}, formError: result.message },
-      { status: result.reason === "locked" ? 429 : 401, headers: result.reason === "locked" ? { "Retry-After": String(result.retryAfterSeconds) } : undefined },
-    );
+  if (!result.ok && result.reason === "throttled") {
+    return data({ errors: {}, formError: result.message }, { status: 429, headers: { "Retry-After": String(result.retryAfterSeconds) } });
   }
+  if (!result.ok) return data({ errors: {}, formError: result.message }, { status: 401 });
   return redirect(safeRedirect(form.data.redirectTo), { headers: { "Set-Cookie": result.setCookie } });
 }
 
