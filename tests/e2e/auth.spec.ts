@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { ACCOUNTS, APP_URL, DEMO_PASSWORD, signIn, waitForMailLink } from "../support/e2e";
+import { ACCOUNTS, APP_URL, DEMO_PASSWORD, MAIL_URL, signIn, waitForMailLink } from "../support/e2e";
 
 test("an administrator invites an engineer, who sets a password from the e-mailed link and is signed in", async ({ page, browser }) => {
   const email = `new.engineer.${Date.now()}@calder.example`;
@@ -133,4 +133,89 @@ test("a hostile or broken redirectTo in a posted sign-in form falls back to / (n
     expect(response.headers()["location"], JSON.stringify(redirectTo)).toBe("/");
     await context.dispose();
   }
+});
+
+// Throttling (OWASP Authentication Cheat Sheet, "Protect against automated attacks"; RFC 9110 §10.2.3 Retry-After).
+test("after five failed sign-ins from one client the sixth is answered 429 with Retry-After and the wait on the page", async ({ page, playwright }) => {
+  const email = `guessed.${Date.now()}@calder.example`;
+  const context = await playwright.request.newContext({ baseURL: APP_URL, extraHTTPHeaders: { Origin: APP_URL } });
+  for (let i = 0; i < 5; i++) {
+    const response = await context.post("/sign-in", { form: { email, password: `wrong-guess-${i}`, redirectTo: "/" }, maxRedirects: 0 });
+    expect(response.status()).toBe(401);
+  }
+  const refused = await context.post("/sign-in", { form: { email, password: "wrong-guess-5", redirectTo: "/" }, maxRedirects: 0 });
+  expect(refused.status()).toBe(429);
+  const retryAfter = Number(refused.headers()["retry-after"]);
+  expect(retryAfter).toBeGreaterThanOrEqual(25);
+  expect(retryAfter).toBeLessThanOrEqual(30);
+  await context.dispose();
+
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill("wrong-guess-6");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("alert")).toContainText(/Too many failed sign-in attempts from here\. Wait \d+ seconds and try again, or reset your password\./);
+
+  // Someone else's guesses at their own address do not stop a demo account signing in from here.
+  await signIn(page, "engineer");
+});
+
+// No account enumeration (OWASP Forgot Password Cheat Sheet): the same answer in the same time for any address.
+test("forgot-password answers a known and an unknown address in the same time, and quietly sends at most 3 messages an hour", async ({ playwright }) => {
+  const known = ACCOUNTS.lab_lead;
+  const mailsTo = async (to: string) => ((await (await fetch(MAIL_URL)).json()) as { to: string[] }[]).filter((m) => m.to.includes(to)).length;
+  const before = await mailsTo(known);
+  const context = await playwright.request.newContext({ baseURL: APP_URL, extraHTTPHeaders: { Origin: APP_URL } });
+  const timeOf = async (email: string) => {
+    const start = performance.now();
+    const response = await context.post("/forgot-password", { form: { email } });
+    const ms = performance.now() - start;
+    expect(response.status()).toBe(200);
+    expect(await response.text()).toContain("If an account uses this address");
+    return ms;
+  };
+  await timeOf(`warm-up.${Date.now()}@calder.example`);
+  const knownMs: number[] = [];
+  const unknownMs: number[] = [];
+  // Interleaved, so that a slow moment of the machine hits both sides; medians, so that one outlier does not count.
+  for (let i = 0; i < 7; i++) {
+    knownMs.push(await timeOf(known));
+    unknownMs.push(await timeOf(`nobody.${Date.now()}.${i}@calder.example`));
+  }
+  const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+  const difference = Math.abs(median(knownMs) - median(unknownMs));
+  console.log(`forgot-password medians: known ${median(knownMs).toFixed(1)} ms, unknown ${median(unknownMs).toFixed(1)} ms`);
+  expect(difference).toBeLessThan(50);
+  await context.dispose();
+
+  // The known address really got messages: three (the per-address limit), not seven.
+  await expect.poll(() => mailsTo(known), { timeout: 10_000 }).toBe(before + 3);
+  await new Promise((resolve) => setTimeout(resolve, 1000));
+  expect(await mailsTo(known)).toBe(before + 3);
+});
+
+// OWASP Session Management Cheat Sheet: renew sessions on a password change; end the others.
+test("a password change on the account page signs out the user's other browsers and keeps this one", async ({ browser }) => {
+  const mine = await browser.newContext();
+  const other = await browser.newContext();
+  const page = await mine.newPage();
+  const otherPage = await other.newPage();
+  await signIn(page, "engineer");
+  await signIn(otherPage, "engineer");
+  const changeTo = async (from: string, to: string) => {
+    await page.goto("/account");
+    await page.getByLabel("Current password").fill(from);
+    await page.getByLabel("New password", { exact: true }).fill(to);
+    await page.getByLabel("New password again").fill(to);
+    await page.getByRole("button", { name: "Change password" }).click();
+    await expect(page.getByRole("status")).toContainText("Your password is changed; your other sessions were signed out.");
+  };
+  await changeTo(DEMO_PASSWORD, "a-temporary-password");
+  await otherPage.goto("/account");
+  await expect(otherPage).toHaveURL(/\/sign-in\?redirectTo=%2Faccount/);
+  await page.goto("/account");
+  await expect(page).toHaveURL(`${APP_URL}/account`);
+  await changeTo("a-temporary-password", DEMO_PASSWORD);
+  await mine.close();
+  await other.close();
 });

@@ -9,6 +9,12 @@ import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Isopleth" }];
 
+/** Passes the action's Retry-After (on a 429) through to the document response. */
+export const headers: Route.HeadersFunction = ({ actionHeaders }) => {
+  const retryAfter = actionHeaders.get("Retry-After");
+  return retryAfter ? { "Retry-After": retryAfter } : new Headers();
+};
+
 export async function loader(args: Route.LoaderArgs) {
   requireAnonymous(args);
   return null;
