@@ -4,6 +4,7 @@ import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
 import { type EntryContext, type HandleErrorFunction, isRouteErrorResponse, ServerRouter } from "react-router";
+import { settleBackgroundJobs } from "~/.server/auth/background";
 import { closeDb } from "~/.server/db/client";
 import { closeHeavyPool } from "~/.server/workers/pool";
 import { checkDatabaseAtStartup } from "~/.server/ops/startup";
@@ -93,6 +94,7 @@ export const serverHooks = {
   checkDatabaseAtStartup,
   /** Closes what keeps the process alive once the last request has been answered. */
   async close(): Promise<void> {
+    await settleBackgroundJobs(); // e.g. a password-reset mail queued by a request just answered
     await closeHeavyPool();
     await closeDb();
   },

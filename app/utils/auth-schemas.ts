@@ -54,9 +54,3 @@ export const SetDisabledSchema = z.object({
   intent: z.enum(["disable", "enable"]),
   userId: z.coerce.number().int().positive(),
 });
-
-/** Only same-site paths, never another origin or a protocol-relative URL. */
-export function safeRedirect(to: unknown, fallback = "/"): string {
-  if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
-  return to;
-}

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, beforeEach, expect, test } from "vitest";
 import { useFreshMigratedDatabase } from "../support/test-database";
 
 /*
- * Sessions, lockout and disabled accounts against the real MariaDB.
+ * Sessions and disabled accounts against the real MariaDB.
  * Reference for the session design: common practice for database sessions — the cookie holds a random token,
  * the database only its SHA-256, so a leaked table cannot be replayed.
  */
@@ -122,33 +122,7 @@ test("unknown address and wrong password get the same message", async () => {
   expect(unknown).toEqual({ ok: false, reason: "invalid", message: app.accounts.SIGN_IN_FAILED_MESSAGE });
 });
 
-test("five failures for one account lock it for 15 minutes, even with the right password", async () => {
-  for (let i = 0; i < 5; i++) {
-    const r = await app.accounts.signIn({ email: "eng@example.test", password: `wrong-${i}`, ipAddress: `10.3.0.${i}`, userAgent: null });
-    expect(r).toMatchObject({ ok: false, reason: "invalid" });
-  }
-  const locked = await app.accounts.signIn({ email: "eng@example.test", password: PASSWORD, ipAddress: "10.3.1.1", userAgent: null });
-  expect(locked).toMatchObject({ ok: false, reason: "locked" });
-  if (locked.ok || locked.reason !== "locked") throw new Error("expected a lock");
-  expect(locked.message).toMatch(/Too many failed sign-in attempts/);
-  expect(locked.retryAfterSeconds).toBeGreaterThan(14 * 60);
-  expect(locked.retryAfterSeconds).toBeLessThanOrEqual(15 * 60);
-
-  // Another account is not affected (different addresses).
-  expect(await app.accounts.signIn({ email: "other@example.test", password: PASSWORD, ipAddress: "10.3.2.1", userAgent: null })).toMatchObject({ ok: true });
-
-  // Once the failures are older than the window, the right password works again.
-  await sql("UPDATE sign_in_attempts SET created_at = created_at - INTERVAL 16 MINUTE");
-  expect(await app.accounts.signIn({ email: "eng@example.test", password: PASSWORD, ipAddress: "10.3.1.1", userAgent: null })).toMatchObject({ ok: true });
-});
-
-test("five failures from one client address lock that address for every account", async () => {
-  for (let i = 0; i < 5; i++) {
-    await app.accounts.signIn({ email: `guess${i}@example.test`, password: "wrong-password", ipAddress: "10.4.0.9", userAgent: null });
-  }
-  expect(await app.accounts.signIn({ email: "other@example.test", password: PASSWORD, ipAddress: "10.4.0.9", userAgent: null })).toMatchObject({ ok: false, reason: "locked" });
-  expect(await app.accounts.signIn({ email: "other@example.test", password: PASSWORD, ipAddress: "10.4.0.10", userAgent: null })).toMatchObject({ ok: true });
-});
+// Throttling (which replaced the lockout): tests/integration/sign-in-throttle.db.test.ts.
 
 test("password hashes are argon2id with the documented parameters", async () => {
   const hash = await app.password.hashPassword("some password");

@@ -4,6 +4,7 @@ import { getEnv } from "~/.server/env";
 import { problem } from "~/.server/http";
 import { apiAccess, type ApiOperation } from "~/utils/api-scopes";
 import { can, type Role } from "~/utils/permissions";
+import { noteCaller } from "~/.server/ops/request-store";
 import { RateLimiter } from "./rate-limit";
 import { verifyApiToken, type TokenCaller } from "./tokens";
 
@@ -46,6 +47,7 @@ export async function requireApiCaller(
     if (wait !== null) {
       throw problem(429, "rate_limited", `This token is over its budget of ${getEnv().API_RATE_LIMIT_PER_MINUTE} requests per minute; retry in ${wait} s.`, { headers: { "Retry-After": String(wait) } });
     }
+    noteCaller(`token:${token.tokenId}`);
     return { user, token };
   }
   if (!caller.user) {

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import { isLookupError } from "~/core/lookup";
 import { problem } from "~/.server/http";
+import { lookupPointsServed } from "~/.server/ops/metrics";
 import { runHeavyTimed, type HeavyRun } from "~/.server/workers/pool";
 import type { RevisionData } from "~/.server/samples/revision-data";
 import { BUILD_ID, finiteJson, refuseNonFinite } from "./respond";
@@ -82,6 +83,7 @@ export async function lookupResponse(
   } catch (error) {
     return refuseNonFinite(error);
   }
+  lookupPointsServed.inc({ outcome: "answered" }, body.points.length);
   const writeStarted = performance.now();
   const payload = `${head.slice(0, -1)},"results":${result.resultsJson}}`;
   const writeMs = performance.now() - writeStarted;

@@ -1,7 +1,9 @@
 import { recordAudit } from "~/.server/db/queries/audit";
-import { consumeLinkToken, createLinkToken, getUsableLinkToken } from "~/.server/db/queries/link-tokens";
-import { recentFailures, recordSignInAttempt } from "~/.server/db/queries/sign-in-attempts";
+import { consumeLinkToken, createLinkToken, createPasswordResetLink, getUsableLinkToken } from "~/.server/db/queries/link-tokens";
+import { countSentPasswordResets, recordPasswordResetRequest } from "~/.server/db/queries/password-reset-requests";
+import { deleteSignInAttempt, getSignInHistory, insertSignInAttempt, markSignInAttemptSucceeded } from "~/.server/db/queries/sign-in-attempts";
 import {
+  claimSignInAlert,
   createUser,
   getUserById,
   getUserCredentialsByEmail,
@@ -12,16 +14,19 @@ import {
 import { sendEmail } from "~/.server/email/send";
 import { invitationEmail } from "~/.server/email/templates/invitation";
 import { passwordResetEmail } from "~/.server/email/templates/password-reset";
+import { signInAlertEmail } from "~/.server/email/templates/sign-in-alert";
 import { getEnv } from "~/.server/env";
 import type { Role } from "~/utils/permissions";
+import { runInBackground } from "./background";
 import { hashPassword, verifyPassword } from "./password";
 import { createSession } from "./session";
+import { SIGN_IN_THROTTLE, signInWait, throttledMessage, type ThrottleReason } from "./sign-in-throttle";
 import { generateToken, hashToken } from "./tokens";
 
-export const LOCKOUT_MAX_FAILURES = 5;
-export const LOCKOUT_WINDOW_MS = 15 * 60 * 1000;
 export const INVITATION_TTL_MS = 72 * 60 * 60 * 1000;
 export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
+/** Quiet limits on reset messages (the answer on the page stays the same): per address and per client, per hour. */
+export const PASSWORD_RESET_LIMITS = { windowMs: 60 * 60 * 1000, perEmail: 3, perClient: 10 } as const;
 
 /** The one message for an unknown address and a wrong password, so neither gives the other away. */
 export const SIGN_IN_FAILED_MESSAGE = "The e-mail address or the password is not right.";
@@ -31,42 +36,62 @@ type RequestMeta = { ipAddress: string; userAgent: string | null };
 export type SignInResult =
   | { ok: true; userId: number; setCookie: string }
   | { ok: false; reason: "invalid"; message: string }
-  | { ok: false; reason: "locked"; message: string; retryAfterSeconds: number };
+  | { ok: false; reason: "throttled"; limit: ThrottleReason; message: string; retryAfterSeconds: number };
 
 // A real argon2id hash of a random string, so an unknown address costs as much time as a wrong password.
 let dummyHash: Promise<string> | undefined;
 
-export async function signIn(input: { email: string; password: string } & RequestMeta): Promise<SignInResult> {
+/**
+ * Checks the password unless the throttle (./sign-in-throttle.ts) says this client must wait first.
+ * `now` is the clock, injectable for tests; every time the throttle compares comes from it.
+ */
+export async function signIn(input: { email: string; password: string; now?: Date } & RequestMeta): Promise<SignInResult> {
   const email = normaliseEmail(input.email);
-  const now = Date.now();
-  const failures = await recentFailures(email, input.ipAddress, new Date(now - LOCKOUT_WINDOW_MS));
-  const lockedUntil = Math.max(
-    failures.byEmail >= LOCKOUT_MAX_FAILURES && failures.oldestByEmail ? failures.oldestByEmail.getTime() + LOCKOUT_WINDOW_MS : 0,
-    failures.byAddress >= LOCKOUT_MAX_FAILURES && failures.oldestByAddress ? failures.oldestByAddress.getTime() + LOCKOUT_WINDOW_MS : 0,
-  );
-  if (lockedUntil > now) {
-    const retryAfterSeconds = Math.ceil((lockedUntil - now) / 1000);
-    await recordAudit({ action: "sign_in_refused", details: { email, reason: "too many failed attempts" }, ipAddress: input.ipAddress });
-    return {
-      ok: false,
-      reason: "locked",
-      retryAfterSeconds,
-      message: `Too many failed sign-in attempts. For your security, signing in is paused; try again in ${Math.ceil(retryAfterSeconds / 60)} minute(s), or reset your password.`,
-    };
+  const now = input.now ?? new Date();
+  const attemptId = await insertSignInAttempt({ email, ipAddress: input.ipAddress, at: now });
+  const history = await getSignInHistory({
+    email,
+    ipAddress: input.ipAddress,
+    beforeId: attemptId,
+    pairSince: new Date(now.getTime() - SIGN_IN_THROTTLE.pair.windowMs),
+    windowSince: new Date(now.getTime() - SIGN_IN_THROTTLE.account.windowMs),
+    knownSince: new Date(now.getTime() - SIGN_IN_THROTTLE.knownClientMs),
+  });
+  const wait = signInWait(history, now);
+  if (wait.reason && wait.waitMs > 0) {
+    // A refused attempt checked no password, so it is not counted as a failure.
+    await deleteSignInAttempt(attemptId);
+    const retryAfterSeconds = Math.ceil(wait.waitMs / 1000);
+    await recordAudit({ action: "sign_in_refused", details: { email, limit: wait.reason, retryAfterSeconds }, ipAddress: input.ipAddress });
+    return { ok: false, reason: "throttled", limit: wait.reason, retryAfterSeconds, message: throttledMessage(wait.reason, retryAfterSeconds) };
   }
 
   const user = await getUserCredentialsByEmail(email);
   dummyHash ??= hashPassword(generateToken());
   const valid = await verifyPassword(user?.passwordHash ?? (await dummyHash), input.password);
   if (!user || !user.passwordHash || !valid || user.disabledAt) {
-    await recordSignInAttempt({ email, ipAddress: input.ipAddress, succeeded: false });
     await recordAudit({ action: "sign_in_failed", userId: user?.id ?? null, details: { email }, ipAddress: input.ipAddress });
+    const accountFailures = history.account.failures + 1;
+    if (user && !user.disabledAt && accountFailures >= SIGN_IN_THROTTLE.account.freeFailures) {
+      await warnOwnerOfAttack(user.id, email, accountFailures, now);
+    }
     return { ok: false, reason: "invalid", message: SIGN_IN_FAILED_MESSAGE };
   }
-  await recordSignInAttempt({ email, ipAddress: input.ipAddress, succeeded: true });
+  await markSignInAttemptSucceeded(attemptId);
   const { setCookie } = await createSession(user.id, input);
   await recordAudit({ action: "sign_in", userId: user.id, ipAddress: input.ipAddress });
   return { ok: true, userId: user.id, setCookie };
+}
+
+/** One message per alert window, whichever process gets there first; sent off the request path. */
+async function warnOwnerOfAttack(userId: number, email: string, failures: number, now: Date) {
+  if (!(await claimSignInAlert(userId, now, SIGN_IN_THROTTLE.alertWindowMs))) return;
+  const message = signInAlertEmail({
+    failures,
+    windowMinutes: SIGN_IN_THROTTLE.account.windowMs / 60_000,
+    accountUrl: `${getEnv().APP_BASE_URL}/account`,
+  });
+  runInBackground("sign-in alert e-mail", () => sendEmail({ to: email, ...message }));
 }
 
 export async function inviteUser(input: { inviterId: number; inviterName: string; email: string; role: Role; ipAddress: string }) {
@@ -108,22 +133,34 @@ export async function acceptInvitation(input: { token: string; name: string; pas
   return { ok: true, setCookie };
 }
 
-/** Always behaves the same for known and unknown addresses; only a known, enabled account gets a message. */
-export async function requestPasswordReset(input: { email: string; ipAddress: string }): Promise<void> {
+/**
+ * "Forgot password": returns at once and does the rest in the background, so the answer takes the same time
+ * whether or not the address has an account (no account enumeration: OWASP Forgot Password Cheat Sheet).
+ */
+export function requestPasswordReset(input: { email: string; ipAddress: string }): void {
+  runInBackground("password reset request", () => processPasswordResetRequest(input));
+}
+
+/**
+ * The work behind a reset request. Every request is recorded; a message goes only to a known, enabled account,
+ * and only while fewer than PASSWORD_RESET_LIMITS messages went to that address, or on requests from that client,
+ * in the window. A new link kills the older ones. Returns whether a message went out.
+ */
+export async function processPasswordResetRequest(input: { email: string; ipAddress: string; now?: Date }): Promise<{ sent: boolean }> {
   const email = normaliseEmail(input.email);
+  const now = input.now ?? new Date();
   const user = await getUserCredentialsByEmail(email);
-  await recordAudit({ action: "password_reset_requested", userId: user?.id ?? null, details: { email }, ipAddress: input.ipAddress });
-  if (!user || user.disabledAt) return;
+  const recent = await countSentPasswordResets({ email, ipAddress: input.ipAddress, since: new Date(now.getTime() - PASSWORD_RESET_LIMITS.windowMs) });
+  const limited = recent.toEmail >= PASSWORD_RESET_LIMITS.perEmail || recent.fromAddress >= PASSWORD_RESET_LIMITS.perClient;
+  const send = !!user && !user.disabledAt && !limited;
+  await recordPasswordResetRequest({ email, ipAddress: input.ipAddress, sent: send, at: now });
+  await recordAudit({ action: "password_reset_requested", userId: user?.id ?? null, details: { email, sent: send, ...(limited ? { limited } : {}) }, ipAddress: input.ipAddress });
+  if (!user || !send) return { sent: false };
   const token = generateToken();
-  await createLinkToken({
-    kind: "password_reset",
-    tokenHash: hashToken(token),
-    email,
-    userId: user.id,
-    expiresAt: new Date(Date.now() + PASSWORD_RESET_TTL_MS),
-  });
+  await createPasswordResetLink({ userId: user.id, email, tokenHash: hashToken(token), expiresAt: new Date(now.getTime() + PASSWORD_RESET_TTL_MS), now });
   const url = `${getEnv().APP_BASE_URL}/reset-password/${token}`;
-  await sendEmail({ to: email, ...passwordResetEmail({ url, expiresInMinutes: 60 }) });
+  await sendEmail({ to: email, ...passwordResetEmail({ url, expiresInMinutes: PASSWORD_RESET_TTL_MS / 60_000 }) });
+  return { sent: true };
 }
 
 export async function getPasswordReset(token: string) {

@@ -6,7 +6,7 @@ declare global {
 }
 
 /**
- * The client's network address, for lockout and the audit trail.
+ * The client's network address, for sign-in throttling and the audit trail.
  * Behind a reverse proxy (TRUST_PROXY=true) it is the first X-Forwarded-For entry; otherwise the TCP peer address
  * recorded by scripts/server.mjs, which strips any client-sent copy of its header.
  */

@@ -1,6 +1,7 @@
 import type { MiddlewareFunction } from "react-router";
 import { getEnv } from "~/.server/env";
 import { apiError, isApiPath } from "~/.server/http";
+import { noteCaller } from "~/.server/ops/request-store";
 import { clientAddress } from "./client-address";
 import { callerContext } from "./context";
 import { clearSessionCookie, readSessionToken, validateSessionToken } from "./session";
@@ -38,6 +39,7 @@ export const sessionMiddleware: MiddlewareFunction<Response> = async ({ request,
   const token = await readSessionToken(request);
   const session = token ? await validateSessionToken(token) : null;
   context.set(callerContext, { user: session?.user ?? null, sessionId: session?.sessionId ?? null, ipAddress });
+  if (session?.user) noteCaller(`user:${session.user.id}`);
   const response = await next();
   let setCookie: string | null = null;
   if (session?.renewedCookie) setCookie = session.renewedCookie;

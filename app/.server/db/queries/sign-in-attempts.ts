@@ -1,39 +1,62 @@
-import { and, asc, count, desc, eq, gt, min } from "drizzle-orm";
+import { and, count, eq, gt, lt, max } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { signInAttempts } from "../schema";
 
-export async function recordSignInAttempt(
-  input: { email: string; ipAddress: string; succeeded: boolean },
+/**
+ * Writes an attempt as a failure before the password is checked, so that concurrent guesses (in this process
+ * or another) count each other; `markSignInAttemptSucceeded` flips it, `deleteSignInAttempt` drops a refused one.
+ */
+export async function insertSignInAttempt(
+  input: { email: string; ipAddress: string; at: Date },
   db: Executor = getDb(),
-) {
-  await db.insert(signInAttempts).values(input);
+): Promise<number> {
+  const [row] = await db
+    .insert(signInAttempts)
+    .values({ email: input.email, ipAddress: input.ipAddress, succeeded: false, createdAt: input.at })
+    .$returningId();
+  if (!row) throw new Error("sign-in attempt insert returned no id");
+  return row.id;
 }
 
+export async function markSignInAttemptSucceeded(id: number, db: Executor = getDb()) {
+  await db.update(signInAttempts).set({ succeeded: true }).where(eq(signInAttempts.id, id));
+}
+
+export async function deleteSignInAttempt(id: number, db: Executor = getDb()) {
+  await db.delete(signInAttempts).where(eq(signInAttempts.id, id));
+}
+
+export type FailureCount = { failures: number; lastFailureAt: Date | null };
+
 /**
- * Failed attempts within the window: for the account (only those after its last successful sign-in)
- * and for the client address. Returns the counts and when the oldest counted failure leaves the window.
+ * What the throttle needs about the attempts recorded before attempt `beforeId`:
+ * failures of this (account, client address) pair since its last success and `pairSince`; failures of the account
+ * from any address, and of the address for any account, since `windowSince`; whether this address has signed in
+ * to this account since `knownSince` (a known client).
  */
-export async function recentFailures(email: string, ipAddress: string, since: Date, db: Executor = getDb()) {
-  const [lastSuccess] = await db
-    .select({ at: signInAttempts.createdAt })
+export async function getSignInHistory(
+  input: { email: string; ipAddress: string; beforeId: number; pairSince: Date; windowSince: Date; knownSince: Date },
+  db: Executor = getDb(),
+): Promise<{ pair: FailureCount; account: FailureCount; address: FailureCount; knownClient: boolean }> {
+  const before = lt(signInAttempts.id, input.beforeId);
+  const pairMatch = and(eq(signInAttempts.email, input.email), eq(signInAttempts.ipAddress, input.ipAddress), before);
+  const [lastPairSuccess] = await db
+    .select({ at: max(signInAttempts.createdAt) })
     .from(signInAttempts)
-    .where(and(eq(signInAttempts.email, email), eq(signInAttempts.succeeded, true), gt(signInAttempts.createdAt, since)))
-    .orderBy(desc(signInAttempts.createdAt))
-    .limit(1);
-  const accountSince = lastSuccess ? lastSuccess.at : since;
-  const [byEmail] = await db
-    .select({ n: count(), oldest: min(signInAttempts.createdAt) })
-    .from(signInAttempts)
-    .where(and(eq(signInAttempts.email, email), eq(signInAttempts.succeeded, false), gt(signInAttempts.createdAt, accountSince)));
-  const byAddress = await db
-    .select({ at: signInAttempts.createdAt })
-    .from(signInAttempts)
-    .where(and(eq(signInAttempts.ipAddress, ipAddress), eq(signInAttempts.succeeded, false), gt(signInAttempts.createdAt, since)))
-    .orderBy(asc(signInAttempts.createdAt));
+    .where(and(pairMatch, eq(signInAttempts.succeeded, true)));
+  const successAt = lastPairSuccess?.at ? new Date(lastPairSuccess.at) : null;
+  const pairSince = successAt && successAt > input.pairSince ? successAt : input.pairSince;
+  const failuresWhere = async (where: ReturnType<typeof and>, since: Date): Promise<FailureCount> => {
+    const [row] = await db
+      .select({ n: count(), last: max(signInAttempts.createdAt) })
+      .from(signInAttempts)
+      .where(and(where, eq(signInAttempts.succeeded, false), gt(signInAttempts.createdAt, since)));
+    return { failures: row?.n ?? 0, lastFailureAt: row?.last ? new Date(row.last) : null };
+  };
   return {
-    byEmail: byEmail?.n ?? 0,
-    oldestByEmail: byEmail?.oldest ? new Date(byEmail.oldest) : null,
-    byAddress: byAddress.length,
-    oldestByAddress: byAddress[0]?.at ?? null,
+    pair: await failuresWhere(pairMatch, pairSince),
+    account: await failuresWhere(and(eq(signInAttempts.email, input.email), before), input.windowSince),
+    address: await failuresWhere(and(eq(signInAttempts.ipAddress, input.ipAddress), before), input.windowSince),
+    knownClient: !!successAt && successAt > input.knownSince,
   };
 }

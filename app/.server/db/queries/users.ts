@@ -1,6 +1,7 @@
-import { and, asc, eq, ne } from "drizzle-orm";
+import { and, asc, eq, isNull, lt, ne, or, sql } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { sessions, users, type Role } from "../schema";
+import { voidPasswordResetLinks } from "./link-tokens";
 
 const PUBLIC_COLUMNS = {
   id: users.id,
@@ -71,7 +72,10 @@ export async function setUserDisabled(id: number, disabled: boolean, db: Executo
   });
 }
 
-/** Sets a new password hash and ends every other session of the user (all of them when keepSessionId is null). */
+/**
+ * Sets a new password hash, ends every other session of the user (all of them when keepSessionId is null) and
+ * kills any live reset link, in one transaction.
+ */
 export async function updateUserPassword(
   id: number,
   passwordHash: string,
@@ -83,5 +87,18 @@ export async function updateUserPassword(
     await tx
       .delete(sessions)
       .where(keepSessionId ? and(eq(sessions.userId, id), ne(sessions.id, keepSessionId)) : eq(sessions.userId, id));
+    await voidPasswordResetLinks(id, new Date(), tx);
   });
+}
+
+/**
+ * Claims the right to warn the owner that their account is under attack: true for the one caller (in any
+ * process) that finds no warning sent within the last `windowMs`, false for everyone else.
+ */
+export async function claimSignInAlert(id: number, now: Date, windowMs: number, db: Executor = getDb()): Promise<boolean> {
+  const [result] = await db
+    .update(users)
+    .set({ signInAlertAt: now, updatedAt: sql`${users.updatedAt}` })
+    .where(and(eq(users.id, id), or(isNull(users.signInAlertAt), lt(users.signInAlertAt, new Date(now.getTime() - windowMs)))));
+  return result.affectedRows === 1;
 }

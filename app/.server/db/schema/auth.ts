@@ -17,6 +17,8 @@ export const users = mysqlTable(
     passwordHash: varchar("password_hash", { length: 255 }),
     unitSystem: mysqlEnum("unit_system", UNIT_SYSTEMS).notNull().default("field"),
     disabledAt: timestamp("disabled_at", { fsp: 3, mode: "date" }),
+    /** When the owner was last told that their account is under attack (at most one message per window). */
+    signInAlertAt: timestamp("sign_in_alert_at", { fsp: 3, mode: "date" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -109,7 +111,10 @@ export const linkTokens = mysqlTable(
   (t) => [uniqueIndex("link_tokens_token_hash_unique").on(t.tokenHash), index("link_tokens_email_idx").on(t.email)],
 );
 
-/** Every sign-in attempt, for lockout after repeated failures and for the audit trail. */
+/**
+ * Every sign-in attempt, for throttling and for the audit trail. A row is written (as a failure) before the
+ * password is checked, so concurrent guesses see each other; a success then flips it.
+ */
 export const signInAttempts = mysqlTable(
   "sign_in_attempts",
   {
@@ -122,6 +127,24 @@ export const signInAttempts = mysqlTable(
   (t) => [
     index("sign_in_attempts_email_created_at_idx").on(t.email, t.createdAt),
     index("sign_in_attempts_ip_address_created_at_idx").on(t.ipAddress, t.createdAt),
+    index("sign_in_attempts_email_ip_address_created_at_idx").on(t.email, t.ipAddress, t.createdAt),
+  ],
+);
+
+/** Every "forgot password" request, known address or not, for the quiet per-address and per-client limits. */
+export const passwordResetRequests = mysqlTable(
+  "password_reset_requests",
+  {
+    id: id(),
+    email: varchar("email", { length: 254 }).notNull(),
+    ipAddress: varchar("ip_address", { length: 64 }).notNull(),
+    /** Whether a message went out (a known, enabled account within the limits). */
+    sent: boolean("sent").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("password_reset_requests_email_created_at_idx").on(t.email, t.createdAt),
+    index("password_reset_requests_ip_address_created_at_idx").on(t.ipAddress, t.createdAt),
   ],
 );
 

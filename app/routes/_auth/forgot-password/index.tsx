@@ -20,7 +20,7 @@ export async function action(args: Route.ActionArgs) {
   requireAnonymous(args);
   const form = await parseForm(args.request, ForgotPasswordSchema);
   if (!form.ok) return badRequest({ errors: form.errors });
-  await requestPasswordReset({ email: form.data.email, ipAddress: getCaller(args).ipAddress });
+  requestPasswordReset({ email: form.data.email, ipAddress: getCaller(args).ipAddress });
   return { errors: {}, sent: SENT };
 }
 

@@ -3,10 +3,17 @@ import { signIn } from "~/.server/auth/accounts";
 import { getCaller, requireAnonymous } from "~/.server/auth/guards";
 import { badRequest, parseForm } from "~/.server/forms";
 import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
-import { safeRedirect, SignInSchema } from "~/utils/auth-schemas";
+import { SignInSchema } from "~/utils/auth-schemas";
+import { safeRedirect } from "~/utils/safe-redirect";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Isopleth" }];
+
+/** Passes the action's Retry-After (on a 429) through to the document response. */
+export const headers: Route.HeadersFunction = ({ actionHeaders }) => {
+  const retryAfter = actionHeaders.get("Retry-After");
+  return retryAfter ? { "Retry-After": retryAfter } : new Headers();
+};
 
 export async function loader(args: Route.LoaderArgs) {
   requireAnonymous(args);
@@ -23,12 +30,10 @@ export async function action(args: Route.ActionArgs) {
     ipAddress: getCaller(args).ipAddress,
     userAgent: args.request.headers.get("User-Agent"),
   });
-  if (!result.ok) {
-    return data(
-      { errors: {}, formError: result.message },
-      { status: result.reason === "locked" ? 429 : 401, headers: result.reason === "locked" ? { "Retry-After": String(result.retryAfterSeconds) } : undefined },
-    );
+  if (!result.ok && result.reason === "throttled") {
+    return data({ errors: {}, formError: result.message }, { status: 429, headers: { "Retry-After": String(result.retryAfterSeconds) } });
   }
+  if (!result.ok) return data({ errors: {}, formError: result.message }, { status: 401 });
   return redirect(safeRedirect(form.data.redirectTo), { headers: { "Set-Cookie": result.setCookie } });
 }
 
@@ -41,7 +46,7 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
       <h1 className="text-xl font-bold">Sign in</h1>
       <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate>
         <FormAlert message={actionData?.formError} />
-        <input type="hidden" name="redirectTo" value={params.get("redirectTo") ?? "/"} />
+        <input type="hidden" name="redirectTo" value={safeRedirect(params.get("redirectTo"))} />
         <TextField label="E-mail address" name="email" type="email" autoComplete="username" required errors={errors.email} autoFocus />
         <TextField label="Password" name="password" type="password" autoComplete="current-password" required errors={errors.password} />
         <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>

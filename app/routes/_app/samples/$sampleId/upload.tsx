@@ -8,6 +8,8 @@ import { requireSample } from "~/.server/samples/params";
 import { presentFindings } from "~/.server/samples/present";
 import { buildPreview } from "~/.server/samples/preview";
 import { describeStoreFailure } from "~/.server/samples/store-failure";
+import { logger } from "~/.server/ops/logger";
+import { uploadsByOutcome } from "~/.server/ops/metrics";
 import { megabytes, readCappedFormData } from "~/.server/samples/upload";
 import { uploadGuide } from "~/.server/samples/upload-guide";
 import { Button, FieldError, FormAlert, useZodForm, type FieldErrors } from "~/components/form";
@@ -136,6 +138,7 @@ export async function action(args: Route.ActionArgs) {
   const file = basic.data.file;
   const checked = await checkUpload({ name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) }, sample);
   if (!checked.ok) {
+    if (basic.data.intent === "confirm") uploadsByOutcome.inc({ outcome: "refused" });
     return data<ActionResult>(
       {
         kind: "refused",
@@ -174,7 +177,8 @@ export async function action(args: Route.ActionArgs) {
     });
   } catch (error) {
     const failure = describeStoreFailure(error, nextNumber);
-    console.error(`upload of ${checked.fileName} to sample ${sample.id} not stored (${failure.kind}, ${failure.log})`);
+    uploadsByOutcome.inc({ outcome: "failed" });
+    logger.error({ sampleId: sample.id, failure: failure.kind, cause: failure.log }, "upload not stored");
     return data<ActionResult>({ kind: "store_failed", preview, identical, comment, formError: failure.message }, { status: failure.status });
   }
   if (!outcome.ok) {
@@ -183,6 +187,7 @@ export async function action(args: Route.ActionArgs) {
     const text = `${identicalText(now)} Nothing was stored. Tick “Store it anyway” to keep it as a new revision.`;
     return data<ActionResult>({ kind: "preview", preview, identical: now, comment, formError: text, errors: { storeIdentical: [text] } }, { status: 409 });
   }
+  uploadsByOutcome.inc({ outcome: "stored" });
   throw redirect(`${href("/samples/:sampleId/revisions/:number", { sampleId: String(sample.id), number: String(outcome.number) })}?stored=1`);
 }
 
