@@ -36,7 +36,7 @@ let server: ChildProcess | null = null;
 process.on("exit", () => server?.kill("SIGKILL"));
 
 async function startServer(inline: boolean) {
-  server = spawn("node", ["--import", "./scripts/serve-hooks.mjs", "node_modules/@react-router/serve/bin.js", "./build/server/index.js"], {
+  server = spawn("node", ["scripts/server.mjs", "build/server/index.js"], {
     env: {
       ...process.env,
       NODE_ENV: "production",
