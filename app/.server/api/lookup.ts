@@ -8,22 +8,18 @@ import { BUILD_ID, finiteJson, refuseNonFinite } from "./respond";
 import { isApprovedStatus } from "./samples";
 import type { LookupBody } from "./schemas";
 
+/** A validated lookup request: the body's fields, its points as two columns (pressure, temperature). */
+export type LookupRequest = Omit<LookupBody, "points"> & { pressures: Float64Array; temperatures: Float64Array };
+
 /**
  * Runs a validated lookup against a revision (in a worker thread when large: app/.server/workers) and gives
  * the API response's parts, the results already serialised (or a problem).
  */
-export async function computeLookup(data: RevisionData, body: LookupBody): Promise<HeavyRun<"api-lookup"> | Response> {
+export async function computeLookup(data: RevisionData, body: LookupRequest): Promise<HeavyRun<"api-lookup"> | Response> {
   const grid = data.grids[body.property];
   if (!grid) return problem(404, "property_not_measured", `Revision ${data.number} has no ${body.property} grid.`);
   try {
-    // A plain loop: Float64Array.from with a mapping function is tens of times slower for 100,000 points.
-    const n = body.points.length;
-    const pressures = new Float64Array(n);
-    const temperatures = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      pressures[i] = body.points[i]!.pressure;
-      temperatures[i] = body.points[i]!.temperature;
-    }
+    const { pressures, temperatures } = body;
     return await runHeavyTimed("api-lookup", { grid, pressures, temperatures, options: {
       property: body.property,
       method: body.method,
@@ -52,10 +48,10 @@ export async function lookupResponse(
   request: Request,
   sampleId: number,
   data: RevisionData,
-  body: LookupBody,
-  startedAt = performance.now(),
-  readMs = 0,
-  bodyText?: string,
+  body: LookupRequest,
+  startedAt: number,
+  readMs: number,
+  bodyText: string,
 ): Promise<Response> {
   const computeStarted = performance.now();
   const run = await computeLookup(data, body);
@@ -83,12 +79,12 @@ export async function lookupResponse(
   } catch (error) {
     return refuseNonFinite(error);
   }
-  lookupPointsServed.inc({ outcome: "answered" }, body.points.length);
+  lookupPointsServed.inc({ outcome: "answered" }, body.pressures.length);
   const writeStarted = performance.now();
   const payload = `${head.slice(0, -1)},"results":${result.resultsJson}}`;
   const writeMs = performance.now() - writeStarted;
   const etagStarted = performance.now();
-  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${data.status}|`).update(bodyText ?? JSON.stringify(body)).digest("base64url")}"`;
+  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${data.status}|`).update(bodyText).digest("base64url")}"`;
   const etagMs = performance.now() - etagStarted;
   return new Response(payload, {
     status: 200,

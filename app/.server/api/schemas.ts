@@ -1,5 +1,6 @@
 import { extendZodWithOpenApi, OpenAPIRegistry } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
+import { pointColumns } from "~/core/lookup";
 import { PROPERTY_KEYS } from "~/core/units";
 
 extendZodWithOpenApi(z);
@@ -79,35 +80,22 @@ export type LookupBody = z.infer<typeof LookupBody>;
  */
 const LookupHead = LookupBody.omit({ points: true }).extend({ points: z.array(z.unknown()).min(1).max(MAX_LOOKUP_POINTS) });
 
-/** A received value in a few words, never more than ~40 characters of it (no deep walk, no echo). */
-function describeValue(v: unknown): string {
-  if (v === undefined) return "nothing";
-  if (v === null) return "null";
-  if (Array.isArray(v)) return "a list";
-  if (typeof v === "object") return "an object";
-  const text = JSON.stringify(v);
-  return text.length <= 40 ? text : `${text.slice(0, 24)}… (${text.length} characters)`;
+type Issues = { path: (string | number)[]; message: string }[];
+
+/** Validates everything of a lookup body but its points (checked by pointColumns); `count` points were sent. */
+export function parseLookupHead(head: Record<string, unknown>, count: number): { success: true; data: Omit<LookupBody, "points"> } | { success: false; issues: Issues } {
+  const input = "points" in head ? head : { ...head, points: new Array<undefined>(count) };
+  const parsed = LookupHead.safeParse(input);
+  if (!parsed.success) return { success: false, issues: zodIssues(parsed.error) };
+  const { points: _points, ...data } = parsed.data;
+  return { success: true, data };
 }
 
-export function parseLookupBody(input: unknown): { success: true; data: LookupBody } | { success: false; issues: { path: (string | number)[]; message: string }[] } {
+export function parseLookupBody(input: unknown): { success: true; data: LookupBody } | { success: false; issues: Issues } {
   const head = LookupHead.safeParse(input);
   if (!head.success) return { success: false, issues: zodIssues(head.error) };
-  const issues: { path: (string | number)[]; message: string }[] = [];
-  const points = head.data.points;
-  for (let i = 0; i < points.length && issues.length < 20; i++) {
-    const p = points[i] as Record<string, unknown> | null;
-    if (typeof p !== "object" || p === null || Array.isArray(p)) {
-      issues.push({ path: ["points", i], message: "Expected an object { pressure, temperature }." });
-      continue;
-    }
-    for (const key of ["pressure", "temperature"] as const) {
-      const v = p[key];
-      if (typeof v !== "number" || !Number.isFinite(v)) issues.push({ path: ["points", i, key], message: `Expected a finite number, received ${describeValue(v)}.` });
-    }
-    const extra = Object.keys(p).filter((key) => key !== "pressure" && key !== "temperature");
-    if (extra.length) issues.push({ path: ["points", i], message: `Unrecognized key${extra.length > 1 ? "s" : ""}: ${extra.slice(0, 5).map((k) => describeValue(k)).join(", ")}` });
-  }
-  if (issues.length) return { success: false, issues };
+  const columns = pointColumns(head.data.points);
+  if (!columns.ok) return { success: false, issues: columns.issues };
   return { success: true, data: head.data as LookupBody };
 }
 

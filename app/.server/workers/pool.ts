@@ -31,6 +31,9 @@ export type { HeavyInput, HeavyOutput, HeavyTask } from "./tasks";
  */
 export const MIN_WORKER_SIZE: Readonly<Record<HeavyTask, number>> = Object.freeze({
   "api-lookup": 2_000, // points
+  // characters of JSON: 256 kB is about 7,000 points, whose JSON.parse and check take some 5–10 ms inline; the
+  // 3.5 MB of 100,000 points take 70–200 ms, which is what kept health waiting behind large lookups.
+  "read-lookup-body": 256 * 1024,
   lookup: 2_000, // points
   table: 500, // rows (pressures)
   "check-upload": 1, // bytes: every upload
@@ -41,6 +44,8 @@ export function jobSize<T extends HeavyTask>(task: T, input: HeavyInput<T>): num
   switch (task) {
     case "api-lookup":
       return (input as HeavyInput<"api-lookup">).pressures.length;
+    case "read-lookup-body":
+      return (input as HeavyInput<"read-lookup-body">).text.length;
     case "lookup": {
       const points = (input as HeavyInput<"lookup">).points;
       return "pressures" in points ? points.pressures.length : points.length;

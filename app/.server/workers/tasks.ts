@@ -11,7 +11,7 @@
 import type { Grid } from "~/core/interpolation";
 import { parseUpload, runQc, type Finding, type ParsedDataset, type PropertyGrid, type QcMeta } from "~/core/lab-data";
 import { isLabDataError, LabDataError, type LabDataErrorCode } from "~/core/lab-data";
-import { isLookupError, LookupError, runLookup, type LookupErrorCode, type LookupOptions, type LookupPoints, type LookupResult } from "~/core/lookup";
+import { isLookupError, LookupError, readLookupText, runLookup, type LookupErrorCode, type LookupOptions, type LookupPoints, type LookupResult, type LookupText } from "~/core/lookup";
 import { buildBlackOilTable, isTableError, TableError, type BlackOilTable, type BlackOilTableInput, type TableErrorCode } from "~/core/tables";
 
 /** The API lookup: points as two columns (Float64Array, transferred, not copied), the answer as JSON text. */
@@ -45,6 +45,8 @@ export type CheckUploadOutput =
 /** Every heavy task: its input and its output. */
 export type HeavyTasks = {
   "api-lookup": { input: ApiLookupInput; output: ApiLookupOutput };
+  /** A lookup request's JSON text parsed, bounded and its points checked into columns (readLookupText). */
+  "read-lookup-body": { input: { text: string; maxDepth: number }; output: LookupText };
   lookup: { input: { grid: Grid; points: LookupPoints; options: LookupOptions }; output: LookupResult };
   table: { input: BlackOilTableInput; output: BlackOilTable };
   "check-upload": { input: CheckUploadInput; output: CheckUploadOutput };
@@ -53,7 +55,7 @@ export type HeavyTask = keyof HeavyTasks;
 export type HeavyInput<T extends HeavyTask> = HeavyTasks[T]["input"];
 export type HeavyOutput<T extends HeavyTask> = HeavyTasks[T]["output"];
 
-export const HEAVY_TASKS: readonly HeavyTask[] = ["api-lookup", "lookup", "table", "check-upload"];
+export const HEAVY_TASKS: readonly HeavyTask[] = ["api-lookup", "read-lookup-body", "lookup", "table", "check-upload"];
 
 const TASKS: { [T in HeavyTask]: (input: HeavyInput<T>) => HeavyOutput<T> | Promise<HeavyOutput<T>> } = {
   "api-lookup": ({ grid, pressures, temperatures, options }) => {
@@ -65,6 +67,7 @@ const TASKS: { [T in HeavyTask]: (input: HeavyInput<T>) => HeavyOutput<T> | Prom
       resultsJson: serialiseResults(result.results),
     };
   },
+  "read-lookup-body": ({ text, maxDepth }) => readLookupText(text, maxDepth),
   lookup: ({ grid, points, options }) => runLookup(grid, points, options),
   table: (input) => buildBlackOilTable(input),
   "check-upload": async ({ filename, bytes, meta }) => {

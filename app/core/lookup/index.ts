@@ -40,3 +40,5 @@ export {
 export type { LookupWarning } from "./warnings";
 export { affineToCanonical, fromCanonicalWith, LOOKUP_UNITS, PROPERTY_NAMES, toCanonicalWith, unitLabel, unitSystemOf } from "./unit-map";
 export type { Affine, LookupUnits, UnitLabel } from "./unit-map";
+export { describeValue, nestedDeeperThan, pointColumns, readLookupText } from "./point-columns";
+export type { LookupText, PointColumns, PointIssue } from "./point-columns";

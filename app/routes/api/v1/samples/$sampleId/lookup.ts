@@ -1,10 +1,11 @@
-import { readJsonBodyWithText } from "~/.server/api/body";
+import { MAX_JSON_DEPTH, readJsonText } from "~/.server/api/body";
 import { requireApiCaller } from "~/.server/api/caller";
 import { lookupResponse } from "~/.server/api/lookup";
 import { parseApiPath, parseApiQuery } from "~/.server/api/request";
-import { NoQuery, parseLookupBody, SampleIdParams } from "~/.server/api/schemas";
+import { NoQuery, parseLookupHead, SampleIdParams } from "~/.server/api/schemas";
 import { requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
 import { problem } from "~/.server/http";
+import { runHeavy } from "~/.server/workers/pool";
 import type { Route } from "./+types/lookup";
 
 /** POST /api/v1/samples/:sampleId/lookup — interpolate one property at up to 100,000 conditions. */
@@ -14,13 +15,17 @@ export async function action(args: Route.ActionArgs) {
   const caller = await requireApiCaller(args, "lookup");
   const { sampleId } = parseApiPath(args.params, SampleIdParams);
   parseApiQuery(args.request, NoQuery);
-  const { value: raw, text } = await readJsonBodyWithText(args.request);
+  const text = await readJsonText(args.request);
+  // Parsing and checking a large body (3.5 MB for 100,000 points) runs in a worker thread, off the event loop.
+  const read = await runHeavy("read-lookup-body", { text, maxDepth: MAX_JSON_DEPTH });
   const readMs = performance.now() - startedAt;
-  const body = parseLookupBody(raw);
-  if (!body.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: body.issues });
+  if (!read.ok) return problem(400, "invalid_body", read.message, read.issues ? { issues: read.issues } : undefined);
+  const head = parseLookupHead(read.head, read.count);
+  if (!head.success) return problem(400, "invalid_body", "The lookup request is not valid; see issues.", { issues: head.issues });
   const sample = await requireSampleForCaller(caller, sampleId);
-  const data = await requireRevisionData(caller, sample, body.data.revision);
-  return lookupResponse(args.request, sample.id, data, body.data, startedAt, readMs, text);
+  const data = await requireRevisionData(caller, sample, head.data.revision);
+  const body = { ...head.data, pressures: read.pressures, temperatures: read.temperatures };
+  return lookupResponse(args.request, sample.id, data, body, startedAt, readMs, text);
 }
 
 export async function loader() {
