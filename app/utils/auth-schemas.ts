@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { labelSchema } from "./labels";
 import { ROLES } from "./permissions";
 
 /** Form schemas shared by the browser (checked before submitting) and the server (checked again in actions). */
@@ -9,7 +10,7 @@ const newPassword = z
   .string()
   .min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters.`)
   .max(200, "Use at most 200 characters.");
-const name = z.string().trim().min(1, "Enter your name.").max(120, "Use at most 120 characters.");
+const name = labelSchema("name", 120, true, "Enter your name.");
 
 export const SignInSchema = z.object({
   email,

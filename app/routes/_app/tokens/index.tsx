@@ -10,6 +10,7 @@ import { badRequest, readFormData } from "~/.server/forms";
 import { Button, FieldError, FormAlert, TextField } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { API_SCOPE_RULES, API_SCOPES, SCOPE_LABELS } from "~/utils/api-scopes";
+import { labelSchema } from "~/utils/labels";
 import { can, ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -17,7 +18,7 @@ export const meta: Route.MetaFunction = () => [{ title: "API tokens · Isopleth"
 
 const CreateSchema = z.object({
   intent: z.literal("create"),
-  name: z.string().trim().min(1, "Give the token a name, e.g. the model or script that uses it.").max(120),
+  name: labelSchema("token name", 120, true, "Give the token a name, e.g. the model or script that uses it."),
   scopes: z.array(z.enum(API_SCOPES)).min(1, "Choose at least one scope."),
   fieldIds: z.array(z.coerce.number().int().positive()),
   sampleIds: z.array(z.coerce.number().int().positive()),
