@@ -50,3 +50,13 @@ test("bad values are reported by name: port out of range, short secret, non-MySQ
 test("empty strings count as unset", () => {
   expect(parseEnv({ PORT: "", HOST: "" }).PORT).toBe(3000);
 });
+
+test("production: a missing secret is named even when another variable is also bad", () => {
+  let problems: string[] = [];
+  try {
+    parseEnv({ NODE_ENV: "production", DATABASE_URL: "mysql://u:p@127.0.0.1:3316/x", APP_BASE_URL: "https://isopleth.example", API_TOKEN_SECRET: "short", DATABASE_POOL_SIZE: "zero" });
+  } catch (error) {
+    problems = (error as EnvError).problems;
+  }
+  expect(problems.map((p) => p.split(":")[0]).sort()).toEqual(["API_TOKEN_SECRET", "DATABASE_POOL_SIZE", "SESSION_SECRET"]);
+});

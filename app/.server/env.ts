@@ -5,6 +5,7 @@ import { z } from "zod";
  * Development and test get safe defaults; production must state its secrets, database and mail server.
  */
 const Port = z.coerce.number().int().min(1).max(65535);
+const PRODUCTION_REQUIRED = ["DATABASE_URL", "SESSION_SECRET", "API_TOKEN_SECRET", "APP_BASE_URL"] as const;
 
 const EnvSchema = z
   .object({
@@ -60,8 +61,7 @@ const EnvSchema = z
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV !== "production") return;
-    const required = ["DATABASE_URL", "SESSION_SECRET", "API_TOKEN_SECRET", "APP_BASE_URL"] as const;
-    for (const key of required) {
+    for (const key of PRODUCTION_REQUIRED) {
       if (!env[key]) {
         ctx.addIssue({ code: "custom", path: [key], message: "is required when NODE_ENV=production" });
       }
@@ -93,9 +93,14 @@ export function parseEnv(source: Record<string, string | undefined>): Env {
   const cleaned = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ""));
   const result = EnvSchema.safeParse(cleaned);
   if (!result.success) {
-    throw new EnvError(
-      result.error.issues.map((issue) => `${issue.path.join(".") || "(environment)"}: ${issue.message}`),
-    );
+    const problems = result.error.issues.map((issue) => `${issue.path.join(".") || "(environment)"}: ${issue.message}`);
+    // zod skips the production check when another variable is already bad: name the missing ones as well.
+    if (cleaned.NODE_ENV === "production") {
+      for (const key of PRODUCTION_REQUIRED) {
+        if (!cleaned[key] && !problems.some((p) => p.startsWith(`${key}:`))) problems.push(`${key}: is required when NODE_ENV=production`);
+      }
+    }
+    throw new EnvError(problems);
   }
   const env = result.data;
   const baseUrl = env.APP_BASE_URL ?? `http://${env.HOST}:${env.PORT}`;

@@ -1,7 +1,7 @@
 import { spawn } from "node:child_process";
 import { expect, test } from "@playwright/test";
 import { SERVER_ARGS, startAppServer, waitForHealth } from "../support/app-server";
-import { APP_PORT, APP_SERVER_ENV, signIn } from "../support/e2e";
+import { APP_PORT, APP_SERVER_ENV, APP_URL, signIn } from "../support/e2e";
 
 /*
  * Operating the production server: security headers on every response (OWASP Secure Headers Project;
@@ -39,7 +39,7 @@ test("every response carries the security headers; pages run scripts by nonce on
     if (/Content Security Policy/i.test(m.text())) violations.push(m.text());
   });
   await signIn(page, "engineer");
-  await page.getByRole("link", { name: "Lookup" }).click();
+  await page.getByRole("link", { name: "Lookup", exact: true }).click();
   await expect(page).toHaveURL(/\/lookup/);
   expect(violations).toEqual([]);
 });
@@ -57,7 +57,7 @@ test("error pages speak to people: 403 says what happened, unknown addresses and
   await expect(page.getByText(/No route matches/)).toHaveCount(0);
   await expect(page.getByRole("link", { name: "Back to Isopleth" })).toBeVisible();
 
-  const notAllowed = await page.request.fetch("/api/health", { method: "DELETE" });
+  const notAllowed = await page.request.fetch("/api/health", { method: "DELETE", headers: { Origin: APP_URL } });
   expect(notAllowed.status()).toBe(405);
   expect(notAllowed.headers()["content-type"]).toContain("application/problem+json");
   const header = await page.request.get("/api/v1/samples", { headers: { "X-Big": "x".repeat(20_000) } });
