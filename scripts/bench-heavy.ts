@@ -36,7 +36,9 @@ let server: ChildProcess | null = null;
 process.on("exit", () => server?.kill("SIGKILL"));
 
 async function startServer(inline: boolean) {
-  server = spawn("node", ["scripts/server.mjs", "build/server/index.js"], {
+  // BENCH_NODE_ARGS="--cpu-prof --cpu-prof-dir=/tmp/prof" profiles the server (written when it stops).
+  const nodeArgs = (process.env.BENCH_NODE_ARGS ?? "").split(" ").filter(Boolean);
+  server = spawn("node", [...nodeArgs, "scripts/server.mjs", "build/server/index.js"], {
     env: {
       ...process.env,
       NODE_ENV: "production",
@@ -110,7 +112,9 @@ async function upload(cookie: string): Promise<{ ms: number; status: number }> {
   form.set("intent", "preview");
   form.set("file", new File([uploadCsv], "invented-300-pressures.csv", { type: "text/csv" }));
   const started = performance.now();
-  const r = await fetch(`${BASE}/samples/${sampleId}/upload`, { method: "POST", headers: { Origin: BASE, Cookie: cookie }, body: form });
+  // As the browser's form submits it (React Router's data request: the action's data, no page render). A form
+  // posted without JavaScript also renders the whole preview page on the server (see the closing note).
+  const r = await fetch(`${BASE}/samples/${sampleId}/upload.data`, { method: "POST", headers: { Origin: BASE, Cookie: cookie }, body: form });
   const text = await r.text();
   if (r.ok && !text.includes("invented-300-pressures.csv")) throw new Error("the upload preview does not name the file");
   return { ms: performance.now() - started, status: r.status };

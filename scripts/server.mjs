@@ -77,7 +77,20 @@ const routeTree = (() => {
   return make(undefined);
 })();
 
+// matchRoutes flattens and compiles the route table on every call (milliseconds under load), so labels are
+// remembered per path; the map is emptied when it grows past a bound (paths with ids are many, routes few).
+const routeLabels = new Map();
 function routeOf(pathname) {
+  let label = routeLabels.get(pathname);
+  if (label === undefined) {
+    if (routeLabels.size >= 10_000) routeLabels.clear();
+    label = matchRouteLabel(pathname);
+    routeLabels.set(pathname, label);
+  }
+  return label;
+}
+
+function matchRouteLabel(pathname) {
   if (pathname.startsWith("/assets/")) return "/assets/*";
   let p = pathname;
   let suffix = "";
@@ -283,9 +296,13 @@ app.use((req, res, next) => {
   next();
 });
 
-app.use(compression());
+// Large answers (a 100,000-point lookup is ~15 MB of JSON) are compressed in 256 KiB chunks: zlib works off the
+// event loop, and fewer, larger chunks keep its callbacks on the loop few.
+app.use(compression({ chunkSize: 256 * 1024 }));
 app.use("/assets", precompressed, express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", fallthrough: false }));
-app.use(express.static(clientDir, { maxAge: "1h", index: false }));
+// Other files of the build (favicon, fonts): only paths that name a file are looked up on disk.
+const staticFiles = express.static(clientDir, { maxAge: "1h", index: false });
+app.use((req, res, next) => (/\.[a-z0-9]{1,8}$/i.test(req.path) && !req.path.startsWith("/api/") ? staticFiles(req, res, next) : next()));
 
 app.use(createRequestHandler({ build, mode: "production" }));
 

@@ -81,7 +81,7 @@ export async function lookupResponse(
   }
   lookupPointsServed.inc({ outcome: "answered" }, body.pressures.length);
   const writeStarted = performance.now();
-  const payload = `${head.slice(0, -1)},"results":${result.resultsJson}}`;
+  const payload = Buffer.concat([Buffer.from(`${head.slice(0, -1)},"results":`), result.resultsUtf8, Buffer.from("}")]);
   const writeMs = performance.now() - writeStarted;
   const etagStarted = performance.now();
   const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${data.status}|`).update(bodyText).digest("base64url")}"`;

@@ -39,8 +39,9 @@ describe("a job gives the same answer in a worker thread as inline", { timeout: 
     expect(worker.value).toStrictEqual(here.value);
     const metricPoints = points.map((p) => ({ pressure: p.pressure / 14.503773773022, temperature: ((p.temperature - 32) * 5) / 9 }));
     const direct = runLookup(grid, metricPoints, options);
-    expect(worker.value.resultsJson).toBe(serialiseResults(direct.results));
-    expect(JSON.parse(worker.value.resultsJson)).toHaveLength(5_000);
+    const json = new TextDecoder().decode(worker.value.resultsUtf8);
+    expect(json).toBe(serialiseResults(direct.results));
+    expect(JSON.parse(json)).toHaveLength(5_000);
     expect(worker.value.units).toStrictEqual({ pressure: "bara", temperature: "°C", value: "rm³/sm³" });
   });
 
