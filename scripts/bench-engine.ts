@@ -13,22 +13,12 @@ import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { interpolateGrid, interpolateGridMany } from "../app/core/interpolation/index";
 import type { BatchResult, Grid, Options } from "../app/core/interpolation/index";
+import { seededRandom } from "../app/core/interpolation/test-helpers";
 
 const POINTS = 1_000_000;
 const PCHIP_SCIPY_POINTS = 10_000;
 const SINGLE_POINTS = 200_000;
 
-/** Small seeded generator (mulberry32) so every run uses the same grid and points. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function unevenAxis(n: number, start: number, span: number, random: () => number): number[] {
   const gaps = Array.from({ length: n - 1 }, () => 0.5 + random());
@@ -38,7 +28,7 @@ function unevenAxis(n: number, start: number, span: number, random: () => number
   return out;
 }
 
-const random = rng(20250601);
+const random = seededRandom(20250601);
 const pressures = unevenAxis(40, 500, 5500, random);
 const temperatures = unevenAxis(12, 60, 240, random);
 const surface = (p: number, t: number): number =>

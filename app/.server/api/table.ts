@@ -11,9 +11,8 @@ import {
 } from "~/core/tables";
 import {
   etagOf,
-  finiteJson,
+  json,
   notModified,
-  refuseNonFinite,
   respondWithEtag,
 } from "./respond";
 import { draftWarning, isApprovedStatus } from "./samples";
@@ -109,23 +108,18 @@ export async function tableResponse(
         etag,
       });
     }
-    let body: string;
-    try {
-      body = finiteJson({
+    return json(
+      request,
+      {
         sampleId: sample.id,
         revisionStatus: data.status,
         approved: isApprovedStatus(data.status),
         ...(draft ? { draftWarning: draft } : {}),
         ...formatTableJson(table, options),
-      });
-    } catch (error) {
-      return refuseNonFinite(error);
-    }
-    return respondWithEtag(request, body, {
-      contentType: "application/json; charset=utf-8",
+      },
       revision,
       etag,
-    });
+    );
   } catch (error) {
     if (isTableError(error)) {
       const [status, code] = STATUS[error.code] ?? [400, "invalid_query"];

@@ -40,3 +40,15 @@ export function lerp(lo: number, hi: number, u: number): number {
 }
 
 export const unit = fc.double({ min: 0, max: 1, noNaN: true });
+
+/** Deterministic pseudo-random numbers (mulberry32), so a failing generated case can be replayed from its seed. */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
