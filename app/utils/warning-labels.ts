@@ -1,5 +1,14 @@
-/** Short labels for the warning badges of lookup results; the full sentence comes from describeWarningCode. */
-export const WARNING_LABELS: Record<string, string> = {
+import type { LookupWarning } from "~/core/lookup";
+
+/** Flagged in the browser, not by the engine: the point lies within NEAR_BUBBLE_POINT_FRACTION of pb. */
+export const NEAR_BUBBLE_POINT = "near-bubble-point" as const;
+export type BadgeWarning = LookupWarning | typeof NEAR_BUBBLE_POINT;
+
+/**
+ * Short labels for the warning badges of lookup results; the full sentence comes from describeWarningCode.
+ * Keyed by the engine's own codes, so a code added or renamed in app/core fails the type check here.
+ */
+export const WARNING_LABELS: Record<BadgeWarning, string> = {
   extrapolated: "extrapolated",
   "degree-reduced": "lower degree",
   "missing-data": "missing cells",
@@ -8,11 +17,16 @@ export const WARNING_LABELS: Record<string, string> = {
   "bubble-point-extrapolated": "bubble point extrapolated",
   "bubble-point-unknown": "bubble point unknown",
   "pchip-fallback": "pchip used (overshoot)",
-  "near-bubble-point": "near the bubble point",
+  [NEAR_BUBBLE_POINT]: "near the bubble point",
 };
 
 /** Warnings that mean "outside what was measured": shown in the caution colour. */
-export const SERIOUS_WARNINGS = new Set(["extrapolated", "branch-extrapolated", "bubble-point-extrapolated", "missing-data"]);
+export const SERIOUS_WARNINGS: ReadonlySet<string> = new Set<LookupWarning>(["extrapolated", "branch-extrapolated", "bubble-point-extrapolated", "missing-data"]);
+
+/** The badge label of a warning code as received (e.g. from the API); an unknown code is shown as it is. */
+export function warningLabel(code: string): string {
+  return Object.hasOwn(WARNING_LABELS, code) ? WARNING_LABELS[code as BadgeWarning] : code;
+}
 
 /** Within this fraction of the bubble point a value is flagged: the kink is close. Common practice, not a standard. */
 export const NEAR_BUBBLE_POINT_FRACTION = 0.02;

@@ -3,7 +3,7 @@ import { describeWarningCode, PROPERTY_NAMES, type LookupWarning } from "~/core/
 import type { PropertyKey } from "~/core/units";
 import type { Condition } from "~/utils/conditions";
 import { lookupResultsDelimited } from "./results-csv";
-import { NEAR_BUBBLE_POINT_FRACTION, SERIOUS_WARNINGS, WARNING_LABELS } from "~/utils/warning-labels";
+import { NEAR_BUBBLE_POINT, NEAR_BUBBLE_POINT_FRACTION, SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
 
 export type LookupApiResult = {
   /** null when the server refused the point (see refusal): it never sends NaN or Infinity. */
@@ -30,13 +30,13 @@ const fmt = (v: number) => Number(v.toPrecision(6)).toString();
 export function warningsOf(r: LookupApiResult, pressure: number): string[] {
   const list = [...r.warnings];
   if (r.bubblePointPressure !== undefined && Math.abs(pressure - r.bubblePointPressure) <= NEAR_BUBBLE_POINT_FRACTION * r.bubblePointPressure) {
-    list.push("near-bubble-point");
+    list.push(NEAR_BUBBLE_POINT);
   }
   return list;
 }
 
 function describe(code: string): string {
-  if (code === "near-bubble-point") return "Within 2 % of the bubble point, where the property's slope changes abruptly: check the branch.";
+  if (code === NEAR_BUBBLE_POINT) return "Within 2 % of the bubble point, where the property's slope changes abruptly: check the branch.";
   return describeWarningCode(code as LookupWarning);
 }
 
@@ -168,7 +168,7 @@ export function LookupResultsTable({
                           title={describe(code)}
                           className={`mr-1 mb-1 inline-block rounded px-1.5 py-0.5 ${SERIOUS_WARNINGS.has(code) ? "bg-caution-soft text-caution" : "bg-surface text-ink-muted"}`}
                         >
-                          {WARNING_LABELS[code] ?? code}
+                          {warningLabel(code)}
                         </span>
                       ))}
                     </td>

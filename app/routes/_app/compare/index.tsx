@@ -12,7 +12,7 @@ import { PlotPlaceholder, PropertySlices, PropertySurface, preloadPlots, type Pl
 import { describeWarningCode, isLookupWarning, PROPERTY_NAMES } from "~/core/lookup";
 import { convertBetweenSystems, FIELD_UNIT_SYSTEM, METRIC_UNIT_SYSTEM, PROPERTY_KEYS, type PropertyKey } from "~/core/units";
 import { parseConditionList, type Condition } from "~/utils/conditions";
-import { SERIOUS_WARNINGS, WARNING_LABELS } from "~/utils/warning-labels";
+import { SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
 import type { Route } from "./+types/index";
 
 const MAX_SAMPLES = 4;
@@ -643,7 +643,7 @@ function ValueCell({ cell, loading }: { cell: Cell | undefined; loading: boolean
                 className={`rounded px-1.5 text-xs ${SERIOUS_WARNINGS.has(w) ? "bg-caution-soft font-semibold text-caution" : "bg-surface text-ink-muted"}`}
                 title={isLookupWarning(w) ? describeWarningCode(w) : w}
               >
-                {w === "extrapolated" ? "beyond the measured envelope" : (WARNING_LABELS[w] ?? w)}
+                {w === "extrapolated" ? "beyond the measured envelope" : warningLabel(w)}
               </span>
             ))}
         </span>
