@@ -119,6 +119,7 @@ test("sign-in follows redirectTo only to a path on this site", async ({ page }) 
 
   // A path on this site is still followed.
   await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page).toHaveURL(/\/sign-in/); // the sign-out has landed before the next page is opened
   await page.goto(`/sign-in?${new URLSearchParams({ redirectTo: "/samples?page=1" })}`);
   await page.getByLabel("E-mail address").fill(ACCOUNTS.engineer);
   await page.getByLabel("Password").fill(DEMO_PASSWORD);

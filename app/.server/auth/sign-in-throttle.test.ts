@@ -25,6 +25,12 @@ describe("signInWait", () => {
     expect(signInWait(h, at(30))).toEqual({ waitMs: 0, reason: null });
   });
 
+  test("within the free failures there is no wait, even when a concurrent attempt was recorded after `now`", () => {
+    // Four sign-ins at once from one address: each sees the others' rows, a few ms newer than its own clock.
+    const h = history({ pair: { failures: 1, lastFailureAt: at(0.005) }, address: { failures: 3, lastFailureAt: at(0.005) } });
+    expect(signInWait(h, at(0))).toEqual({ waitMs: 0, reason: null });
+  });
+
   test("the account ceiling slows unknown clients only; a known client of the account goes ahead", () => {
     const account = { failures: 20, lastFailureAt: at(0) };
     expect(signInWait(history({ account }), at(1))).toEqual({ waitMs: 4_000, reason: "account" });

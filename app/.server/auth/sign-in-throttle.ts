@@ -46,8 +46,11 @@ export function signInWait(history: SignInHistory, now: Date): { waitMs: number;
   }
   let result: { waitMs: number; reason: ThrottleReason | null } = { waitMs: 0, reason: null };
   for (const [reason, count, rule] of rules) {
-    if (!count.lastFailureAt) continue;
-    const waitMs = count.lastFailureAt.getTime() + backoffMs(count.failures, rule) - now.getTime();
+    const backoff = backoffMs(count.failures, rule);
+    // Within the free failures there is no wait at all (a concurrent attempt's row may be a few ms newer than
+    // `now`, which must not read as a wait).
+    if (!count.lastFailureAt || backoff === 0) continue;
+    const waitMs = count.lastFailureAt.getTime() + backoff - now.getTime();
     if (waitMs > result.waitMs) result = { waitMs, reason };
   }
   return result;
