@@ -4,7 +4,8 @@
 //   2. the lookup workspace's 1,000 conditions × 3 properties (target: under 100 ms server time)
 //   3. autocannon, 32 connections for 10 s: single-point lookups with a bearer token vs GET /api/health in the
 //      same run (targets: no errors, p99 under 50 ms, lookups at least half the health throughput)
-import { spawn, spawnSync } from "node:child_process";
+import { spawnSync } from "node:child_process";
+import { startBenchServer } from "./bench-server";
 import { randomUUID } from "node:crypto";
 import { existsSync } from "node:fs";
 import autocannon from "autocannon";
@@ -27,26 +28,7 @@ sh("node_modules/.bin/tsx", ["scripts/migrate.ts"]);
 sh("node_modules/.bin/tsx", ["scripts/seed.ts"]);
 if (!existsSync("build/server/index.js")) sh("npm", ["run", "-s", "build"]);
 
-const server = spawn("node", ["scripts/server.mjs", "build/server/index.js"], {
-  env: {
-    ...process.env,
-    NODE_ENV: "production",
-    HOST: "127.0.0.1",
-    PORT: String(PORT),
-    APP_BASE_URL: BASE,
-    DATABASE_URL,
-    SESSION_SECRET: SECRET,
-    API_TOKEN_SECRET: SECRET,
-    API_RATE_LIMIT_PER_MINUTE: "100000000",
-  },
-  stdio: "ignore",
-});
-process.on("exit", () => server.kill("SIGKILL"));
-for (let i = 0; i < 100; i++) {
-  const ok = await fetch(`${BASE}/api/health`).then((r) => r.ok).catch(() => false);
-  if (ok) break;
-  await new Promise((r) => setTimeout(r, 200));
-}
+const server = await startBenchServer({ port: PORT, databaseUrl: DATABASE_URL, secret: SECRET });
 
 const db = await mysql.createConnection({ uri: DATABASE_URL });
 const [users] = await db.query("SELECT id FROM users WHERE email = 'engineer@calder.example'");
@@ -100,5 +82,5 @@ const one = await load("POST single-point lookup with a token (32 connections, 1
 console.log(
   `lookup/health throughput ratio ${(one.rps / health.rps).toFixed(2)} (target ≥ 0.5); lookup p99 ${one.p99} ms (target < 50 ms); lookup errors ${one.errors} (target 0)`,
 );
-server.kill("SIGKILL");
+await server.stop();
 process.exit(0);

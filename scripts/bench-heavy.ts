@@ -5,7 +5,7 @@
 // three 100,000-point lookups and one upload check (an invented 300-pressure CSV, "Check file") run at once.
 // Target: health p99 under 50 ms with the pool. Env: DB_NAME (default isopleth), BENCH_PORT (default 3151),
 // HEAVY_WORKERS / HEAVY_QUEUE_LIMIT passed on to the server.
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import { existsSync } from "node:fs";
 import { availableParallelism } from "node:os";
@@ -13,6 +13,7 @@ import { Worker } from "node:worker_threads";
 import jwt from "jsonwebtoken";
 import mysql from "mysql2/promise";
 import { inventedPoints, inventedUploadCsv } from "../tests/support/heavy-fixtures";
+import { startBenchServer, type BenchServer } from "./bench-server";
 
 const PORT = Number(process.env.BENCH_PORT ?? 3151);
 const BASE = `http://127.0.0.1:${PORT}`;
@@ -32,43 +33,15 @@ sh("node_modules/.bin/tsx", ["scripts/migrate.ts"]);
 sh("node_modules/.bin/tsx", ["scripts/seed.ts"]);
 if (!existsSync("build/server/index.js") || !existsSync("build/server/heavy-worker.js")) sh("npm", ["run", "-s", "build"]);
 
-let server: ChildProcess | null = null;
-process.on("exit", () => server?.kill("SIGKILL"));
+let server: BenchServer | null = null;
 
 async function startServer(inline: boolean) {
-  // BENCH_NODE_ARGS="--cpu-prof --cpu-prof-dir=/tmp/prof" profiles the server (written when it stops).
-  const nodeArgs = (process.env.BENCH_NODE_ARGS ?? "").split(" ").filter(Boolean);
-  server = spawn("node", [...nodeArgs, "scripts/server.mjs", "build/server/index.js"], {
-    env: {
-      ...process.env,
-      NODE_ENV: "production",
-      HOST: "127.0.0.1",
-      PORT: String(PORT),
-      APP_BASE_URL: BASE,
-      DATABASE_URL,
-      SESSION_SECRET: SECRET,
-      API_TOKEN_SECRET: SECRET,
-      API_RATE_LIMIT_PER_MINUTE: "100000000",
-      HEAVY_WORK_INLINE: String(inline),
-    },
-    stdio: "ignore",
-  });
-  for (let i = 0; i < 150; i++) {
-    if (await fetch(`${BASE}/api/health`).then((r) => r.ok).catch(() => false)) return;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error("the server did not start");
+  server = await startBenchServer({ port: PORT, databaseUrl: DATABASE_URL, secret: SECRET, env: { HEAVY_WORK_INLINE: String(inline) } });
 }
 
 async function stopServer() {
-  const s = server;
+  await server?.stop();
   server = null;
-  if (!s || s.exitCode !== null) return;
-  await new Promise((resolve) => {
-    s.once("exit", resolve);
-    s.kill("SIGTERM");
-    setTimeout(() => s.kill("SIGKILL"), 5_000).unref();
-  });
 }
 
 // An API token for the demo engineer, and a session of the demo lab lead (who may upload).

@@ -37,6 +37,12 @@ async function expectProblem(
 }
 
 const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
+
+/** Authorization headers of a fresh token (every scope) owned by the demo account `email`. */
+async function bearerFor(email: string) {
+  const { token } = await mintToken({ userId: await userIdOf(email) });
+  return bearer(token);
+}
 const POINT = { pressure: 3000, temperature: 212 };
 const TABLE = "temperature=212&pressures=1000:4000:500";
 
@@ -209,10 +215,7 @@ test.describe("item 3: drafts stay drafts", () => {
   test("a token cannot read, tabulate or look up a draft: 404 revision_not_found, as for a missing number", async ({
     request,
   }) => {
-    const { token } = await mintToken({
-      userId: await userIdOf(ACCOUNTS.admin),
-    });
-    const h = bearer(token);
+    const h = await bearerFor(ACCOUNTS.admin);
     const missing = await expectProblem(
       await request.get("/api/v1/samples/1?revision=999", { headers: h }),
       404,
@@ -566,10 +569,7 @@ test.describe("item 6: no 500 for bad input; problems do not echo the input", ()
   test("oversized and odd query values get 400 without echoing them", async ({
     request,
   }) => {
-    const { token } = await mintToken({
-      userId: await userIdOf(ACCOUNTS.engineer),
-    });
-    const h = bearer(token);
+    const h = await bearerFor(ACCOUNTS.engineer);
     for (const path of [
       // Node refuses request heads over 16 kB itself (431), so these stay under that.
       `/api/v1/samples/1/table?temperature=212&pressures=${"Zq".repeat(3_000)}`,
@@ -602,10 +602,7 @@ test.describe("item 12: strict API query strings", () => {
   test("unknown, repeated and non-decimal parameters are refused with 400 naming them", async ({
     request,
   }) => {
-    const { token } = await mintToken({
-      userId: await userIdOf(ACCOUNTS.engineer),
-    });
-    const h = bearer(token);
+    const h = await bearerFor(ACCOUNTS.engineer);
     const unknown = await expectProblem(
       await request.get("/api/v1/samples/1?unit=metric", { headers: h }),
       400,
@@ -717,10 +714,7 @@ test.describe("item 15: conditional GETs that work", () => {
   test("the table's ETag is the same for the same revision and query, and a conditional GET gets 304", async ({
     request,
   }) => {
-    const { token } = await mintToken({
-      userId: await userIdOf(ACCOUNTS.engineer),
-    });
-    const h = bearer(token);
+    const h = await bearerFor(ACCOUNTS.engineer);
     for (const format of ["json", "csv", "text"]) {
       const first = await request.get(
         `/api/v1/samples/1/table?${TABLE}&format=${format}`,
@@ -774,10 +768,7 @@ test.describe("item 15: conditional GETs that work", () => {
   test("sample listing and detail answer 304 to their own ETag", async ({
     request,
   }) => {
-    const { token } = await mintToken({
-      userId: await userIdOf(ACCOUNTS.engineer),
-    });
-    const h = bearer(token);
+    const h = await bearerFor(ACCOUNTS.engineer);
     for (const path of [
       "/api/v1/samples",
       "/api/v1/samples/1",
