@@ -11,12 +11,15 @@ test("the README lists every QC rule with the same source as the code", () => {
   for (const [id, rule] of Object.entries(RULES)) {
     const line = readme.split("\n").find((l) => l.startsWith(`| \`${id}\``));
     expect(line, id).toBeDefined();
-    expect(line?.endsWith(`| ${rule.source} |`), id).toBe(true);
+    const cells = line?.split("|").map((cell) => cell.trim());
+    expect(cells?.at(-2), id).toBe(rule.source);
   }
 });
 
 test("the README's long and grid examples read, and pass QC", async () => {
-  const blocks = [...readme.matchAll(/```\n([\s\S]*?)```/g)].map((m) => m[1] ?? "");
+  const blocks = [...readme.matchAll(/```\n([\s\S]*?)```/g)].map(
+    (m) => m[1] ?? "",
+  );
   expect(blocks).toHaveLength(2);
   const [long, grid] = blocks;
   const a = datasetOf(await parseText("long.csv", long ?? ""));
