@@ -10,7 +10,9 @@ const testEnv = {
 export default defineConfig({
   resolve: { tsconfigPaths: true },
   plugins: process.env.VITEST ? [] : [tailwindcss(), reactRouter()],
-  optimizeDeps: { include: ["plotly.js-gl3d-dist-min", "react-plotly.js/factory"] },
+  optimizeDeps: {
+    include: ["plotly.js-gl3d-dist-min", "react-plotly.js/factory"],
+  },
   build: {
     chunkSizeWarningLimit: 5000,
     rolldownOptions: { checks: { pluginTimings: false } },

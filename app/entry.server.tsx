@@ -3,7 +3,12 @@ import { createReadableStreamFromReadable } from "@react-router/node";
 import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
-import { type EntryContext, type HandleErrorFunction, isRouteErrorResponse, ServerRouter } from "react-router";
+import {
+  type EntryContext,
+  type HandleErrorFunction,
+  isRouteErrorResponse,
+  ServerRouter,
+} from "react-router";
 import { settleBackgroundJobs } from "~/.server/auth/background";
 import { closeDb } from "~/.server/db/client";
 import { closeHeavyPool } from "~/.server/workers/pool";
@@ -28,15 +33,23 @@ export default function handleRequest(
   routerContext: EntryContext,
 ) {
   if (request.method.toUpperCase() === "HEAD") {
-    return new Response(null, { status: responseStatusCode, headers: responseHeaders });
+    return new Response(null, {
+      status: responseStatusCode,
+      headers: responseHeaders,
+    });
   }
   const nonce = currentRequest()?.nonce || undefined;
   return new Promise((resolve, reject) => {
     let shellRendered = false;
     const userAgent = request.headers.get("user-agent");
     const readyOption: keyof RenderToPipeableStreamOptions =
-      (userAgent && isbot(userAgent)) || routerContext.isSpaMode ? "onAllReady" : "onShellReady";
-    let timeoutId: ReturnType<typeof setTimeout> | undefined = setTimeout(() => abort(), streamTimeout + 1000);
+      (userAgent && isbot(userAgent)) || routerContext.isSpaMode
+        ? "onAllReady"
+        : "onShellReady";
+    let timeoutId: ReturnType<typeof setTimeout> | undefined = setTimeout(
+      () => abort(),
+      streamTimeout + 1000,
+    );
     const { pipe, abort } = renderToPipeableStream(
       <NonceContext.Provider value={nonce}>
         <ServerRouter context={routerContext} url={request.url} nonce={nonce} />
@@ -55,7 +68,12 @@ export default function handleRequest(
           const stream = createReadableStreamFromReadable(body);
           responseHeaders.set("Content-Type", "text/html; charset=utf-8");
           pipe(body);
-          resolve(new Response(stream, { headers: responseHeaders, status: responseStatusCode }));
+          resolve(
+            new Response(stream, {
+              headers: responseHeaders,
+              status: responseStatusCode,
+            }),
+          );
         },
         onShellError(error: unknown) {
           reject(error);
@@ -77,11 +95,16 @@ export const handleError: HandleErrorFunction = (error, { request }) => {
 
 function logError(error: unknown, request?: Request) {
   const state = currentRequest();
-  logger.error({
-    requestId: state?.requestId,
-    ...(request ? { method: request.method, path: new URL(request.url).pathname } : {}),
-    error: describeError(error),
-  }, "request failed");
+  logger.error(
+    {
+      requestId: state?.requestId,
+      ...(request
+        ? { method: request.method, path: new URL(request.url).pathname }
+        : {}),
+      error: describeError(error),
+    },
+    "request failed",
+  );
 }
 
 /** What scripts/server.mjs takes from the build (through `build.entry.module.serverHooks`). */

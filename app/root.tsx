@@ -1,15 +1,30 @@
-import { isRouteErrorResponse, Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
+import {
+  isRouteErrorResponse,
+  Links,
+  Meta,
+  Outlet,
+  Scripts,
+  ScrollRestoration,
+} from "react-router";
 import type { Route } from "./+types/root";
 import { originGuard, sessionMiddleware } from "~/.server/auth/middleware";
 import { edgeMiddleware } from "~/.server/ops/edge";
 import { useNonce } from "~/components/nonce";
 import "./app.css";
 
-export const middleware: Route.MiddlewareFunction[] = [edgeMiddleware, originGuard, sessionMiddleware];
+export const middleware: Route.MiddlewareFunction[] = [
+  edgeMiddleware,
+  originGuard,
+  sessionMiddleware,
+];
 
 export const meta: Route.MetaFunction = () => [
   { title: "Isopleth — reservoir fluid-property tables" },
-  { name: "description", content: "Measured PVT grids, interpolation at reservoir conditions and tables for simulators." },
+  {
+    name: "description",
+    content:
+      "Measured PVT grids, interpolation at reservoir conditions and tables for simulators.",
+  },
 ];
 
 export function Layout({ children }: { children: React.ReactNode }) {
@@ -59,10 +74,17 @@ export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
   let title = "Something went wrong";
   let detail = "An unexpected error occurred. The error has been logged.";
   if (isRouteErrorResponse(error)) {
-    title = ERROR_TITLES[error.status] ?? (error.status >= 500 ? title : "This request could not be answered");
+    title =
+      ERROR_TITLES[error.status] ??
+      (error.status >= 500 ? title : "This request could not be answered");
     detail = ERROR_DETAILS[error.status] ?? detail;
     // A message written for people by our own guards and loaders; never the router's own text.
-    if (typeof error.data === "string" && error.data && !/^Error: |No route matches/.test(error.data) && error.data.length < 400) {
+    if (
+      typeof error.data === "string" &&
+      error.data &&
+      !/^Error: |No route matches/.test(error.data) &&
+      error.data.length < 400
+    ) {
       detail = error.data;
     }
   } else if (import.meta.env.DEV && error instanceof Error) {

@@ -1,4 +1,10 @@
-import { type RouteConfig, index, layout, prefix, route } from "@react-router/dev/routes";
+import {
+  type RouteConfig,
+  index,
+  layout,
+  prefix,
+  route,
+} from "@react-router/dev/routes";
 
 export default [
   layout("routes/_app/layout.tsx", [
@@ -9,7 +15,10 @@ export default [
       route(":sampleId", "routes/_app/samples/$sampleId/index.tsx"),
       route(":sampleId/edit", "routes/_app/samples/$sampleId/edit.tsx"),
       route(":sampleId/upload", "routes/_app/samples/$sampleId/upload.tsx"),
-      route(":sampleId/revisions/:number", "routes/_app/samples/$sampleId/revisions/$number.tsx"),
+      route(
+        ":sampleId/revisions/:number",
+        "routes/_app/samples/$sampleId/revisions/$number.tsx",
+      ),
       route(":sampleId/diff", "routes/_app/samples/$sampleId/diff.tsx"),
     ]),
     route("lookup", "routes/_app/lookup/index.tsx"),
@@ -41,8 +50,14 @@ export default [
       route("openapi.json", "routes/api/v1/openapi.ts"),
       route("samples", "routes/api/v1/samples/index.ts"),
       route("samples/:sampleId", "routes/api/v1/samples/$sampleId/index.ts"),
-      route("samples/:sampleId/lookup", "routes/api/v1/samples/$sampleId/lookup.ts"),
-      route("samples/:sampleId/table", "routes/api/v1/samples/$sampleId/table.ts"),
+      route(
+        "samples/:sampleId/lookup",
+        "routes/api/v1/samples/$sampleId/lookup.ts",
+      ),
+      route(
+        "samples/:sampleId/table",
+        "routes/api/v1/samples/$sampleId/table.ts",
+      ),
     ]),
     route("*", "routes/api/not-found.ts"),
   ]),

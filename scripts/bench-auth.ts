@@ -10,4 +10,6 @@ for (let i = 0; i < 15; i++) {
 }
 times.sort((a, b) => a - b);
 const ms = (v: number | undefined) => `${(v ?? NaN).toFixed(1)} ms`;
-console.log(`argon2id verify (one sign-in): median ${ms(times[7])}, min ${ms(times[0])}, max ${ms(times[14])}; target 50–500 ms`);
+console.log(
+  `argon2id verify (one sign-in): median ${ms(times[7])}, min ${ms(times[0])}, max ${ms(times[14])}; target 50–500 ms`,
+);

@@ -16,7 +16,9 @@ const option = (name: string) => {
   return i >= 0 ? args[i + 1] : undefined;
 };
 const VALUED = ["--runs", "--samples", "--property"];
-const positional = args.filter((a, i) => !a.startsWith("--") && !(i > 0 && VALUED.includes(args[i - 1]!)));
+const positional = args.filter(
+  (a, i) => !a.startsWith("--") && !(i > 0 && VALUED.includes(args[i - 1]!)),
+);
 const baseUrl = (positional[0] ?? "http://127.0.0.1:3000").replace(/\/$/, "");
 const runs = Number(option("--runs") ?? 3);
 const samples = option("--samples") ?? "1,2";
@@ -24,7 +26,6 @@ const property = option("--property") ?? "oil_fvf";
 const sideBySide = args.includes("--side-by-side");
 const email = process.env.BENCH_EMAIL ?? "engineer@calder.example";
 const password = process.env.BENCH_PASSWORD ?? "isopleth-demo-2026";
-
 
 type Marks = {
   chunk: number | null;
@@ -76,28 +77,43 @@ const READ_MARKS = `(() => {
 })()`;
 
 async function oneRun(run: number): Promise<Marks> {
-  const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args: CHROMIUM_ARGS });
+  const browser = await chromium.launch({
+    executablePath: CHROMIUM_PATH,
+    headless: true,
+    args: CHROMIUM_ARGS,
+  });
   try {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser.newContext({
+      viewport: { width: 1280, height: 900 },
+    });
     const page = await context.newPage();
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel("E-mail address").fill(email);
     await page.getByLabel("Password").fill(password);
     await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 30_000 });
+    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), {
+      timeout: 30_000,
+    });
     // a new page in the same context: the cookie is kept, the memory cache of the sign-in page is not reused
     await page.close();
     const bench = await context.newPage();
     await bench.addInitScript({ content: WATCH_SURFACE });
     const url = `${baseUrl}/compare?samples=${samples}&property=${property}${sideBySide ? "&view=side-by-side" : ""}`;
     await bench.goto(url, { waitUntil: "commit", timeout: 60_000 });
-    await bench.waitForFunction(() => typeof window.__benchMarks?.drawn === "number" && window.__benchMarks.drawn > 0, undefined, {
-      timeout: 120_000,
-      polling: 250,
-    });
+    await bench.waitForFunction(
+      () =>
+        typeof window.__benchMarks?.drawn === "number" &&
+        window.__benchMarks.drawn > 0,
+      undefined,
+      {
+        timeout: 120_000,
+        polling: 250,
+      },
+    );
     const marks = (await bench.evaluate(READ_MARKS)) as Marks;
     await context.close();
-    const s = (v: number | null) => (v === null ? "—" : `${(v / 1000).toFixed(2)} s`);
+    const s = (v: number | null) =>
+      v === null ? "—" : `${(v / 1000).toFixed(2)} s`;
     console.log(
       `run ${run}: HTML ${s(marks.html)}, plot chunk requested ${s(marks.chunkStart)} and received ${s(marks.chunk)}, Plotly evaluated ${s(marks.plotly)}, 3D canvas in the page ${s(marks.canvas)}, surface drawn ${s(marks.drawn)}`,
     );
@@ -117,7 +133,9 @@ async function main() {
       const marks = await oneRun(run);
       if (marks.drawn !== null) drawn.push(marks.drawn / 1000);
     } catch (error) {
-      console.log(`run ${run}: no surface measured (${error instanceof Error ? error.message.split("\n")[0] : String(error)})`);
+      console.log(
+        `run ${run}: no surface measured (${error instanceof Error ? error.message.split("\n")[0] : String(error)})`,
+      );
     }
   }
   if (drawn.length > 0) {

@@ -18,7 +18,10 @@ await build({
     emptyOutDir: false,
     copyPublicDir: false,
     minify: false,
-    rolldownOptions: { output: { format: "esm", entryFileNames: "heavy-worker.js" }, checks: { pluginTimings: false } },
+    rolldownOptions: {
+      output: { format: "esm", entryFileNames: "heavy-worker.js" },
+      checks: { pluginTimings: false },
+    },
   },
 });
 console.log("built build/server/heavy-worker.js");

@@ -7,7 +7,9 @@ import net from "node:net";
 
 const [defaultHost, ...specs] = process.argv.slice(2);
 if (!defaultHost || specs.length === 0) {
-  console.error("usage: node scripts/check-ports.mjs HOST NAME=PORT[@HOST] ...");
+  console.error(
+    "usage: node scripts/check-ports.mjs HOST NAME=PORT[@HOST] ...",
+  );
   process.exit(2);
 }
 
@@ -15,13 +17,18 @@ function tryListen(host, port) {
   return new Promise((resolve) => {
     const server = net.createServer();
     server.once("error", (error) => resolve(error.code ?? String(error)));
-    server.listen({ host, port, exclusive: true }, () => server.close(() => resolve(null)));
+    server.listen({ host, port, exclusive: true }, () =>
+      server.close(() => resolve(null)),
+    );
   });
 }
 
 function holder(port) {
   try {
-    const out = execFileSync("ss", ["-ltnpH", `sport = :${port}`], { encoding: "utf8", stdio: ["ignore", "pipe", "ignore"] });
+    const out = execFileSync("ss", ["-ltnpH", `sport = :${port}`], {
+      encoding: "utf8",
+      stdio: ["ignore", "pipe", "ignore"],
+    });
     const match = out.match(/users:\(\("([^"]+)",pid=(\d+)/);
     return match ? ` by ${match[1]} (pid ${match[2]})` : "";
   } catch {
@@ -44,14 +51,25 @@ for (const spec of specs) {
     continue;
   }
   if (seen.has(port)) {
-    problems.push(`${name} and ${seen.get(port)} are both ${port}; give each its own port`);
+    problems.push(
+      `${name} and ${seen.get(port)} are both ${port}; give each its own port`,
+    );
     continue;
   }
   seen.set(port, name);
   const code = await tryListen(host, port);
-  if (code === "EADDRINUSE") problems.push(`${name}=${port}: port ${port} on ${host} is already in use${holder(port)}`);
-  else if (code === "EACCES") problems.push(`${name}=${port}: not allowed to listen on port ${port} (ports below 1024 need privileges)`);
-  else if (code) problems.push(`${name}=${port}: cannot listen on ${host}:${port} (${code})`);
+  if (code === "EADDRINUSE")
+    problems.push(
+      `${name}=${port}: port ${port} on ${host} is already in use${holder(port)}`,
+    );
+  else if (code === "EACCES")
+    problems.push(
+      `${name}=${port}: not allowed to listen on port ${port} (ports below 1024 need privileges)`,
+    );
+  else if (code)
+    problems.push(
+      `${name}=${port}: cannot listen on ${host}:${port} (${code})`,
+    );
 }
 
 if (problems.length > 0) {

@@ -5,7 +5,15 @@ import { createServer } from "node:http";
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
-type Captured = { id: number; receivedAt: string; from: string; to: string[]; subject: string; text: string; html: string };
+type Captured = {
+  id: number;
+  receivedAt: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string;
+};
 
 const smtpPort = Number(process.argv[2] ?? 2525);
 const httpPort = Number(process.argv[3] ?? 2580);
@@ -25,7 +33,9 @@ const smtp = new SMTPServer({
           messages.push({
             id: nextId++,
             receivedAt: new Date().toISOString(),
-            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : "",
+            from: session.envelope.mailFrom
+              ? session.envelope.mailFrom.address
+              : "",
             to: session.envelope.rcptTo.map((r) => r.address),
             subject: parsed.subject ?? "",
             text: parsed.text ?? "",
@@ -45,17 +55,33 @@ const http = createServer((req, res) => {
       res.writeHead(204).end();
       return;
     }
-    res.writeHead(200, { "Content-Type": "application/json" }).end(JSON.stringify(messages));
+    res
+      .writeHead(200, { "Content-Type": "application/json" })
+      .end(JSON.stringify(messages));
     return;
   }
   res.writeHead(404).end();
 });
 
 // A port that is taken is named, with the variable that sets it, and the process ends (start.sh reports it).
-function failOn(server: { on(event: "error", listener: (error: NodeJS.ErrnoException) => void): unknown }, port: number, variable: string) {
+function failOn(
+  server: {
+    on(
+      event: "error",
+      listener: (error: NodeJS.ErrnoException) => void,
+    ): unknown;
+  },
+  port: number,
+  variable: string,
+) {
   server.on("error", (error) => {
-    const reason = error.code === "EADDRINUSE" ? "is already in use" : `cannot be listened on (${error.code ?? error.message})`;
-    process.stderr.write(`fake SMTP: port ${port} (${variable}) on 127.0.0.1 ${reason}\n`);
+    const reason =
+      error.code === "EADDRINUSE"
+        ? "is already in use"
+        : `cannot be listened on (${error.code ?? error.message})`;
+    process.stderr.write(
+      `fake SMTP: port ${port} (${variable}) on 127.0.0.1 ${reason}\n`,
+    );
     process.exit(1);
   });
 }
@@ -64,7 +90,9 @@ failOn(http, httpPort, "SMTP_HTTP_PORT");
 
 smtp.listen(smtpPort, "127.0.0.1", () => {
   http.listen(httpPort, "127.0.0.1", () => {
-    console.log(`fake SMTP on 127.0.0.1:${smtpPort}, messages at http://127.0.0.1:${httpPort}/messages`);
+    console.log(
+      `fake SMTP on 127.0.0.1:${smtpPort}, messages at http://127.0.0.1:${httpPort}/messages`,
+    );
   });
 });
 

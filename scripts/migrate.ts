@@ -4,4 +4,6 @@ import { getEnv } from "~/.server/env";
 
 const started = performance.now();
 await runMigrations(getEnv().DATABASE_URL);
-console.log(`migrations applied in ${Math.round(performance.now() - started)} ms`);
+console.log(
+  `migrations applied in ${Math.round(performance.now() - started)} ms`,
+);

@@ -6,4 +6,6 @@ import { getEnv } from "~/.server/env";
 const started = performance.now();
 await seedDemo(getDb(), { demoPassword: getEnv().DEMO_PASSWORD });
 await closeDb();
-console.log(`demo data seeded in ${Math.round(performance.now() - started)} ms`);
+console.log(
+  `demo data seeded in ${Math.round(performance.now() - started)} ms`,
+);

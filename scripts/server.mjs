@@ -25,7 +25,15 @@ import client from "prom-client";
 import { matchRoutes } from "react-router";
 
 const PEER_HEADER = "x-isopleth-peer";
-const METHODS = new Set(["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"]);
+const METHODS = new Set([
+  "GET",
+  "HEAD",
+  "POST",
+  "PUT",
+  "PATCH",
+  "DELETE",
+  "OPTIONS",
+]);
 
 const buildPath = path.resolve(process.argv[2] ?? "build/server/index.js");
 const clientDir = path.resolve(path.dirname(buildPath), "..", "client");
@@ -56,7 +64,10 @@ const requestSeconds = new client.Histogram({
   labelNames: ["method", "route"],
   buckets: [0.005, 0.01, 0.025, 0.05, 0.1, 0.25, 0.5, 1, 2.5, 5, 10, 30],
 });
-const inFlight = new client.Gauge({ name: "http_requests_in_flight", help: "HTTP requests being answered." });
+const inFlight = new client.Gauge({
+  name: "http_requests_in_flight",
+  help: "HTTP requests being answered.",
+});
 
 // Route patterns (not raw paths) label metrics and log lines: bounded in number, and no reset token in a log.
 const routeTree = (() => {
@@ -152,7 +163,10 @@ function precompressed(req, res, next) {
   if (!type) return next();
   const accepted = String(req.headers["accept-encoding"] ?? "");
   const file = path.join(clientDir, "assets", name);
-  for (const [encoding, ext] of [["br", ".br"], ["gzip", ".gz"]]) {
+  for (const [encoding, ext] of [
+    ["br", ".br"],
+    ["gzip", ".gz"],
+  ]) {
     if (!new RegExp(`\\b${encoding}\\b`).test(accepted)) continue;
     const size = sizeOf(file + ext);
     if (size < 0) continue;
@@ -164,17 +178,35 @@ function precompressed(req, res, next) {
       Vary: "Accept-Encoding",
     });
     if (req.method === "HEAD") res.end();
-    else createReadStream(file + ext).on("error", () => res.destroy()).pipe(res);
+    else
+      createReadStream(file + ext)
+        .on("error", () => res.destroy())
+        .pipe(res);
     return;
   }
   next();
 }
 
 // ---- problems answered by the server itself --------------------------------------------------------------------
-const TITLES = { 400: "Invalid request", 404: "Not found", 405: "Method not allowed", 408: "Request timeout", 413: "Request too large", 431: "Request headers too large", 500: "Internal error", 503: "Unavailable" };
+const TITLES = {
+  400: "Invalid request",
+  404: "Not found",
+  405: "Method not allowed",
+  408: "Request timeout",
+  413: "Request too large",
+  431: "Request headers too large",
+  500: "Internal error",
+  503: "Unavailable",
+};
 
 function problemBody(status, code, detail) {
-  return JSON.stringify({ type: `/api-docs#problem-${code}`, title: TITLES[status] ?? "Error", status, detail, code });
+  return JSON.stringify({
+    type: `/api-docs#problem-${code}`,
+    title: TITLES[status] ?? "Error",
+    status,
+    detail,
+    code,
+  });
 }
 
 /** As the app will see the path: dot segments resolved the way the Fetch API's URL parser does. */
@@ -187,14 +219,21 @@ function isApiRequest(req) {
 }
 
 function sendProblem(req, res, status, code, detail, headers = {}) {
-  const api = isApiRequest(req) || !String(req.headers.accept ?? "").includes("text/html");
+  const api =
+    isApiRequest(req) ||
+    !String(req.headers.accept ?? "").includes("text/html");
   res.status(status).set({ "Cache-Control": "no-store", ...headers });
-  if (api) return res.type("application/problem+json; charset=utf-8").send(problemBody(status, code, detail));
-  res.type("text/html; charset=utf-8").send(
-    `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>${TITLES[status] ?? "Error"} — Isopleth</title></head>` +
-      `<body style="font-family: system-ui, sans-serif; max-width: 40rem; margin: 3rem auto; padding: 0 1.5rem">` +
-      `<h1 style="font-size: 1.5rem">${TITLES[status] ?? "Error"}</h1><p>${detail}</p><p><a href="/">Back to Isopleth</a></p></body></html>`,
-  );
+  if (api)
+    return res
+      .type("application/problem+json; charset=utf-8")
+      .send(problemBody(status, code, detail));
+  res
+    .type("text/html; charset=utf-8")
+    .send(
+      `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>${TITLES[status] ?? "Error"} — Isopleth</title></head>` +
+        `<body style="font-family: system-ui, sans-serif; max-width: 40rem; margin: 3rem auto; padding: 0 1.5rem">` +
+        `<h1 style="font-size: 1.5rem">${TITLES[status] ?? "Error"}</h1><p>${detail}</p><p><a href="/">Back to Isopleth</a></p></body></html>`,
+    );
 }
 
 // ---- the app ---------------------------------------------------------------------------------------------------
@@ -208,7 +247,10 @@ app.use((req, res, next) => {
   const started = process.hrtime.bigint();
   const forwardedId = env.TRUST_PROXY ? req.get("x-request-id") : undefined;
   const state = {
-    requestId: forwardedId && /^[\w.-]{1,64}$/.test(forwardedId) ? forwardedId : randomUUID(),
+    requestId:
+      forwardedId && /^[\w.-]{1,64}$/.test(forwardedId)
+        ? forwardedId
+        : randomUUID(),
     nonce: randomBytes(16).toString("base64"),
     caller: null,
     databaseUnavailable: false,
@@ -230,15 +272,23 @@ app.use((req, res, next) => {
     const status = res.headersSent ? res.statusCode : 499; // 499: the client went away first
     requestsTotal.inc({ method: req.method, route, status: String(status) });
     requestSeconds.observe({ method: req.method, route }, seconds);
-    const level = status >= 500 ? "error" : status >= 400 && status !== 404 ? "warn" : "info";
-    logger[level]({
-      requestId: state.requestId,
-      method: req.method,
-      route,
-      status,
-      durationMs: Math.round(seconds * 10_000) / 10,
-      ...(state.caller ? { caller: state.caller } : {}),
-    }, "request");
+    const level =
+      status >= 500
+        ? "error"
+        : status >= 400 && status !== 404
+          ? "warn"
+          : "info";
+    logger[level](
+      {
+        requestId: state.requestId,
+        method: req.method,
+        route,
+        status,
+        durationMs: Math.round(seconds * 10_000) / 10,
+        ...(state.caller ? { caller: state.caller } : {}),
+      },
+      "request",
+    );
   };
   res.on("finish", finish);
   res.on("close", finish);
@@ -246,23 +296,54 @@ app.use((req, res, next) => {
 });
 
 app.use((req, res, next) => {
-  if (!req.headers.host) return sendProblem(req, res, 400, "bad_request", "An HTTP/1.1 request needs a Host header.");
+  if (!req.headers.host)
+    return sendProblem(
+      req,
+      res,
+      400,
+      "bad_request",
+      "An HTTP/1.1 request needs a Host header.",
+    );
   // One spelling per resource: repeated slashes are folded (a permanent redirect that keeps the method).
   const [pathPart, ...queryParts] = req.url.split("?");
-  if (/\/\//.test(pathPart)) return res.redirect(308, pathPart.replace(/\/{2,}/g, "/") + (queryParts.length ? `?${queryParts.join("?")}` : ""));
+  if (/\/\//.test(pathPart))
+    return res.redirect(
+      308,
+      pathPart.replace(/\/{2,}/g, "/") +
+        (queryParts.length ? `?${queryParts.join("?")}` : ""),
+    );
   let decoded;
   try {
     decoded = decodeURIComponent(req.path);
   } catch {
-    return sendProblem(req, res, 400, "malformed_path", "The address has a malformed percent-escape.");
+    return sendProblem(
+      req,
+      res,
+      400,
+      "malformed_path",
+      "The address has a malformed percent-escape.",
+    );
   }
   if (/[\u0000-\u001f\u007f]/.test(decoded)) {
-    return sendProblem(req, res, 400, "malformed_path", "The address contains control characters.");
+    return sendProblem(
+      req,
+      res,
+      400,
+      "malformed_path",
+      "The address contains control characters.",
+    );
   }
   if (METHODS.has(req.method)) return next();
-  sendProblem(req, res, 405, "method_not_allowed", `The method ${req.method.slice(0, 20)} is not accepted here.`, {
-    Allow: [...METHODS].join(", "),
-  });
+  sendProblem(
+    req,
+    res,
+    405,
+    "method_not_allowed",
+    `The method ${req.method.slice(0, 20)} is not accepted here.`,
+    {
+      Allow: [...METHODS].join(", "),
+    },
+  );
 });
 
 app.use(
@@ -292,33 +373,79 @@ app.use(
   }),
 );
 app.use((req, res, next) => {
-  if (req.secure) res.setHeader("Strict-Transport-Security", "max-age=31536000; includeSubDomains");
+  if (req.secure)
+    res.setHeader(
+      "Strict-Transport-Security",
+      "max-age=31536000; includeSubDomains",
+    );
   next();
 });
 
 // Large answers (a 100,000-point lookup is ~15 MB of JSON) are compressed in 256 KiB chunks: zlib works off the
 // event loop, and fewer, larger chunks keep its callbacks on the loop few.
 app.use(compression({ chunkSize: 256 * 1024 }));
-app.use("/assets", precompressed, express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", fallthrough: false }));
+app.use(
+  "/assets",
+  precompressed,
+  express.static(path.join(clientDir, "assets"), {
+    immutable: true,
+    maxAge: "1y",
+    fallthrough: false,
+  }),
+);
 // Other files of the build (favicon, fonts): only paths that name a file are looked up on disk.
 const staticFiles = express.static(clientDir, { maxAge: "1h", index: false });
-app.use((req, res, next) => (/\.[a-z0-9]{1,8}$/i.test(req.path) && !req.path.startsWith("/api/") ? staticFiles(req, res, next) : next()));
+app.use((req, res, next) =>
+  /\.[a-z0-9]{1,8}$/i.test(req.path) && !req.path.startsWith("/api/")
+    ? staticFiles(req, res, next)
+    : next(),
+);
 
 app.use(createRequestHandler({ build, mode: "production" }));
 
 // Errors that reach Express (a request the Fetch API cannot represent, a failed stream): never the process.
 app.use((error, req, res, _next) => {
   const status = Number(error?.status ?? error?.statusCode);
-  const clientFault = (status >= 400 && status < 500) || error instanceof URIError || error instanceof TypeError;
-  if (!clientFault) logger.error({ requestId: res.getHeader("X-Request-Id"), error: { kind: error?.name, message: String(error?.message).slice(0, 200) } }, "request failed in the server");
+  const clientFault =
+    (status >= 400 && status < 500) ||
+    error instanceof URIError ||
+    error instanceof TypeError;
+  if (!clientFault)
+    logger.error(
+      {
+        requestId: res.getHeader("X-Request-Id"),
+        error: {
+          kind: error?.name,
+          message: String(error?.message).slice(0, 200),
+        },
+      },
+      "request failed in the server",
+    );
   if (res.headersSent) return res.destroy();
-  if (status === 404) return sendProblem(req, res, 404, "not_found", "There is no such file.");
-  if (clientFault) return sendProblem(req, res, status >= 400 && status < 500 ? status : 400, "bad_request", "This request is malformed (its address, headers or body cannot be read).");
-  sendProblem(req, res, 500, "internal_error", "The server failed to answer this request. It has been logged.");
+  if (status === 404)
+    return sendProblem(req, res, 404, "not_found", "There is no such file.");
+  if (clientFault)
+    return sendProblem(
+      req,
+      res,
+      status >= 400 && status < 500 ? status : 400,
+      "bad_request",
+      "This request is malformed (its address, headers or body cannot be read).",
+    );
+  sendProblem(
+    req,
+    res,
+    500,
+    "internal_error",
+    "The server failed to answer this request. It has been logged.",
+  );
 });
 
 // ---- the HTTP server -------------------------------------------------------------------------------------------
-const server = http.createServer({ maxHeaderSize: 16 * 1024, requireHostHeader: false }, app);
+const server = http.createServer(
+  { maxHeaderSize: 16 * 1024, requireHostHeader: false },
+  app,
+);
 server.requestTimeout = env.REQUEST_TIMEOUT_MS;
 server.headersTimeout = Math.min(30_000, env.REQUEST_TIMEOUT_MS);
 server.keepAliveTimeout = 5_000;
@@ -326,9 +453,25 @@ server.keepAliveTimeout = 5_000;
 // Requests Node's parser refuses (bad syntax, oversized headers, timeouts) get a problem-details answer.
 server.on("clientError", (error, socket) => {
   if (error.code === "ECONNRESET" || !socket.writable) return socket.destroy();
-  const status = error.code === "HPE_HEADER_OVERFLOW" ? 431 : error.code === "ERR_HTTP_REQUEST_TIMEOUT" ? 408 : 400;
-  const body = problemBody(status, status === 431 ? "headers_too_large" : status === 408 ? "timeout" : "bad_request",
-    status === 431 ? "The request's headers are larger than 16 KiB." : status === 408 ? "The request took too long to arrive." : "The request could not be parsed as HTTP.");
+  const status =
+    error.code === "HPE_HEADER_OVERFLOW"
+      ? 431
+      : error.code === "ERR_HTTP_REQUEST_TIMEOUT"
+        ? 408
+        : 400;
+  const body = problemBody(
+    status,
+    status === 431
+      ? "headers_too_large"
+      : status === 408
+        ? "timeout"
+        : "bad_request",
+    status === 431
+      ? "The request's headers are larger than 16 KiB."
+      : status === 408
+        ? "The request took too long to arrive."
+        : "The request could not be parsed as HTTP.",
+  );
   socket.end(
     `HTTP/1.1 ${status} ${http.STATUS_CODES[status]}\r\nContent-Type: application/problem+json; charset=utf-8\r\n` +
       `Content-Length: ${Buffer.byteLength(body)}\r\nCache-Control: no-store\r\nConnection: close\r\n\r\n${body}`,
@@ -337,7 +480,11 @@ server.on("clientError", (error, socket) => {
 
 // CONNECT (tunnels) is not served; without this, Node closes such a connection with no answer at all.
 server.on("connect", (_req, socket) => {
-  const body = problemBody(405, "method_not_allowed", "The method CONNECT is not accepted here.");
+  const body = problemBody(
+    405,
+    "method_not_allowed",
+    "The method CONNECT is not accepted here.",
+  );
   socket.on("error", () => socket.destroy());
   socket.end(
     `HTTP/1.1 405 Method Not Allowed\r\nContent-Type: application/problem+json; charset=utf-8\r\nAllow: ${[...METHODS].join(", ")}\r\n` +
@@ -346,8 +493,28 @@ server.on("connect", (_req, socket) => {
 });
 
 // A fault in one request must not end the process serving everyone else.
-process.on("unhandledRejection", (reason) => logger.error({ error: { kind: reason?.name, message: String(reason?.message ?? reason).slice(0, 200) } }, "unhandled rejection"));
-process.on("uncaughtException", (error) => logger.error({ error: { kind: error?.name, message: String(error?.message).slice(0, 200) } }, "uncaught exception"));
+process.on("unhandledRejection", (reason) =>
+  logger.error(
+    {
+      error: {
+        kind: reason?.name,
+        message: String(reason?.message ?? reason).slice(0, 200),
+      },
+    },
+    "unhandled rejection",
+  ),
+);
+process.on("uncaughtException", (error) =>
+  logger.error(
+    {
+      error: {
+        kind: error?.name,
+        message: String(error?.message).slice(0, 200),
+      },
+    },
+    "uncaught exception",
+  ),
+);
 
 function shutdown(signal) {
   if (draining) {
@@ -356,7 +523,10 @@ function shutdown(signal) {
     return;
   }
   draining = true;
-  logger.info({ signal, timeoutMs: env.SHUTDOWN_TIMEOUT_MS }, "shutting down: finishing requests in flight");
+  logger.info(
+    { signal, timeoutMs: env.SHUTDOWN_TIMEOUT_MS },
+    "shutting down: finishing requests in flight",
+  );
   const force = setTimeout(() => {
     logger.warn("requests still in flight at the shutdown bound: closing them");
     server.closeAllConnections();
@@ -369,7 +539,15 @@ function shutdown(signal) {
       logger.info("stopped");
       process.exit(0);
     } catch (error) {
-      logger.error({ error: { kind: error?.name, message: String(error?.message).slice(0, 200) } }, "shutdown failed");
+      logger.error(
+        {
+          error: {
+            kind: error?.name,
+            message: String(error?.message).slice(0, 200),
+          },
+        },
+        "shutdown failed",
+      );
       process.exit(1);
     }
   });
@@ -379,7 +557,10 @@ process.on("SIGTERM", () => shutdown("SIGTERM"));
 process.on("SIGINT", () => shutdown("SIGINT"));
 
 server.on("error", (error) => {
-  const detail = error.code === "EADDRINUSE" ? `port ${env.PORT} on ${env.HOST} is already in use` : error.message;
+  const detail =
+    error.code === "EADDRINUSE"
+      ? `port ${env.PORT} on ${env.HOST} is already in use`
+      : error.message;
   process.stderr.write(`Isopleth cannot start: ${detail}\n`);
   process.exit(1);
 });

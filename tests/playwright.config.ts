@@ -1,7 +1,12 @@
 import { defineConfig, devices } from "@playwright/test";
 
 import { CHROMIUM_ARGS, CHROMIUM_PATH } from "./support/chromium";
-import { APP_SERVER_ENV, APP_URL, SMTP_HTTP_PORT, SMTP_PORT } from "./support/e2e";
+import {
+  APP_SERVER_ENV,
+  APP_URL,
+  SMTP_HTTP_PORT,
+  SMTP_PORT,
+} from "./support/e2e";
 
 export default defineConfig({
   testDir: "./e2e",

@@ -25,24 +25,40 @@ test("production with every required value parses; the base URL loses its traili
   expect(env.SESSION_SECRET).toBe("s".repeat(40));
 });
 
-test.each(["DATABASE_URL", "SESSION_SECRET", "API_TOKEN_SECRET", "APP_BASE_URL"] as const)(
+test.each([
+  "DATABASE_URL",
+  "SESSION_SECRET",
+  "API_TOKEN_SECRET",
+  "APP_BASE_URL",
+] as const)(
   "production without %s fails with a message naming the variable",
   (key) => {
-    const source: Record<string, string | undefined> = { ...PRODUCTION_OK, [key]: undefined };
+    const source: Record<string, string | undefined> = {
+      ...PRODUCTION_OK,
+      [key]: undefined,
+    };
     expect(() => parseEnv(source)).toThrow(EnvError);
-    expect(() => parseEnv(source)).toThrow(new RegExp(`${key}: is required when NODE_ENV=production`));
+    expect(() => parseEnv(source)).toThrow(
+      new RegExp(`${key}: is required when NODE_ENV=production`),
+    );
   },
 );
 
 test("bad values are reported by name: port out of range, short secret, non-MySQL URL", () => {
   try {
-    parseEnv({ PORT: "70000", SESSION_SECRET: "short", DATABASE_URL: "postgres://x" });
+    parseEnv({
+      PORT: "70000",
+      SESSION_SECRET: "short",
+      DATABASE_URL: "postgres://x",
+    });
     expect.unreachable("parseEnv should have thrown");
   } catch (error) {
     expect(error).toBeInstanceOf(EnvError);
     const problems = (error as EnvError).problems.join("\n");
     expect(problems).toMatch(/^PORT:/m);
-    expect(problems).toMatch(/^SESSION_SECRET: must be at least 32 characters/m);
+    expect(problems).toMatch(
+      /^SESSION_SECRET: must be at least 32 characters/m,
+    );
     expect(problems).toMatch(/^DATABASE_URL: must be a mysql:\/\/ URL/m);
   }
 });
@@ -54,9 +70,19 @@ test("empty strings count as unset", () => {
 test("production: a missing secret is named even when another variable is also bad", () => {
   let problems: string[] = [];
   try {
-    parseEnv({ NODE_ENV: "production", DATABASE_URL: "mysql://u:p@127.0.0.1:3316/x", APP_BASE_URL: "https://isopleth.example", API_TOKEN_SECRET: "short", DATABASE_POOL_SIZE: "zero" });
+    parseEnv({
+      NODE_ENV: "production",
+      DATABASE_URL: "mysql://u:p@127.0.0.1:3316/x",
+      APP_BASE_URL: "https://isopleth.example",
+      API_TOKEN_SECRET: "short",
+      DATABASE_POOL_SIZE: "zero",
+    });
   } catch (error) {
     problems = (error as EnvError).problems;
   }
-  expect(problems.map((p) => p.split(":")[0]).sort()).toEqual(["API_TOKEN_SECRET", "DATABASE_POOL_SIZE", "SESSION_SECRET"]);
+  expect(problems.map((p) => p.split(":")[0]).sort()).toEqual([
+    "API_TOKEN_SECRET",
+    "DATABASE_POOL_SIZE",
+    "SESSION_SECRET",
+  ]);
 });

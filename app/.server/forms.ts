@@ -10,7 +10,10 @@ export async function readFormData(request: Request): Promise<FormData> {
   try {
     return await request.formData();
   } catch {
-    throw data("The form sent could not be read (its body is not a valid form). Reload the page and try again.", { status: 400 });
+    throw data(
+      "The form sent could not be read (its body is not a valid form). Reload the page and try again.",
+      { status: 400 },
+    );
   }
 }
 
@@ -23,20 +26,29 @@ export async function readJsonBody(request: Request): Promise<unknown> {
   }
 }
 
-export type FormFailure = { errors: FieldErrors; formError?: string; intent?: string };
+export type FormFailure = {
+  errors: FieldErrors;
+  formError?: string;
+  intent?: string;
+};
 
 /** Parses a urlencoded or multipart form with a zod schema: the data, or field errors for a 400 reply. */
 export async function parseForm<S extends z.ZodType>(
   request: Request,
   schema: S,
-): Promise<{ ok: true; data: z.output<S>; formData: FormData } | { ok: false; errors: FieldErrors; formData: FormData }> {
+): Promise<
+  | { ok: true; data: z.output<S>; formData: FormData }
+  | { ok: false; errors: FieldErrors; formData: FormData }
+> {
   const formData = await readFormData(request);
   const values: Record<string, unknown> = {};
-  for (const [key, value] of formData) if (typeof value === "string") values[key] = value;
+  for (const [key, value] of formData)
+    if (typeof value === "string") values[key] = value;
   const result = schema.safeParse(values);
   if (result.success) return { ok: true, data: result.data, formData };
   const errors: FieldErrors = {};
-  for (const issue of result.error.issues) (errors[String(issue.path[0] ?? "form")] ??= []).push(issue.message);
+  for (const issue of result.error.issues)
+    (errors[String(issue.path[0] ?? "form")] ??= []).push(issue.message);
   return { ok: false, errors, formData };
 }
 

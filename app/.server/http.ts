@@ -30,7 +30,9 @@ const TITLES: Record<number, string> = {
 
 /** A piece of the caller's input, cut to at most `max` characters for quoting in a message. */
 export function clipInput(text: string, max = 60): string {
-  return text.length <= max ? text : `${text.slice(0, Math.max(0, max - 20))}… (${text.length} characters)`;
+  return text.length <= max
+    ? text
+    : `${text.slice(0, Math.max(0, max - 20))}… (${text.length} characters)`;
 }
 
 /*
@@ -43,7 +45,10 @@ const MAX_ISSUE_CHARS = 200;
 const MAX_ISSUES = 20;
 
 function clipQuoted(text: string): string {
-  return text.replace(/"([^"]{61,})"/g, (_, inner: string) => `"${clipInput(inner)}"`);
+  return text.replace(
+    /"([^"]{61,})"/g,
+    (_, inner: string) => `"${clipInput(inner)}"`,
+  );
 }
 
 function clipMessage(text: string, max: number): string {
@@ -58,7 +63,9 @@ export function problem(
   extra?: { issues?: Problem["issues"]; headers?: HeadersInit },
 ): Response {
   const issues = extra?.issues?.slice(0, MAX_ISSUES).map((i) => ({
-    path: i.path.slice(0, 8).map((p) => (typeof p === "string" ? clipInput(p, 40) : p)),
+    path: i.path
+      .slice(0, 8)
+      .map((p) => (typeof p === "string" ? clipInput(p, 40) : p)),
     message: clipMessage(i.message, MAX_ISSUE_CHARS),
   }));
   const body: Problem = {
@@ -76,7 +83,12 @@ export function problem(
 }
 
 /** Kept for API routes outside /api/v1 and guards: the same problem-details shape. */
-export function apiError(status: number, code: string, message: string, issues?: Problem["issues"]): Response {
+export function apiError(
+  status: number,
+  code: string,
+  message: string,
+  issues?: Problem["issues"],
+): Response {
   return problem(status, code, message, { issues });
 }
 
@@ -85,6 +97,10 @@ export function isApiPath(request: Request): boolean {
 }
 
 /** Throws a 404 for a missing record (pages) — expected failures are responses, not exceptions. */
-export function invariantResponse(condition: unknown, message: string, status = 404): asserts condition {
+export function invariantResponse(
+  condition: unknown,
+  message: string,
+  status = 404,
+): asserts condition {
   if (!condition) throw data(message, { status });
 }

@@ -2,8 +2,9 @@
 export function EstimateCaution({ className = "" }: { className?: string }) {
   return (
     <p className={className} data-testid="estimate-caution">
-      <strong className="font-semibold">Caution:</strong> interpolated and extrapolated properties are estimates.
-      Check them against the laboratory report, and follow local regulations and licensed engineering practice for
+      <strong className="font-semibold">Caution:</strong> interpolated and
+      extrapolated properties are estimates. Check them against the laboratory
+      report, and follow local regulations and licensed engineering practice for
       well control, facility design and reserves.
     </p>
   );

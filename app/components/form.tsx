@@ -7,13 +7,17 @@ export type FieldErrors = Record<string, string[] | undefined>;
  * Checks a form with the same zod schema the server uses, before it is sent. Errors from the server
  * (returned by the action) show until the next submit.
  */
-export function useZodForm(schema: z.ZodType, serverErrors?: FieldErrors | null) {
+export function useZodForm(
+  schema: z.ZodType,
+  serverErrors?: FieldErrors | null,
+) {
   const [clientErrors, setClientErrors] = useState<FieldErrors | null>(null);
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     const form = event.currentTarget;
     const formData = new FormData(form);
     const submitter = (event.nativeEvent as SubmitEvent).submitter;
-    if (submitter instanceof HTMLButtonElement && submitter.name) formData.set(submitter.name, submitter.value);
+    if (submitter instanceof HTMLButtonElement && submitter.name)
+      formData.set(submitter.name, submitter.value);
     const result = schema.safeParse(Object.fromEntries(formData));
     if (result.success) {
       setClientErrors(null);
@@ -26,7 +30,9 @@ export function useZodForm(schema: z.ZodType, serverErrors?: FieldErrors | null)
       (errors[key] ??= []).push(issue.message);
     }
     setClientErrors(errors);
-    const first = form.querySelector<HTMLElement>(`[name="${Object.keys(errors)[0]}"]`);
+    const first = form.querySelector<HTMLElement>(
+      `[name="${Object.keys(errors)[0]}"]`,
+    );
     first?.focus();
   };
   return { errors: clientErrors ?? serverErrors ?? {}, onSubmit };
@@ -48,7 +54,10 @@ export function TextField({
   const id = useId();
   const errorId = `${id}-error`;
   const hintId = `${id}-hint`;
-  const describedBy = [hint ? hintId : null, errors?.length ? errorId : null].filter(Boolean).join(" ") || undefined;
+  const describedBy =
+    [hint ? hintId : null, errors?.length ? errorId : null]
+      .filter(Boolean)
+      .join(" ") || undefined;
   return (
     <div className={className}>
       <label htmlFor={id} className="block text-sm font-semibold">
@@ -81,11 +90,23 @@ export function FieldError({ id, errors }: { id?: string; errors?: string[] }) {
   );
 }
 
-export function FormAlert({ message, tone = "danger" }: { message?: string | null; tone?: "danger" | "ok" }) {
+export function FormAlert({
+  message,
+  tone = "danger",
+}: {
+  message?: string | null;
+  tone?: "danger" | "ok";
+}) {
   if (!message) return null;
-  const style = tone === "ok" ? "border-accent bg-accent-soft text-accent-strong" : "border-danger/40 bg-red-50 text-danger";
+  const style =
+    tone === "ok"
+      ? "border-accent bg-accent-soft text-accent-strong"
+      : "border-danger/40 bg-red-50 text-danger";
   return (
-    <div role={tone === "ok" ? "status" : "alert"} className={`rounded border px-3 py-2 text-sm ${style}`}>
+    <div
+      role={tone === "ok" ? "status" : "alert"}
+      className={`rounded border px-3 py-2 text-sm ${style}`}
+    >
       {message}
     </div>
   );
@@ -95,7 +116,9 @@ export function Button({
   variant = "primary",
   className = "",
   ...props
-}: { variant?: "primary" | "secondary" | "danger" } & React.ButtonHTMLAttributes<HTMLButtonElement>) {
+}: {
+  variant?: "primary" | "secondary" | "danger";
+} & React.ButtonHTMLAttributes<HTMLButtonElement>) {
   const styles = {
     primary: "bg-accent text-white hover:bg-accent-strong",
     secondary: "border border-line bg-panel text-ink hover:border-accent",

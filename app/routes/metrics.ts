@@ -13,16 +13,25 @@ const LOOPBACK = new Set(["127.0.0.1", "::1", "localhost"]);
  */
 export async function loader({ request }: Route.LoaderArgs) {
   const address = clientAddress(request);
-  const bearer = /^Bearer\s+(\S+)$/i.exec(request.headers.get("Authorization") ?? "")?.[1];
+  const bearer = /^Bearer\s+(\S+)$/i.exec(
+    request.headers.get("Authorization") ?? "",
+  )?.[1];
   let allowed = LOOPBACK.has(address);
   if (!allowed && bearer) {
     const check = await verifyApiToken(bearer, address);
     allowed = check.ok && check.caller.user.role === "admin";
   }
   if (!allowed) {
-    return problem(403, "forbidden", "Metrics are served to loopback, or to an administrator's API token.");
+    return problem(
+      403,
+      "forbidden",
+      "Metrics are served to loopback, or to an administrator's API token.",
+    );
   }
   return new Response(await registry.metrics(), {
-    headers: { "Content-Type": registry.contentType, "Cache-Control": "no-store" },
+    headers: {
+      "Content-Type": registry.contentType,
+      "Cache-Control": "no-store",
+    },
   });
 }

@@ -8,10 +8,16 @@ import type { Route } from "./+types/sign-out";
 export async function action(args: Route.ActionArgs) {
   const caller = getCaller(args);
   if (!caller.sessionId || !caller.user) {
-    return redirect("/sign-in", { headers: { "Set-Cookie": await clearSessionCookie() } });
+    return redirect("/sign-in", {
+      headers: { "Set-Cookie": await clearSessionCookie() },
+    });
   }
   const setCookie = await destroySession(caller.sessionId);
-  await recordAudit({ action: "sign_out", userId: caller.user.id, ipAddress: caller.ipAddress });
+  await recordAudit({
+    action: "sign_out",
+    userId: caller.user.id,
+    ipAddress: caller.ipAddress,
+  });
   return redirect("/sign-in", { headers: { "Set-Cookie": setCookie } });
 }
 

@@ -5,7 +5,12 @@ import { ROLES } from "./permissions";
 /** Form schemas shared by the browser (checked before submitting) and the server (checked again in actions). */
 export const MIN_PASSWORD_LENGTH = 10;
 
-const email = z.string().trim().min(1, "Enter your e-mail address.").max(254).pipe(z.email("Enter a valid e-mail address."));
+const email = z
+  .string()
+  .trim()
+  .min(1, "Enter your e-mail address.")
+  .max(254)
+  .pipe(z.email("Enter a valid e-mail address."));
 const newPassword = z
   .string()
   .min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters.`)
@@ -22,11 +27,17 @@ export const ForgotPasswordSchema = z.object({ email });
 
 export const NewPasswordSchema = z
   .object({ password: newPassword, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+  .refine((v) => v.password === v.confirm, {
+    path: ["confirm"],
+    message: "The two passwords differ.",
+  });
 
 export const AcceptInvitationSchema = z
   .object({ name, password: newPassword, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+  .refine((v) => v.password === v.confirm, {
+    path: ["confirm"],
+    message: "The two passwords differ.",
+  });
 
 export const ProfileSchema = z.object({
   intent: z.literal("profile"),
@@ -41,9 +52,16 @@ export const ChangePasswordSchema = z
     password: newPassword,
     confirm: z.string(),
   })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+  .refine((v) => v.password === v.confirm, {
+    path: ["confirm"],
+    message: "The two passwords differ.",
+  });
 
-export const InviteSchema = z.object({ intent: z.literal("invite"), email, role: z.enum(ROLES, "Choose a role.") });
+export const InviteSchema = z.object({
+  intent: z.literal("invite"),
+  email,
+  role: z.enum(ROLES, "Choose a role."),
+});
 
 export const ChangeRoleSchema = z.object({
   intent: z.literal("role"),

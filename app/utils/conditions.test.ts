@@ -13,14 +13,19 @@ test("numbers as people type them", () => {
 });
 
 test("a list pasted from a spreadsheet: tabs, semicolons with decimal commas, a header line", () => {
-  expect(parseConditionList("pressure\ttemperature\n3250\t212\n2000\t180.5\n")).toEqual({
+  expect(
+    parseConditionList("pressure\ttemperature\n3250\t212\n2000\t180.5\n"),
+  ).toEqual({
     ok: true,
     conditions: [
       { pressure: 3250, temperature: 212 },
       { pressure: 2000, temperature: 180.5 },
     ],
   });
-  expect(parseConditionList("224,1;100,5")).toEqual({ ok: true, conditions: [{ pressure: 224.1, temperature: 100.5 }] });
+  expect(parseConditionList("224,1;100,5")).toEqual({
+    ok: true,
+    conditions: [{ pressure: 224.1, temperature: 100.5 }],
+  });
   expect(parseConditionList("3250, 212\n3000 200")).toEqual({
     ok: true,
     conditions: [
@@ -31,15 +36,27 @@ test("a list pasted from a spreadsheet: tabs, semicolons with decimal commas, a 
 });
 
 test("bad lines are named", () => {
-  expect(parseConditionList("3250\t212\n3000")).toEqual({ ok: false, error: "Line 2 (“3000”) should hold two numbers: pressure and temperature." });
-  expect(parseConditionList("3250\tx1")).toMatchObject({ ok: false, error: expect.stringContaining("“x1” is not a number") });
+  expect(parseConditionList("3250\t212\n3000")).toEqual({
+    ok: false,
+    error: "Line 2 (“3000”) should hold two numbers: pressure and temperature.",
+  });
+  expect(parseConditionList("3250\tx1")).toMatchObject({
+    ok: false,
+    error: expect.stringContaining("“x1” is not a number"),
+  });
   expect(parseConditionList("  \n")).toMatchObject({ ok: false });
 });
 
 test("a depletion path of 50 pressures", () => {
   const path = depletionPath(5000, 100, 100, 212);
   expect(path.ok && path.conditions.length).toBe(50);
-  expect(path.ok && path.conditions[0]).toEqual({ pressure: 5000, temperature: 212 });
-  expect(path.ok && path.conditions[49]).toEqual({ pressure: 100, temperature: 212 });
+  expect(path.ok && path.conditions[0]).toEqual({
+    pressure: 5000,
+    temperature: 212,
+  });
+  expect(path.ok && path.conditions[49]).toEqual({
+    pressure: 100,
+    temperature: 212,
+  });
   expect(depletionPath(100, 200, 0, 212)).toMatchObject({ ok: false });
 });

@@ -3,7 +3,8 @@
  * range with a step at one temperature). Pure and client-safe; numbers stay in the unit system on screen.
  */
 export type Condition = { pressure: number; temperature: number };
-export type ParsedConditions = { ok: true; conditions: Condition[] } | { ok: false; error: string };
+export type ParsedConditions =
+  { ok: true; conditions: Condition[] } | { ok: false; error: string };
 
 export const MAX_CONDITIONS = 10_000;
 
@@ -28,28 +29,72 @@ export function parseConditionList(text: string): ParsedConditions {
   for (const [i, raw] of lines.entries()) {
     const line = raw.trim();
     if (!line) continue;
-    const parts = line.includes("\t") ? line.split("\t") : line.includes(";") ? line.split(";") : /\d,\s*\d/.test(line) && !/\d,\d{3}\b/.test(line) ? line.split(",") : line.split(/\s+/);
+    const parts = line.includes("\t")
+      ? line.split("\t")
+      : line.includes(";")
+        ? line.split(";")
+        : /\d,\s*\d/.test(line) && !/\d,\d{3}\b/.test(line)
+          ? line.split(",")
+          : line.split(/\s+/);
     const cells = parts.map((p) => p.trim()).filter((p) => p !== "");
-    if (conditions.length === 0 && cells.length > 0 && cells.every((c) => /[a-z]/i.test(c) && parseNumber(c) === null)) continue; // header
-    if (cells.length !== 2) return { ok: false, error: `Line ${i + 1} (“${line}”) should hold two numbers: pressure and temperature.` };
+    if (
+      conditions.length === 0 &&
+      cells.length > 0 &&
+      cells.every((c) => /[a-z]/i.test(c) && parseNumber(c) === null)
+    )
+      continue; // header
+    if (cells.length !== 2)
+      return {
+        ok: false,
+        error: `Line ${i + 1} (“${line}”) should hold two numbers: pressure and temperature.`,
+      };
     const pressure = parseNumber(cells[0]!);
     const temperature = parseNumber(cells[1]!);
-    if (pressure === null) return { ok: false, error: `Line ${i + 1}: “${cells[0]}” is not a number (pressure).` };
-    if (temperature === null) return { ok: false, error: `Line ${i + 1}: “${cells[1]}” is not a number (temperature).` };
+    if (pressure === null)
+      return {
+        ok: false,
+        error: `Line ${i + 1}: “${cells[0]}” is not a number (pressure).`,
+      };
+    if (temperature === null)
+      return {
+        ok: false,
+        error: `Line ${i + 1}: “${cells[1]}” is not a number (temperature).`,
+      };
     conditions.push({ pressure, temperature });
-    if (conditions.length > MAX_CONDITIONS) return { ok: false, error: `At most ${MAX_CONDITIONS} conditions at a time.` };
+    if (conditions.length > MAX_CONDITIONS)
+      return {
+        ok: false,
+        error: `At most ${MAX_CONDITIONS} conditions at a time.`,
+      };
   }
-  if (conditions.length === 0) return { ok: false, error: "Paste at least one line with a pressure and a temperature." };
+  if (conditions.length === 0)
+    return {
+      ok: false,
+      error: "Paste at least one line with a pressure and a temperature.",
+    };
   return { ok: true, conditions };
 }
 
 /** Pressures from `from` to `to` (inclusive when the step lands on it) every `step`, at one temperature. */
-export function depletionPath(from: number, to: number, step: number, temperature: number): ParsedConditions {
-  if (![from, to, step, temperature].every(Number.isFinite)) return { ok: false, error: "Fill in every number of the path." };
+export function depletionPath(
+  from: number,
+  to: number,
+  step: number,
+  temperature: number,
+): ParsedConditions {
+  if (![from, to, step, temperature].every(Number.isFinite))
+    return { ok: false, error: "Fill in every number of the path." };
   if (step <= 0) return { ok: false, error: "The step must be positive." };
   const count = Math.floor(Math.abs(to - from) / step + 1e-9) + 1;
-  if (count > MAX_CONDITIONS) return { ok: false, error: `That path has ${count} points; at most ${MAX_CONDITIONS}.` };
+  if (count > MAX_CONDITIONS)
+    return {
+      ok: false,
+      error: `That path has ${count} points; at most ${MAX_CONDITIONS}.`,
+    };
   const dir = to >= from ? 1 : -1;
-  const conditions = Array.from({ length: count }, (_, k) => ({ pressure: Number((from + dir * k * step).toPrecision(12)), temperature }));
+  const conditions = Array.from({ length: count }, (_, k) => ({
+    pressure: Number((from + dir * k * step).toPrecision(12)),
+    temperature,
+  }));
   return { ok: true, conditions };
 }

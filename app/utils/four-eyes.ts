@@ -19,10 +19,20 @@ export const FOUR_EYES_MODE_LABELS: Record<FourEyesMode, string> = {
   off: "Off: an uploader may approve their own revision (the history shows it)",
 };
 
-export type FourEyesPolicy = { mode: FourEyesMode; activeLabLeads: number; required: boolean };
+export type FourEyesPolicy = {
+  mode: FourEyesMode;
+  activeLabLeads: number;
+  required: boolean;
+};
 
-export function fourEyesRequired(mode: FourEyesMode, activeLabLeads: number): boolean {
-  return mode === "on" || (mode === "auto" && activeLabLeads >= FOUR_EYES_AUTO_MIN_LAB_LEADS);
+export function fourEyesRequired(
+  mode: FourEyesMode,
+  activeLabLeads: number,
+): boolean {
+  return (
+    mode === "on" ||
+    (mode === "auto" && activeLabLeads >= FOUR_EYES_AUTO_MIN_LAB_LEADS)
+  );
 }
 
 /** "On (automatic: 2 active lab leads)". */

@@ -19,7 +19,9 @@ test("a label with a line break, a tab, NUL, ESC, DEL or a direction override is
   ] as const) {
     const r = label.safeParse(text);
     expect(r.success, JSON.stringify(text)).toBe(false);
-    expect(r.error?.issues[0]?.message).toBe(`The sample label must be one line, without tabs or other control characters: it holds ${what}.`);
+    expect(r.error?.issues[0]?.message).toBe(
+      `The sample label must be one line, without tabs or other control characters: it holds ${what}.`,
+    );
   }
 });
 
@@ -28,7 +30,15 @@ test("a trailing line break is refused too (it is not silently trimmed away)", (
 });
 
 test("formula-like text, quotes, accents and other scripts are allowed in a label (exports neutralise them)", () => {
-  for (const text of ['=HYPERLINK("http://evil.example","x")', "+1", "-2", "@x", "Sample «Ø» 7", "井 3", "O'Brien, \"B\""]) {
+  for (const text of [
+    '=HYPERLINK("http://evil.example","x")',
+    "+1",
+    "-2",
+    "@x",
+    "Sample «Ø» 7",
+    "井 3",
+    'O\'Brien, "B"',
+  ]) {
     expect(label.safeParse(text), text).toEqual({ success: true, data: text });
   }
   expect(label.safeParse("  BH-1  ")).toEqual({ success: true, data: "BH-1" });

@@ -45,10 +45,15 @@ const GRANTS: Record<Permission, readonly Role[]> = {
   "read:captured-mail": ["admin"],
 };
 
-export function can(user: { role: Role } | null | undefined, permission: Permission): boolean {
+export function can(
+  user: { role: Role } | null | undefined,
+  permission: Permission,
+): boolean {
   return !!user && GRANTS[permission].includes(user.role);
 }
 
 export function permissionsOf(role: Role): Permission[] {
-  return (Object.keys(GRANTS) as Permission[]).filter((p) => GRANTS[p].includes(role));
+  return (Object.keys(GRANTS) as Permission[]).filter((p) =>
+    GRANTS[p].includes(role),
+  );
 }

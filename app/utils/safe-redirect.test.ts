@@ -21,7 +21,10 @@ describe("safeRedirect", () => {
   const hostile: [string, unknown][] = [
     ["protocol-relative", "//evil.example"],
     ["protocol-relative with a path", "//evil.example/sign-in"],
-    ["tab between the slashes (browsers strip it: //evil.example)", "/\t/evil.example"],
+    [
+      "tab between the slashes (browsers strip it: //evil.example)",
+      "/\t/evil.example",
+    ],
     ["newline between the slashes", "/\n/evil.example"],
     ["carriage return between the slashes", "/\r/evil.example"],
     ["CR LF header injection", "/samples\r\nSet-Cookie: x=1"],

@@ -11,7 +11,12 @@ const CONTROL = /\p{Cc}/u;
 
 /** `to` when it is a path on this site ("/…", not "//…", no backslash, nothing a browser would rewrite), else `fallback`. */
 export function safeRedirect(to: unknown, fallback = "/"): string {
-  if (typeof to !== "string" || to.length > MAX_REDIRECT_LENGTH || !VISIBLE_ASCII.test(to)) return fallback;
+  if (
+    typeof to !== "string" ||
+    to.length > MAX_REDIRECT_LENGTH ||
+    !VISIBLE_ASCII.test(to)
+  )
+    return fallback;
   if (!isSitePath(to)) return fallback;
   // Percent-encoded variants (%2F%2F, %5C, %0A, double encoding) must not turn into one of the above either.
   let decoded = to;
@@ -28,7 +33,11 @@ export function safeRedirect(to: unknown, fallback = "/"): string {
   }
   // Last, resolve it the way a browser does (WHATWG URL parsing, dot segments included) and check where it lands.
   const resolved = new URL(to, PLACEHOLDER_ORIGIN);
-  if (resolved.origin !== PLACEHOLDER_ORIGIN || resolved.pathname.startsWith("//")) return fallback;
+  if (
+    resolved.origin !== PLACEHOLDER_ORIGIN ||
+    resolved.pathname.startsWith("//")
+  )
+    return fallback;
   return to;
 }
 

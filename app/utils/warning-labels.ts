@@ -21,11 +21,18 @@ export const WARNING_LABELS: Record<BadgeWarning, string> = {
 };
 
 /** Warnings that mean "outside what was measured": shown in the caution colour. */
-export const SERIOUS_WARNINGS: ReadonlySet<string> = new Set<LookupWarning>(["extrapolated", "branch-extrapolated", "bubble-point-extrapolated", "missing-data"]);
+export const SERIOUS_WARNINGS: ReadonlySet<string> = new Set<LookupWarning>([
+  "extrapolated",
+  "branch-extrapolated",
+  "bubble-point-extrapolated",
+  "missing-data",
+]);
 
 /** The badge label of a warning code as received (e.g. from the API); an unknown code is shown as it is. */
 export function warningLabel(code: string): string {
-  return Object.hasOwn(WARNING_LABELS, code) ? WARNING_LABELS[code as BadgeWarning] : code;
+  return Object.hasOwn(WARNING_LABELS, code)
+    ? WARNING_LABELS[code as BadgeWarning]
+    : code;
 }
 
 /** Within this fraction of the bubble point a value is flagged: the kink is close. Common practice, not a standard. */

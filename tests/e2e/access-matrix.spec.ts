@@ -17,7 +17,12 @@ type Who = "anonymous" | DemoRole;
 const ROLES: DemoRole[] = ["viewer", "engineer", "lab_lead", "admin"];
 const EVERYONE: Who[] = ["anonymous", ...ROLES];
 
-const RULES: Record<string, Rule> = { ...CORE_RULES, ...SAMPLE_RULES, ...LOOKUP_RULES, ...API_RULES };
+const RULES: Record<string, Rule> = {
+  ...CORE_RULES,
+  ...SAMPLE_RULES,
+  ...LOOKUP_RULES,
+  ...API_RULES,
+};
 
 function flatten(entries: RouteConfigEntry[]): string[] {
   return entries.flatMap((e) => [e.file, ...flatten(e.children ?? [])]);
@@ -25,7 +30,8 @@ function flatten(entries: RouteConfigEntry[]): string[] {
 
 const contexts = new Map<Who, APIRequestContext>();
 test.beforeAll(async () => {
-  for (const who of EVERYONE) contexts.set(who, await apiContextFor(who === "anonymous" ? null : who));
+  for (const who of EVERYONE)
+    contexts.set(who, await apiContextFor(who === "anonymous" ? null : who));
 });
 test.afterAll(async () => {
   for (const c of contexts.values()) await c.dispose();
@@ -61,11 +67,22 @@ for (const [file, rule] of Object.entries(RULES)) {
           break;
         }
         case "api": {
-          const r = rule.method === "POST" ? await context.post(rule.path, { data: rule.body, maxRedirects: 0 }) : response;
+          const r =
+            rule.method === "POST"
+              ? await context.post(rule.path, {
+                  data: rule.body,
+                  maxRedirects: 0,
+                })
+              : response;
           const apiStatus = r.status();
           const apiLabel = `${who} ${rule.method ?? "GET"} ${rule.path}`;
-          if (rule.allowed === "public" || (who !== "anonymous" && rule.allowed.includes(who))) expect(apiStatus, apiLabel).toBe(rule.okStatus ?? 200);
-          else expect(apiStatus, apiLabel).toBe(who === "anonymous" ? 401 : 403);
+          if (
+            rule.allowed === "public" ||
+            (who !== "anonymous" && rule.allowed.includes(who))
+          )
+            expect(apiStatus, apiLabel).toBe(rule.okStatus ?? 200);
+          else
+            expect(apiStatus, apiLabel).toBe(who === "anonymous" ? 401 : 403);
           break;
         }
         case "page":
@@ -73,13 +90,19 @@ for (const [file, rule] of Object.entries(RULES)) {
             expect(status, label).toBe(302);
             expect(location, label).toMatch(/^\/sign-in\?redirectTo=/);
           } else {
-            expect(status, label).toBe(rule.allowed.includes(who) ? (rule.okStatus ?? 200) : 403);
+            expect(status, label).toBe(
+              rule.allowed.includes(who) ? (rule.okStatus ?? 200) : 403,
+            );
           }
           if (rule.post) {
-            const post = await context.post(rule.path, { form: rule.post.form, maxRedirects: 0 });
+            const post = await context.post(rule.path, {
+              form: rule.post.form,
+              maxRedirects: 0,
+            });
             const postLabel = `${who} POST ${rule.path}`;
             if (who === "anonymous") expect(post.status(), postLabel).toBe(302);
-            else if (!rule.post.allowed.includes(who)) expect(post.status(), postLabel).toBe(403);
+            else if (!rule.post.allowed.includes(who))
+              expect(post.status(), postLabel).toBe(403);
             else expect(post.status(), postLabel).toBe(400); // allowed, and the deliberately invalid form is refused
           }
           break;

@@ -32,8 +32,12 @@ test("compare: a viewer chooses two samples and conditions; the table shows both
   await signIn(page, "viewer");
   await page.goto("/compare");
   await page.waitForLoadState("networkidle"); // interactive: choosing a sample reloads the data without a page load
-  await expect(page.getByRole("heading", { level: 1, name: "Compare" })).toBeVisible();
-  await expect(page.getByText("Choose two to four samples to compare.")).toBeVisible();
+  await expect(
+    page.getByRole("heading", { level: 1, name: "Compare" }),
+  ).toBeVisible();
+  await expect(
+    page.getByText("Choose two to four samples to compare."),
+  ).toBeVisible();
 
   // the sample list is searchable; choosing a sample reloads the page's data
   const search = page.getByRole("searchbox", { name: "Find samples" });
@@ -50,45 +54,81 @@ test("compare: a viewer chooses two samples and conditions; the table shows both
     { pressure: 3250, temperature: 212 },
     { pressure: 1500, temperature: 190 },
   ];
-  await page.getByRole("textbox", { name: "Conditions" }).fill(conditions.map((c) => `${c.pressure}, ${c.temperature}`).join("\n"));
+  await page
+    .getByRole("textbox", { name: "Conditions" })
+    .fill(conditions.map((c) => `${c.pressure}, ${c.temperature}`).join("\n"));
   const table = page.getByRole("table", { name: /Bo by sample/ });
   await expect(table.locator("tbody tr")).toHaveCount(2);
-  await expect(table.getByTestId("compare-value")).toHaveCount(4, { timeout: 15_000 });
+  await expect(table.getByTestId("compare-value")).toHaveCount(4, {
+    timeout: 15_000,
+  });
   await expect(table.getByTestId("compare-difference")).toHaveCount(2);
   await expect(page.getByTestId("estimate-caution").first()).toBeVisible();
 
   // the reference: the lookup API with the automatic method, for each sample
   const lookup = async (id: number) => {
     const response = await page.request.post(`/api/v1/samples/${id}/lookup`, {
-      data: { property: "oil_fvf", points: conditions, method: "auto", units: "field" },
+      data: {
+        property: "oil_fvf",
+        points: conditions,
+        method: "auto",
+        units: "field",
+      },
       headers: { Origin: APP_URL },
     });
     expect(response.status()).toBe(200);
-    return ((await response.json()) as LookupAnswer).results.map((r) => r.value);
+    return ((await response.json()) as LookupAnswer).results.map(
+      (r) => r.value,
+    );
   };
   const [a, b] = [await lookup(1), await lookup(3)];
   const rows = table.locator("tbody tr");
   const differences: number[] = [];
   for (let k = 0; k < conditions.length; k++) {
     const cells = rows.nth(k).getByTestId("compare-value");
-    const shownA = Number((await cells.nth(0).locator("span").first().textContent())!.replace(/,/g, ""));
-    const shownB = Number((await cells.nth(1).locator("span").first().textContent())!.replace(/,/g, ""));
+    const shownA = Number(
+      (await cells.nth(0).locator("span").first().textContent())!.replace(
+        /,/g,
+        "",
+      ),
+    );
+    const shownB = Number(
+      (await cells.nth(1).locator("span").first().textContent())!.replace(
+        /,/g,
+        "",
+      ),
+    );
     // five significant digits on screen
-    expect(Math.abs(shownA - a[k]!)).toBeLessThanOrEqual(5e-5 * Math.abs(a[k]!));
-    expect(Math.abs(shownB - b[k]!)).toBeLessThanOrEqual(5e-5 * Math.abs(b[k]!));
+    expect(Math.abs(shownA - a[k]!)).toBeLessThanOrEqual(
+      5e-5 * Math.abs(a[k]!),
+    );
+    expect(Math.abs(shownB - b[k]!)).toBeLessThanOrEqual(
+      5e-5 * Math.abs(b[k]!),
+    );
     const expected = ((b[k]! - a[k]!) / Math.abs(a[k]!)) * 100;
     differences.push(expected);
-    const text = (await rows.nth(k).getByTestId("compare-difference").textContent())!;
+    const text = (await rows
+      .nth(k)
+      .getByTestId("compare-difference")
+      .textContent())!;
     const shown = Number(text.replace(/[^0-9.−-]/g, "").replace("−", "-"));
-    expect(Math.abs(shown - expected)).toBeLessThanOrEqual(0.01 + 0.001 * Math.abs(expected));
+    expect(Math.abs(shown - expected)).toBeLessThanOrEqual(
+      0.01 + 0.001 * Math.abs(expected),
+    );
   }
   expect(differences.some((d) => d !== 0)).toBe(true);
 
   // the threshold decides which differences are highlighted
-  const threshold = page.getByRole("spinbutton", { name: "Highlight differences beyond (%)" });
-  const exceeding = table.locator('[data-testid="compare-difference"][data-exceeds="true"]');
+  const threshold = page.getByRole("spinbutton", {
+    name: "Highlight differences beyond (%)",
+  });
+  const exceeding = table.locator(
+    '[data-testid="compare-difference"][data-exceeds="true"]',
+  );
   await threshold.fill("0");
-  await expect(exceeding).toHaveCount(differences.filter((d) => Math.abs(d) > 0).length);
+  await expect(exceeding).toHaveCount(
+    differences.filter((d) => Math.abs(d) > 0).length,
+  );
   await threshold.fill("1000");
   await expect(exceeding).toHaveCount(0);
   const between = (Math.abs(differences[0]!) + Math.abs(differences[1]!)) / 2;
@@ -112,12 +152,16 @@ test("compare: the 3D surface renders (the plot area is not blank), side by side
   await signIn(page, "engineer");
 
   // the server renders a visible loading state where the plots will be (Plotly is never rendered on the server)
-  const html = await (await page.request.get("/compare?samples=1,2&property=oil_fvf")).text();
+  const html = await (
+    await page.request.get("/compare?samples=1,2&property=oil_fvf")
+  ).text();
   expect(html).toMatch(/role="status"[^>]*>.*Loading the 3D surface/s);
   expect(html).not.toMatch(PLOT_CHUNK);
 
   const started = Date.now();
-  const documentResponse = await page.goto("/compare?samples=1,2&property=oil_fvf");
+  const documentResponse = await page.goto(
+    "/compare?samples=1,2&property=oil_fvf",
+  );
   // The plots draw under the production Content-Security-Policy: scripts by nonce only, no 'unsafe-inline' or
   // 'unsafe-eval' for scripts; a violation would be a console error, and `errors` must stay empty.
   const csp = documentResponse!.headers()["content-security-policy"] ?? "";
@@ -130,10 +174,16 @@ test("compare: the 3D surface renders (the plot area is not blank), side by side
       .getByTestId("compare-value")
       .first(),
   ).toBeVisible({ timeout: 30_000 });
-  const surface = page.locator('[data-testid="property-surface"][data-state="drawn"]');
-  await expect(surface.locator("canvas").first()).toBeVisible({ timeout: 90_000 });
+  const surface = page.locator(
+    '[data-testid="property-surface"][data-state="drawn"]',
+  );
+  await expect(surface.locator("canvas").first()).toBeVisible({
+    timeout: 90_000,
+  });
   const seconds = (Date.now() - started) / 1000;
-  console.log(`time from navigation to the first drawn 3D canvas on /compare: ${seconds.toFixed(1)} s`);
+  console.log(
+    `time from navigation to the first drawn 3D canvas on /compare: ${seconds.toFixed(1)} s`,
+  );
 
   expect(scripts.some((u) => PLOT_CHUNK.test(u))).toBe(true); // the plot chunk is loaded here (positive control)
 
@@ -183,7 +233,9 @@ test("compare: the 3D surface renders (the plot area is not blank), side by side
   await expect(surface.getByText("CS-1 BH-01").first()).toBeVisible();
 
   // the 2D slices: curves, measured markers and the bubble point labelled
-  const slices = page.locator('[data-testid="property-slices"][data-state="drawn"]');
+  const slices = page.locator(
+    '[data-testid="property-slices"][data-state="drawn"]',
+  );
   await expect(slices).toBeVisible({ timeout: 60_000 });
   await expect(slices.getByText(/^pb [\d,]+ psia$/).first()).toBeVisible();
   await expect(slices.getByText("Pressure (psia)")).toBeVisible();
@@ -191,7 +243,9 @@ test("compare: the 3D surface renders (the plot area is not blank), side by side
   expect(errors).toEqual([]);
 });
 
-test("the Plotly chunk is not requested on the sign-in, home and samples pages", async ({ page }) => {
+test("the Plotly chunk is not requested on the sign-in, home and samples pages", async ({
+  page,
+}) => {
   test.setTimeout(120_000);
   const scripts: string[] = [];
   page.on("request", (r) => {
@@ -203,9 +257,14 @@ test("the Plotly chunk is not requested on the sign-in, home and samples pages",
   await page.goto("/");
   await expect(page.getByRole("heading", { level: 1 })).toBeVisible();
   await page.goto("/samples");
-  await expect(page.getByRole("heading", { level: 1, name: "Samples" })).toBeVisible();
+  await expect(
+    page.getByRole("heading", { level: 1, name: "Samples" }),
+  ).toBeVisible();
   // and by client-side navigation between them
-  await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Samples" }).click();
+  await page
+    .getByRole("navigation", { name: "Main" })
+    .getByRole("link", { name: "Samples" })
+    .click();
   await page.locator("a[href='/']").first().click();
   await expect(page).toHaveURL(/\/$/);
   await page.waitForLoadState("networkidle");
@@ -215,5 +274,9 @@ test("the Plotly chunk is not requested on the sign-in, home and samples pages",
   // positive control: the name really is the plot chunk's, which /compare does request
   const before = scripts.length;
   await page.goto("/compare?samples=1,2&property=oil_fvf");
-  await expect.poll(() => scripts.slice(before).some((u) => PLOT_CHUNK.test(u)), { timeout: 30_000 }).toBe(true);
+  await expect
+    .poll(() => scripts.slice(before).some((u) => PLOT_CHUNK.test(u)), {
+      timeout: 30_000,
+    })
+    .toBe(true);
 });

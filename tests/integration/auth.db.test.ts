@@ -34,8 +34,18 @@ beforeAll(async () => {
     tokens: await import("~/.server/auth/tokens"),
   };
   const passwordHash = await app.password.hashPassword(PASSWORD);
-  engineerId = await app.users.createUser({ email: "eng@example.test", name: "Eng", role: "engineer", passwordHash });
-  otherId = await app.users.createUser({ email: "other@example.test", name: "Other", role: "viewer", passwordHash });
+  engineerId = await app.users.createUser({
+    email: "eng@example.test",
+    name: "Eng",
+    role: "engineer",
+    passwordHash,
+  });
+  otherId = await app.users.createUser({
+    email: "other@example.test",
+    name: "Other",
+    role: "viewer",
+    passwordHash,
+  });
 }, 60_000);
 
 afterAll(async () => cleanup?.());
@@ -48,8 +58,12 @@ async function sql<T>(query: string, params: unknown[] = []): Promise<T[]> {
 
 function tokenFromCookie(setCookie: string): string {
   // The cookie value is signed by react-router's createCookie; the token sits base64-JSON-encoded inside.
-  const value = decodeURIComponent(setCookie.split(";")[0]!.split("=").slice(1).join("="));
-  return JSON.parse(Buffer.from(value.split(".")[0]!, "base64").toString("utf8")) as string;
+  const value = decodeURIComponent(
+    setCookie.split(";")[0]!.split("=").slice(1).join("="),
+  );
+  return JSON.parse(
+    Buffer.from(value.split(".")[0]!, "base64").toString("utf8"),
+  ) as string;
 }
 
 beforeEach(async () => {
@@ -59,7 +73,10 @@ beforeEach(async () => {
 });
 
 test("the database stores only the SHA-256 of a session token, never the token", async () => {
-  const { sessionId, setCookie } = await app.session.createSession(engineerId, { ipAddress: "10.0.0.1", userAgent: "test" });
+  const { sessionId, setCookie } = await app.session.createSession(engineerId, {
+    ipAddress: "10.0.0.1",
+    userAgent: "test",
+  });
   const token = tokenFromCookie(setCookie);
   expect(token).toMatch(/^[a-z2-7]{32}$/);
   expect(sessionId).toBe(app.tokens.hashToken(token));
@@ -67,37 +84,68 @@ test("the database stores only the SHA-256 of a session token, never the token",
   expect(rows).toHaveLength(1);
   expect(JSON.stringify(rows)).not.toContain(token);
   // The stored id cannot be used as a token.
-  expect(await app.session.validateSessionToken(sessionId.slice(0, 32))).toBeNull();
-  expect((await app.session.validateSessionToken(token))?.user.id).toBe(engineerId);
+  expect(
+    await app.session.validateSessionToken(sessionId.slice(0, 32)),
+  ).toBeNull();
+  expect((await app.session.validateSessionToken(token))?.user.id).toBe(
+    engineerId,
+  );
   expect(setCookie).toMatch(/HttpOnly/);
   expect(setCookie).toMatch(/SameSite=Lax/);
 });
 
 test("an expired session is refused and deleted; a session with under 15 days left slides to 30 days", async () => {
-  const { sessionId, setCookie } = await app.session.createSession(engineerId, { ipAddress: "x", userAgent: null });
+  const { sessionId, setCookie } = await app.session.createSession(engineerId, {
+    ipAddress: "x",
+    userAgent: null,
+  });
   const token = tokenFromCookie(setCookie);
   const day = 24 * 3600 * 1000;
 
   // 20 days left: valid, not renewed.
-  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [new Date(Date.now() + 20 * day), sessionId]);
-  expect((await app.session.validateSessionToken(token))?.renewedCookie).toBeNull();
+  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [
+    new Date(Date.now() + 20 * day),
+    sessionId,
+  ]);
+  expect(
+    (await app.session.validateSessionToken(token))?.renewedCookie,
+  ).toBeNull();
 
   // 10 days left: renewed in the database and in the cookie.
-  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [new Date(Date.now() + 10 * day), sessionId]);
+  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [
+    new Date(Date.now() + 10 * day),
+    sessionId,
+  ]);
   const renewed = await app.session.validateSessionToken(token);
   expect(renewed?.renewedCookie).toMatch(/Max-Age=2592000/);
-  const [row] = await sql<{ expires_at: Date }>("SELECT expires_at FROM sessions WHERE id = ?", [sessionId]);
-  expect(Math.abs(new Date(row!.expires_at).getTime() - (Date.now() + 30 * day))).toBeLessThan(60_000);
+  const [row] = await sql<{ expires_at: Date }>(
+    "SELECT expires_at FROM sessions WHERE id = ?",
+    [sessionId],
+  );
+  expect(
+    Math.abs(new Date(row!.expires_at).getTime() - (Date.now() + 30 * day)),
+  ).toBeLessThan(60_000);
 
   // Expired: refused and removed.
-  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [new Date(Date.now() - 1000), sessionId]);
+  await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [
+    new Date(Date.now() - 1000),
+    sessionId,
+  ]);
   expect(await app.session.validateSessionToken(token)).toBeNull();
-  expect(await sql("SELECT id FROM sessions WHERE id = ?", [sessionId])).toEqual([]);
+  expect(
+    await sql("SELECT id FROM sessions WHERE id = ?", [sessionId]),
+  ).toEqual([]);
 });
 
 test("disabling an account stops its sessions at once; a password change ends the other sessions", async () => {
-  const a = await app.session.createSession(engineerId, { ipAddress: "x", userAgent: null });
-  const b = await app.session.createSession(engineerId, { ipAddress: "x", userAgent: null });
+  const a = await app.session.createSession(engineerId, {
+    ipAddress: "x",
+    userAgent: null,
+  });
+  const b = await app.session.createSession(engineerId, {
+    ipAddress: "x",
+    userAgent: null,
+  });
   const changed = await app.accounts.changePassword({
     userId: engineerId,
     sessionId: a.sessionId,
@@ -106,20 +154,45 @@ test("disabling an account stops its sessions at once; a password change ends th
     ipAddress: "x",
   });
   expect(changed).toEqual({ ok: true });
-  expect(await app.session.validateSessionToken(tokenFromCookie(a.setCookie))).not.toBeNull();
-  expect(await app.session.validateSessionToken(tokenFromCookie(b.setCookie))).toBeNull();
+  expect(
+    await app.session.validateSessionToken(tokenFromCookie(a.setCookie)),
+  ).not.toBeNull();
+  expect(
+    await app.session.validateSessionToken(tokenFromCookie(b.setCookie)),
+  ).toBeNull();
 
   await app.users.setUserDisabled(engineerId, true);
-  expect(await app.session.validateSessionToken(tokenFromCookie(a.setCookie))).toBeNull();
-  const signIn = await app.accounts.signIn({ email: "eng@example.test", password: PASSWORD, ipAddress: "10.1.1.1", userAgent: null });
+  expect(
+    await app.session.validateSessionToken(tokenFromCookie(a.setCookie)),
+  ).toBeNull();
+  const signIn = await app.accounts.signIn({
+    email: "eng@example.test",
+    password: PASSWORD,
+    ipAddress: "10.1.1.1",
+    userAgent: null,
+  });
   expect(signIn).toMatchObject({ ok: false, reason: "invalid" });
 });
 
 test("unknown address and wrong password get the same message", async () => {
-  const unknown = await app.accounts.signIn({ email: "nobody@example.test", password: "whatever-it-is", ipAddress: "10.2.0.1", userAgent: null });
-  const wrong = await app.accounts.signIn({ email: "eng@example.test", password: "not-the-password", ipAddress: "10.2.0.2", userAgent: null });
+  const unknown = await app.accounts.signIn({
+    email: "nobody@example.test",
+    password: "whatever-it-is",
+    ipAddress: "10.2.0.1",
+    userAgent: null,
+  });
+  const wrong = await app.accounts.signIn({
+    email: "eng@example.test",
+    password: "not-the-password",
+    ipAddress: "10.2.0.2",
+    userAgent: null,
+  });
   expect(unknown).toEqual(wrong);
-  expect(unknown).toEqual({ ok: false, reason: "invalid", message: app.accounts.SIGN_IN_FAILED_MESSAGE });
+  expect(unknown).toEqual({
+    ok: false,
+    reason: "invalid",
+    message: app.accounts.SIGN_IN_FAILED_MESSAGE,
+  });
 });
 
 // Throttling (which replaced the lockout): tests/integration/sign-in-throttle.db.test.ts.

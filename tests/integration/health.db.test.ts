@@ -13,8 +13,12 @@ const port = String(3400 + Math.floor(Math.random() * 500));
 const dbEnv = { ...process.env, ISOPLETH_DATA_DIR: dataDir, DB_PORT: port };
 
 function db(...args: string[]) {
-  const result = spawnSync("bash", ["scripts/db.sh", ...args], { env: dbEnv, encoding: "utf8" });
-  if (result.status !== 0) throw new Error(`db.sh ${args.join(" ")} failed: ${result.stderr}`);
+  const result = spawnSync("bash", ["scripts/db.sh", ...args], {
+    env: dbEnv,
+    encoding: "utf8",
+  });
+  if (result.status !== 0)
+    throw new Error(`db.sh ${args.join(" ")} failed: ${result.stderr}`);
 }
 
 beforeAll(() => {

@@ -1,4 +1,10 @@
-import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import {
+  cpSync,
+  mkdtempSync,
+  readFileSync,
+  rmSync,
+  writeFileSync,
+} from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, expect, test } from "vitest";
@@ -9,13 +15,18 @@ import { createEmptyDatabase } from "../support/test-database";
  * Readiness with a database one migration behind the build: migrated from a copy of drizzle/ whose journal
  * lacks the last entry, then made the app's DATABASE_URL before any app module reads its configuration.
  */
-const journal = JSON.parse(readFileSync("drizzle/meta/_journal.json", "utf8")) as { entries: { tag: string }[] };
+const journal = JSON.parse(
+  readFileSync("drizzle/meta/_journal.json", "utf8"),
+) as { entries: { tag: string }[] };
 const olderFolder = mkdtempSync(path.join(tmpdir(), "isopleth-migrations-"));
 let behind: Awaited<ReturnType<typeof createEmptyDatabase>>;
 
 beforeAll(async () => {
   cpSync("drizzle", olderFolder, { recursive: true });
-  writeFileSync(path.join(olderFolder, "meta", "_journal.json"), JSON.stringify({ ...journal, entries: journal.entries.slice(0, -1) }));
+  writeFileSync(
+    path.join(olderFolder, "meta", "_journal.json"),
+    JSON.stringify({ ...journal, entries: journal.entries.slice(0, -1) }),
+  );
   behind = await createEmptyDatabase();
   await runMigrations(behind.url, olderFolder);
   process.env.DATABASE_URL = behind.url;

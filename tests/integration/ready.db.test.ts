@@ -17,7 +17,9 @@ afterAll(async () => {
   await fresh.cleanup();
 });
 
-async function options(overrides: Partial<import("~/.server/ops/readiness").ReadinessOptions> = {}) {
+async function options(
+  overrides: Partial<import("~/.server/ops/readiness").ReadinessOptions> = {},
+) {
   const { readinessOptions } = await import("~/.server/ops/readiness");
   return { ...readinessOptions(), ...overrides };
 }
@@ -31,19 +33,34 @@ test("GET /api/ready is 200 with every check passing, and each call rewrites thi
   expect(body.status).toBe("ready");
   expect(body.failing).toEqual([]);
   expect(body.checks.database).toEqual({ ok: true });
-  const journal = JSON.parse(readFileSync("drizzle/meta/_journal.json", "utf8")) as { entries: unknown[] };
-  expect(body.checks.migrations).toEqual({ ok: true, applied: journal.entries.length, expected: journal.entries.length, pending: [] });
+  const journal = JSON.parse(
+    readFileSync("drizzle/meta/_journal.json", "utf8"),
+  ) as { entries: unknown[] };
+  expect(body.checks.migrations).toEqual({
+    ok: true,
+    applied: journal.entries.length,
+    expected: journal.entries.length,
+    pending: [],
+  });
   // the test database runs on this machine, so its data directory is watched beside the temp folder
-  expect(body.checks.disk.disks.map((d: { name: string }) => d.name).sort()).toEqual(["database", "temp"]);
+  expect(
+    body.checks.disk.disks.map((d: { name: string }) => d.name).sort(),
+  ).toEqual(["database", "temp"]);
 
   const connection = await mysql.createConnection({ uri: fresh.url });
   try {
-    const [[first]] = await connection.query<mysql.RowDataPacket[]>("SELECT instance, beat_at FROM ops_heartbeats");
+    const [[first]] = await connection.query<mysql.RowDataPacket[]>(
+      "SELECT instance, beat_at FROM ops_heartbeats",
+    );
     await new Promise((r) => setTimeout(r, 20));
     await loader();
-    const [rows] = await connection.query<mysql.RowDataPacket[]>("SELECT instance, beat_at FROM ops_heartbeats");
+    const [rows] = await connection.query<mysql.RowDataPacket[]>(
+      "SELECT instance, beat_at FROM ops_heartbeats",
+    );
     expect(rows).toHaveLength(1);
-    expect(rows[0]!.beat_at.getTime()).toBeGreaterThan(first!.beat_at.getTime());
+    expect(rows[0]!.beat_at.getTime()).toBeGreaterThan(
+      first!.beat_at.getTime(),
+    );
   } finally {
     await connection.end();
   }
@@ -56,27 +73,46 @@ test("the disk check passes with a tiny threshold and fails, named, when a disk 
 
   const stats = statfsSync(tmpdir());
   const moreThanFree = stats.bavail * stats.bsize + 1024 ** 3;
-  const full = await checkReadiness(await options({ minFreeBytes: moreThanFree }));
+  const full = await checkReadiness(
+    await options({ minFreeBytes: moreThanFree }),
+  );
   expect(full.status).toBe("not ready");
   expect(full.failing).toEqual(["disk"]);
-  expect(full.checks.disk.disks.find((d) => d.name === "temp")).toMatchObject({ ok: false, problem: `less than ${moreThanFree} bytes free` });
+  expect(full.checks.disk.disks.find((d) => d.name === "temp")).toMatchObject({
+    ok: false,
+    problem: `less than ${moreThanFree} bytes free`,
+  });
 });
 
 test("a watched folder that does not exist fails the disk check instead of passing unseen", async () => {
   const { checkReadiness } = await import("~/.server/ops/readiness");
-  const result = await checkReadiness(await options({ disks: [{ name: "data", path: "/nonexistent/isopleth-data" }] }));
+  const result = await checkReadiness(
+    await options({
+      disks: [{ name: "data", path: "/nonexistent/isopleth-data" }],
+    }),
+  );
   expect(result.failing).toEqual(["disk"]);
-  expect(result.checks.disk.disks[0]).toMatchObject({ name: "data", ok: false, freeBytes: null });
+  expect(result.checks.disk.disks[0]).toMatchObject({
+    name: "data",
+    ok: false,
+    freeBytes: null,
+  });
 });
 
 test("the configured minimum and data folder reach the check (READY_MIN_FREE_BYTES, ISOPLETH_DATA_DIR)", async () => {
   const { parseEnv } = await import("~/.server/env");
   const { readinessOptions } = await import("~/.server/ops/readiness");
-  const env = parseEnv({ NODE_ENV: "test", READY_MIN_FREE_BYTES: "12345", ISOPLETH_DATA_DIR: "/srv/isopleth" });
+  const env = parseEnv({
+    NODE_ENV: "test",
+    READY_MIN_FREE_BYTES: "12345",
+    ISOPLETH_DATA_DIR: "/srv/isopleth",
+  });
   const result = readinessOptions(env);
   expect(result.minFreeBytes).toBe(12345);
   expect(result.disks).toContainEqual({ name: "data", path: "/srv/isopleth" });
-  expect(() => parseEnv({ READY_MIN_FREE_BYTES: "lots" })).toThrow(/READY_MIN_FREE_BYTES/);
+  expect(() => parseEnv({ READY_MIN_FREE_BYTES: "lots" })).toThrow(
+    /READY_MIN_FREE_BYTES/,
+  );
 });
 
 test("a database that does not take the write in time fails the database check, named", async () => {
@@ -86,7 +122,10 @@ test("a database that does not take the write in time fails the database check, 
     await locker.query("LOCK TABLES ops_heartbeats WRITE");
     const result = await checkReadiness(await options({ timeoutMs: 500 }));
     expect(result.failing).toEqual(["database"]);
-    expect(result.checks.database).toEqual({ ok: false, problem: "the heartbeat write failed: no answer within 500 ms" });
+    expect(result.checks.database).toEqual({
+      ok: false,
+      problem: "the heartbeat write failed: no answer within 500 ms",
+    });
   } finally {
     await locker.query("UNLOCK TABLES");
     await locker.end();

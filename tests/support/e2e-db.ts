@@ -6,7 +6,11 @@ import { APP_SERVER_ENV } from "./e2e";
 /** Direct access to the e2e database, for arranging cases the UI cannot reach quickly (e.g. an expired token). */
 let pool: mysql.Pool | undefined;
 export function e2eDb(): mysql.Pool {
-  pool ??= mysql.createPool({ uri: APP_SERVER_ENV.DATABASE_URL, timezone: "Z", connectionLimit: 2 });
+  pool ??= mysql.createPool({
+    uri: APP_SERVER_ENV.DATABASE_URL,
+    timezone: "Z",
+    connectionLimit: 2,
+  });
   return pool;
 }
 export async function closeE2eDb() {
@@ -15,7 +19,9 @@ export async function closeE2eDb() {
 }
 
 export async function userIdOf(email: string): Promise<number> {
-  const [rows] = await e2eDb().query("SELECT id FROM users WHERE email = ?", [email]);
+  const [rows] = await e2eDb().query("SELECT id FROM users WHERE email = ?", [
+    email,
+  ]);
   const id = (rows as { id: number }[])[0]?.id;
   if (!id) throw new Error(`no user ${email}`);
   return id;
@@ -36,16 +42,27 @@ export async function mintToken(input: {
   if (input.record !== false) {
     await e2eDb().query(
       "INSERT INTO api_tokens (id, user_id, name, scopes, restriction, expires_at) VALUES (?, ?, ?, ?, ?, ?)",
-      [id, input.userId, `test token ${id.slice(0, 8)}`, JSON.stringify(scopes), input.restriction ? JSON.stringify(input.restriction) : null, new Date(Date.now() + Math.max(expiresIn, 1) * 1000)],
+      [
+        id,
+        input.userId,
+        `test token ${id.slice(0, 8)}`,
+        JSON.stringify(scopes),
+        input.restriction ? JSON.stringify(input.restriction) : null,
+        new Date(Date.now() + Math.max(expiresIn, 1) * 1000),
+      ],
     );
   }
-  const token = jwt.sign({ scope: scopes.join(" ") }, input.secret ?? APP_SERVER_ENV.API_TOKEN_SECRET!, {
-    algorithm: "HS256",
-    jwtid: id,
-    subject: String(input.userId),
-    issuer: "isopleth",
-    audience: "isopleth-api",
-    expiresIn,
-  });
+  const token = jwt.sign(
+    { scope: scopes.join(" ") },
+    input.secret ?? APP_SERVER_ENV.API_TOKEN_SECRET!,
+    {
+      algorithm: "HS256",
+      jwtid: id,
+      subject: String(input.userId),
+      issuer: "isopleth",
+      audience: "isopleth-api",
+      expiresIn,
+    },
+  );
   return { id, token };
 }

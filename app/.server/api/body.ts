@@ -11,22 +11,36 @@ export { nestedDeeperThan };
  * Reads a JSON body, refusing it while it is read once it passes `maxBytes` (413), and answering 415 for a
  * body that is not application/json and 400 for JSON that does not parse. Throws problem Responses.
  */
-export async function readJsonBody(request: Request, maxBytes = MAX_JSON_BODY_BYTES): Promise<unknown> {
+export async function readJsonBody(
+  request: Request,
+  maxBytes = MAX_JSON_BODY_BYTES,
+): Promise<unknown> {
   return (await readJsonBodyWithText(request, maxBytes)).value;
 }
 
 /** As readJsonBody, also returning the body's text (e.g. to derive an ETag from the request). */
-export async function readJsonBodyWithText(request: Request, maxBytes = MAX_JSON_BODY_BYTES): Promise<{ value: unknown; text: string }> {
+export async function readJsonBodyWithText(
+  request: Request,
+  maxBytes = MAX_JSON_BODY_BYTES,
+): Promise<{ value: unknown; text: string }> {
   const text = await readJsonText(request, maxBytes);
   let value: unknown;
   try {
     value = JSON.parse(text) as unknown;
   } catch (error) {
     // V8's message quotes the text around the fault; the problem helper cuts what it quotes.
-    throw problem(400, "invalid_body", `The body is not valid JSON: ${(error as Error).message.slice(0, 120)}`);
+    throw problem(
+      400,
+      "invalid_body",
+      `The body is not valid JSON: ${(error as Error).message.slice(0, 120)}`,
+    );
   }
   if (nestedDeeperThan(value, MAX_JSON_DEPTH)) {
-    throw problem(400, "invalid_body", `The body nests lists or objects more than ${MAX_JSON_DEPTH} levels deep; a lookup body needs three.`);
+    throw problem(
+      400,
+      "invalid_body",
+      `The body nests lists or objects more than ${MAX_JSON_DEPTH} levels deep; a lookup body needs three.`,
+    );
   }
   return { value, text };
 }
@@ -35,12 +49,24 @@ export async function readJsonBodyWithText(request: Request, maxBytes = MAX_JSON
  * A JSON body's text, read without parsing it (a large body is parsed in a worker thread): 415 for another
  * content type, 413 once it passes `maxBytes` while it is read, 400 for no body. Throws problem Responses.
  */
-export async function readJsonText(request: Request, maxBytes = MAX_JSON_BODY_BYTES): Promise<string> {
+export async function readJsonText(
+  request: Request,
+  maxBytes = MAX_JSON_BODY_BYTES,
+): Promise<string> {
   const type = request.headers.get("Content-Type") ?? "";
   if (!/^application\/(.+\+)?json\b/i.test(type)) {
-    throw problem(415, "unsupported_media_type", "Send the body as JSON with Content-Type: application/json.");
+    throw problem(
+      415,
+      "unsupported_media_type",
+      "Send the body as JSON with Content-Type: application/json.",
+    );
   }
-  const tooLarge = () => problem(413, "payload_too_large", `The body is larger than ${maxBytes / 1024 / 1024} MB; send fewer points per request.`);
+  const tooLarge = () =>
+    problem(
+      413,
+      "payload_too_large",
+      `The body is larger than ${maxBytes / 1024 / 1024} MB; send fewer points per request.`,
+    );
   const declared = Number(request.headers.get("Content-Length") ?? "NaN");
   if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge();
   const reader = request.body?.getReader();

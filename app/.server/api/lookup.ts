@@ -9,31 +9,67 @@ import { isApprovedStatus } from "./samples";
 import type { LookupBody } from "./schemas";
 
 /** A validated lookup request: the body's fields, its points as two columns (pressure, temperature). */
-export type LookupRequest = Omit<LookupBody, "points"> & { pressures: Float64Array; temperatures: Float64Array };
+export type LookupRequest = Omit<LookupBody, "points"> & {
+  pressures: Float64Array;
+  temperatures: Float64Array;
+};
 
 /**
  * Runs a validated lookup against a revision (in a worker thread when large: app/.server/workers) and gives
  * the API response's parts, the results already serialised (or a problem).
  */
-export async function computeLookup(data: RevisionData, body: LookupRequest): Promise<HeavyRun<"api-lookup"> | Response> {
+export async function computeLookup(
+  data: RevisionData,
+  body: LookupRequest,
+): Promise<HeavyRun<"api-lookup"> | Response> {
   const grid = data.grids[body.property];
-  if (!grid) return problem(404, "property_not_measured", `Revision ${data.number} has no ${body.property} grid.`);
+  if (!grid)
+    return problem(
+      404,
+      "property_not_measured",
+      `Revision ${data.number} has no ${body.property} grid.`,
+    );
   try {
     const { pressures, temperatures } = body;
-    return await runHeavyTimed("api-lookup", { grid, pressures, temperatures, options: {
-      property: body.property,
-      method: body.method,
-      degree: body.degree,
-      extrapolate: body.extrapolate,
-      units: body.units,
-      messages: false,
-    } });
+    return await runHeavyTimed("api-lookup", {
+      grid,
+      pressures,
+      temperatures,
+      options: {
+        property: body.property,
+        method: body.method,
+        degree: body.degree,
+        extrapolate: body.extrapolate,
+        units: body.units,
+        messages: false,
+      },
+    });
   } catch (error) {
     if (isLookupError(error)) {
-      const status = error.code === "OUT_OF_RANGE" || error.code === "NO_VALID_ZONE" ? 422 : error.code === "INVALID_GRID" ? 500 : 400;
-      const code = status === 422 ? "out_of_range" : status === 500 ? "internal_error" : "invalid_body";
-      const index = typeof error.details.pointIndex === "number" ? error.details.pointIndex : undefined;
-      return problem(status, code, error.message, index === undefined ? undefined : { issues: [{ path: ["points", index], message: error.message }] });
+      const status =
+        error.code === "OUT_OF_RANGE" || error.code === "NO_VALID_ZONE"
+          ? 422
+          : error.code === "INVALID_GRID"
+            ? 500
+            : 400;
+      const code =
+        status === 422
+          ? "out_of_range"
+          : status === 500
+            ? "internal_error"
+            : "invalid_body";
+      const index =
+        typeof error.details.pointIndex === "number"
+          ? error.details.pointIndex
+          : undefined;
+      return problem(
+        status,
+        code,
+        error.message,
+        index === undefined
+          ? undefined
+          : { issues: [{ path: ["points", index], message: error.message }] },
+      );
     }
     throw error;
   }
@@ -41,7 +77,7 @@ export async function computeLookup(data: RevisionData, body: LookupRequest): Pr
 
 /**
  * `startedAt` (performance.now() when the request arrived) gives the Server-Timing header. The ETag of a lookup
- * is derived from what determines its answer — the revision, the validated request and the build — so the 
+ * is derived from what determines its answer — the revision, the validated request and the build — so the
  * multi-megabyte body need not be hashed.
  */
 export async function lookupResponse(
@@ -61,27 +97,31 @@ export async function lookupResponse(
   let head: string;
   try {
     head = finiteJson({
-    sampleId,
-    revision: data.number,
-    revisionStatus: data.status,
-    approved: isApprovedStatus(data.status),
-    property: body.property,
-    method: body.method,
-    methodDescription: result.methodDescription,
-    degree: result.degree,
-    units: {
-      system: body.units,
-      pressure: result.units.pressure,
-      temperature: result.units.temperature,
-      value: result.units.value,
-    },
-  });
+      sampleId,
+      revision: data.number,
+      revisionStatus: data.status,
+      approved: isApprovedStatus(data.status),
+      property: body.property,
+      method: body.method,
+      methodDescription: result.methodDescription,
+      degree: result.degree,
+      units: {
+        system: body.units,
+        pressure: result.units.pressure,
+        temperature: result.units.temperature,
+        value: result.units.value,
+      },
+    });
   } catch (error) {
     return refuseNonFinite(error);
   }
   lookupPointsServed.inc({ outcome: "answered" }, body.pressures.length);
   const writeStarted = performance.now();
-  const payload = Buffer.concat([Buffer.from(`${head.slice(0, -1)},"results":`), result.resultsUtf8, Buffer.from("}")]);
+  const payload = Buffer.concat([
+    Buffer.from(`${head.slice(0, -1)},"results":`),
+    result.resultsUtf8,
+    Buffer.from("}"),
+  ]);
   const writeMs = performance.now() - writeStarted;
   const etagStarted = performance.now();
   const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${data.status}|`).update(bodyText).digest("base64url")}"`;

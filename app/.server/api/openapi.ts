@@ -1,6 +1,10 @@
 import { OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
-import { API_SCOPE_RULES, apiScopeRule, type ApiOperation } from "~/utils/api-scopes";
+import {
+  API_SCOPE_RULES,
+  apiScopeRule,
+  type ApiOperation,
+} from "~/utils/api-scopes";
 import { MAX_JSON_DEPTH } from "./body";
 import { MAX_QUERY_STRING_CHARS } from "./request";
 import {
@@ -20,33 +24,50 @@ import {
 export const PROBLEM_CODES: Record<string, string> = {
   invalid_body: `400 — the JSON body does not match the schema, or nests deeper than ${MAX_JSON_DEPTH} levels; \`issues\` lists each field path and what is wrong.`,
   invalid_query: `400 — the query string is not valid: an unknown parameter, a parameter given twice, a value too long, or a number not written as a plain decimal (ids: digits only, so \`0x1\`, \`1e0\`, \`+1\`, \`01\` are refused); \`issues\` names each parameter. At most ${MAX_QUERY_STRING_CHARS} characters in all.`,
-  invalid_path: "400 — a path parameter is not valid (the sample id is a whole number in decimal digits).",
-  invalid_pressures: "400 — the pressure list is not a list `a,b,c` or a range `start:stop:step` of positive numbers.",
+  invalid_path:
+    "400 — a path parameter is not valid (the sample id is a whole number in decimal digits).",
+  invalid_pressures:
+    "400 — the pressure list is not a list `a,b,c` or a range `start:stop:step` of positive numbers.",
   unsupported_media_type: "415 — send the body as application/json.",
   unauthenticated: "401 — no bearer token and no signed-in session.",
-  invalid_token: "401 — the token is missing, malformed, wrongly signed, expired, revoked, or its owner is disabled.",
-  insufficient_scope: "403 — the token lacks the scope the endpoint needs (see the scope table in the description).",
-  insufficient_role: "403 — the token has the scope, but its owner's current role does not allow the request (e.g. an owner who is now a viewer may not export tables). Checked on every request.",
+  invalid_token:
+    "401 — the token is missing, malformed, wrongly signed, expired, revoked, or its owner is disabled.",
+  insufficient_scope:
+    "403 — the token lacks the scope the endpoint needs (see the scope table in the description).",
+  insufficient_role:
+    "403 — the token has the scope, but its owner's current role does not allow the request (e.g. an owner who is now a viewer may not export tables). Checked on every request.",
   forbidden: "403 — the signed-in person's role does not allow this.",
-  outside_restriction: "403 — the token is restricted to other fields or samples.",
-  cross_origin: "403 — a browser request from another site tried to change data.",
+  outside_restriction:
+    "403 — the token is restricted to other fields or samples.",
+  cross_origin:
+    "403 — a browser request from another site tried to change data.",
   sample_not_found: "404 — there is no such sample.",
-  revision_not_found: "404 — the sample has no revision with that number that the caller may read. A draft or rejected revision answers the same to a token or a role that may not read drafts (unreleased work is neither served nor revealed).",
+  revision_not_found:
+    "404 — the sample has no revision with that number that the caller may read. A draft or rejected revision answers the same to a token or a role that may not read drafts (unreleased work is neither served nor revealed).",
   no_approved_revision: "404 — the sample has no approved revision yet.",
   property_not_measured: "404 — the revision has no grid for that property.",
-  payload_too_large: "413 — the body is larger than the API accepts (8 MB, about 100,000 points).",
-  out_of_range: "422 — a point lies outside the measured range and extrapolation was not allowed, or no valid data zone exists.",
-  not_computable: "422 — a table with no row (or no bubble point) that can be computed: interpolation gives no finite value there. Single lookup points that cannot be computed are refused inside a 200 answer instead (value null, `refusal`).",
-  internal_error: "500 — a fault of the server (logged); nothing computed wrongly is sent.",
-  rate_limited: "429 — the token is over its request budget; wait the seconds given in Retry-After.",
-  server_busy: "503 — the server is at its limit of large computations at once (big lookups, tables); wait the seconds given in Retry-After.",
+  payload_too_large:
+    "413 — the body is larger than the API accepts (8 MB, about 100,000 points).",
+  out_of_range:
+    "422 — a point lies outside the measured range and extrapolation was not allowed, or no valid data zone exists.",
+  not_computable:
+    "422 — a table with no row (or no bubble point) that can be computed: interpolation gives no finite value there. Single lookup points that cannot be computed are refused inside a 200 answer instead (value null, `refusal`).",
+  internal_error:
+    "500 — a fault of the server (logged); nothing computed wrongly is sent.",
+  rate_limited:
+    "429 — the token is over its request budget; wait the seconds given in Retry-After.",
+  server_busy:
+    "503 — the server is at its limit of large computations at once (big lookups, tables); wait the seconds given in Retry-After.",
 };
 
 const problemResponses = (codes: number[]) =>
   Object.fromEntries(
     codes.map((status) => [
       status,
-      { description: `Problem details (${status})`, content: { "application/problem+json": { schema: ProblemSchema } } },
+      {
+        description: `Problem details (${status})`,
+        content: { "application/problem+json": { schema: ProblemSchema } },
+      },
     ]),
   );
 
@@ -54,7 +75,8 @@ const bearer = registry.registerComponent("securitySchemes", "bearerToken", {
   type: "http",
   scheme: "bearer",
   bearerFormat: "JWT",
-  description: "An API token created on the API tokens page. A signed-in browser session works too.",
+  description:
+    "An API token created on the API tokens page. A signed-in browser session works too.",
 });
 const security = [{ [bearer.name]: [] }];
 
@@ -71,10 +93,19 @@ registry.registerPath({
   method: "get",
   path: "/api/v1/samples",
   summary: "Samples the caller may read",
-  description: "Field, well, reservoir conditions, bubble point, current approved revision and the properties it has. ETag (hash of the body) and If-None-Match supported." + access("list-samples") + STRICT,
+  description:
+    "Field, well, reservoir conditions, bubble point, current approved revision and the properties it has. ETag (hash of the body) and If-None-Match supported." +
+    access("list-samples") +
+    STRICT,
   security,
   request: { query: SampleListQuery },
-  responses: { 200: { description: "The samples.", content: { "application/json": { schema: SampleListResponse } } }, ...problemResponses([400, 401, 403, 429]) },
+  responses: {
+    200: {
+      description: "The samples.",
+      content: { "application/json": { schema: SampleListResponse } },
+    },
+    ...problemResponses([400, 401, 403, 429]),
+  },
 });
 
 registry.registerPath({
@@ -87,7 +118,14 @@ registry.registerPath({
     STRICT,
   security,
   request: { params: SampleIdParams, query: SampleQuery },
-  responses: { 200: { description: "The sample.", content: { "application/json": { schema: SampleDetailResponse } } }, 304: { description: "Not modified." }, ...problemResponses([400, 401, 403, 404, 429]) },
+  responses: {
+    200: {
+      description: "The sample.",
+      content: { "application/json": { schema: SampleDetailResponse } },
+    },
+    304: { description: "Not modified." },
+    ...problemResponses([400, 401, 403, 404, 429]),
+  },
 });
 
 registry.registerPath({
@@ -98,8 +136,17 @@ registry.registerPath({
     "Up to 100,000 points per request. Each result carries its error estimate, warnings, the method used and the data zone (stencil). A point whose value cannot be computed (not a finite number, e.g. far beyond the data with extrapolation allowed) is refused on its own: `value` and `errorEstimate` are null and `refusal` says why; the other points are served. No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). No query parameters." +
     access("lookup"),
   security,
-  request: { params: SampleIdParams, body: { content: { "application/json": { schema: LookupBody } } } },
-  responses: { 200: { description: "One result per point, in order.", content: { "application/json": { schema: LookupResponse } } }, ...problemResponses([400, 401, 403, 404, 413, 415, 422, 429]) },
+  request: {
+    params: SampleIdParams,
+    body: { content: { "application/json": { schema: LookupBody } } },
+  },
+  responses: {
+    200: {
+      description: "One result per point, in order.",
+      content: { "application/json": { schema: LookupResponse } },
+    },
+    ...problemResponses([400, 401, 403, 404, 413, 415, 422, 429]),
+  },
 });
 
 registry.registerPath({
@@ -116,7 +163,14 @@ registry.registerPath({
   security,
   request: { params: SampleIdParams, query: TableQuery },
   responses: {
-    200: { description: "The table.", content: { "application/json": { schema: z.object({}).passthrough() }, "text/csv": { schema: z.string() }, "text/plain": { schema: z.string() } } },
+    200: {
+      description: "The table.",
+      content: {
+        "application/json": { schema: z.object({}).passthrough() },
+        "text/csv": { schema: z.string() },
+        "text/plain": { schema: z.string() },
+      },
+    },
     304: { description: "Not modified." },
     ...problemResponses([400, 401, 403, 404, 422, 429]),
   },
@@ -132,7 +186,10 @@ export function openApiDocument(serverUrl: string): object {
       version: "1.0.0",
       description:
         "Scopes of API tokens (a token's authority is its scopes AND its owner's current role, checked on every request):\n\n" +
-        API_SCOPE_RULES.map((r) => `- ${r.method} ${r.path}: scope ${r.scopes.join(" or ")}; role permission ${r.permission}. ${r.description}`).join("\n") +
+        API_SCOPE_RULES.map(
+          (r) =>
+            `- ${r.method} ${r.path}: scope ${r.scopes.join(" or ")}; role permission ${r.permission}. ${r.description}`,
+        ).join("\n") +
         "\n\nTokens read approved revisions only; a draft asked for with a token answers 404 `revision_not_found`, the same as a revision that does not exist, so a token learns nothing about unreleased work. Problem details never quote more than a short piece of the request.\n\n" +
         "Approved reservoir fluid-property tables and interpolation for simulators and scripts. Interpolated and extrapolated values are estimates: check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.",
     },

@@ -11,7 +11,10 @@ export class RateLimiter {
   take(key: string, now = Date.now()): number | null {
     const rate = this.perMinute / 60_000; // per ms
     const bucket = this.buckets.get(key) ?? { tokens: this.perMinute, at: now };
-    bucket.tokens = Math.min(this.perMinute, bucket.tokens + (now - bucket.at) * rate);
+    bucket.tokens = Math.min(
+      this.perMinute,
+      bucket.tokens + (now - bucket.at) * rate,
+    );
     bucket.at = now;
     this.buckets.set(key, bucket);
     if (bucket.tokens >= 1) {

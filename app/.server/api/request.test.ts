@@ -7,9 +7,7 @@ import { NoQuery, SampleIdParams, SampleQuery, TableQuery } from "./schemas";
  * Strict query strings and paths (OWASP Input Validation and REST Security cheat sheets: allow-list
  * parameters, bound sizes, refuse rather than reinterpret); problem details per RFC 9457.
  */
-async function refused(
-  fn: () => unknown,
-): Promise<{
+async function refused(fn: () => unknown): Promise<{
   status: number;
   code: string;
   detail: string;

@@ -1,52 +1,116 @@
-import { getSampleWithPlace, listSamplesWithApproved } from "~/.server/db/queries/samples";
-import { listBubblePointsOfRevisions, listRevisionProperties } from "~/.server/db/queries/revisions";
+import {
+  getSampleWithPlace,
+  listSamplesWithApproved,
+} from "~/.server/db/queries/samples";
+import {
+  listBubblePointsOfRevisions,
+  listRevisionProperties,
+} from "~/.server/db/queries/revisions";
 import { problem } from "~/.server/http";
-import { getRevisionData, resolveRevision, type RevisionData } from "~/.server/samples/revision-data";
+import {
+  getRevisionData,
+  resolveRevision,
+  type RevisionData,
+} from "~/.server/samples/revision-data";
 import type { PropertyKey } from "~/core/units";
-import { callerMayReadDrafts, callerMayReadSample, type ApiCaller } from "./caller";
-import { toOutputPressure, toOutputTemperature, toOutputValue, unitLabel, type OutputSystem } from "./units";
+import {
+  callerMayReadDrafts,
+  callerMayReadSample,
+  type ApiCaller,
+} from "./caller";
+import {
+  toOutputPressure,
+  toOutputTemperature,
+  toOutputValue,
+  unitLabel,
+  type OutputSystem,
+} from "./units";
 
 const round = (v: number, digits = 10) => Number(v.toPrecision(digits));
 
-export async function listSamplesForCaller(caller: ApiCaller, system: OutputSystem) {
-  const all = (await listSamplesWithApproved()).filter((s) => callerMayReadSample(caller, { id: s.id, fieldId: s.fieldId }));
+export async function listSamplesForCaller(
+  caller: ApiCaller,
+  system: OutputSystem,
+) {
+  const all = (await listSamplesWithApproved()).filter((s) =>
+    callerMayReadSample(caller, { id: s.id, fieldId: s.fieldId }),
+  );
   const revisionIds = new Map<number, number>();
-  for (const s of all) if (s.approvedRevisionId !== null) revisionIds.set(s.id, Number(s.approvedRevisionId));
+  for (const s of all)
+    if (s.approvedRevisionId !== null)
+      revisionIds.set(s.id, Number(s.approvedRevisionId));
   const ids = [...revisionIds.values()];
-  const [props, bubbles] = await Promise.all([listRevisionProperties(ids), listBubblePointsOfRevisions(ids)]);
+  const [props, bubbles] = await Promise.all([
+    listRevisionProperties(ids),
+    listBubblePointsOfRevisions(ids),
+  ]);
   return all.map((s) => {
     const rid = revisionIds.get(s.id);
     const own = bubbles.filter((b) => b.revisionId === rid);
-    const nearest = s.reservoirTemperatureF === null ? own[own.length - 1] : own.slice().sort((a, b) => Math.abs(a.temperatureF - s.reservoirTemperatureF!) - Math.abs(b.temperatureF - s.reservoirTemperatureF!))[0];
+    const nearest =
+      s.reservoirTemperatureF === null
+        ? own[own.length - 1]
+        : own
+            .slice()
+            .sort(
+              (a, b) =>
+                Math.abs(a.temperatureF - s.reservoirTemperatureF!) -
+                Math.abs(b.temperatureF - s.reservoirTemperatureF!),
+            )[0];
     return {
       id: s.id,
       label: s.label,
       field: s.fieldName,
       well: s.wellName,
       sampleType: s.sampleType,
-      reservoirTemperature: s.reservoirTemperatureF === null ? null : round(toOutputTemperature(s.reservoirTemperatureF, system)),
-      reservoirPressure: s.reservoirPressurePsia === null ? null : round(toOutputPressure(s.reservoirPressurePsia, system)),
-      bubblePoint: nearest ? round(toOutputPressure(nearest.bubblePointPsia, system)) : null,
-      approvedRevision: s.approvedRevision === null ? null : Number(s.approvedRevision),
-      properties: props.filter((p) => p.revisionId === rid).map((p) => p.property as PropertyKey),
+      reservoirTemperature:
+        s.reservoirTemperatureF === null
+          ? null
+          : round(toOutputTemperature(s.reservoirTemperatureF, system)),
+      reservoirPressure:
+        s.reservoirPressurePsia === null
+          ? null
+          : round(toOutputPressure(s.reservoirPressurePsia, system)),
+      bubblePoint: nearest
+        ? round(toOutputPressure(nearest.bubblePointPsia, system))
+        : null,
+      approvedRevision:
+        s.approvedRevision === null ? null : Number(s.approvedRevision),
+      properties: props
+        .filter((p) => p.revisionId === rid)
+        .map((p) => p.property as PropertyKey),
     };
   });
 }
 
 /** The sample the caller asked for, or a thrown 404/403 problem. */
-export async function requireSampleForCaller(caller: ApiCaller, sampleId: number) {
+export async function requireSampleForCaller(
+  caller: ApiCaller,
+  sampleId: number,
+) {
   const sample = await getSampleWithPlace(sampleId);
-  if (!sample) throw problem(404, "sample_not_found", `There is no sample ${sampleId}.`);
-  if (!callerMayReadSample(caller, { id: sample.id, fieldId: sample.fieldId })) {
-    throw problem(403, "outside_restriction", `This token is restricted to other samples or fields than sample ${sampleId}.`);
+  if (!sample)
+    throw problem(404, "sample_not_found", `There is no sample ${sampleId}.`);
+  if (
+    !callerMayReadSample(caller, { id: sample.id, fieldId: sample.fieldId })
+  ) {
+    throw problem(
+      403,
+      "outside_restriction",
+      `This token is restricted to other samples or fields than sample ${sampleId}.`,
+    );
   }
   return sample;
 }
 
 /** Statuses of revisions that were approved (a superseded revision was approved and stays citable). */
-const APPROVED_STATUSES: ReadonlySet<string> = new Set(["approved", "superseded"]);
+const APPROVED_STATUSES: ReadonlySet<string> = new Set([
+  "approved",
+  "superseded",
+]);
 
-export const isApprovedStatus = (status: string) => APPROVED_STATUSES.has(status);
+export const isApprovedStatus = (status: string) =>
+  APPROVED_STATUSES.has(status);
 
 /**
  * The revision's data, or a thrown 404 problem (no approved revision, or no such revision number). The
@@ -57,25 +121,49 @@ export const isApprovedStatus = (status: string) => APPROVED_STATUSES.has(status
  */
 export async function requireRevisionData(
   caller: ApiCaller,
-  sample: { id: number; approvedRevisionId: number | null; approvedRevisionNumber: number | null },
+  sample: {
+    id: number;
+    approvedRevisionId: number | null;
+    approvedRevisionNumber: number | null;
+  },
   number?: number,
 ): Promise<RevisionData> {
   const sampleId = sample.id;
   const found =
-    number === undefined && sample.approvedRevisionId !== null && sample.approvedRevisionNumber !== null
-      ? { id: Number(sample.approvedRevisionId), number: Number(sample.approvedRevisionNumber), status: "approved" }
+    number === undefined &&
+    sample.approvedRevisionId !== null &&
+    sample.approvedRevisionNumber !== null
+      ? {
+          id: Number(sample.approvedRevisionId),
+          number: Number(sample.approvedRevisionNumber),
+          status: "approved",
+        }
       : await resolveRevision(sampleId, number);
-  const revision = found && (isApprovedStatus(found.status) || callerMayReadDrafts(caller)) ? found : null;
+  const revision =
+    found && (isApprovedStatus(found.status) || callerMayReadDrafts(caller))
+      ? found
+      : null;
   if (!revision) {
     throw number === undefined
-      ? problem(404, "no_approved_revision", `Sample ${sampleId} has no approved revision yet.`)
-      : problem(404, "revision_not_found", `Sample ${sampleId} has no revision ${number} that you may read.`);
+      ? problem(
+          404,
+          "no_approved_revision",
+          `Sample ${sampleId} has no approved revision yet.`,
+        )
+      : problem(
+          404,
+          "revision_not_found",
+          `Sample ${sampleId} has no revision ${number} that you may read.`,
+        );
   }
   return getRevisionData(revision);
 }
 
 /** How an output names an unapproved revision (a CSV or text header line, the page banner). */
-export function draftWarning(data: { number: number; status: string }, sampleId: number): string | null {
+export function draftWarning(
+  data: { number: number; status: string },
+  sampleId: number,
+): string | null {
   if (isApprovedStatus(data.status)) return null;
   return `UNAPPROVED ${data.status.toUpperCase()}: revision ${data.number} of sample ${sampleId} has not been approved (status ${data.status}); its checks may have failed. Do not use it for decisions.`;
 }
@@ -88,9 +176,21 @@ export function gridsForOutput(data: RevisionData, system: OutputSystem) {
       unit: unitLabel(system, property),
       laboratoryUnit: grid.sourceUnit,
       pressures: grid.pressures.map((p) => round(toOutputPressure(p, system))),
-      temperatures: grid.temperatures.map((t) => round(toOutputTemperature(t, system))),
-      values: grid.values.map((row) => row.map((v) => (v === null ? null : round(toOutputValue(v, property, system))))),
-      ...(grid.bubblePoints ? { bubblePoints: grid.bubblePoints.map((b) => (b === null ? null : round(toOutputPressure(b, system)))) } : {}),
+      temperatures: grid.temperatures.map((t) =>
+        round(toOutputTemperature(t, system)),
+      ),
+      values: grid.values.map((row) =>
+        row.map((v) =>
+          v === null ? null : round(toOutputValue(v, property, system)),
+        ),
+      ),
+      ...(grid.bubblePoints
+        ? {
+            bubblePoints: grid.bubblePoints.map((b) =>
+              b === null ? null : round(toOutputPressure(b, system)),
+            ),
+          }
+        : {}),
     };
   });
 }

@@ -1,4 +1,7 @@
-import { extendZodWithOpenApi, OpenAPIRegistry } from "@asteasolutions/zod-to-openapi";
+import {
+  extendZodWithOpenApi,
+  OpenAPIRegistry,
+} from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
 import { pointColumns } from "~/core/lookup";
 import { PROPERTY_KEYS } from "~/core/units";
@@ -9,17 +12,28 @@ extendZodWithOpenApi(z);
 export const registry = new OpenAPIRegistry();
 
 export const UnitsParam = z.enum(["field", "metric"]).default("field").openapi({
-  description: "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
+  description:
+    "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
 });
 export const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
-  description: "oil_fvf (Bo), solution_gor (Rs), oil_viscosity, oil_density, gas_fvf (Bg), gas_viscosity, z_factor",
+  description:
+    "oil_fvf (Bo), solution_gor (Rs), oil_viscosity, oil_density, gas_fvf (Bg), gas_viscosity, z_factor",
 });
-export const MethodSchema = z.enum(["auto", "newton", "pchip", "linear"]).openapi("Method", {
-  description: "auto = Newton divided differences of the given degree (default [3,3]), with the shape-preserving pchip value wherever Newton overshoots the data.",
-});
+export const MethodSchema = z
+  .enum(["auto", "newton", "pchip", "linear"])
+  .openapi("Method", {
+    description:
+      "auto = Newton divided differences of the given degree (default [3,3]), with the shape-preserving pchip value wherever Newton overshoots the data.",
+  });
 const Degree = z
-  .union([z.number().int().min(1).max(6), z.tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])])
-  .openapi({ description: "Polynomial degree for newton: one number, or [along pressure, along temperature]. Default 3." });
+  .union([
+    z.number().int().min(1).max(6),
+    z.tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)]),
+  ])
+  .openapi({
+    description:
+      "Polynomial degree for newton: one number, or [along pressure, along temperature]. Default 3.",
+  });
 
 /*
  * Path and query values arrive as text and are read strictly (app/.server/api/request.ts): an id is written
@@ -28,16 +42,26 @@ const Degree = z
  */
 export const IdParam = z
   .string()
-  .regex(/^[1-9][0-9]{0,14}$/, "Expected a whole number written in decimal digits, e.g. 12 (no sign, leading zero, exponent or hex).")
+  .regex(
+    /^[1-9][0-9]{0,14}$/,
+    "Expected a whole number written in decimal digits, e.g. 12 (no sign, leading zero, exponent or hex).",
+  )
   .transform(Number)
   .openapi({ type: "string", pattern: "^[1-9][0-9]{0,14}$", example: "1" });
 
 export const DecimalParam = z
   .string()
   .max(32, "At most 32 characters.")
-  .regex(/^-?[0-9]+(\.[0-9]+)?$/, "Expected a plain decimal number, e.g. 212 or -40.5 (no exponent, hex, units or thousands separators).")
+  .regex(
+    /^-?[0-9]+(\.[0-9]+)?$/,
+    "Expected a plain decimal number, e.g. 212 or -40.5 (no exponent, hex, units or thousands separators).",
+  )
   .transform(Number)
-  .openapi({ type: "string", pattern: "^-?[0-9]+(\\.[0-9]+)?$", example: "212" });
+  .openapi({
+    type: "string",
+    pattern: "^-?[0-9]+(\\.[0-9]+)?$",
+    example: "212",
+  });
 
 export const SampleIdParams = z.object({ sampleId: IdParam });
 
@@ -60,15 +84,38 @@ export const LookupBody = z
   .object({
     property: PropertyKeySchema,
     points: z
-      .array(z.object({ pressure: z.number().finite(), temperature: z.number().finite() }).strict())
+      .array(
+        z
+          .object({
+            pressure: z.number().finite(),
+            temperature: z.number().finite(),
+          })
+          .strict(),
+      )
       .min(1)
       .max(MAX_LOOKUP_POINTS)
-      .openapi({ description: "Conditions in the chosen unit system (pressure absolute)." }),
+      .openapi({
+        description:
+          "Conditions in the chosen unit system (pressure absolute).",
+      }),
     method: MethodSchema.default("auto"),
     degree: Degree.optional(),
     units: UnitsParam,
-    extrapolate: z.boolean().default(false).openapi({ description: "Allow points outside the measured range; they are flagged `extrapolated`." }),
-    revision: z.number().int().positive().optional().openapi({ description: "Revision number; default the latest approved one." }),
+    extrapolate: z
+      .boolean()
+      .default(false)
+      .openapi({
+        description:
+          "Allow points outside the measured range; they are flagged `extrapolated`.",
+      }),
+    revision: z
+      .number()
+      .int()
+      .positive()
+      .optional()
+      .openapi({
+        description: "Revision number; default the latest approved one.",
+      }),
   })
   .strict()
   .openapi("LookupRequest");
@@ -78,20 +125,31 @@ export type LookupBody = z.infer<typeof LookupBody>;
  * The same contract, checked faster: zod validates everything but the points, and the points (up to 100,000)
  * are checked by a plain loop that reports the same field paths. LookupBody stays the documented schema.
  */
-const LookupHead = LookupBody.omit({ points: true }).extend({ points: z.array(z.unknown()).min(1).max(MAX_LOOKUP_POINTS) });
+const LookupHead = LookupBody.omit({ points: true }).extend({
+  points: z.array(z.unknown()).min(1).max(MAX_LOOKUP_POINTS),
+});
 
 type Issues = { path: (string | number)[]; message: string }[];
 
 /** Validates everything of a lookup body but its points (checked by pointColumns); `count` points were sent. */
-export function parseLookupHead(head: Record<string, unknown>, count: number): { success: true; data: Omit<LookupBody, "points"> } | { success: false; issues: Issues } {
-  const input = "points" in head ? head : { ...head, points: new Array<undefined>(count) };
+export function parseLookupHead(
+  head: Record<string, unknown>,
+  count: number,
+):
+  | { success: true; data: Omit<LookupBody, "points"> }
+  | { success: false; issues: Issues } {
+  const input =
+    "points" in head ? head : { ...head, points: new Array<undefined>(count) };
   const parsed = LookupHead.safeParse(input);
-  if (!parsed.success) return { success: false, issues: zodIssues(parsed.error) };
+  if (!parsed.success)
+    return { success: false, issues: zodIssues(parsed.error) };
   const { points: _points, ...data } = parsed.data;
   return { success: true, data };
 }
 
-export function parseLookupBody(input: unknown): { success: true; data: LookupBody } | { success: false; issues: Issues } {
+export function parseLookupBody(
+  input: unknown,
+): { success: true; data: LookupBody } | { success: false; issues: Issues } {
   const head = LookupHead.safeParse(input);
   if (!head.success) return { success: false, issues: zodIssues(head.error) };
   const columns = pointColumns(head.data.points);
@@ -100,8 +158,17 @@ export function parseLookupBody(input: unknown): { success: true; data: LookupBo
 }
 
 const StencilSchema = z.object({
-  pressure: z.array(z.number()).openapi({ description: "Measured pressures of the data zone used (output units)." }),
-  temperature: z.array(z.number()).openapi({ description: "Measured temperatures of the data zone used (output units)." }),
+  pressure: z
+    .array(z.number())
+    .openapi({
+      description: "Measured pressures of the data zone used (output units).",
+    }),
+  temperature: z
+    .array(z.number())
+    .openapi({
+      description:
+        "Measured temperatures of the data zone used (output units).",
+    }),
 });
 
 export const RefusalSchema = z
@@ -116,11 +183,30 @@ export const RefusalSchema = z
 
 export const LookupResultSchema = z
   .object({
-    value: z.number().nullable().openapi({ description: "In the output unit; null only when the point is refused (see refusal)." }),
-    errorEstimate: z.number().nullable().openapi({ description: "Estimated interpolation error (same unit as value), never zero; see the engine's documentation. null when refused." }),
+    value: z
+      .number()
+      .nullable()
+      .openapi({
+        description:
+          "In the output unit; null only when the point is refused (see refusal).",
+      }),
+    errorEstimate: z
+      .number()
+      .nullable()
+      .openapi({
+        description:
+          "Estimated interpolation error (same unit as value), never zero; see the engine's documentation. null when refused.",
+      }),
     refusal: RefusalSchema.optional(),
-    warnings: z.array(z.string()).openapi({ description: "Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells." }),
-    method: z.string().openapi({ description: "Method that produced this value." }),
+    warnings: z
+      .array(z.string())
+      .openapi({
+        description:
+          "Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells.",
+      }),
+    method: z
+      .string()
+      .openapi({ description: "Method that produced this value." }),
     stencil: StencilSchema,
     branch: z.enum(["saturated", "undersaturated"]).optional(),
     bubblePointPressure: z.number().optional(),
@@ -131,11 +217,26 @@ export const LookupResponse = z
   .object({
     sampleId: z.number(),
     revision: z.number(),
-    revisionStatus: z.enum(["draft", "approved", "rejected", "superseded"]).openapi({ description: "Status of the revision used; anything but approved or superseded is an unapproved draft." }),
-    approved: z.boolean().openapi({ description: "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for." }),
+    revisionStatus: z
+      .enum(["draft", "approved", "rejected", "superseded"])
+      .openapi({
+        description:
+          "Status of the revision used; anything but approved or superseded is an unapproved draft.",
+      }),
+    approved: z
+      .boolean()
+      .openapi({
+        description:
+          "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for.",
+      }),
     property: PropertyKeySchema,
     method: MethodSchema,
-    units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string(), value: z.string() }),
+    units: z.object({
+      system: z.enum(["field", "metric"]),
+      pressure: z.string(),
+      temperature: z.string(),
+      value: z.string(),
+    }),
     results: z.array(LookupResultSchema),
   })
   .openapi("LookupResponse");
@@ -145,22 +246,39 @@ const ABSOLUTE_ZERO = { field: -459.67, metric: -273.15 } as const;
 
 export const TableQuery = z
   .object({
-    temperature: DecimalParam.openapi({ example: "212", description: "Temperature of the table (°F field, °C metric), a plain decimal above absolute zero." }),
+    temperature: DecimalParam.openapi({
+      example: "212",
+      description:
+        "Temperature of the table (°F field, °C metric), a plain decimal above absolute zero.",
+    }),
     pressures: z
       .string()
       .min(1)
-      .max(MAX_PRESSURES_CHARS, `At most ${MAX_PRESSURES_CHARS} characters; use a range start:stop:step for long tables.`)
-      .openapi({ example: "500:5000:250", description: "A list `a,b,c` or `start:stop:step` (absolute pressure)." }),
+      .max(
+        MAX_PRESSURES_CHARS,
+        `At most ${MAX_PRESSURES_CHARS} characters; use a range start:stop:step for long tables.`,
+      )
+      .openapi({
+        example: "500:5000:250",
+        description: "A list `a,b,c` or `start:stop:step` (absolute pressure).",
+      }),
     units: UnitsParam,
     format: z.enum(["json", "csv", "text"]).default("json"),
     method: MethodSchema.default("auto"),
     revision: RevisionParam,
-    extrapolate: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+    extrapolate: z
+      .enum(["true", "false"])
+      .default("false")
+      .transform((v) => v === "true"),
   })
   .superRefine((q, ctx) => {
     const zero = ABSOLUTE_ZERO[q.units];
     if (!(q.temperature > zero)) {
-      ctx.addIssue({ code: "custom", path: ["temperature"], message: `${q.temperature} is at or below absolute zero (${zero} ${q.units === "field" ? "°F" : "°C"}).` });
+      ctx.addIssue({
+        code: "custom",
+        path: ["temperature"],
+        message: `${q.temperature} is at or below absolute zero (${zero} ${q.units === "field" ? "°F" : "°C"}).`,
+      });
     }
   });
 export type TableQuery = z.output<typeof TableQuery>;
@@ -172,9 +290,18 @@ export const ProblemSchema = z
     status: z.number(),
     detail: z.string(),
     code: z.string(),
-    issues: z.array(z.object({ path: z.array(z.union([z.string(), z.number()])), message: z.string() })).optional(),
+    issues: z
+      .array(
+        z.object({
+          path: z.array(z.union([z.string(), z.number()])),
+          message: z.string(),
+        }),
+      )
+      .optional(),
   })
-  .openapi("Problem", { description: "RFC 9457 problem details (application/problem+json)." });
+  .openapi("Problem", {
+    description: "RFC 9457 problem details (application/problem+json).",
+  });
 
 export const SampleSummarySchema = z
   .object({
@@ -185,14 +312,27 @@ export const SampleSummarySchema = z
     sampleType: z.string(),
     reservoirTemperature: z.number().nullable(),
     reservoirPressure: z.number().nullable(),
-    bubblePoint: z.number().nullable().openapi({ description: "Bubble point at (or nearest measured to) the reservoir temperature." }),
+    bubblePoint: z
+      .number()
+      .nullable()
+      .openapi({
+        description:
+          "Bubble point at (or nearest measured to) the reservoir temperature.",
+      }),
     approvedRevision: z.number().nullable(),
     properties: z.array(PropertyKeySchema),
   })
   .openapi("SampleSummary");
 
 export const SampleListResponse = z
-  .object({ units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string() }), samples: z.array(SampleSummarySchema) })
+  .object({
+    units: z.object({
+      system: z.enum(["field", "metric"]),
+      pressure: z.string(),
+      temperature: z.string(),
+    }),
+    samples: z.array(SampleSummarySchema),
+  })
   .openapi("SampleList");
 
 export const GridSchema = z
@@ -202,7 +342,12 @@ export const GridSchema = z
     laboratoryUnit: z.string().nullable(),
     pressures: z.array(z.number()),
     temperatures: z.array(z.number()),
-    values: z.array(z.array(z.number().nullable())).openapi({ description: "values[i][j] at pressures[i], temperatures[j]; null = not measured." }),
+    values: z
+      .array(z.array(z.number().nullable()))
+      .openapi({
+        description:
+          "values[i][j] at pressures[i], temperatures[j]; null = not measured.",
+      }),
     bubblePoints: z.array(z.number().nullable()).optional(),
   })
   .openapi("Grid");
@@ -213,15 +358,29 @@ export const SampleDetailResponse = z
     revision: z.object({
       number: z.number(),
       status: z.enum(["draft", "approved", "rejected", "superseded"]),
-      approved: z.boolean().openapi({ description: "false for an unapproved revision (only signed-in people whose role allows it may ask for one)." }),
+      approved: z
+        .boolean()
+        .openapi({
+          description:
+            "false for an unapproved revision (only signed-in people whose role allows it may ask for one).",
+        }),
     }),
-    units: z.object({ system: z.enum(["field", "metric"]), pressure: z.string(), temperature: z.string() }),
-    bubblePoints: z.array(z.object({ temperature: z.number(), pressure: z.number() })),
+    units: z.object({
+      system: z.enum(["field", "metric"]),
+      pressure: z.string(),
+      temperature: z.string(),
+    }),
+    bubblePoints: z.array(
+      z.object({ temperature: z.number(), pressure: z.number() }),
+    ),
     grids: z.array(GridSchema),
   })
   .openapi("SampleDetail");
 
 /** zod issues → the `issues` member of a 400 problem. */
 export function zodIssues(error: z.ZodError) {
-  return error.issues.map((i) => ({ path: i.path.map((p) => (typeof p === "symbol" ? String(p) : p)), message: i.message }));
+  return error.issues.map((i) => ({
+    path: i.path.map((p) => (typeof p === "symbol" ? String(p) : p)),
+    message: i.message,
+  }));
 }

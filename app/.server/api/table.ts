@@ -9,12 +9,7 @@ import {
   parsePressureSpec,
   type TableErrorCode,
 } from "~/core/tables";
-import {
-  etagOf,
-  json,
-  notModified,
-  respondWithEtag,
-} from "./respond";
+import { etagOf, json, notModified, respondWithEtag } from "./respond";
 import { draftWarning, isApprovedStatus } from "./samples";
 import type { TableQuery } from "./schemas";
 import { fromInputPressure, fromInputTemperature } from "./units";

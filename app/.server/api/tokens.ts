@@ -1,7 +1,12 @@
 import { createSecretKey, randomUUID, type KeyObject } from "node:crypto";
 import jwt from "jsonwebtoken";
 import { recordAudit } from "~/.server/db/queries/audit";
-import { getApiTokenForUse, insertApiToken, touchApiToken, type TokenRestriction } from "~/.server/db/queries/api-tokens";
+import {
+  getApiTokenForUse,
+  insertApiToken,
+  touchApiToken,
+  type TokenRestriction,
+} from "~/.server/db/queries/api-tokens";
 import type { ApiScope } from "~/.server/db/schema";
 import { getEnv } from "~/.server/env";
 
@@ -30,10 +35,20 @@ export async function issueApiToken(input: {
   expiresInDays: number;
   ipAddress: string;
 }): Promise<{ id: string; token: string; expiresAt: Date }> {
-  const days = Math.min(Math.max(1, Math.floor(input.expiresInDays)), MAX_TOKEN_LIFETIME_DAYS);
+  const days = Math.min(
+    Math.max(1, Math.floor(input.expiresInDays)),
+    MAX_TOKEN_LIFETIME_DAYS,
+  );
   const id = randomUUID();
   const expiresAt = new Date(Date.now() + days * 86_400_000);
-  await insertApiToken({ id, userId: input.userId, name: input.name, scopes: input.scopes, restriction: input.restriction, expiresAt });
+  await insertApiToken({
+    id,
+    userId: input.userId,
+    name: input.name,
+    scopes: input.scopes,
+    restriction: input.restriction,
+    expiresAt,
+  });
   const token = jwt.sign({ scope: input.scopes.join(" ") }, tokenKey(), {
     algorithm: "HS256",
     jwtid: id,
@@ -42,7 +57,20 @@ export async function issueApiToken(input: {
     audience: AUDIENCE,
     expiresIn: Math.floor((expiresAt.getTime() - Date.now()) / 1000),
   });
-  await recordAudit({ action: "api_token_created", userId: input.userId, apiTokenId: id, entityType: "api_token", entityId: id, details: { name: input.name, scopes: input.scopes, restriction: input.restriction, expiresAt: expiresAt.toISOString() }, ipAddress: input.ipAddress });
+  await recordAudit({
+    action: "api_token_created",
+    userId: input.userId,
+    apiTokenId: id,
+    entityType: "api_token",
+    entityId: id,
+    details: {
+      name: input.name,
+      scopes: input.scopes,
+      restriction: input.restriction,
+      expiresAt: expiresAt.toISOString(),
+    },
+    ipAddress: input.ipAddress,
+  });
   return { id, token, expiresAt };
 }
 
@@ -50,31 +78,64 @@ export type TokenCaller = {
   tokenId: string;
   scopes: ApiScope[];
   restriction: TokenRestriction;
-  user: { id: number; email: string; name: string; role: "viewer" | "engineer" | "lab_lead" | "admin"; unitSystem: "field" | "metric" };
+  user: {
+    id: number;
+    email: string;
+    name: string;
+    role: "viewer" | "engineer" | "lab_lead" | "admin";
+    unitSystem: "field" | "metric";
+  };
 };
 
-export type TokenCheck = { ok: true; caller: TokenCaller } | { ok: false; detail: string };
+export type TokenCheck =
+  { ok: true; caller: TokenCaller } | { ok: false; detail: string };
 
 /** Verifies signature, algorithm, issuer, audience and expiry, then the token record and its owner. */
-export async function verifyApiToken(token: string, ipAddress: string): Promise<TokenCheck> {
+export async function verifyApiToken(
+  token: string,
+  ipAddress: string,
+): Promise<TokenCheck> {
   let payload: jwt.JwtPayload;
   try {
-    const decoded = jwt.verify(token, tokenKey(), { algorithms: ["HS256"], issuer: ISSUER, audience: AUDIENCE });
-    if (typeof decoded === "string") return { ok: false, detail: "The token is not valid." };
+    const decoded = jwt.verify(token, tokenKey(), {
+      algorithms: ["HS256"],
+      issuer: ISSUER,
+      audience: AUDIENCE,
+    });
+    if (typeof decoded === "string")
+      return { ok: false, detail: "The token is not valid." };
     payload = decoded;
   } catch (error) {
-    if (error instanceof jwt.TokenExpiredError) return { ok: false, detail: "The token has expired. Create a new one." };
+    if (error instanceof jwt.TokenExpiredError)
+      return { ok: false, detail: "The token has expired. Create a new one." };
     return { ok: false, detail: "The token is not valid." };
   }
-  if (typeof payload.jti !== "string") return { ok: false, detail: "The token is not valid." };
+  if (typeof payload.jti !== "string")
+    return { ok: false, detail: "The token is not valid." };
   const record = await getApiTokenForUse(payload.jti);
-  if (!record || String(record.user.id) !== payload.sub) return { ok: false, detail: "The token is not valid." };
-  if (record.revokedAt) return { ok: false, detail: "The token has been revoked." };
-  if (record.expiresAt.getTime() <= Date.now()) return { ok: false, detail: "The token has expired. Create a new one." };
-  if (record.user.disabledAt) return { ok: false, detail: "The token's owner can no longer sign in, so the token no longer works." };
+  if (!record || String(record.user.id) !== payload.sub)
+    return { ok: false, detail: "The token is not valid." };
+  if (record.revokedAt)
+    return { ok: false, detail: "The token has been revoked." };
+  if (record.expiresAt.getTime() <= Date.now())
+    return { ok: false, detail: "The token has expired. Create a new one." };
+  if (record.user.disabledAt)
+    return {
+      ok: false,
+      detail:
+        "The token's owner can no longer sign in, so the token no longer works.",
+    };
   noteUse(record.id, record.user.id, ipAddress);
   const { disabledAt: _d, ...user } = record.user;
-  return { ok: true, caller: { tokenId: record.id, scopes: record.scopes, restriction: record.restriction ?? null, user } };
+  return {
+    ok: true,
+    caller: {
+      tokenId: record.id,
+      scopes: record.scopes,
+      restriction: record.restriction ?? null,
+      user,
+    },
+  };
 }
 
 /*
@@ -91,11 +152,16 @@ const lastTouched = new Map<string, number>();
 function noteUse(tokenId: string, userId: number, ipAddress: string) {
   const now = Date.now();
   // `last used` has one-second resolution: under load a token is written at most once a second.
-  if (!inFlight.has(tokenId) && now - (lastTouched.get(tokenId) ?? 0) >= 1_000) {
+  if (
+    !inFlight.has(tokenId) &&
+    now - (lastTouched.get(tokenId) ?? 0) >= 1_000
+  ) {
     lastTouched.set(tokenId, now);
     inFlight.add(tokenId);
     touchApiToken(tokenId)
-      .catch((error: unknown) => console.warn("could not update last use of token", tokenId, error))
+      .catch((error: unknown) =>
+        console.warn("could not update last use of token", tokenId, error),
+      )
       .finally(() => inFlight.delete(tokenId));
   }
   const minute = Math.floor(Date.now() / 60_000);
@@ -112,8 +178,13 @@ function noteUse(tokenId: string, userId: number, ipAddress: string) {
     entityType: "api_token",
     entityId: tokenId,
     details: previous
-      ? { previousMinute: new Date(previous.minute * 60_000).toISOString(), requestsInPreviousMinute: previous.count }
+      ? {
+          previousMinute: new Date(previous.minute * 60_000).toISOString(),
+          requestsInPreviousMinute: previous.count,
+        }
       : { note: "first use since this app process started" },
     ipAddress,
-  }).catch((error: unknown) => console.warn("could not record token use", tokenId, error));
+  }).catch((error: unknown) =>
+    console.warn("could not record token use", tokenId, error),
+  );
 }

@@ -1,7 +1,20 @@
 import { recordAudit } from "~/.server/db/queries/audit";
-import { consumeLinkToken, createLinkToken, createPasswordResetLink, getUsableLinkToken } from "~/.server/db/queries/link-tokens";
-import { countSentPasswordResets, recordPasswordResetRequest } from "~/.server/db/queries/password-reset-requests";
-import { deleteSignInAttempt, getSignInHistory, insertSignInAttempt, markSignInAttemptSucceeded } from "~/.server/db/queries/sign-in-attempts";
+import {
+  consumeLinkToken,
+  createLinkToken,
+  createPasswordResetLink,
+  getUsableLinkToken,
+} from "~/.server/db/queries/link-tokens";
+import {
+  countSentPasswordResets,
+  recordPasswordResetRequest,
+} from "~/.server/db/queries/password-reset-requests";
+import {
+  deleteSignInAttempt,
+  getSignInHistory,
+  insertSignInAttempt,
+  markSignInAttemptSucceeded,
+} from "~/.server/db/queries/sign-in-attempts";
 import {
   claimSignInAlert,
   createUser,
@@ -20,23 +33,39 @@ import type { Role } from "~/utils/permissions";
 import { runInBackground } from "./background";
 import { hashPassword, verifyPassword } from "./password";
 import { createSession } from "./session";
-import { SIGN_IN_THROTTLE, signInWait, throttledMessage, type ThrottleReason } from "./sign-in-throttle";
+import {
+  SIGN_IN_THROTTLE,
+  signInWait,
+  throttledMessage,
+  type ThrottleReason,
+} from "./sign-in-throttle";
 import { generateToken, hashToken } from "./tokens";
 
 export const INVITATION_TTL_MS = 72 * 60 * 60 * 1000;
 export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
 /** Quiet limits on reset messages (the answer on the page stays the same): per address and per client, per hour. */
-export const PASSWORD_RESET_LIMITS = { windowMs: 60 * 60 * 1000, perEmail: 3, perClient: 10 } as const;
+export const PASSWORD_RESET_LIMITS = {
+  windowMs: 60 * 60 * 1000,
+  perEmail: 3,
+  perClient: 10,
+} as const;
 
 /** The one message for an unknown address and a wrong password, so neither gives the other away. */
-export const SIGN_IN_FAILED_MESSAGE = "The e-mail address or the password is not right.";
+export const SIGN_IN_FAILED_MESSAGE =
+  "The e-mail address or the password is not right.";
 
 type RequestMeta = { ipAddress: string; userAgent: string | null };
 
 export type SignInResult =
   | { ok: true; userId: number; setCookie: string }
   | { ok: false; reason: "invalid"; message: string }
-  | { ok: false; reason: "throttled"; limit: ThrottleReason; message: string; retryAfterSeconds: number };
+  | {
+      ok: false;
+      reason: "throttled";
+      limit: ThrottleReason;
+      message: string;
+      retryAfterSeconds: number;
+    };
 
 // A real argon2id hash of a random string, so an unknown address costs as much time as a wrong password.
 let dummyHash: Promise<string> | undefined;
@@ -45,10 +74,16 @@ let dummyHash: Promise<string> | undefined;
  * Checks the password unless the throttle (./sign-in-throttle.ts) says this client must wait first.
  * `now` is the clock, injectable for tests; every time the throttle compares comes from it.
  */
-export async function signIn(input: { email: string; password: string; now?: Date } & RequestMeta): Promise<SignInResult> {
+export async function signIn(
+  input: { email: string; password: string; now?: Date } & RequestMeta,
+): Promise<SignInResult> {
   const email = normaliseEmail(input.email);
   const now = input.now ?? new Date();
-  const attemptId = await insertSignInAttempt({ email, ipAddress: input.ipAddress, at: now });
+  const attemptId = await insertSignInAttempt({
+    email,
+    ipAddress: input.ipAddress,
+    at: now,
+  });
   const history = await getSignInHistory({
     email,
     ipAddress: input.ipAddress,
@@ -62,39 +97,79 @@ export async function signIn(input: { email: string; password: string; now?: Dat
     // A refused attempt checked no password, so it is not counted as a failure.
     await deleteSignInAttempt(attemptId);
     const retryAfterSeconds = Math.ceil(wait.waitMs / 1000);
-    await recordAudit({ action: "sign_in_refused", details: { email, limit: wait.reason, retryAfterSeconds }, ipAddress: input.ipAddress });
-    return { ok: false, reason: "throttled", limit: wait.reason, retryAfterSeconds, message: throttledMessage(wait.reason, retryAfterSeconds) };
+    await recordAudit({
+      action: "sign_in_refused",
+      details: { email, limit: wait.reason, retryAfterSeconds },
+      ipAddress: input.ipAddress,
+    });
+    return {
+      ok: false,
+      reason: "throttled",
+      limit: wait.reason,
+      retryAfterSeconds,
+      message: throttledMessage(wait.reason, retryAfterSeconds),
+    };
   }
 
   const user = await getUserCredentialsByEmail(email);
   dummyHash ??= hashPassword(generateToken());
-  const valid = await verifyPassword(user?.passwordHash ?? (await dummyHash), input.password);
+  const valid = await verifyPassword(
+    user?.passwordHash ?? (await dummyHash),
+    input.password,
+  );
   if (!user || !user.passwordHash || !valid || user.disabledAt) {
-    await recordAudit({ action: "sign_in_failed", userId: user?.id ?? null, details: { email }, ipAddress: input.ipAddress });
+    await recordAudit({
+      action: "sign_in_failed",
+      userId: user?.id ?? null,
+      details: { email },
+      ipAddress: input.ipAddress,
+    });
     const accountFailures = history.account.failures + 1;
-    if (user && !user.disabledAt && accountFailures >= SIGN_IN_THROTTLE.account.freeFailures) {
+    if (
+      user &&
+      !user.disabledAt &&
+      accountFailures >= SIGN_IN_THROTTLE.account.freeFailures
+    ) {
       await warnOwnerOfAttack(user.id, email, accountFailures, now);
     }
     return { ok: false, reason: "invalid", message: SIGN_IN_FAILED_MESSAGE };
   }
   await markSignInAttemptSucceeded(attemptId);
   const { setCookie } = await createSession(user.id, input);
-  await recordAudit({ action: "sign_in", userId: user.id, ipAddress: input.ipAddress });
+  await recordAudit({
+    action: "sign_in",
+    userId: user.id,
+    ipAddress: input.ipAddress,
+  });
   return { ok: true, userId: user.id, setCookie };
 }
 
 /** One message per alert window, whichever process gets there first; sent off the request path. */
-async function warnOwnerOfAttack(userId: number, email: string, failures: number, now: Date) {
-  if (!(await claimSignInAlert(userId, now, SIGN_IN_THROTTLE.alertWindowMs))) return;
+async function warnOwnerOfAttack(
+  userId: number,
+  email: string,
+  failures: number,
+  now: Date,
+) {
+  if (!(await claimSignInAlert(userId, now, SIGN_IN_THROTTLE.alertWindowMs)))
+    return;
   const message = signInAlertEmail({
     failures,
     windowMinutes: SIGN_IN_THROTTLE.account.windowMs / 60_000,
     accountUrl: `${getEnv().APP_BASE_URL}/account`,
   });
-  runInBackground("sign-in alert e-mail", () => sendEmail({ to: email, ...message }));
+  runInBackground("sign-in alert e-mail", () =>
+    sendEmail({ to: email, ...message }),
+  );
 }
 
-export async function inviteUser(input: { inviterId: number; inviterName: string; email: string; role: Role; ipAddress: string }) {
+export async function inviteUser(input: {
+  inviterId: number;
+  inviterName: string;
+  email: string;
+  role: Role;
+  ipAddress: string;
+}) {
   const token = generateToken();
   const email = normaliseEmail(input.email);
   await createLinkToken({
@@ -106,28 +181,70 @@ export async function inviteUser(input: { inviterId: number; inviterName: string
     expiresAt: new Date(Date.now() + INVITATION_TTL_MS),
   });
   const url = `${getEnv().APP_BASE_URL}/invitation/${token}`;
-  await sendEmail({ to: email, ...invitationEmail({ inviterName: input.inviterName, role: input.role, url, expiresInHours: 72 }) });
-  await recordAudit({ action: "invitation_sent", userId: input.inviterId, entityType: "invitation", details: { email, role: input.role }, ipAddress: input.ipAddress });
+  await sendEmail({
+    to: email,
+    ...invitationEmail({
+      inviterName: input.inviterName,
+      role: input.role,
+      url,
+      expiresInHours: 72,
+    }),
+  });
+  await recordAudit({
+    action: "invitation_sent",
+    userId: input.inviterId,
+    entityType: "invitation",
+    details: { email, role: input.role },
+    ipAddress: input.ipAddress,
+  });
 }
 
 export async function getInvitation(token: string) {
   return getUsableLinkToken("invitation", hashToken(token));
 }
 
-export type AcceptResult = { ok: true; setCookie: string } | { ok: false; message: string };
+export type AcceptResult =
+  { ok: true; setCookie: string } | { ok: false; message: string };
 
-export async function acceptInvitation(input: { token: string; name: string; password: string } & RequestMeta): Promise<AcceptResult> {
+export async function acceptInvitation(
+  input: { token: string; name: string; password: string } & RequestMeta,
+): Promise<AcceptResult> {
   const invitation = await getInvitation(input.token);
-  if (!invitation || !invitation.role) return { ok: false, message: "This invitation link has expired or has already been used. Ask an administrator for a new one." };
+  if (!invitation || !invitation.role)
+    return {
+      ok: false,
+      message:
+        "This invitation link has expired or has already been used. Ask an administrator for a new one.",
+    };
   if (await getUserCredentialsByEmail(invitation.email)) {
-    return { ok: false, message: "An account with this e-mail address already exists. Sign in, or reset your password." };
+    return {
+      ok: false,
+      message:
+        "An account with this e-mail address already exists. Sign in, or reset your password.",
+    };
   }
   const passwordHash = await hashPassword(input.password);
   if (!(await consumeLinkToken(invitation.id))) {
-    return { ok: false, message: "This invitation link has expired or has already been used. Ask an administrator for a new one." };
+    return {
+      ok: false,
+      message:
+        "This invitation link has expired or has already been used. Ask an administrator for a new one.",
+    };
   }
-  const userId = await createUser({ email: invitation.email, name: input.name, role: invitation.role, passwordHash });
-  await recordAudit({ action: "invitation_accepted", userId, entityType: "user", entityId: userId, details: { invitedBy: invitation.createdBy, role: invitation.role }, ipAddress: input.ipAddress });
+  const userId = await createUser({
+    email: invitation.email,
+    name: input.name,
+    role: invitation.role,
+    passwordHash,
+  });
+  await recordAudit({
+    action: "invitation_accepted",
+    userId,
+    entityType: "user",
+    entityId: userId,
+    details: { invitedBy: invitation.createdBy, role: invitation.role },
+    ipAddress: input.ipAddress,
+  });
   const { setCookie } = await createSession(userId, input);
   await recordAudit({ action: "sign_in", userId, ipAddress: input.ipAddress });
   return { ok: true, setCookie };
@@ -137,8 +254,13 @@ export async function acceptInvitation(input: { token: string; name: string; pas
  * "Forgot password": returns at once and does the rest in the background, so the answer takes the same time
  * whether or not the address has an account (no account enumeration: OWASP Forgot Password Cheat Sheet).
  */
-export function requestPasswordReset(input: { email: string; ipAddress: string }): void {
-  runInBackground("password reset request", () => processPasswordResetRequest(input));
+export function requestPasswordReset(input: {
+  email: string;
+  ipAddress: string;
+}): void {
+  runInBackground("password reset request", () =>
+    processPasswordResetRequest(input),
+  );
 }
 
 /**
@@ -146,20 +268,52 @@ export function requestPasswordReset(input: { email: string; ipAddress: string }
  * and only while fewer than PASSWORD_RESET_LIMITS messages went to that address, or on requests from that client,
  * in the window. A new link kills the older ones. Returns whether a message went out.
  */
-export async function processPasswordResetRequest(input: { email: string; ipAddress: string; now?: Date }): Promise<{ sent: boolean }> {
+export async function processPasswordResetRequest(input: {
+  email: string;
+  ipAddress: string;
+  now?: Date;
+}): Promise<{ sent: boolean }> {
   const email = normaliseEmail(input.email);
   const now = input.now ?? new Date();
   const user = await getUserCredentialsByEmail(email);
-  const recent = await countSentPasswordResets({ email, ipAddress: input.ipAddress, since: new Date(now.getTime() - PASSWORD_RESET_LIMITS.windowMs) });
-  const limited = recent.toEmail >= PASSWORD_RESET_LIMITS.perEmail || recent.fromAddress >= PASSWORD_RESET_LIMITS.perClient;
+  const recent = await countSentPasswordResets({
+    email,
+    ipAddress: input.ipAddress,
+    since: new Date(now.getTime() - PASSWORD_RESET_LIMITS.windowMs),
+  });
+  const limited =
+    recent.toEmail >= PASSWORD_RESET_LIMITS.perEmail ||
+    recent.fromAddress >= PASSWORD_RESET_LIMITS.perClient;
   const send = !!user && !user.disabledAt && !limited;
-  await recordPasswordResetRequest({ email, ipAddress: input.ipAddress, sent: send, at: now });
-  await recordAudit({ action: "password_reset_requested", userId: user?.id ?? null, details: { email, sent: send, ...(limited ? { limited } : {}) }, ipAddress: input.ipAddress });
+  await recordPasswordResetRequest({
+    email,
+    ipAddress: input.ipAddress,
+    sent: send,
+    at: now,
+  });
+  await recordAudit({
+    action: "password_reset_requested",
+    userId: user?.id ?? null,
+    details: { email, sent: send, ...(limited ? { limited } : {}) },
+    ipAddress: input.ipAddress,
+  });
   if (!user || !send) return { sent: false };
   const token = generateToken();
-  await createPasswordResetLink({ userId: user.id, email, tokenHash: hashToken(token), expiresAt: new Date(now.getTime() + PASSWORD_RESET_TTL_MS), now });
+  await createPasswordResetLink({
+    userId: user.id,
+    email,
+    tokenHash: hashToken(token),
+    expiresAt: new Date(now.getTime() + PASSWORD_RESET_TTL_MS),
+    now,
+  });
   const url = `${getEnv().APP_BASE_URL}/reset-password/${token}`;
-  await sendEmail({ to: email, ...passwordResetEmail({ url, expiresInMinutes: PASSWORD_RESET_TTL_MS / 60_000 }) });
+  await sendEmail({
+    to: email,
+    ...passwordResetEmail({
+      url,
+      expiresInMinutes: PASSWORD_RESET_TTL_MS / 60_000,
+    }),
+  });
   return { sent: true };
 }
 
@@ -167,18 +321,30 @@ export async function getPasswordReset(token: string) {
   return getUsableLinkToken("password_reset", hashToken(token));
 }
 
-export async function resetPassword(input: { token: string; password: string } & RequestMeta): Promise<AcceptResult> {
+export async function resetPassword(
+  input: { token: string; password: string } & RequestMeta,
+): Promise<AcceptResult> {
   const reset = await getPasswordReset(input.token);
-  const expired = "This reset link has expired or has already been used. Ask for a new one.";
+  const expired =
+    "This reset link has expired or has already been used. Ask for a new one.";
   if (!reset || !reset.userId) return { ok: false, message: expired };
   const user = await getUserById(reset.userId);
   if (!user || user.disabledAt) return { ok: false, message: expired };
   const passwordHash = await hashPassword(input.password);
-  if (!(await consumeLinkToken(reset.id))) return { ok: false, message: expired };
+  if (!(await consumeLinkToken(reset.id)))
+    return { ok: false, message: expired };
   await updateUserPassword(user.id, passwordHash, null);
-  await recordAudit({ action: "password_reset", userId: user.id, ipAddress: input.ipAddress });
+  await recordAudit({
+    action: "password_reset",
+    userId: user.id,
+    ipAddress: input.ipAddress,
+  });
   const { setCookie } = await createSession(user.id, input);
-  await recordAudit({ action: "sign_in", userId: user.id, ipAddress: input.ipAddress });
+  await recordAudit({
+    action: "sign_in",
+    userId: user.id,
+    ipAddress: input.ipAddress,
+  });
   return { ok: true, setCookie };
 }
 
@@ -188,12 +354,26 @@ export async function changePassword(input: {
   currentPassword: string;
   newPassword: string;
   ipAddress: string;
-}): Promise<{ ok: true } | { ok: false; field: "currentPassword"; message: string }> {
+}): Promise<
+  { ok: true } | { ok: false; field: "currentPassword"; message: string }
+> {
   const hash = await getUserPasswordHash(input.userId);
   if (!hash || !(await verifyPassword(hash, input.currentPassword))) {
-    return { ok: false, field: "currentPassword", message: "The current password is not right." };
+    return {
+      ok: false,
+      field: "currentPassword",
+      message: "The current password is not right.",
+    };
   }
-  await updateUserPassword(input.userId, await hashPassword(input.newPassword), input.sessionId);
-  await recordAudit({ action: "password_changed", userId: input.userId, ipAddress: input.ipAddress });
+  await updateUserPassword(
+    input.userId,
+    await hashPassword(input.newPassword),
+    input.sessionId,
+  );
+  await recordAudit({
+    action: "password_changed",
+    userId: input.userId,
+    ipAddress: input.ipAddress,
+  });
   return { ok: true };
 }

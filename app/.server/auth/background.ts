@@ -5,12 +5,18 @@
  */
 const pending = new Set<Promise<void>>();
 
-export function runInBackground(label: string, job: () => Promise<unknown>): void {
-  const run: Promise<void> = new Promise<void>((resolve) => setImmediate(resolve))
+export function runInBackground(
+  label: string,
+  job: () => Promise<unknown>,
+): void {
+  const run: Promise<void> = new Promise<void>((resolve) =>
+    setImmediate(resolve),
+  )
     .then(job)
     .then(
       () => undefined,
-      (error: unknown) => console.error(`background job "${label}" failed:`, error),
+      (error: unknown) =>
+        console.error(`background job "${label}" failed:`, error),
     )
     .finally(() => pending.delete(run));
   pending.add(run);

@@ -12,7 +12,10 @@ declare global {
  */
 export function clientAddress(request: Request): string {
   if (getEnv().TRUST_PROXY) {
-    const forwarded = request.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
+    const forwarded = request.headers
+      .get("x-forwarded-for")
+      ?.split(",")[0]
+      ?.trim();
     if (forwarded) return forwarded.slice(0, 64);
   }
   if (globalThis.__isoplethPeerAddressHook) {

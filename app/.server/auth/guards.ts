@@ -10,7 +10,9 @@ export function getCaller({ context }: Pick<Args, "context">): Caller {
   return context.get(callerContext);
 }
 
-export function getOptionalUser(args: Pick<Args, "context">): SessionUser | null {
+export function getOptionalUser(
+  args: Pick<Args, "context">,
+): SessionUser | null {
   return getCaller(args).user;
 }
 
@@ -26,10 +28,16 @@ export function requireUser({ request, context }: Args): SessionUser {
 }
 
 /** Pages and page actions: the signed-in user holding `permission`, else 403. */
-export function requirePermission(args: Args, permission: Permission): SessionUser {
+export function requirePermission(
+  args: Args,
+  permission: Permission,
+): SessionUser {
   const user = requireUser(args);
   if (!can(user, permission)) {
-    throw data("Your role does not allow this. Ask an administrator if you need access.", { status: 403 });
+    throw data(
+      "Your role does not allow this. Ask an administrator if you need access.",
+      { status: 403 },
+    );
   }
   return user;
 }
@@ -40,9 +48,13 @@ export function requireAnonymous({ context }: Pick<Args, "context">): void {
 }
 
 /** API routes with the session cookie: 401 JSON when signed out, 403 JSON without the permission. */
-export function requireApiUser({ context }: Pick<Args, "context">, permission?: Permission): SessionUser {
+export function requireApiUser(
+  { context }: Pick<Args, "context">,
+  permission?: Permission,
+): SessionUser {
   const user = context.get(callerContext).user;
-  if (!user) throw apiError(401, "unauthenticated", "Sign in or send a bearer token.");
+  if (!user)
+    throw apiError(401, "unauthenticated", "Sign in or send a bearer token.");
   if (permission && !can(user, permission)) {
     throw apiError(403, "forbidden", "Your role does not allow this.");
   }

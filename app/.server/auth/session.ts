@@ -1,5 +1,10 @@
 import { createCookie } from "react-router";
-import { deleteSession, extendSession, getSessionWithUser, insertSession } from "~/.server/db/queries/sessions";
+import {
+  deleteSession,
+  extendSession,
+  getSessionWithUser,
+  insertSession,
+} from "~/.server/db/queries/sessions";
 import { getEnv } from "~/.server/env";
 import type { Role } from "~/utils/permissions";
 import { generateToken, hashToken } from "./tokens";
@@ -12,7 +17,13 @@ import { generateToken, hashToken } from "./tokens";
 export const SESSION_TTL_MS = 30 * 24 * 60 * 60 * 1000;
 export const SESSION_RENEW_BELOW_MS = 15 * 24 * 60 * 60 * 1000;
 
-export type SessionUser = { id: number; email: string; name: string; role: Role; unitSystem: "field" | "metric" };
+export type SessionUser = {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  unitSystem: "field" | "metric";
+};
 
 let cookie: ReturnType<typeof createCookie> | undefined;
 function sessionCookie() {
@@ -30,9 +41,15 @@ function sessionCookie() {
   return cookie;
 }
 
-export async function readSessionToken(request: Request): Promise<string | null> {
-  const value: unknown = await sessionCookie().parse(request.headers.get("Cookie"));
-  return typeof value === "string" && /^[a-z2-7]{32}$/.test(value) ? value : null;
+export async function readSessionToken(
+  request: Request,
+): Promise<string | null> {
+  const value: unknown = await sessionCookie().parse(
+    request.headers.get("Cookie"),
+  );
+  return typeof value === "string" && /^[a-z2-7]{32}$/.test(value)
+    ? value
+    : null;
 }
 
 export async function createSession(
@@ -51,10 +68,17 @@ export async function createSession(
   return { sessionId, setCookie: await sessionCookie().serialize(token) };
 }
 
-export type ValidatedSession = { sessionId: string; user: SessionUser; renewedCookie: string | null };
+export type ValidatedSession = {
+  sessionId: string;
+  user: SessionUser;
+  renewedCookie: string | null;
+};
 
 /** Looks the token up; refuses expired sessions and disabled accounts (deleting the session); renews when due. */
-export async function validateSessionToken(token: string, now = Date.now()): Promise<ValidatedSession | null> {
+export async function validateSessionToken(
+  token: string,
+  now = Date.now(),
+): Promise<ValidatedSession | null> {
   const sessionId = hashToken(token);
   const row = await getSessionWithUser(sessionId);
   if (!row) return null;

@@ -1,5 +1,8 @@
 import { sha256 } from "@oslojs/crypto/sha2";
-import { encodeBase32LowerCaseNoPadding, encodeHexLowerCase } from "@oslojs/encoding";
+import {
+  encodeBase32LowerCaseNoPadding,
+  encodeHexLowerCase,
+} from "@oslojs/encoding";
 
 /** A random token of 160 bits for cookies and e-mailed links, base32 so it survives URLs and e-mail. */
 export function generateToken(): string {

@@ -46,7 +46,11 @@ const UNAVAILABLE_CODES = new Set([
 ]);
 
 export function isDatabaseUnavailable(error: unknown): boolean {
-  for (let e: unknown = error, depth = 0; e instanceof Error && depth < 4; e = e.cause, depth++) {
+  for (
+    let e: unknown = error, depth = 0;
+    e instanceof Error && depth < 4;
+    e = e.cause, depth++
+  ) {
     const code = (e as { code?: unknown }).code;
     if (typeof code === "string" && UNAVAILABLE_CODES.has(code)) return true;
     if (/^(Queue limit reached|Pool is closed)/.test(e.message)) return true;
@@ -75,9 +79,17 @@ function boundQueries<T extends Queryable>(target: T, timeoutMs: number): T {
   const t = target as T & { [BOUNDED]?: true };
   if (t[BOUNDED]) return target;
   for (const method of ["query", "execute"] as const) {
-    const original = target[method].bind(target) as (...args: unknown[]) => Promise<unknown>;
-    (t as unknown as Record<string, unknown>)[method] = (first: unknown, ...rest: unknown[]) => {
-      const options = typeof first === "string" ? { sql: first, timeout: timeoutMs } : { timeout: timeoutMs, ...(first as object) };
+    const original = target[method].bind(target) as (
+      ...args: unknown[]
+    ) => Promise<unknown>;
+    (t as unknown as Record<string, unknown>)[method] = (
+      first: unknown,
+      ...rest: unknown[]
+    ) => {
+      const options =
+        typeof first === "string"
+          ? { sql: first, timeout: timeoutMs }
+          : { timeout: timeoutMs, ...(first as object) };
       return original(options, ...rest).catch(note);
     };
   }
@@ -91,10 +103,18 @@ function boundQueries<T extends Queryable>(target: T, timeoutMs: number): T {
  * query (queryTimeoutMs, mysql2's own timeout, which discards the connection). The server also stops a statement
  * that runs past the same bound (max_statement_time), so an abandoned query does not run on.
  */
-export function createPool(url: string, bounds: PoolBounds | number): mysql.Pool {
+export function createPool(
+  url: string,
+  bounds: PoolBounds | number,
+): mysql.Pool {
   const b: PoolBounds =
     typeof bounds === "number"
-      ? { connectionLimit: bounds, queryTimeoutMs: 30_000, acquireTimeoutMs: 10_000, queueLimit: 1_000 }
+      ? {
+          connectionLimit: bounds,
+          queryTimeoutMs: 30_000,
+          acquireTimeoutMs: 10_000,
+          queueLimit: 1_000,
+        }
       : bounds;
   const created = mysql.createPool({
     uri: url,
@@ -105,13 +125,22 @@ export function createPool(url: string, bounds: PoolBounds | number): mysql.Pool
     connectTimeout: Math.min(b.acquireTimeoutMs, 10_000),
   });
   created.pool.on("connection", (connection) => {
-    connection.query(`SET SESSION max_statement_time = ${(b.queryTimeoutMs / 1000).toFixed(3)}`, () => {});
+    connection.query(
+      `SET SESSION max_statement_time = ${(b.queryTimeoutMs / 1000).toFixed(3)}`,
+      () => {},
+    );
   });
   boundQueries(created, b.queryTimeoutMs);
   let waiting = 0;
   const getConnection = created.getConnection.bind(created);
   created.getConnection = async () => {
-    if (waiting >= b.queueLimit) note(coded(`more than ${b.queueLimit} requests are waiting for the database`, "POOL_QUEUE_FULL"));
+    if (waiting >= b.queueLimit)
+      note(
+        coded(
+          `more than ${b.queueLimit} requests are waiting for the database`,
+          "POOL_QUEUE_FULL",
+        ),
+      );
     waiting++;
     let timer: NodeJS.Timeout | undefined;
     const acquiring = getConnection();
@@ -120,7 +149,13 @@ export function createPool(url: string, bounds: PoolBounds | number): mysql.Pool
         acquiring,
         new Promise<never>((_, reject) => {
           timer = setTimeout(
-            () => reject(coded(`no database connection within ${b.acquireTimeoutMs} ms`, "POOL_ACQUIRE_TIMEOUT")),
+            () =>
+              reject(
+                coded(
+                  `no database connection within ${b.acquireTimeoutMs} ms`,
+                  "POOL_ACQUIRE_TIMEOUT",
+                ),
+              ),
             b.acquireTimeoutMs,
           );
         }),
@@ -149,12 +184,20 @@ export function getDb(): Database {
       queueLimit: env.DATABASE_QUEUE_LIMIT,
     });
     database = drizzle({ client: pool, schema, mode: "default" });
-    const inner = pool.pool as unknown as { _allConnections: { length: number }; _freeConnections: { length: number } };
-    gaugeFrom("isopleth_db_pool_connections", "Database pool connections by state.", () => ({
-      open: inner._allConnections.length,
-      idle: inner._freeConnections.length,
-      busy: inner._allConnections.length - inner._freeConnections.length,
-    }), "state");
+    const inner = pool.pool as unknown as {
+      _allConnections: { length: number };
+      _freeConnections: { length: number };
+    };
+    gaugeFrom(
+      "isopleth_db_pool_connections",
+      "Database pool connections by state.",
+      () => ({
+        open: inner._allConnections.length,
+        idle: inner._freeConnections.length,
+        busy: inner._allConnections.length - inner._freeConnections.length,
+      }),
+      "state",
+    );
   }
   return database;
 }

@@ -35,16 +35,31 @@ test("every committed migration applies to an empty database, and applying again
 
   await runMigrations(database.url);
   const [tables] = await pool.query("SHOW TABLES");
-  const names = (tables as Record<string, string>[]).map((r) => Object.values(r)[0]).sort();
+  const names = (tables as Record<string, string>[])
+    .map((r) => Object.values(r)[0])
+    .sort();
   for (const expected of [
-    "api_tokens", "audit_log", "fields", "grid_points", "property_grids", "revision_bubble_points",
-    "sample_revisions", "samples", "sessions", "users", "wells",
+    "api_tokens",
+    "audit_log",
+    "fields",
+    "grid_points",
+    "property_grids",
+    "revision_bubble_points",
+    "sample_revisions",
+    "samples",
+    "sessions",
+    "users",
+    "wells",
   ]) {
     expect(names).toContain(expected);
   }
-  const [applied] = await pool.query("SELECT COUNT(*) AS n FROM __drizzle_migrations");
+  const [applied] = await pool.query(
+    "SELECT COUNT(*) AS n FROM __drizzle_migrations",
+  );
   await runMigrations(database.url);
-  const [again] = await pool.query("SELECT COUNT(*) AS n FROM __drizzle_migrations");
+  const [again] = await pool.query(
+    "SELECT COUNT(*) AS n FROM __drizzle_migrations",
+  );
   expect(again).toEqual(applied);
 
   // Measured values are IEEE doubles, not decimals or floats.
@@ -55,7 +70,9 @@ test("every committed migration applies to an empty database, and applying again
 });
 
 test("the server runs in UTC with utf8mb4, so timestamps and names round-trip", async () => {
-  const [rows] = await pool.query("SELECT @@time_zone AS tz, @@character_set_database AS cs");
+  const [rows] = await pool.query(
+    "SELECT @@time_zone AS tz, @@character_set_database AS cs",
+  );
   expect(rows).toEqual([{ tz: "+00:00", cs: "utf8mb4" }]);
 });
 
@@ -63,7 +80,10 @@ test("the demo seed loads the invented scenario and is idempotent", async () => 
   const db = drizzle({ client: pool, schema, mode: "default" });
   await seedDemo(db, { demoPassword: "demo-password-for-tests" });
   const first = await tableCounts();
-  const expectedPoints = DEMO_SAMPLES.reduce((n, s) => n + 7 * s.pressuresPsia.length * s.temperaturesF.length, 0);
+  const expectedPoints = DEMO_SAMPLES.reduce(
+    (n, s) => n + 7 * s.pressuresPsia.length * s.temperaturesF.length,
+    0,
+  );
   expect(first).toEqual({
     users: DEMO_USERS.length,
     fields: 1,
@@ -78,15 +98,22 @@ test("the demo seed loads the invented scenario and is idempotent", async () => 
   expect(await tableCounts()).toEqual(first);
 
   const [fieldRows] = await pool.query("SELECT description FROM fields");
-  expect((fieldRows as { description: string }[])[0]?.description).toMatch(/invented/i);
+  expect((fieldRows as { description: string }[])[0]?.description).toMatch(
+    /invented/i,
+  );
   // Grids look like laboratory data: 8–15 pressures, several temperatures, a bubble point per temperature.
   for (const s of DEMO_SAMPLES) {
     expect(s.pressuresPsia.length).toBeGreaterThanOrEqual(8);
     expect(s.pressuresPsia.length).toBeLessThanOrEqual(15);
     expect(s.temperaturesF.length).toBeGreaterThanOrEqual(3);
   }
-  const [bubble] = await pool.query("SELECT COUNT(*) AS n FROM revision_bubble_points");
-  expect((bubble as { n: number }[])[0]?.n).toBe(DEMO_SAMPLES.reduce((n, s) => n + s.temperaturesF.length, 0));
+  const [bubble] = await pool.query(
+    "SELECT COUNT(*) AS n FROM revision_bubble_points",
+  );
+  expect((bubble as { n: number }[])[0]?.n).toBe(
+    DEMO_SAMPLES.reduce((n, s) => n + s.temperaturesF.length, 0),
+  );
   const [hashes] = await pool.query("SELECT password_hash AS h FROM users");
-  for (const row of hashes as { h: string }[]) expect(row.h).toMatch(/^\$argon2id\$/);
+  for (const row of hashes as { h: string }[])
+    expect(row.h).toMatch(/^\$argon2id\$/);
 });

@@ -1,7 +1,12 @@
 import { getEnv } from "~/.server/env";
 import { getTransport } from "./transport";
 
-export type EmailMessage = { to: string; subject: string; text: string; html: string };
+export type EmailMessage = {
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+};
 
 /** The one way out for e-mail. */
 export async function sendEmail(message: EmailMessage): Promise<void> {

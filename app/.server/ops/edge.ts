@@ -32,34 +32,54 @@ const DETAILS: Record<number, string> = {
  * - every API answer of 400 or more is problem details, whatever produced it (the router's own 404/405 are
  *   text otherwise).
  */
-export const edgeMiddleware: MiddlewareFunction<Response> = async ({ request }, next) => {
+export const edgeMiddleware: MiddlewareFunction<Response> = async (
+  { request },
+  next,
+) => {
   let response: Response;
   try {
     response = await next();
   } catch (error) {
     if (error instanceof Response) response = error;
-    else if (isDatabaseUnavailable(error) || currentRequest()?.databaseUnavailable) return databaseUnavailable(request);
+    else if (
+      isDatabaseUnavailable(error) ||
+      currentRequest()?.databaseUnavailable
+    )
+      return databaseUnavailable(request);
     else throw error;
   }
-  if (response.status >= 500 && currentRequest()?.databaseUnavailable) return databaseUnavailable(request);
+  if (response.status >= 500 && currentRequest()?.databaseUnavailable)
+    return databaseUnavailable(request);
   if (response.status >= 400 && isApiPath(request) && !isProblem(response)) {
     const status = response.status;
     const headers = new Headers();
     const allow = response.headers.get("Allow");
     if (allow) headers.set("Allow", allow);
-    return problem(status, CODES[status] ?? "error", DETAILS[status] ?? `The request was answered ${status}.`, { headers });
+    return problem(
+      status,
+      CODES[status] ?? "error",
+      DETAILS[status] ?? `The request was answered ${status}.`,
+      { headers },
+    );
   }
   return response;
 };
 
 function isProblem(response: Response): boolean {
-  return (response.headers.get("Content-Type") ?? "").startsWith("application/problem+json");
+  return (response.headers.get("Content-Type") ?? "").startsWith(
+    "application/problem+json",
+  );
 }
 
 export function databaseUnavailable(request: Request): Response {
   const headers = { "Retry-After": String(DATABASE_RETRY_AFTER_S) };
   if (isApiPath(request)) {
-    return problem(503, "database_unavailable", "The database is not answering at the moment; retry in a few seconds.", { headers });
+    return problem(
+      503,
+      "database_unavailable",
+      "The database is not answering at the moment; retry in a few seconds.",
+      { headers },
+    );
   }
   const html = `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Database unavailable — Isopleth</title></head>
 <body style="font-family: system-ui, sans-serif; max-width: 40rem; margin: 3rem auto; padding: 0 1.5rem; color: #1f2933">
@@ -69,6 +89,10 @@ Try again in a few seconds; if it persists, tell the administrator of this insta
 <p><a href="/">Back to Isopleth</a></p></body></html>`;
   return new Response(html, {
     status: 503,
-    headers: { ...headers, "Content-Type": "text/html; charset=utf-8", "Cache-Control": "no-store" },
+    headers: {
+      ...headers,
+      "Content-Type": "text/html; charset=utf-8",
+      "Cache-Control": "no-store",
+    },
   });
 }

@@ -12,19 +12,31 @@ export const logger = pino({
   base: undefined,
   timestamp: pino.stdTimeFunctions.isoTime,
   redact: {
-    paths: ["req.headers.authorization", "req.headers.cookie", 'res.headers["set-cookie"]', "password", "token"],
+    paths: [
+      "req.headers.authorization",
+      "req.headers.cookie",
+      'res.headers["set-cookie"]',
+      "password",
+      "token",
+    ],
     remove: true,
   },
 });
 
-type ErrorSummary = { kind: string; code?: string; message: string; stack?: string };
+type ErrorSummary = {
+  kind: string;
+  code?: string;
+  message: string;
+  stack?: string;
+};
 
 /**
  * A short, safe description of an error for the log: its class, a driver code if any, and the first line of its
  * message with SQL text and parameters cut off (drizzle puts both in its "Failed query" messages).
  */
 export function describeError(error: unknown): ErrorSummary {
-  if (!(error instanceof Error)) return { kind: typeof error, message: String(error).slice(0, 200) };
+  if (!(error instanceof Error))
+    return { kind: typeof error, message: String(error).slice(0, 200) };
   const cause = error.cause instanceof Error ? error.cause : undefined;
   const source = cause ?? error;
   const code = (source as { code?: unknown }).code;

@@ -11,12 +11,22 @@ let defaultsCollected = false;
 export function collectProcessMetrics(): void {
   if (defaultsCollected) return;
   defaultsCollected = true;
-  client.collectDefaultMetrics({ register: registry, eventLoopMonitoringPrecision: 20 });
+  client.collectDefaultMetrics({
+    register: registry,
+    eventLoopMonitoringPrecision: 20,
+  });
 }
 
-function counter(name: string, help: string, labelNames: string[] = []): client.Counter {
+function counter(
+  name: string,
+  help: string,
+  labelNames: string[] = [],
+): client.Counter {
   const existing = registry.getSingleMetric(name);
-  return (existing as client.Counter | undefined) ?? new client.Counter({ name, help, labelNames, registers: [registry] });
+  return (
+    (existing as client.Counter | undefined) ??
+    new client.Counter({ name, help, labelNames, registers: [registry] })
+  );
 }
 
 /** Lookup points computed and answered (API and pages), by outcome. */
@@ -27,10 +37,19 @@ export const lookupPointsServed = counter(
 );
 
 /** Upload confirmations, by outcome (stored, refused by checks, failed). */
-export const uploadsByOutcome = counter("isopleth_uploads_total", "Upload confirmations by outcome.", ["outcome"]);
+export const uploadsByOutcome = counter(
+  "isopleth_uploads_total",
+  "Upload confirmations by outcome.",
+  ["outcome"],
+);
 
 /** Registers a gauge whose value is read when the metrics are scraped. */
-export function gaugeFrom(name: string, help: string, read: () => number | Record<string, number>, labelName?: string): void {
+export function gaugeFrom(
+  name: string,
+  help: string,
+  read: () => number | Record<string, number>,
+  labelName?: string,
+): void {
   if (registry.getSingleMetric(name)) return;
   new client.Gauge({
     name,
@@ -40,7 +59,9 @@ export function gaugeFrom(name: string, help: string, read: () => number | Recor
     collect() {
       const value = read();
       if (typeof value === "number") this.set(value);
-      else for (const [label, v] of Object.entries(value)) this.set({ [labelName!]: label }, v);
+      else
+        for (const [label, v] of Object.entries(value))
+          this.set({ [labelName!]: label }, v);
     },
   });
 }

@@ -1,7 +1,12 @@
 import { readFile, statfs } from "node:fs/promises";
 import { hostname, tmpdir } from "node:os";
 import path from "node:path";
-import { getAppliedMigrations, getDatabaseDataDir, updateHeartbeat, withTimeout } from "~/.server/db/queries/health";
+import {
+  getAppliedMigrations,
+  getDatabaseDataDir,
+  updateHeartbeat,
+  withTimeout,
+} from "~/.server/db/queries/health";
 import { getEnv, type Env } from "~/.server/env";
 
 /*
@@ -12,14 +17,25 @@ import { getEnv, type Env } from "~/.server/env";
 
 export type CheckName = "database" | "migrations" | "disk";
 
-export type DiskReport = { name: string; ok: boolean; freeBytes: number | null; problem?: string };
+export type DiskReport = {
+  name: string;
+  ok: boolean;
+  freeBytes: number | null;
+  problem?: string;
+};
 
 export type Readiness = {
   status: "ready" | "not ready";
   failing: CheckName[];
   checks: {
     database: { ok: boolean; problem?: string };
-    migrations: { ok: boolean; applied: number; expected: number; pending: string[]; problem?: string };
+    migrations: {
+      ok: boolean;
+      applied: number;
+      expected: number;
+      pending: string[];
+      problem?: string;
+    };
     disk: { ok: boolean; minFreeBytes: number; disks: DiskReport[] };
   };
 };
@@ -40,7 +56,8 @@ const LOOPBACK = new Set(["127.0.0.1", "localhost", "::1", "[::1]"]);
 /** The options of the readiness route, from the configuration. */
 export function readinessOptions(env: Env = getEnv()): ReadinessOptions {
   const disks = [{ name: "temp", path: tmpdir() }];
-  if (env.ISOPLETH_DATA_DIR) disks.unshift({ name: "data", path: env.ISOPLETH_DATA_DIR });
+  if (env.ISOPLETH_DATA_DIR)
+    disks.unshift({ name: "data", path: env.ISOPLETH_DATA_DIR });
   return {
     minFreeBytes: env.READY_MIN_FREE_BYTES,
     disks,
@@ -50,57 +67,100 @@ export function readinessOptions(env: Env = getEnv()): ReadinessOptions {
   };
 }
 
-export async function checkReadiness(options: ReadinessOptions = readinessOptions()): Promise<Readiness> {
+export async function checkReadiness(
+  options: ReadinessOptions = readinessOptions(),
+): Promise<Readiness> {
   const [database, migrations, disk] = await Promise.all([
     checkDatabaseWrite(options.timeoutMs),
     checkMigrations(options.migrationsFolder, options.timeoutMs),
     checkDisks(options),
   ]);
   const checks = { database, migrations, disk };
-  const failing = (Object.keys(checks) as CheckName[]).filter((name) => !checks[name].ok);
-  return { status: failing.length === 0 ? "ready" : "not ready", failing, checks };
+  const failing = (Object.keys(checks) as CheckName[]).filter(
+    (name) => !checks[name].ok,
+  );
+  return {
+    status: failing.length === 0 ? "ready" : "not ready",
+    failing,
+    checks,
+  };
 }
 
-async function checkDatabaseWrite(timeoutMs: number): Promise<Readiness["checks"]["database"]> {
+async function checkDatabaseWrite(
+  timeoutMs: number,
+): Promise<Readiness["checks"]["database"]> {
   return withTimeout(
     updateHeartbeat(hostname()).then(() => ({ ok: true })),
     timeoutMs,
-    (error) => ({ ok: false, problem: `the heartbeat write failed: ${describe(error)}` }),
+    (error) => ({
+      ok: false,
+      problem: `the heartbeat write failed: ${describe(error)}`,
+    }),
   );
 }
 
 type Journal = { entries: { tag: string; when: number }[] };
 
-async function checkMigrations(folder: string, timeoutMs: number): Promise<Readiness["checks"]["migrations"]> {
+async function checkMigrations(
+  folder: string,
+  timeoutMs: number,
+): Promise<Readiness["checks"]["migrations"]> {
   let journal: Journal;
   try {
-    journal = JSON.parse(await readFile(path.join(folder, "meta", "_journal.json"), "utf8")) as Journal;
+    journal = JSON.parse(
+      await readFile(path.join(folder, "meta", "_journal.json"), "utf8"),
+    ) as Journal;
   } catch (error) {
-    return { ok: false, applied: 0, expected: 0, pending: [], problem: `cannot read the migration journal: ${describe(error)}` };
+    return {
+      ok: false,
+      applied: 0,
+      expected: 0,
+      pending: [],
+      problem: `cannot read the migration journal: ${describe(error)}`,
+    };
   }
   const expected = journal.entries.length;
   return withTimeout(
     getAppliedMigrations().then(({ count, lastWhenMs }) => {
       // The same rule as drizzle's migrator: an entry newer than the newest applied one is still to run.
-      const pending = journal.entries.filter((e) => lastWhenMs === null || e.when > lastWhenMs).map((e) => e.tag);
+      const pending = journal.entries
+        .filter((e) => lastWhenMs === null || e.when > lastWhenMs)
+        .map((e) => e.tag);
       const ok = pending.length === 0 && count >= expected;
       return {
         ok,
         applied: count,
         expected,
         pending,
-        ...(ok ? {} : { problem: "the database is behind this build: run `npm run db:migrate`" }),
+        ...(ok
+          ? {}
+          : {
+              problem:
+                "the database is behind this build: run `npm run db:migrate`",
+            }),
       };
     }),
     timeoutMs,
-    (error) => ({ ok: false, applied: 0, expected, pending: [], problem: `cannot read the applied migrations: ${describe(error)}` }),
+    (error) => ({
+      ok: false,
+      applied: 0,
+      expected,
+      pending: [],
+      problem: `cannot read the applied migrations: ${describe(error)}`,
+    }),
   );
 }
 
-async function checkDisks(options: ReadinessOptions): Promise<Readiness["checks"]["disk"]> {
+async function checkDisks(
+  options: ReadinessOptions,
+): Promise<Readiness["checks"]["disk"]> {
   const disks = [...options.disks];
   if (options.databaseIsLocal) {
-    const datadir = await withTimeout(getDatabaseDataDir(), options.timeoutMs, () => null);
+    const datadir = await withTimeout(
+      getDatabaseDataDir(),
+      options.timeoutMs,
+      () => null,
+    );
     if (datadir) disks.push({ name: "database", path: datadir });
   }
   const reports = await Promise.all(
@@ -110,18 +170,38 @@ async function checkDisks(options: ReadinessOptions): Promise<Readiness["checks"
         const freeBytes = stats.bavail * stats.bsize;
         return freeBytes >= options.minFreeBytes
           ? { name, ok: true, freeBytes }
-          : { name, ok: false, freeBytes, problem: `less than ${options.minFreeBytes} bytes free` };
+          : {
+              name,
+              ok: false,
+              freeBytes,
+              problem: `less than ${options.minFreeBytes} bytes free`,
+            };
       } catch (error) {
-        return { name, ok: false, freeBytes: null, problem: `cannot inspect its file system: ${describe(error)}` };
+        return {
+          name,
+          ok: false,
+          freeBytes: null,
+          problem: `cannot inspect its file system: ${describe(error)}`,
+        };
       }
     }),
   );
-  return { ok: reports.every((r) => r.ok), minFreeBytes: options.minFreeBytes, disks: reports };
+  return {
+    ok: reports.every((r) => r.ok),
+    minFreeBytes: options.minFreeBytes,
+    disks: reports,
+  };
 }
 
 function describe(error: unknown): string {
   // Drizzle wraps driver errors ("Failed query: ..."); the driver's message is the useful part.
   let e: unknown = error;
-  while (e && typeof e === "object" && "cause" in e && (e as { cause?: unknown }).cause) e = (e as { cause: unknown }).cause;
+  while (
+    e &&
+    typeof e === "object" &&
+    "cause" in e &&
+    (e as { cause?: unknown }).cause
+  )
+    e = (e as { cause: unknown }).cause;
   return e instanceof Error ? e.message : String(e);
 }

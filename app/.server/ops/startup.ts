@@ -20,7 +20,10 @@ export async function checkDatabaseAtStartup(): Promise<boolean> {
         : summary.code === "ER_BAD_DB_ERROR"
           ? "the database named in DATABASE_URL does not exist"
           : "the database in DATABASE_URL cannot be reached";
-    logger.error({ error: summary }, `database check at start-up failed: ${hint}; requests will be answered 503 until it answers`);
+    logger.error(
+      { error: summary },
+      `database check at start-up failed: ${hint}; requests will be answered 503 until it answers`,
+    );
     return false;
   }
 }

@@ -1,7 +1,13 @@
 import { createHash } from "node:crypto";
 import type { NewRevision } from "~/.server/db/queries/revisions";
 import { runHeavy } from "~/.server/workers/pool";
-import { displayFileName, qcStatus, type Finding, type ParsedDataset, type QcMeta } from "~/core/lab-data";
+import {
+  displayFileName,
+  qcStatus,
+  type Finding,
+  type ParsedDataset,
+  type QcMeta,
+} from "~/core/lab-data";
 import { PROPERTY_KEYS } from "~/core/units";
 import type { StoredQcReport } from "./qc-report";
 import type { CanonicalBubblePoint, CanonicalGrid } from "./present";
@@ -20,7 +26,14 @@ export type SampleForQc = {
 };
 
 export type CheckedUpload =
-  | { ok: false; fileName: string; sha256: string; sizeBytes: number; errors: readonly Finding[]; warnings: readonly Finding[] }
+  | {
+      ok: false;
+      fileName: string;
+      sha256: string;
+      sizeBytes: number;
+      errors: readonly Finding[];
+      warnings: readonly Finding[];
+    }
   | {
       ok: true;
       fileName: string;
@@ -37,9 +50,16 @@ export type CheckedUpload =
 
 export function qcMetaOf(sample: SampleForQc): QcMeta {
   return {
-    ...(sample.stockTankApi !== null ? { apiGravity: sample.stockTankApi } : {}),
-    ...(sample.gasSpecificGravity !== null ? { gasGravity: sample.gasSpecificGravity } : {}),
-    standardConditions: { pressurePsia: sample.standardPressurePsia, temperatureF: sample.standardTemperatureF },
+    ...(sample.stockTankApi !== null
+      ? { apiGravity: sample.stockTankApi }
+      : {}),
+    ...(sample.gasSpecificGravity !== null
+      ? { gasGravity: sample.gasSpecificGravity }
+      : {}),
+    standardConditions: {
+      pressurePsia: sample.standardPressurePsia,
+      temperatureF: sample.standardTemperatureF,
+    },
   };
 }
 
@@ -47,17 +67,42 @@ export function sha256Hex(bytes: Uint8Array): string {
   return createHash("sha256").update(bytes).digest("hex");
 }
 
-export async function checkUpload(file: { name: string; bytes: Uint8Array }, sample: SampleForQc): Promise<CheckedUpload> {
+export async function checkUpload(
+  file: { name: string; bytes: Uint8Array },
+  sample: SampleForQc,
+): Promise<CheckedUpload> {
   const fileName = displayFileName(file.name);
   const sha256 = sha256Hex(file.bytes);
   const sizeBytes = file.bytes.byteLength;
   const meta = qcMetaOf(sample);
   // Parsing and QC run in a worker thread for a large file (app/.server/workers); busy → a 503 page.
-  const parsed = await runHeavy("check-upload", { filename: file.name, bytes: file.bytes, meta }, { surface: "page" });
-  if (!parsed.ok) return { ok: false, fileName, sha256, sizeBytes, errors: parsed.errors, warnings: parsed.warnings };
+  const parsed = await runHeavy(
+    "check-upload",
+    { filename: file.name, bytes: file.bytes, meta },
+    { surface: "page" },
+  );
+  if (!parsed.ok)
+    return {
+      ok: false,
+      fileName,
+      sha256,
+      sizeBytes,
+      errors: parsed.errors,
+      warnings: parsed.warnings,
+    };
   const findings = parsed.findings;
   const status = qcStatus([...parsed.warnings, ...findings]);
-  return { ok: true, fileName, sha256, sizeBytes, dataset: parsed.dataset, fileFindings: parsed.warnings, findings, meta, status };
+  return {
+    ok: true,
+    fileName,
+    sha256,
+    sizeBytes,
+    dataset: parsed.dataset,
+    fileFindings: parsed.warnings,
+    findings,
+    meta,
+    status,
+  };
 }
 
 /** The parsed grids in the shape shared by previews and stored revisions (canonical units). */
@@ -78,7 +123,10 @@ export function canonicalGridsOf(dataset: ParsedDataset): CanonicalGrid[] {
 }
 
 export function bubblePointsOf(dataset: ParsedDataset): CanonicalBubblePoint[] {
-  return dataset.bubblePoints.map((b) => ({ temperatureF: b.temperature, bubblePointPsia: b.pressure }));
+  return dataset.bubblePoints.map((b) => ({
+    temperatureF: b.temperature,
+    bubblePointPsia: b.pressure,
+  }));
 }
 
 /** The revision to store for a checked upload: grids in canonical units with the lab's units remembered. */

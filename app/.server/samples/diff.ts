@@ -24,7 +24,9 @@ export type RevisionDiff = {
 
 /** Values equal to 12 significant digits are the same measurement (doubles read back from the database). */
 function same(a: number, b: number): boolean {
-  return a === b || Math.abs(a - b) <= 1e-12 * Math.max(Math.abs(a), Math.abs(b));
+  return (
+    a === b || Math.abs(a - b) <= 1e-12 * Math.max(Math.abs(a), Math.abs(b))
+  );
 }
 
 function cells(grids: readonly StoredGrid[]): Map<string, CellDiff> {
@@ -34,7 +36,13 @@ function cells(grids: readonly StoredGrid[]): Map<string, CellDiff> {
       g.temperatures.forEach((t, j) => {
         const v = g.values[i]?.[j];
         if (v === null || v === undefined) return;
-        out.set(`${g.property}|${p}|${t}`, { property: g.property, pressurePsia: p, temperatureF: t, from: v, to: v });
+        out.set(`${g.property}|${p}|${t}`, {
+          property: g.property,
+          pressurePsia: p,
+          temperatureF: t,
+          from: v,
+          to: v,
+        });
       });
     });
   }
@@ -61,25 +69,50 @@ function byPlace(a: CellDiff, b: CellDiff): number {
 }
 
 export function diffRevisions(
-  older: { grids: readonly StoredGrid[]; bubblePoints: readonly { temperatureF: number; bubblePointPsia: number }[] },
-  newer: { grids: readonly StoredGrid[]; bubblePoints: readonly { temperatureF: number; bubblePointPsia: number }[] },
+  older: {
+    grids: readonly StoredGrid[];
+    bubblePoints: readonly { temperatureF: number; bubblePointPsia: number }[];
+  },
+  newer: {
+    grids: readonly StoredGrid[];
+    bubblePoints: readonly { temperatureF: number; bubblePointPsia: number }[];
+  },
 ): RevisionDiff {
   const before = cells(older.grids);
   const after = cells(newer.grids);
   for (const b of older.bubblePoints) {
-    before.set(`bubble_point|${b.temperatureF}`, { property: "bubble_point", pressurePsia: null, temperatureF: b.temperatureF, from: b.bubblePointPsia, to: b.bubblePointPsia });
+    before.set(`bubble_point|${b.temperatureF}`, {
+      property: "bubble_point",
+      pressurePsia: null,
+      temperatureF: b.temperatureF,
+      from: b.bubblePointPsia,
+      to: b.bubblePointPsia,
+    });
   }
   for (const b of newer.bubblePoints) {
-    after.set(`bubble_point|${b.temperatureF}`, { property: "bubble_point", pressurePsia: null, temperatureF: b.temperatureF, from: b.bubblePointPsia, to: b.bubblePointPsia });
+    after.set(`bubble_point|${b.temperatureF}`, {
+      property: "bubble_point",
+      pressurePsia: null,
+      temperatureF: b.temperatureF,
+      from: b.bubblePointPsia,
+      to: b.bubblePointPsia,
+    });
   }
-  const result: RevisionDiff = { changed: [], added: [], removed: [], unchanged: 0 };
+  const result: RevisionDiff = {
+    changed: [],
+    added: [],
+    removed: [],
+    unchanged: 0,
+  };
   for (const [key, cell] of after) {
     const old = before.get(key);
     if (!old) result.added.push({ ...cell, from: null });
-    else if (!same(old.from!, cell.to!)) result.changed.push({ ...cell, from: old.from });
+    else if (!same(old.from!, cell.to!))
+      result.changed.push({ ...cell, from: old.from });
     else result.unchanged++;
   }
-  for (const [key, cell] of before) if (!after.has(key)) result.removed.push({ ...cell, to: null });
+  for (const [key, cell] of before)
+    if (!after.has(key)) result.removed.push({ ...cell, to: null });
   result.changed.sort(byPlace);
   result.added.sort(byPlace);
   result.removed.sort(byPlace);

@@ -30,8 +30,14 @@ export async function notifyFollowersOfApproval(input: {
     approverName: input.approverName,
     url,
   });
-  const results = await Promise.allSettled(followers.map((f) => sendEmail({ to: f.email, ...message })));
+  const results = await Promise.allSettled(
+    followers.map((f) => sendEmail({ to: f.email, ...message })),
+  );
   const failed = results.filter((r) => r.status === "rejected");
-  if (failed.length > 0) console.warn(`revision-approved e-mail: ${failed.length} of ${results.length} messages failed`, failed.map((f) => String((f as PromiseRejectedResult).reason)));
+  if (failed.length > 0)
+    console.warn(
+      `revision-approved e-mail: ${failed.length} of ${results.length} messages failed`,
+      failed.map((f) => String((f as PromiseRejectedResult).reason)),
+    );
   return results.length - failed.length;
 }

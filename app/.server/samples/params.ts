@@ -5,7 +5,8 @@ import { getSampleWithPlace } from "~/.server/db/queries/samples";
 export function sampleIdFrom(params: { sampleId?: string }): number {
   const raw = params.sampleId ?? "";
   const id = Number(raw);
-  if (!/^[1-9]\d{0,15}$/.test(raw) || !Number.isSafeInteger(id)) throw data("There is no such sample.", { status: 404 });
+  if (!/^[1-9]\d{0,15}$/.test(raw) || !Number.isSafeInteger(id))
+    throw data("There is no such sample.", { status: 404 });
   return id;
 }
 
@@ -18,7 +19,9 @@ export async function requireSample(params: { sampleId?: string }) {
 }
 
 /** A revision number from a URL or a query string, or null. */
-export function revisionNumberFrom(raw: string | null | undefined): number | null {
+export function revisionNumberFrom(
+  raw: string | null | undefined,
+): number | null {
   if (!raw || !/^[1-9]\d{0,8}$/.test(raw)) return null;
   return Number(raw);
 }

@@ -1,9 +1,26 @@
-import { toOutputPressure, toOutputTemperature, toOutputValue, unitLabel, type OutputSystem } from "~/.server/api/units";
+import {
+  toOutputPressure,
+  toOutputTemperature,
+  toOutputValue,
+  unitLabel,
+  type OutputSystem,
+} from "~/.server/api/units";
 import type { Finding, QcRuleInfo } from "~/core/lab-data";
 import { QC_RULES } from "~/core/lab-data";
-import { getUnit, PROPERTY_KEYS, PROPERTY_QUANTITIES, type PropertyKey } from "~/core/units";
+import {
+  getUnit,
+  PROPERTY_KEYS,
+  PROPERTY_QUANTITIES,
+  type PropertyKey,
+} from "~/core/units";
 import { PROPERTY_LABELS } from "~/components/samples/labels";
-import type { CellMark, DisplayBubblePoints, DisplayFinding, DisplayGrid, Severity } from "~/components/samples/types";
+import type {
+  CellMark,
+  DisplayBubblePoints,
+  DisplayFinding,
+  DisplayGrid,
+  Severity,
+} from "~/components/samples/types";
 
 /*
  * Turns canonical grids and QC findings into what the sample components show: numbers in the reader's unit
@@ -20,13 +37,17 @@ export type CanonicalGrid = {
   values: ReadonlyArray<ReadonlyArray<number | null>>;
 };
 
-export type CanonicalBubblePoint = { temperatureF: number; bubblePointPsia: number };
+export type CanonicalBubblePoint = {
+  temperatureF: number;
+  bubblePointPsia: number;
+};
 
 const round = (v: number) => Number(v.toPrecision(10));
 /** Numbers inside sentences: 6 significant digits. */
 const short = (v: number) => Number(v.toPrecision(6));
 const TEMPERATURE_TOLERANCE = 0.01;
-const samePressure = (a: number, b: number) => Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b), 1);
+const samePressure = (a: number, b: number) =>
+  Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b), 1);
 const RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 };
 
 function symbolOf(property: PropertyKey, unitId: string | null): string | null {
@@ -38,7 +59,12 @@ function symbolOf(property: PropertyKey, unitId: string | null): string | null {
   }
 }
 
-function addMark(marks: Record<string, CellMark>, key: string, severity: Severity, n: number) {
+function addMark(
+  marks: Record<string, CellMark>,
+  key: string,
+  severity: Severity,
+  n: number,
+) {
   const mark = marks[key];
   if (!mark) {
     marks[key] = { severity, findings: [n] };
@@ -49,11 +75,17 @@ function addMark(marks: Record<string, CellMark>, key: string, severity: Severit
 }
 
 /** Findings numbered 1, 2, 3… in the order given (errors first from runQc), with their cells in display units. */
-export function presentFindings(findings: readonly Finding[], system: OutputSystem, firstNumber = 1): DisplayFinding[] {
+export function presentFindings(
+  findings: readonly Finding[],
+  system: OutputSystem,
+  firstNumber = 1,
+): DisplayFinding[] {
   const p = unitLabel(system, "pressure");
   const t = unitLabel(system, "temperature");
   return findings.map((f, index) => {
-    const rule = f.rule ? (QC_RULES as Record<string, QcRuleInfo>)[f.rule] : undefined;
+    const rule = f.rule
+      ? (QC_RULES as Record<string, QcRuleInfo>)[f.rule]
+      : undefined;
     return {
       n: firstNumber + index,
       code: f.code,
@@ -64,7 +96,10 @@ export function presentFindings(findings: readonly Finding[], system: OutputSyst
       ...(f.source ? { source: f.source } : {}),
       ...(f.location ? { location: { ...f.location } } : {}),
       cells: (f.cells ?? []).map((c) => {
-        const name = c.property === "bubble_point" ? "Bubble point" : PROPERTY_LABELS[c.property].symbol;
+        const name =
+          c.property === "bubble_point"
+            ? "Bubble point"
+            : PROPERTY_LABELS[c.property].symbol;
         const at = `${short(toOutputTemperature(c.temperature, system))} ${t}`;
         return c.property === "bubble_point"
           ? `${name} ${short(toOutputPressure(c.pressure, system))} ${p} at ${at}`
@@ -85,7 +120,9 @@ export function presentGrids(
   system: OutputSystem,
   firstNumber = 1,
 ): DisplayGrid[] {
-  const ordered = PROPERTY_KEYS.map((key) => grids.find((g) => g.property === key)).filter((g): g is CanonicalGrid => !!g);
+  const ordered = PROPERTY_KEYS.map((key) =>
+    grids.find((g) => g.property === key),
+  ).filter((g): g is CanonicalGrid => !!g);
   const display = ordered.map((g): DisplayGrid => {
     const unit = unitLabel(system, g.property);
     const source = symbolOf(g.property, g.sourceUnit);
@@ -96,10 +133,19 @@ export function presentGrids(
       pressureUnit: unitLabel(system, "pressure"),
       temperatureUnit: unitLabel(system, "temperature"),
       pressures: g.pressures.map((v) => round(toOutputPressure(v, system))),
-      temperatures: g.temperatures.map((v) => round(toOutputTemperature(v, system))),
-      values: g.values.map((row) => row.map((v) => (v === null ? null : round(toOutputValue(v, g.property, system))))),
+      temperatures: g.temperatures.map((v) =>
+        round(toOutputTemperature(v, system)),
+      ),
+      values: g.values.map((row) =>
+        row.map((v) =>
+          v === null ? null : round(toOutputValue(v, g.property, system)),
+        ),
+      ),
       bubblePoints: g.temperatures.map((temperature) => {
-        const b = bubblePoints.find((bp) => Math.abs(bp.temperatureF - temperature) <= TEMPERATURE_TOLERANCE);
+        const b = bubblePoints.find(
+          (bp) =>
+            Math.abs(bp.temperatureF - temperature) <= TEMPERATURE_TOLERANCE,
+        );
         return b ? round(toOutputPressure(b.bubblePointPsia, system)) : null;
       }),
       marks: {},
@@ -113,8 +159,11 @@ export function presentGrids(
       const shown = display[k];
       if (!grid || !shown) continue;
       const i = grid.pressures.findIndex((pv) => samePressure(pv, c.pressure));
-      const j = grid.temperatures.findIndex((tv) => Math.abs(tv - c.temperature) <= TEMPERATURE_TOLERANCE);
-      if (i >= 0 && j >= 0) addMark(shown.marks, `${i}:${j}`, f.severity, firstNumber + index);
+      const j = grid.temperatures.findIndex(
+        (tv) => Math.abs(tv - c.temperature) <= TEMPERATURE_TOLERANCE,
+      );
+      if (i >= 0 && j >= 0)
+        addMark(shown.marks, `${i}:${j}`, f.severity, firstNumber + index);
     }
   });
   return display;
@@ -133,7 +182,10 @@ export function presentBubblePoints(
       const marks: Record<string, CellMark> = {};
       findings.forEach((f, index) => {
         for (const c of f.cells ?? []) {
-          if (c.property === "bubble_point" && Math.abs(c.temperature - b.temperatureF) <= TEMPERATURE_TOLERANCE) {
+          if (
+            c.property === "bubble_point" &&
+            Math.abs(c.temperature - b.temperatureF) <= TEMPERATURE_TOLERANCE
+          ) {
             addMark(marks, "bp", f.severity, firstNumber + index);
           }
         }
@@ -144,5 +196,9 @@ export function presentBubblePoints(
         mark: marks.bp ?? null,
       };
     });
-  return { pressureUnit: unitLabel(system, "pressure"), temperatureUnit: unitLabel(system, "temperature"), rows };
+  return {
+    pressureUnit: unitLabel(system, "pressure"),
+    temperatureUnit: unitLabel(system, "temperature"),
+    rows,
+  };
 }

@@ -1,11 +1,21 @@
 import type { OutputSystem } from "~/.server/api/units";
-import { bubblePointsOf, canonicalGridsOf, type CheckedUpload } from "./check-upload";
+import {
+  bubblePointsOf,
+  canonicalGridsOf,
+  type CheckedUpload,
+} from "./check-upload";
 import { presentBubblePoints, presentFindings, presentGrids } from "./present";
 import { orderFindings, summarizeFindings } from "./qc-report";
 
 /** What the upload page shows before anything is stored: the parsed grids, the QC findings, the flagged cells. */
-export function buildPreview(checked: Extract<CheckedUpload, { ok: true }>, system: OutputSystem) {
-  const findings = orderFindings([...checked.fileFindings, ...checked.findings]);
+export function buildPreview(
+  checked: Extract<CheckedUpload, { ok: true }>,
+  system: OutputSystem,
+) {
+  const findings = orderFindings([
+    ...checked.fileFindings,
+    ...checked.findings,
+  ]);
   const grids = canonicalGridsOf(checked.dataset);
   const bubblePoints = bubblePointsOf(checked.dataset);
   const file = checked.dataset.file;
@@ -22,7 +32,10 @@ export function buildPreview(checked: Extract<CheckedUpload, { ok: true }>, syst
       properties: grids.length,
       temperatures: temperatures.size,
       pressures: pressures.size,
-      cells: grids.reduce((n, g) => n + g.values.flat().filter((v) => v !== null).length, 0),
+      cells: grids.reduce(
+        (n, g) => n + g.values.flat().filter((v) => v !== null).length,
+        0,
+      ),
     },
     summary: summarizeFindings(findings),
     findings: presentFindings(findings, system),

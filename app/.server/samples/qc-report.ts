@@ -21,17 +21,32 @@ export type StoredQcReport = {
 export function isStoredQcReport(value: unknown): value is StoredQcReport {
   if (!value || typeof value !== "object") return false;
   const v = value as Partial<StoredQcReport>;
-  return v.version === 1 && (v.status === "pass" || v.status === "warn" || v.status === "fail") && Array.isArray(v.findings) && Array.isArray(v.fileFindings);
+  return (
+    v.version === 1 &&
+    (v.status === "pass" || v.status === "warn" || v.status === "fail") &&
+    Array.isArray(v.findings) &&
+    Array.isArray(v.fileFindings)
+  );
 }
 
-export type QcSummary = { status: "pass" | "warn" | "fail"; errors: number; warnings: number; notes: number };
+export type QcSummary = {
+  status: "pass" | "warn" | "fail";
+  errors: number;
+  warnings: number;
+  notes: number;
+};
 
 /** Counts by severity over the file and check findings. */
 export function summarizeFindings(findings: readonly Finding[]): QcSummary {
   const errors = findings.filter((f) => f.severity === "error").length;
   const warnings = findings.filter((f) => f.severity === "warning").length;
   const notes = findings.filter((f) => f.severity === "info").length;
-  return { status: errors > 0 ? "fail" : warnings > 0 ? "warn" : "pass", errors, warnings, notes };
+  return {
+    status: errors > 0 ? "fail" : warnings > 0 ? "warn" : "pass",
+    errors,
+    warnings,
+    notes,
+  };
 }
 
 export function summarizeReport(report: StoredQcReport): QcSummary {

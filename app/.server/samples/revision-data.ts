@@ -1,6 +1,11 @@
 import type { Grid } from "~/core/interpolation";
 import type { PropertyKey } from "~/core/units";
-import { getCurrentApprovedRevision, getRevisionByNumber, getRevisionGrids, listRevisionBubblePoints } from "~/.server/db/queries/revisions";
+import {
+  getCurrentApprovedRevision,
+  getRevisionByNumber,
+  getRevisionGrids,
+  listRevisionBubblePoints,
+} from "~/.server/db/queries/revisions";
 
 /** A revision's measured grids in canonical units, ready for the engine (oil grids carry their bubble points). */
 export type RevisionData = {
@@ -8,24 +13,41 @@ export type RevisionData = {
   number: number;
   status: string;
   bubblePoints: { temperatureF: number; bubblePointPsia: number }[];
-  grids: Partial<Record<PropertyKey, Grid & { unit: string; sourceUnit: string | null }>>;
+  grids: Partial<
+    Record<PropertyKey, Grid & { unit: string; sourceUnit: string | null }>
+  >;
 };
 
-export const OIL_PROPERTIES: ReadonlySet<PropertyKey> = new Set(["oil_fvf", "solution_gor", "oil_viscosity", "oil_density"]);
+export const OIL_PROPERTIES: ReadonlySet<PropertyKey> = new Set([
+  "oil_fvf",
+  "solution_gor",
+  "oil_viscosity",
+  "oil_density",
+]);
 
 /*
  * Revisions are immutable, so their data can be cached in memory for as long as we like. A small LRU keeps the
  * most recently used revisions of this process.
  */
 const CACHE_LIMIT = 64;
-const cache = new Map<number, Promise<Omit<RevisionData, "number" | "status">>>();
+const cache = new Map<
+  number,
+  Promise<Omit<RevisionData, "number" | "status">>
+>();
 
 async function loadGrids(revisionId: number) {
-  const [stored, bubblePoints] = await Promise.all([getRevisionGrids(revisionId), listRevisionBubblePoints(revisionId)]);
+  const [stored, bubblePoints] = await Promise.all([
+    getRevisionGrids(revisionId),
+    listRevisionBubblePoints(revisionId),
+  ]);
   const grids: RevisionData["grids"] = {};
   for (const g of stored) {
     const bp = OIL_PROPERTIES.has(g.property)
-      ? g.temperatures.map((t) => bubblePoints.find((b) => b.temperatureF === t)?.bubblePointPsia ?? null)
+      ? g.temperatures.map(
+          (t) =>
+            bubblePoints.find((b) => b.temperatureF === t)?.bubblePointPsia ??
+            null,
+        )
       : undefined;
     grids[g.property] = {
       pressures: g.pressures,
@@ -39,7 +61,11 @@ async function loadGrids(revisionId: number) {
   return { revisionId, bubblePoints, grids };
 }
 
-export async function getRevisionData(revision: { id: number; number: number; status: string }): Promise<RevisionData> {
+export async function getRevisionData(revision: {
+  id: number;
+  number: number;
+  status: string;
+}): Promise<RevisionData> {
   let entry = cache.get(revision.id);
   if (entry) {
     cache.delete(revision.id);

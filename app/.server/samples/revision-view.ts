@@ -1,10 +1,24 @@
 import type { OutputSystem } from "~/.server/api/units";
 import { getRevisionDetail } from "~/.server/db/queries/review";
-import { datasetFromCanonicalGrids, runQc, type CanonicalGridInput, type Finding } from "~/core/lab-data";
+import {
+  datasetFromCanonicalGrids,
+  runQc,
+  type CanonicalGridInput,
+  type Finding,
+} from "~/core/lab-data";
 import type { PropertyKey } from "~/core/units";
 import { qcMetaOf, type SampleForQc } from "./check-upload";
-import { presentBubblePoints, presentFindings, presentGrids, type CanonicalGrid } from "./present";
-import { isStoredQcReport, orderFindings, summarizeFindings } from "./qc-report";
+import {
+  presentBubblePoints,
+  presentFindings,
+  presentGrids,
+  type CanonicalGrid,
+} from "./present";
+import {
+  isStoredQcReport,
+  orderFindings,
+  summarizeFindings,
+} from "./qc-report";
 import { getRevisionData } from "./revision-data";
 
 /**
@@ -12,10 +26,18 @@ import { getRevisionData } from "./revision-data";
  * reader's units, and its QC findings with the flagged cells. Revisions stored without a QC report (the demo
  * seed) are checked on the fly, and the page says so.
  */
-export async function loadRevisionView(sample: SampleForQc & { id: number }, number: number, system: OutputSystem) {
+export async function loadRevisionView(
+  sample: SampleForQc & { id: number },
+  number: number,
+  system: OutputSystem,
+) {
   const detail = await getRevisionDetail(sample.id, number);
   if (!detail) return null;
-  const data = await getRevisionData({ id: detail.id, number: detail.number, status: detail.status });
+  const data = await getRevisionData({
+    id: detail.id,
+    number: detail.number,
+    status: detail.status,
+  });
   const grids: CanonicalGrid[] = Object.entries(data.grids).map(([key, g]) => ({
     property: key as PropertyKey,
     sourceUnit: g.sourceUnit,
@@ -29,10 +51,18 @@ export async function loadRevisionView(sample: SampleForQc & { id: number }, num
     findings = orderFindings([...report.fileFindings, ...report.findings]);
   } else {
     const properties: { [K in PropertyKey]?: CanonicalGridInput } = {};
-    for (const g of grids) properties[g.property] = { pressures: g.pressures, temperatures: g.temperatures, values: g.values };
+    for (const g of grids)
+      properties[g.property] = {
+        pressures: g.pressures,
+        temperatures: g.temperatures,
+        values: g.values,
+      };
     const dataset = datasetFromCanonicalGrids({
       properties,
-      bubblePoints: data.bubblePoints.map((b) => ({ temperature: b.temperatureF, pressure: b.bubblePointPsia })),
+      bubblePoints: data.bubblePoints.map((b) => ({
+        temperature: b.temperatureF,
+        pressure: b.bubblePointPsia,
+      })),
     });
     findings = runQc(dataset, qcMetaOf(sample));
   }
@@ -42,8 +72,12 @@ export async function loadRevisionView(sample: SampleForQc & { id: number }, num
     revision: {
       ...revision,
       createdAt: revision.createdAt.toISOString(),
-      reviewedAt: revision.reviewedAt ? revision.reviewedAt.toISOString() : null,
-      ownReview: revision.reviewedBy !== null && revision.reviewedBy === revision.createdBy,
+      reviewedAt: revision.reviewedAt
+        ? revision.reviewedAt.toISOString()
+        : null,
+      ownReview:
+        revision.reviewedBy !== null &&
+        revision.reviewedBy === revision.createdBy,
     },
     file: report?.file ?? null,
     reportOrigin: report ? ("stored" as const) : ("checked-now" as const),
@@ -54,4 +88,6 @@ export async function loadRevisionView(sample: SampleForQc & { id: number }, num
   };
 }
 
-export type RevisionView = NonNullable<Awaited<ReturnType<typeof loadRevisionView>>>;
+export type RevisionView = NonNullable<
+  Awaited<ReturnType<typeof loadRevisionView>>
+>;

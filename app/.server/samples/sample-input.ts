@@ -1,24 +1,41 @@
-import { fromInputPressure, fromInputTemperature, toOutputPressure, toOutputTemperature } from "~/.server/api/units";
+import {
+  fromInputPressure,
+  fromInputTemperature,
+  toOutputPressure,
+  toOutputTemperature,
+} from "~/.server/api/units";
 import type { SampleRecordInput } from "~/.server/db/queries/sample-records";
 import type { FieldErrors } from "~/components/form";
-import type { FormSystem, SampleFormDefaults, SampleFormValues } from "~/components/samples/sample-form";
+import type {
+  FormSystem,
+  SampleFormDefaults,
+  SampleFormValues,
+} from "~/components/samples/sample-form";
 import { METRE_PER_FOOT, STANDARD_CONDITIONS_PRESETS } from "~/core/units";
 
 /* The sample form in the reader's units ↔ the sample record in canonical units (psia, °F, ft). */
 
 const round = (v: number, digits = 8) => Number(v.toPrecision(digits));
 
-type StoredStandard = { standardPressurePsia: number; standardTemperatureF: number };
+type StoredStandard = {
+  standardPressurePsia: number;
+  standardTemperatureF: number;
+};
 
 /** The preset matching recorded standard conditions, if any. */
 export function standardPresetOf(stored: StoredStandard) {
   return STANDARD_CONDITIONS_PRESETS.find(
-    (p) => Math.abs(p.pressurePsia - stored.standardPressurePsia) < 1e-3 && Math.abs(p.temperatureF - stored.standardTemperatureF) < 1e-3,
+    (p) =>
+      Math.abs(p.pressurePsia - stored.standardPressurePsia) < 1e-3 &&
+      Math.abs(p.temperatureF - stored.standardTemperatureF) < 1e-3,
   );
 }
 
 export function standardLabel(stored: StoredStandard): string {
-  return standardPresetOf(stored)?.label ?? `${round(stored.standardTemperatureF, 6)} °F, ${round(stored.standardPressurePsia, 6)} psia`;
+  return (
+    standardPresetOf(stored)?.label ??
+    `${round(stored.standardTemperatureF, 6)} °F, ${round(stored.standardPressurePsia, 6)} psia`
+  );
 }
 
 export function recordInputFromForm(
@@ -29,11 +46,30 @@ export function recordInputFromForm(
   let standard: StoredStandard | undefined;
   if (values.standardConditions === "current" && current) standard = current;
   else {
-    const preset = STANDARD_CONDITIONS_PRESETS.find((p) => p.id === values.standardConditions);
-    if (preset) standard = { standardPressurePsia: preset.pressurePsia, standardTemperatureF: preset.temperatureF };
+    const preset = STANDARD_CONDITIONS_PRESETS.find(
+      (p) => p.id === values.standardConditions,
+    );
+    if (preset)
+      standard = {
+        standardPressurePsia: preset.pressurePsia,
+        standardTemperatureF: preset.temperatureF,
+      };
   }
-  if (!standard) return { ok: false, errors: { standardConditions: ["Choose the standard conditions of the report from the list."] } };
-  const depthFt = values.samplingDepth === null ? null : system === "metric" ? values.samplingDepth / METRE_PER_FOOT : values.samplingDepth;
+  if (!standard)
+    return {
+      ok: false,
+      errors: {
+        standardConditions: [
+          "Choose the standard conditions of the report from the list.",
+        ],
+      },
+    };
+  const depthFt =
+    values.samplingDepth === null
+      ? null
+      : system === "metric"
+        ? values.samplingDepth / METRE_PER_FOOT
+        : values.samplingDepth;
   return {
     ok: true,
     input: {
@@ -44,8 +80,14 @@ export function recordInputFromForm(
       sampleType: values.sampleType,
       samplingDate: values.samplingDate || null,
       samplingDepthFt: depthFt === null ? null : round(depthFt),
-      reservoirPressurePsia: values.reservoirPressure === null ? null : round(fromInputPressure(values.reservoirPressure, system)),
-      reservoirTemperatureF: values.reservoirTemperature === null ? null : round(fromInputTemperature(values.reservoirTemperature, system)),
+      reservoirPressurePsia:
+        values.reservoirPressure === null
+          ? null
+          : round(fromInputPressure(values.reservoirPressure, system)),
+      reservoirTemperatureF:
+        values.reservoirTemperature === null
+          ? null
+          : round(fromInputTemperature(values.reservoirTemperature, system)),
       stockTankApi: values.stockTankApi,
       gasSpecificGravity: values.gasSpecificGravity,
       ...standard,
@@ -56,10 +98,13 @@ export function recordInputFromForm(
   };
 }
 
-const show = (v: number | null, convert: (x: number) => number = (x) => x) => (v === null ? "" : String(round(convert(v), 6)));
+const show = (v: number | null, convert: (x: number) => number = (x) => x) =>
+  v === null ? "" : String(round(convert(v), 6));
 
 export function formDefaultsFromRecord(
-  record: Omit<SampleRecordInput, "fieldRegion"> & { fieldRegion: string | null },
+  record: Omit<SampleRecordInput, "fieldRegion"> & {
+    fieldRegion: string | null;
+  },
   system: FormSystem,
 ): SampleFormDefaults {
   const preset = standardPresetOf(record);
@@ -70,9 +115,15 @@ export function formDefaultsFromRecord(
     label: record.label,
     sampleType: record.sampleType,
     samplingDate: record.samplingDate ?? "",
-    samplingDepth: show(record.samplingDepthFt, (ft) => (system === "metric" ? ft * METRE_PER_FOOT : ft)),
-    reservoirPressure: show(record.reservoirPressurePsia, (p) => toOutputPressure(p, system)),
-    reservoirTemperature: show(record.reservoirTemperatureF, (t) => toOutputTemperature(t, system)),
+    samplingDepth: show(record.samplingDepthFt, (ft) =>
+      system === "metric" ? ft * METRE_PER_FOOT : ft,
+    ),
+    reservoirPressure: show(record.reservoirPressurePsia, (p) =>
+      toOutputPressure(p, system),
+    ),
+    reservoirTemperature: show(record.reservoirTemperatureF, (t) =>
+      toOutputTemperature(t, system),
+    ),
     stockTankApi: show(record.stockTankApi),
     gasSpecificGravity: show(record.gasSpecificGravity),
     standardConditions: preset?.id ?? "current",
@@ -83,6 +134,11 @@ export function formDefaultsFromRecord(
 }
 
 /** Which fields an edit changed (for the audit log). */
-export function changedFields(before: Record<string, unknown>, after: Record<string, unknown>): string[] {
-  return Object.keys(after).filter((k) => k !== "fieldRegion" && before[k] !== after[k]);
+export function changedFields(
+  before: Record<string, unknown>,
+  after: Record<string, unknown>,
+): string[] {
+  return Object.keys(after).filter(
+    (k) => k !== "fieldRegion" && before[k] !== after[k],
+  );
 }

@@ -31,12 +31,20 @@ const UNAVAILABLE = new Set([
   "ER_QUERY_TIMEOUT",
 ]);
 /** Codes meaning another change to the same rows got in the way. */
-const CONFLICT = new Set(["ER_LOCK_WAIT_TIMEOUT", "ER_LOCK_DEADLOCK", "ER_DUP_ENTRY"]);
+const CONFLICT = new Set([
+  "ER_LOCK_WAIT_TIMEOUT",
+  "ER_LOCK_DEADLOCK",
+  "ER_DUP_ENTRY",
+]);
 
 /** The first error code on the error or its causes (drizzle wraps the driver's error as `cause`). */
 export function errorCodeOf(error: unknown): string | null {
   let e: unknown = error;
-  for (let depth = 0; depth < 5 && typeof e === "object" && e !== null; depth++) {
+  for (
+    let depth = 0;
+    depth < 5 && typeof e === "object" && e !== null;
+    depth++
+  ) {
     const code = (e as { code?: unknown }).code;
     if (typeof code === "string" && code !== "") return code;
     e = (e as { cause?: unknown }).cause;
@@ -51,14 +59,20 @@ const KEPT = "Your file and comment are still here";
 function rootMessage(error: unknown): string {
   let e: unknown = error;
   for (let depth = 0; depth < 5; depth++) {
-    const cause = typeof e === "object" && e !== null ? (e as { cause?: unknown }).cause : undefined;
+    const cause =
+      typeof e === "object" && e !== null
+        ? (e as { cause?: unknown }).cause
+        : undefined;
     if (cause === undefined || cause === null) break;
     e = cause;
   }
   return e instanceof Error ? e.message : String(e);
 }
 
-export function describeStoreFailure(error: unknown, revisionNumber: number): StoreFailure {
+export function describeStoreFailure(
+  error: unknown,
+  revisionNumber: number,
+): StoreFailure {
   const code = errorCodeOf(error);
   const log = `${code ?? "no code"}: ${rootMessage(error)}`;
   const store = `Store as draft revision ${revisionNumber}`;

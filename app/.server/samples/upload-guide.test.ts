@@ -15,12 +15,35 @@ test("the guide has both layouts, what is refused and the QC rules, and stops be
   expect(titles.some((t) => /developers/i.test(t))).toBe(false);
   const qc = sections.find((s) => /Quality checks/.test(s.title))!;
   const rules = qc.blocks.find((b) => b.kind === "table");
-  expect(rules && rules.kind === "table" ? rules.rows.length : 0).toBeGreaterThan(10);
+  expect(
+    rules && rules.kind === "table" ? rules.rows.length : 0,
+  ).toBeGreaterThan(10);
 });
 
 test("the Markdown reader: tables with pipes inside code, wrapped list items, code blocks", () => {
   const blocks = parseGuide(
-    ["# T", "", "Para one", "continues.", "", "- item **a**", "  wraps", "- item b", "", "| a | b |", "|---|---|", "| `x|y` | 2 |", "", "```", "code, here", "```", "", "---", "", "## Hidden"].join("\n"),
+    [
+      "# T",
+      "",
+      "Para one",
+      "continues.",
+      "",
+      "- item **a**",
+      "  wraps",
+      "- item b",
+      "",
+      "| a | b |",
+      "|---|---|",
+      "| `x|y` | 2 |",
+      "",
+      "```",
+      "code, here",
+      "```",
+      "",
+      "---",
+      "",
+      "## Hidden",
+    ].join("\n"),
   );
   expect(blocks).toEqual([
     { kind: "heading", level: 1, text: "T" },

@@ -35,12 +35,17 @@ export function parseGuide(markdown: string): GuideBlock[] {
     } else if (line.startsWith("```")) {
       const code: string[] = [];
       i++;
-      while (i < lines.length && !lines[i]!.startsWith("```")) code.push(lines[i++]!);
+      while (i < lines.length && !lines[i]!.startsWith("```"))
+        code.push(lines[i++]!);
       i++;
       blocks.push({ kind: "code", text: code.join("\n") });
     } else if (/^#{1,6} /.test(line)) {
       const level = line.match(/^#+/)![0].length;
-      blocks.push({ kind: "heading", level, text: line.slice(level + 1).trim() });
+      blocks.push({
+        kind: "heading",
+        level,
+        text: line.slice(level + 1).trim(),
+      });
       i++;
     } else if (line.trim().startsWith("|")) {
       const rows: string[][] = [];
@@ -52,7 +57,11 @@ export function parseGuide(markdown: string): GuideBlock[] {
       blocks.push({ kind: "table", head: rows[0] ?? [], rows: rows.slice(1) });
     } else if (/^[-*] /.test(line)) {
       const items: string[] = [];
-      while (i < lines.length && (/^[-*] /.test(lines[i]!) || (/^ {2,}\S/.test(lines[i]!) && items.length > 0))) {
+      while (
+        i < lines.length &&
+        (/^[-*] /.test(lines[i]!) ||
+          (/^ {2,}\S/.test(lines[i]!) && items.length > 0))
+      ) {
         if (/^[-*] /.test(lines[i]!)) items.push(lines[i]!.slice(2).trim());
         else items[items.length - 1] += ` ${lines[i]!.trim()}`;
         i++;
@@ -60,7 +69,12 @@ export function parseGuide(markdown: string): GuideBlock[] {
       blocks.push({ kind: "list", items });
     } else {
       const text: string[] = [];
-      while (i < lines.length && lines[i]!.trim() !== "" && !/^(#{1,6} |```|[-*] |\|)/.test(lines[i]!)) text.push(lines[i++]!.trim());
+      while (
+        i < lines.length &&
+        lines[i]!.trim() !== "" &&
+        !/^(#{1,6} |```|[-*] |\|)/.test(lines[i]!)
+      )
+        text.push(lines[i++]!.trim());
       blocks.push({ kind: "paragraph", text: text.join(" ") });
     }
   }

@@ -5,11 +5,22 @@ import { readCappedFormData, UPLOAD_BODY_LIMIT_BYTES } from "./upload";
 
 /* The upload body is capped while it is read: a declared size over the cap is never read, a stream stops being buffered at the cap. */
 
-function multipart(fileBytes: Uint8Array, fields: Record<string, string> = { intent: "preview" }) {
+function multipart(
+  fileBytes: Uint8Array,
+  fields: Record<string, string> = { intent: "preview" },
+) {
   const form = new FormData();
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  form.set("file", new File([fileBytes as Uint8Array<ArrayBuffer>], "results.csv", { type: "text/csv" }));
-  return new Request("http://test.invalid/samples/1/upload", { method: "POST", body: form });
+  form.set(
+    "file",
+    new File([fileBytes as Uint8Array<ArrayBuffer>], "results.csv", {
+      type: "text/csv",
+    }),
+  );
+  return new Request("http://test.invalid/samples/1/upload", {
+    method: "POST",
+    body: form,
+  });
 }
 
 /** A stream of `total` bytes in 64 KiB chunks that records how much was pulled. */
@@ -32,7 +43,9 @@ test("the browser's limit is the parser's limit", () => {
 });
 
 test("a body under the cap is read into form data with its file", async () => {
-  const result = await readCappedFormData(multipart(new TextEncoder().encode("pressure (psia),temperature (degF)\n")));
+  const result = await readCappedFormData(
+    multipart(new TextEncoder().encode("pressure (psia),temperature (degF)\n")),
+  );
   expect(result.ok).toBe(true);
   if (!result.ok) return;
   expect(result.formData.get("intent")).toBe("preview");
@@ -46,11 +59,19 @@ test("a declared Content-Length over the cap is refused without reading a byte",
   const request = new Request("http://test.invalid/upload", {
     method: "POST",
     body: stream,
-    headers: { "Content-Length": String(10 * 1024 * 1024), "Content-Type": "multipart/form-data; boundary=x" },
+    headers: {
+      "Content-Length": String(10 * 1024 * 1024),
+      "Content-Type": "multipart/form-data; boundary=x",
+    },
     duplex: "half",
   } as RequestInit);
   const result = await readCappedFormData(request);
-  expect(result).toMatchObject({ ok: false, reason: "too_large", bytesRead: 0, declaredBytes: 10 * 1024 * 1024 });
+  expect(result).toMatchObject({
+    ok: false,
+    reason: "too_large",
+    bytesRead: 0,
+    declaredBytes: 10 * 1024 * 1024,
+  });
   expect(state.pulled).toBeLessThanOrEqual(65536 * 2); // at most what the stream pre-buffers on its own
 });
 
@@ -63,12 +84,18 @@ test("a streamed body without Content-Length is cut at the cap (and nothing beyo
     duplex: "half",
   } as RequestInit);
   const result = await readCappedFormData(request, 1024 * 1024);
-  expect(result).toMatchObject({ ok: false, reason: "too_large", declaredBytes: null });
+  expect(result).toMatchObject({
+    ok: false,
+    reason: "too_large",
+    declaredBytes: null,
+  });
   expect(result.bytesRead).toBeGreaterThan(1024 * 1024);
 });
 
 test("a file just over 5 MB in a real multipart body is refused as too large", async () => {
-  const result = await readCappedFormData(multipart(new Uint8Array(MAX_UPLOAD_BYTES + 80 * 1024).fill(44)));
+  const result = await readCappedFormData(
+    multipart(new Uint8Array(MAX_UPLOAD_BYTES + 80 * 1024).fill(44)),
+  );
   expect(result).toMatchObject({ ok: false, reason: "too_large" });
 });
 
@@ -78,5 +105,8 @@ test("a body that is not a form is reported as malformed", async () => {
     body: "--x\r\nnot a part",
     headers: { "Content-Type": "multipart/form-data; boundary=x" },
   });
-  expect(await readCappedFormData(request)).toMatchObject({ ok: false, reason: "malformed" });
+  expect(await readCappedFormData(request)).toMatchObject({
+    ok: false,
+    reason: "malformed",
+  });
 });

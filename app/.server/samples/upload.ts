@@ -16,13 +16,30 @@ export const DRAIN_LIMIT_BYTES = 64 * 1024 * 1024;
 
 export type CappedForm =
   | { ok: true; formData: FormData; bytesRead: number }
-  | { ok: false; reason: "too_large"; bytesRead: number; declaredBytes: number | null }
+  | {
+      ok: false;
+      reason: "too_large";
+      bytesRead: number;
+      declaredBytes: number | null;
+    }
   | { ok: false; reason: "malformed"; bytesRead: number };
 
-export async function readCappedFormData(request: Request, limit = UPLOAD_BODY_LIMIT_BYTES): Promise<CappedForm> {
+export async function readCappedFormData(
+  request: Request,
+  limit = UPLOAD_BODY_LIMIT_BYTES,
+): Promise<CappedForm> {
   const declaredHeader = request.headers.get("Content-Length");
-  const declared = declaredHeader !== null && /^\d+$/.test(declaredHeader) ? Number(declaredHeader) : null;
-  if (declared !== null && declared > limit) return { ok: false, reason: "too_large", bytesRead: 0, declaredBytes: declared };
+  const declared =
+    declaredHeader !== null && /^\d+$/.test(declaredHeader)
+      ? Number(declaredHeader)
+      : null;
+  if (declared !== null && declared > limit)
+    return {
+      ok: false,
+      reason: "too_large",
+      bytesRead: 0,
+      declaredBytes: declared,
+    };
 
   const chunks: Uint8Array[] = [];
   let total = 0;
@@ -45,7 +62,13 @@ export async function readCappedFormData(request: Request, limit = UPLOAD_BODY_L
       chunks.push(value);
     }
   }
-  if (tooLarge) return { ok: false, reason: "too_large", bytesRead: total, declaredBytes: declared };
+  if (tooLarge)
+    return {
+      ok: false,
+      reason: "too_large",
+      bytesRead: total,
+      declaredBytes: declared,
+    };
 
   const body = new Uint8Array(total);
   let offset = 0;
@@ -55,7 +78,11 @@ export async function readCappedFormData(request: Request, limit = UPLOAD_BODY_L
   }
   const contentType = request.headers.get("Content-Type") ?? "";
   try {
-    const copy = new Request(request.url, { method: "POST", headers: { "Content-Type": contentType }, body });
+    const copy = new Request(request.url, {
+      method: "POST",
+      headers: { "Content-Type": contentType },
+      body,
+    });
     return { ok: true, formData: await copy.formData(), bytesRead: total };
   } catch {
     return { ok: false, reason: "malformed", bytesRead: total };

@@ -8,9 +8,16 @@ import { runTask, type HeavyTask, type TaskOutcome } from "./tasks";
 
 export type HeavyMessage = { task: HeavyTask; input: unknown };
 /** The task's outcome, the time it took in the worker and the worker's thread id. */
-export type HeavyReply = { outcome: TaskOutcome<HeavyTask>; runMs: number; threadId: number };
+export type HeavyReply = {
+  outcome: TaskOutcome<HeavyTask>;
+  runMs: number;
+  threadId: number;
+};
 
-export default async function heavyWorker({ task, input }: HeavyMessage): Promise<HeavyReply> {
+export default async function heavyWorker({
+  task,
+  input,
+}: HeavyMessage): Promise<HeavyReply> {
   const started = performance.now();
   const outcome = await runTask(task, input as never);
   return { outcome, runMs: performance.now() - started, threadId };

@@ -16,7 +16,14 @@ import { Piscina } from "piscina";
 import { getEnv } from "~/.server/env";
 import { problem } from "~/.server/http";
 import type { HeavyMessage, HeavyReply } from "./heavy-worker";
-import { decodeError, runTask, type HeavyInput, type HeavyOutput, type HeavyTask, type TaskOutcome } from "./tasks";
+import {
+  decodeError,
+  runTask,
+  type HeavyInput,
+  type HeavyOutput,
+  type HeavyTask,
+  type TaskOutcome,
+} from "./tasks";
 
 export type { HeavyInput, HeavyOutput, HeavyTask } from "./tasks";
 
@@ -29,18 +36,22 @@ export type { HeavyInput, HeavyOutput, HeavyTask } from "./tasks";
  * keep their direct path. Uploads always go to a worker: even a 7 kB lab file took 65 ms to parse and 70 ms
  * to check (runQc), far more than the round trip.
  */
-export const MIN_WORKER_SIZE: Readonly<Record<HeavyTask, number>> = Object.freeze({
-  "api-lookup": 2_000, // points
-  // characters of JSON: 256 kB is about 7,000 points, whose JSON.parse and check take some 5–10 ms inline; the
-  // 3.5 MB of 100,000 points take 70–200 ms, which is what kept health waiting behind large lookups.
-  "read-lookup-body": 256 * 1024,
-  lookup: 2_000, // points
-  table: 500, // rows (pressures)
-  "check-upload": 1, // bytes: every upload
-});
+export const MIN_WORKER_SIZE: Readonly<Record<HeavyTask, number>> =
+  Object.freeze({
+    "api-lookup": 2_000, // points
+    // characters of JSON: 256 kB is about 7,000 points, whose JSON.parse and check take some 5–10 ms inline; the
+    // 3.5 MB of 100,000 points take 70–200 ms, which is what kept health waiting behind large lookups.
+    "read-lookup-body": 256 * 1024,
+    lookup: 2_000, // points
+    table: 500, // rows (pressures)
+    "check-upload": 1, // bytes: every upload
+  });
 
 /** The size of a job in the unit of MIN_WORKER_SIZE. */
-export function jobSize<T extends HeavyTask>(task: T, input: HeavyInput<T>): number {
+export function jobSize<T extends HeavyTask>(
+  task: T,
+  input: HeavyInput<T>,
+): number {
   switch (task) {
     case "api-lookup":
       return (input as HeavyInput<"api-lookup">).pressures.length;
@@ -94,7 +105,11 @@ export class HeavyPool {
   #averageRunMs = 500;
 
   constructor(settings: HeavyPoolSettings) {
-    this.settings = Object.freeze({ ...settings, workers: Math.max(1, Math.floor(settings.workers)), queueLimit: Math.max(0, Math.floor(settings.queueLimit)) });
+    this.settings = Object.freeze({
+      ...settings,
+      workers: Math.max(1, Math.floor(settings.workers)),
+      queueLimit: Math.max(0, Math.floor(settings.queueLimit)),
+    });
   }
 
   /** Heavy jobs admitted and not yet finished (running or waiting). */
@@ -108,21 +123,39 @@ export class HeavyPool {
   }
 
   usesWorker<T extends HeavyTask>(task: T, input: HeavyInput<T>): boolean {
-    return this.settings.filename !== null && jobSize(task, input) >= (this.settings.minSize?.[task] ?? MIN_WORKER_SIZE[task]);
+    return (
+      this.settings.filename !== null &&
+      jobSize(task, input) >=
+        (this.settings.minSize?.[task] ?? MIN_WORKER_SIZE[task])
+    );
   }
 
-  async run<T extends HeavyTask>(task: T, input: HeavyInput<T>, options: { surface?: HeavySurface } = {}): Promise<HeavyRun<T>> {
+  async run<T extends HeavyTask>(
+    task: T,
+    input: HeavyInput<T>,
+    options: { surface?: HeavySurface } = {},
+  ): Promise<HeavyRun<T>> {
     const started = performance.now();
     if (!this.usesWorker(task, input)) {
       const outcome = await runTask(task, input);
       return settle(outcome, "inline", 0, performance.now() - started, 0);
     }
-    if (this.#closed || this.#admitted >= this.capacity) throw this.busy(options.surface ?? "api");
+    if (this.#closed || this.#admitted >= this.capacity)
+      throw this.busy(options.surface ?? "api");
     this.#admitted++;
     try {
-      const reply = await this.#pool().run({ task, input }, { transferList: transferListOf(task, input) });
+      const reply = await this.#pool().run(
+        { task, input },
+        { transferList: transferListOf(task, input) },
+      );
       this.#averageRunMs = 0.8 * this.#averageRunMs + 0.2 * reply.runMs;
-      return settle(reply.outcome as TaskOutcome<T>, "worker", Math.max(0, performance.now() - started - reply.runMs), reply.runMs, reply.threadId);
+      return settle(
+        reply.outcome as TaskOutcome<T>,
+        "worker",
+        Math.max(0, performance.now() - started - reply.runMs),
+        reply.runMs,
+        reply.threadId,
+      );
     } finally {
       this.#admitted--;
     }
@@ -131,20 +164,35 @@ export class HeavyPool {
   /** Seconds after which a refused job may well be admitted: the queue's expected drain time, 1–30 s. */
   retryAfterSeconds(): number {
     const perWorker = this.#admitted / this.settings.workers;
-    return Math.min(30, Math.max(1, Math.ceil((perWorker * this.#averageRunMs) / 1000)));
+    return Math.min(
+      30,
+      Math.max(1, Math.ceil((perWorker * this.#averageRunMs) / 1000)),
+    );
   }
 
   busy(surface: HeavySurface): Response {
     const seconds = this.retryAfterSeconds();
     const n = this.capacity;
-    const why = this.#closed ? "The server is shutting down" : `The server is at its limit of ${n} large ${n === 1 ? "computation" : "computations"} at once`;
+    const why = this.#closed
+      ? "The server is shutting down"
+      : `The server is at its limit of ${n} large ${n === 1 ? "computation" : "computations"} at once`;
     const wait = `${seconds} ${seconds === 1 ? "second" : "seconds"}`;
-    if (surface === "api") return problem(503, "server_busy", `${why}; try again in ${wait}.`, { headers: { "Retry-After": String(seconds) } });
-    return new Response(`${why}, so this was not done and nothing was changed. Try again in ${wait}.`, {
-      status: 503,
-      statusText: "Service Unavailable",
-      headers: { "Retry-After": String(seconds), "Content-Type": "text/plain; charset=utf-8", "Cache-Control": "no-store" },
-    });
+    if (surface === "api")
+      return problem(503, "server_busy", `${why}; try again in ${wait}.`, {
+        headers: { "Retry-After": String(seconds) },
+      });
+    return new Response(
+      `${why}, so this was not done and nothing was changed. Try again in ${wait}.`,
+      {
+        status: 503,
+        statusText: "Service Unavailable",
+        headers: {
+          "Retry-After": String(seconds),
+          "Content-Type": "text/plain; charset=utf-8",
+          "Cache-Control": "no-store",
+        },
+      },
+    );
   }
 
   /** Lets running and waiting jobs finish, then stops the workers; later heavy jobs are refused (503). */
@@ -170,17 +218,31 @@ export class HeavyPool {
   }
 }
 
-function settle<T extends HeavyTask>(outcome: TaskOutcome<T>, where: "worker" | "inline", waitMs: number, runMs: number, thread: number): HeavyRun<T> {
+function settle<T extends HeavyTask>(
+  outcome: TaskOutcome<T>,
+  where: "worker" | "inline",
+  waitMs: number,
+  runMs: number,
+  thread: number,
+): HeavyRun<T> {
   if ("error" in outcome) throw decodeError(outcome.error);
   return { value: outcome.value, where, waitMs, runMs, thread };
 }
 
 /** The API lookup's point columns are moved to the worker, not copied (the caller builds them for it). */
-function transferListOf<T extends HeavyTask>(task: T, input: HeavyInput<T>): ArrayBuffer[] {
+function transferListOf<T extends HeavyTask>(
+  task: T,
+  input: HeavyInput<T>,
+): ArrayBuffer[] {
   if (task !== "api-lookup") return [];
   const { pressures, temperatures } = input as HeavyInput<"api-lookup">;
   return [pressures, temperatures]
-    .filter((a) => a.byteOffset === 0 && a.byteLength === a.buffer.byteLength && a.buffer instanceof ArrayBuffer)
+    .filter(
+      (a) =>
+        a.byteOffset === 0 &&
+        a.byteLength === a.buffer.byteLength &&
+        a.buffer instanceof ArrayBuffer,
+    )
     .map((a) => a.buffer as ArrayBuffer)
     .filter((b, i, all) => all.indexOf(b) === i);
 }
@@ -209,12 +271,20 @@ export function getHeavyPool(): HeavyPool {
 }
 
 /** Runs a heavy job in a worker (or inline when small); throws the core error it threw, or a 503 Response. */
-export async function runHeavy<T extends HeavyTask>(task: T, input: HeavyInput<T>, options?: { surface?: HeavySurface }): Promise<HeavyOutput<T>> {
+export async function runHeavy<T extends HeavyTask>(
+  task: T,
+  input: HeavyInput<T>,
+  options?: { surface?: HeavySurface },
+): Promise<HeavyOutput<T>> {
   return (await getHeavyPool().run(task, input, options)).value;
 }
 
 /** As runHeavy, also saying where the job ran and how long it waited and ran (for Server-Timing). */
-export function runHeavyTimed<T extends HeavyTask>(task: T, input: HeavyInput<T>, options?: { surface?: HeavySurface }): Promise<HeavyRun<T>> {
+export function runHeavyTimed<T extends HeavyTask>(
+  task: T,
+  input: HeavyInput<T>,
+  options?: { surface?: HeavySurface },
+): Promise<HeavyRun<T>> {
   return getHeavyPool().run(task, input, options);
 }
 

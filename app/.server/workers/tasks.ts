@@ -9,10 +9,38 @@
  * travel as `{ error: EncodedError }` and pool.ts rebuilds the real class on the main thread.
  */
 import type { Grid } from "~/core/interpolation";
-import { parseUpload, runQc, type Finding, type ParsedDataset, type PropertyGrid, type QcMeta } from "~/core/lab-data";
-import { isLabDataError, LabDataError, type LabDataErrorCode } from "~/core/lab-data";
-import { isLookupError, LookupError, readLookupText, runLookup, type LookupErrorCode, type LookupOptions, type LookupPoints, type LookupResult, type LookupText } from "~/core/lookup";
-import { buildBlackOilTable, isTableError, TableError, type BlackOilTable, type BlackOilTableInput, type TableErrorCode } from "~/core/tables";
+import {
+  parseUpload,
+  runQc,
+  type Finding,
+  type ParsedDataset,
+  type PropertyGrid,
+  type QcMeta,
+} from "~/core/lab-data";
+import {
+  isLabDataError,
+  LabDataError,
+  type LabDataErrorCode,
+} from "~/core/lab-data";
+import {
+  isLookupError,
+  LookupError,
+  readLookupText,
+  runLookup,
+  type LookupErrorCode,
+  type LookupOptions,
+  type LookupPoints,
+  type LookupResult,
+  type LookupText,
+} from "~/core/lookup";
+import {
+  buildBlackOilTable,
+  isTableError,
+  TableError,
+  type BlackOilTable,
+  type BlackOilTableInput,
+  type TableErrorCode,
+} from "~/core/tables";
 
 /** The API lookup: points as two columns (Float64Array, transferred, not copied), the answer as JSON text. */
 export type ApiLookupInput = {
@@ -34,7 +62,11 @@ export type ApiLookupOutput = {
   resultsUtf8: Uint8Array;
 };
 
-export type CheckUploadInput = { filename: string; bytes: Uint8Array; meta: QcMeta };
+export type CheckUploadInput = {
+  filename: string;
+  bytes: Uint8Array;
+  meta: QcMeta;
+};
 
 /**
  * parseUpload's outcome, plus the QC findings (runQc) when the file parsed. The dataset comes back without
@@ -43,14 +75,25 @@ export type CheckUploadInput = { filename: string; bytes: Uint8Array; meta: QcMe
  */
 export type CheckUploadOutput =
   | { ok: false; errors: readonly Finding[]; warnings: readonly Finding[] }
-  | { ok: true; dataset: ParsedDataset; warnings: readonly Finding[]; findings: Finding[] };
+  | {
+      ok: true;
+      dataset: ParsedDataset;
+      warnings: readonly Finding[];
+      findings: Finding[];
+    };
 
 /** Every heavy task: its input and its output. */
 export type HeavyTasks = {
   "api-lookup": { input: ApiLookupInput; output: ApiLookupOutput };
   /** A lookup request's JSON text parsed, bounded and its points checked into columns (readLookupText). */
-  "read-lookup-body": { input: { text: string; maxDepth: number }; output: LookupText };
-  lookup: { input: { grid: Grid; points: LookupPoints; options: LookupOptions }; output: LookupResult };
+  "read-lookup-body": {
+    input: { text: string; maxDepth: number };
+    output: LookupText;
+  };
+  lookup: {
+    input: { grid: Grid; points: LookupPoints; options: LookupOptions };
+    output: LookupResult;
+  };
   table: { input: BlackOilTableInput; output: BlackOilTable };
   "check-upload": { input: CheckUploadInput; output: CheckUploadOutput };
 };
@@ -58,15 +101,29 @@ export type HeavyTask = keyof HeavyTasks;
 export type HeavyInput<T extends HeavyTask> = HeavyTasks[T]["input"];
 export type HeavyOutput<T extends HeavyTask> = HeavyTasks[T]["output"];
 
-export const HEAVY_TASKS: readonly HeavyTask[] = ["api-lookup", "read-lookup-body", "lookup", "table", "check-upload"];
+export const HEAVY_TASKS: readonly HeavyTask[] = [
+  "api-lookup",
+  "read-lookup-body",
+  "lookup",
+  "table",
+  "check-upload",
+];
 
-const TASKS: { [T in HeavyTask]: (input: HeavyInput<T>) => HeavyOutput<T> | Promise<HeavyOutput<T>> } = {
+const TASKS: {
+  [T in HeavyTask]: (
+    input: HeavyInput<T>,
+  ) => HeavyOutput<T> | Promise<HeavyOutput<T>>;
+} = {
   "api-lookup": ({ grid, pressures, temperatures, options }) => {
     const result = runLookup(grid, { pressures, temperatures }, options);
     return {
       methodDescription: result.methodDescription,
       degree: result.degree,
-      units: { pressure: result.units.pressure.symbol, temperature: result.units.temperature.symbol, value: result.units.value.symbol },
+      units: {
+        pressure: result.units.pressure.symbol,
+        temperature: result.units.temperature.symbol,
+        value: result.units.value.symbol,
+      },
       resultsUtf8: new TextEncoder().encode(serialiseResults(result.results)),
     };
   },
@@ -75,9 +132,15 @@ const TASKS: { [T in HeavyTask]: (input: HeavyInput<T>) => HeavyOutput<T> | Prom
   table: (input) => buildBlackOilTable(input),
   "check-upload": async ({ filename, bytes, meta }) => {
     const parsed = await parseUpload({ filename, bytes });
-    if (!parsed.ok) return { ok: false, errors: parsed.errors, warnings: parsed.warnings };
+    if (!parsed.ok)
+      return { ok: false, errors: parsed.errors, warnings: parsed.warnings };
     const findings = runQc(parsed.dataset, meta);
-    return { ok: true, dataset: withoutSources(parsed.dataset), warnings: parsed.warnings, findings };
+    return {
+      ok: true,
+      dataset: withoutSources(parsed.dataset),
+      warnings: parsed.warnings,
+      findings,
+    };
   },
 };
 
@@ -87,36 +150,81 @@ function withoutSources(dataset: ParsedDataset): ParsedDataset {
     const { sources: _sources, ...rest } = grid;
     properties[key] = rest;
   }
-  return { ...dataset, properties, bubblePoints: dataset.bubblePoints.map(({ source: _source, ...rest }) => rest) };
+  return {
+    ...dataset,
+    properties,
+    bubblePoints: dataset.bubblePoints.map(
+      ({ source: _source, ...rest }) => rest,
+    ),
+  };
 }
 
 /** A core library error as plain data. */
 export type EncodedError =
-  | { kind: "lookup"; code: LookupErrorCode; message: string; details: Record<string, unknown> }
-  | { kind: "table"; code: TableErrorCode; message: string; details: Record<string, unknown> }
+  | {
+      kind: "lookup";
+      code: LookupErrorCode;
+      message: string;
+      details: Record<string, unknown>;
+    }
+  | {
+      kind: "table";
+      code: TableErrorCode;
+      message: string;
+      details: Record<string, unknown>;
+    }
   | { kind: "lab-data"; code: LabDataErrorCode; message: string };
 
 /** What a task answers across the boundary: its output, or the core error it threw. */
-export type TaskOutcome<T extends HeavyTask> = { value: HeavyOutput<T> } | { error: EncodedError };
+export type TaskOutcome<T extends HeavyTask> =
+  { value: HeavyOutput<T> } | { error: EncodedError };
 
 /** Runs one task; core library errors become `{ error }`, anything else (a bug) is thrown as it is. */
-export async function runTask<T extends HeavyTask>(task: T, input: HeavyInput<T>): Promise<TaskOutcome<T>> {
-  const run = TASKS[task] as ((input: HeavyInput<T>) => HeavyOutput<T> | Promise<HeavyOutput<T>>) | undefined;
+export async function runTask<T extends HeavyTask>(
+  task: T,
+  input: HeavyInput<T>,
+): Promise<TaskOutcome<T>> {
+  const run = TASKS[task] as
+    | ((input: HeavyInput<T>) => HeavyOutput<T> | Promise<HeavyOutput<T>>)
+    | undefined;
   if (!run) throw new Error(`Unknown heavy task ${JSON.stringify(task)}.`);
   try {
     return { value: await run(input) };
   } catch (error) {
-    if (isLookupError(error)) return { error: { kind: "lookup", code: error.code, message: error.message, details: { ...error.details } } };
-    if (isTableError(error)) return { error: { kind: "table", code: error.code, message: error.message, details: { ...error.details } } };
-    if (isLabDataError(error)) return { error: { kind: "lab-data", code: error.code, message: error.message } };
+    if (isLookupError(error))
+      return {
+        error: {
+          kind: "lookup",
+          code: error.code,
+          message: error.message,
+          details: { ...error.details },
+        },
+      };
+    if (isTableError(error))
+      return {
+        error: {
+          kind: "table",
+          code: error.code,
+          message: error.message,
+          details: { ...error.details },
+        },
+      };
+    if (isLabDataError(error))
+      return {
+        error: { kind: "lab-data", code: error.code, message: error.message },
+      };
     throw error;
   }
 }
 
 /** The error class a task threw, rebuilt on the caller's side. */
-export function decodeError(error: EncodedError): LookupError | TableError | LabDataError {
-  if (error.kind === "lookup") return new LookupError(error.code, error.message, error.details);
-  if (error.kind === "table") return new TableError(error.code, error.message, error.details);
+export function decodeError(
+  error: EncodedError,
+): LookupError | TableError | LabDataError {
+  if (error.kind === "lookup")
+    return new LookupError(error.code, error.message, error.details);
+  if (error.kind === "table")
+    return new TableError(error.code, error.message, error.details);
   return new LabDataError(error.code, error.message);
 }
 
@@ -144,7 +252,10 @@ export function serialiseResults(results: LookupResult["results"]): string {
     const r = results[i]!;
     let stencil = stencilJson.get(r.stencil);
     if (stencil === undefined) {
-      stencil = JSON.stringify({ pressure: r.stencil.pressures, temperature: r.stencil.temperatures });
+      stencil = JSON.stringify({
+        pressure: r.stencil.pressures,
+        temperature: r.stencil.temperatures,
+      });
       stencilJson.set(r.stencil, stencil);
     }
     let warnings = warningsJson.get(r.warnings);
@@ -152,7 +263,10 @@ export function serialiseResults(results: LookupResult["results"]): string {
       warnings = JSON.stringify(r.warnings);
       warningsJson.set(r.warnings, warnings);
     }
-    const bubble = r.bubblePointPressure !== null && Number.isFinite(r.bubblePointPressure) ? `,"bubblePointPressure":${r.bubblePointPressure}` : "";
+    const bubble =
+      r.bubblePointPressure !== null && Number.isFinite(r.bubblePointPressure)
+        ? `,"bubblePointPressure":${r.bubblePointPressure}`
+        : "";
     const branch = r.branch ? `,"branch":"${r.branch}"` : "";
     // A point whose value cannot be computed (NaN or ±Infinity, e.g. far outside the data with extrapolation
     // allowed) is refused on its own; no non-finite number is ever written.

@@ -1,5 +1,9 @@
 import { useEffect, useState } from "react";
-import { PropertySlices, PropertySurface, type PlotGrid } from "~/components/plots";
+import {
+  PropertySlices,
+  PropertySurface,
+  type PlotGrid,
+} from "~/components/plots";
 import { PROPERTY_NAMES } from "~/core/lookup";
 import type { PropertyKey } from "~/core/units";
 import type { Condition } from "~/utils/conditions";
@@ -32,7 +36,9 @@ export function LookupPlots({
   sampleId: number;
 }) {
   const [property, setProperty] = useState<PropertyKey>(properties[0]!);
-  const [grids, setGrids] = useState<(PlotGrid & { property: PropertyKey })[] | null>(null);
+  const [grids, setGrids] = useState<
+    (PlotGrid & { property: PropertyKey })[] | null
+  >(null);
   const [failed, setFailed] = useState(false);
   useEffect(() => {
     let live = true;
@@ -45,17 +51,28 @@ export function LookupPlots({
   }, [load]);
   const grid = grids?.find((g) => g.property === property) ?? null;
   // Labels (Q1, Q2, …) help with a few points and clutter a path: beyond eight, points are marked without them.
-  const marked = conditions.slice(0, MAX_MARKED).map((c) => (conditions.length > 8 ? { ...c, label: "" } : c));
-  const queryTemperatures = [...new Set(marked.map((c) => c.temperature))].slice(0, 4);
+  const marked = conditions
+    .slice(0, MAX_MARKED)
+    .map((c) => (conditions.length > 8 ? { ...c, label: "" } : c));
+  const queryTemperatures = [
+    ...new Set(marked.map((c) => c.temperature)),
+  ].slice(0, 4);
   return (
-    <section className="mt-6 rounded-lg border border-line bg-panel p-5" aria-labelledby="plots-title">
+    <section
+      className="mt-6 rounded-lg border border-line bg-panel p-5"
+      aria-labelledby="plots-title"
+    >
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h2 id="plots-title" className="text-lg font-semibold">
           Plots
         </h2>
         <label className="flex items-center gap-2 text-sm">
           <span className="font-semibold">Property</span>
-          <select value={property} onChange={(e) => setProperty(e.target.value as PropertyKey)} className="rounded border border-line px-2 py-1">
+          <select
+            value={property}
+            onChange={(e) => setProperty(e.target.value as PropertyKey)}
+            className="rounded border border-line px-2 py-1"
+          >
             {properties.map((p) => (
               <option key={p} value={p}>
                 {PROPERTY_NAMES[p]}
@@ -64,8 +81,16 @@ export function LookupPlots({
           </select>
         </label>
       </div>
-      {conditions.length > MAX_MARKED ? <p className="text-xs text-ink-muted">The first {MAX_MARKED} conditions are marked.</p> : null}
-      {failed ? <p className="mt-2 text-danger">The measured grid could not be loaded for plotting.</p> : null}
+      {conditions.length > MAX_MARKED ? (
+        <p className="text-xs text-ink-muted">
+          The first {MAX_MARKED} conditions are marked.
+        </p>
+      ) : null}
+      {failed ? (
+        <p className="mt-2 text-danger">
+          The measured grid could not be loaded for plotting.
+        </p>
+      ) : null}
       {grid ? (
         <div className="mt-3 grid gap-4">
           <PropertySurface
@@ -84,7 +109,11 @@ export function LookupPlots({
             units={{ ...units, value: unitOf(property) }}
             method={method}
             degree={degree ?? undefined}
-            temperatures={[...new Set([...queryTemperatures, ...grid.temperatures])].sort((a, b) => a - b).slice(0, 6)}
+            temperatures={[
+              ...new Set([...queryTemperatures, ...grid.temperatures]),
+            ]
+              .sort((a, b) => a - b)
+              .slice(0, 6)}
             queryPoints={marked}
           />
         </div>

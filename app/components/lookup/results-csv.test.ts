@@ -16,22 +16,45 @@ const runs: PropertyRun[] = [
     methodDescription: "bilinear",
     degree: null,
     serverMs: 1,
-    results: [{ value: -1.5, errorEstimate: 0.001, warnings: [], method: "=1+1", stencil: { pressure: [], temperature: [] } }],
+    results: [
+      {
+        value: -1.5,
+        errorEstimate: 0.001,
+        warnings: [],
+        method: "=1+1",
+        stencil: { pressure: [], temperature: [] },
+      },
+    ],
   },
 ];
 
 test("a formula in the label or in a text cell is written as text; numbers stay numbers", () => {
   const label = '=HYPERLINK("http://evil.example","x")';
-  const csv = lookupResultsDelimited([{ pressure: 3000, temperature: -10 }], runs, { pressure: "psia", temperature: "degF" }, ",", [`Isopleth lookup — sample ${label}, revision 1`, label], () => []);
+  const csv = lookupResultsDelimited(
+    [{ pressure: 3000, temperature: -10 }],
+    runs,
+    { pressure: "psia", temperature: "degF" },
+    ",",
+    [`Isopleth lookup — sample ${label}, revision 1`, label],
+    () => [],
+  );
   const rows = parse(csv, { relax_column_count: true }) as string[][];
   expect(rows[0]).toEqual([`# Isopleth lookup — sample ${label}, revision 1`]);
   expect(rows[1]).toEqual([`# ${label}`]);
   expect(rows[3]).toEqual(["3000", "-10", "-1.5", "0.001", "'=1+1", ""]);
   // No cell a spreadsheet would run: only numbers may start with "-".
-  for (const cell of rows.flat()) expect(cell).toMatch(/^(?![=+@\t\r])(?!-(?![\d.]))/);
+  for (const cell of rows.flat())
+    expect(cell).toMatch(/^(?![=+@\t\r])(?!-(?![\d.]))/);
 });
 
 test("the clipboard form (tab-separated) neutralises too", () => {
-  const tsv = lookupResultsDelimited([{ pressure: 3000, temperature: 200 }], runs, { pressure: "psia", temperature: "degF" }, "\t", [], () => []);
-  expect(tsv.split("\n")[1]).toBe("3000\t200\t-1.5\t0.001\t\"'=1+1\"\t");
+  const tsv = lookupResultsDelimited(
+    [{ pressure: 3000, temperature: 200 }],
+    runs,
+    { pressure: "psia", temperature: "degF" },
+    "\t",
+    [],
+    () => [],
+  );
+  expect(tsv.split("\n")[1]).toBe('3000\t200\t-1.5\t0.001\t"\'=1+1"\t');
 });

@@ -16,16 +16,38 @@ export function lookupResultsDelimited(
   warningsOf: (r: LookupApiResult, pressure: number) => string[],
 ): string {
   const ok = runs.filter((r): r is Extract<PropertyRun, { ok: true }> => r.ok);
-  const header: string[] = [`pressure (${units.pressure})`, `temperature (${units.temperature})`];
-  for (const r of ok) header.push(`${r.property} (${r.unit})`, `${r.property} error estimate (${r.unit})`, `${r.property} method`, `${r.property} warnings`);
+  const header: string[] = [
+    `pressure (${units.pressure})`,
+    `temperature (${units.temperature})`,
+  ];
+  for (const r of ok)
+    header.push(
+      `${r.property} (${r.unit})`,
+      `${r.property} error estimate (${r.unit})`,
+      `${r.property} method`,
+      `${r.property} warnings`,
+    );
   const lines = conditions.map((c, i) => {
     const cells: (string | number)[] = [c.pressure, c.temperature];
     for (const r of ok) {
       const x = r.results[i]!;
       // A point the server refused (e.g. not computable) has no value: empty cells and the reason.
-      cells.push(x.value ?? "", x.errorEstimate ?? "", x.method, x.refusal ? `refused: ${x.refusal.message}` : warningsOf(x, c.pressure).join(" "));
+      cells.push(
+        x.value ?? "",
+        x.errorEstimate ?? "",
+        x.method,
+        x.refusal
+          ? `refused: ${x.refusal.message}`
+          : warningsOf(x, c.pressure).join(" "),
+      );
     }
     return csvRow(cells, { delimiter });
   });
-  return [...meta.map((m) => csvCommentLine(m, { delimiter })), csvRow(header, { delimiter }), ...lines].join("\n") + "\n";
+  return (
+    [
+      ...meta.map((m) => csvCommentLine(m, { delimiter })),
+      csvRow(header, { delimiter }),
+      ...lines,
+    ].join("\n") + "\n"
+  );
 }

@@ -1,9 +1,18 @@
 import { useState } from "react";
-import { describeWarningCode, PROPERTY_NAMES, type LookupWarning } from "~/core/lookup";
+import {
+  describeWarningCode,
+  PROPERTY_NAMES,
+  type LookupWarning,
+} from "~/core/lookup";
 import type { PropertyKey } from "~/core/units";
 import type { Condition } from "~/utils/conditions";
 import { lookupResultsDelimited } from "./results-csv";
-import { NEAR_BUBBLE_POINT, NEAR_BUBBLE_POINT_FRACTION, SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
+import {
+  NEAR_BUBBLE_POINT,
+  NEAR_BUBBLE_POINT_FRACTION,
+  SERIOUS_WARNINGS,
+  warningLabel,
+} from "~/utils/warning-labels";
 
 export type LookupApiResult = {
   /** null when the server refused the point (see refusal): it never sends NaN or Infinity. */
@@ -18,7 +27,18 @@ export type LookupApiResult = {
 };
 
 export type PropertyRun =
-  | { property: PropertyKey; ok: true; revision: number; revisionStatus: string; approved: boolean; unit: string; methodDescription: string; degree: [number, number] | null; results: LookupApiResult[]; serverMs: number }
+  | {
+      property: PropertyKey;
+      ok: true;
+      revision: number;
+      revisionStatus: string;
+      approved: boolean;
+      unit: string;
+      methodDescription: string;
+      degree: [number, number] | null;
+      results: LookupApiResult[];
+      serverMs: number;
+    }
   | { property: PropertyKey; ok: false; error: string; serverMs: number };
 
 const CAUTION =
@@ -29,14 +49,19 @@ const fmt = (v: number) => Number(v.toPrecision(6)).toString();
 /** Warnings of one result, plus "near the bubble point" when the point lies within 2 % of it. */
 export function warningsOf(r: LookupApiResult, pressure: number): string[] {
   const list = [...r.warnings];
-  if (r.bubblePointPressure !== undefined && Math.abs(pressure - r.bubblePointPressure) <= NEAR_BUBBLE_POINT_FRACTION * r.bubblePointPressure) {
+  if (
+    r.bubblePointPressure !== undefined &&
+    Math.abs(pressure - r.bubblePointPressure) <=
+      NEAR_BUBBLE_POINT_FRACTION * r.bubblePointPressure
+  ) {
     list.push(NEAR_BUBBLE_POINT);
   }
   return list;
 }
 
 function describe(code: string): string {
-  if (code === NEAR_BUBBLE_POINT) return "Within 2 % of the bubble point, where the property's slope changes abruptly: check the branch.";
+  if (code === NEAR_BUBBLE_POINT)
+    return "Within 2 % of the bubble point, where the property's slope changes abruptly: check the branch.";
   return describeWarningCode(code as LookupWarning);
 }
 
@@ -59,25 +84,45 @@ export function LookupResultsTable({
 }) {
   const [copied, setCopied] = useState(false);
   const ok = runs.filter((r): r is Extract<PropertyRun, { ok: true }> => r.ok);
-  const failed = runs.filter((r): r is Extract<PropertyRun, { ok: false }> => !r.ok);
+  const failed = runs.filter(
+    (r): r is Extract<PropertyRun, { ok: false }> => !r.ok,
+  );
   const revisions = [...new Set(ok.map((r) => r.revision))];
   const meta = [
     `Isopleth lookup — sample ${sampleLabel}, revision ${revisions.join(", ")}, method ${ok[0]?.methodDescription ?? method}`,
     `generated ${new Date().toISOString()}`,
     CAUTION,
   ];
-  const serverMs = ok.reduce((m, r) => Math.max(m, Number.isFinite(r.serverMs) ? r.serverMs : 0), 0);
-  const flagged = ok.reduce((n, r) => n + r.results.filter((x, i) => warningsOf(x, conditions[i]!.pressure).length > 0).length, 0);
+  const serverMs = ok.reduce(
+    (m, r) => Math.max(m, Number.isFinite(r.serverMs) ? r.serverMs : 0),
+    0,
+  );
+  const flagged = ok.reduce(
+    (n, r) =>
+      n +
+      r.results.filter(
+        (x, i) => warningsOf(x, conditions[i]!.pressure).length > 0,
+      ).length,
+    0,
+  );
 
   function download() {
-    const blob = new Blob([lookupResultsDelimited(conditions, runs, units, ",", meta, warningsOf)], { type: "text/csv" });
+    const blob = new Blob(
+      [lookupResultsDelimited(conditions, runs, units, ",", meta, warningsOf)],
+      { type: "text/csv" },
+    );
     const url = URL.createObjectURL(blob);
-    const a = Object.assign(document.createElement("a"), { href: url, download: `isopleth-lookup-${sampleLabel.replace(/\W+/g, "-")}.csv` });
+    const a = Object.assign(document.createElement("a"), {
+      href: url,
+      download: `isopleth-lookup-${sampleLabel.replace(/\W+/g, "-")}.csv`,
+    });
     a.click();
     URL.revokeObjectURL(url);
   }
   async function copy() {
-    await navigator.clipboard.writeText(lookupResultsDelimited(conditions, runs, units, "\t", [], warningsOf));
+    await navigator.clipboard.writeText(
+      lookupResultsDelimited(conditions, runs, units, "\t", [], warningsOf),
+    );
     setCopied(true);
   }
 
@@ -89,22 +134,43 @@ export function LookupResultsTable({
             Results
           </h2>
           <p className="text-sm text-ink-muted" data-testid="results-meta">
-            {sampleLabel} · {revisions.length ? `revision ${revisions.join(", ")}` : "no values"} · {ok[0]?.methodDescription ?? method} · {conditions.length} condition
-            {conditions.length === 1 ? "" : "s"} · answered in {Math.round(elapsedMs)} ms{ok.length ? ` (server ${serverMs.toFixed(1)} ms)` : ""}
-            {flagged ? ` · ${flagged} value${flagged === 1 ? "" : "s"} flagged` : ""}
+            {sampleLabel} ·{" "}
+            {revisions.length
+              ? `revision ${revisions.join(", ")}`
+              : "no values"}{" "}
+            · {ok[0]?.methodDescription ?? method} · {conditions.length}{" "}
+            condition
+            {conditions.length === 1 ? "" : "s"} · answered in{" "}
+            {Math.round(elapsedMs)} ms
+            {ok.length ? ` (server ${serverMs.toFixed(1)} ms)` : ""}
+            {flagged
+              ? ` · ${flagged} value${flagged === 1 ? "" : "s"} flagged`
+              : ""}
           </p>
         </div>
         <div className="flex gap-2">
-          <button type="button" onClick={download} className="rounded border border-line bg-panel px-3 py-1.5 text-sm font-semibold hover:border-accent">
+          <button
+            type="button"
+            onClick={download}
+            className="rounded border border-line bg-panel px-3 py-1.5 text-sm font-semibold hover:border-accent"
+          >
             Export CSV
           </button>
-          <button type="button" onClick={() => void copy()} className="rounded border border-line bg-panel px-3 py-1.5 text-sm font-semibold hover:border-accent">
+          <button
+            type="button"
+            onClick={() => void copy()}
+            className="rounded border border-line bg-panel px-3 py-1.5 text-sm font-semibold hover:border-accent"
+          >
             {copied ? "Copied" : "Copy to clipboard"}
           </button>
         </div>
       </div>
       {failed.map((f) => (
-        <p key={f.property} role="alert" className="mt-2 rounded border border-danger/40 bg-red-50 px-3 py-2 text-sm text-danger">
+        <p
+          key={f.property}
+          role="alert"
+          className="mt-2 rounded border border-danger/40 bg-red-50 px-3 py-2 text-sm text-danger"
+        >
           {PROPERTY_NAMES[f.property]}: {f.error}
         </p>
       ))}
@@ -113,10 +179,17 @@ export function LookupResultsTable({
           <table className="w-full text-sm" data-testid="results-table">
             <thead className="sticky top-0 bg-surface text-ink-muted">
               <tr>
-                <th className="px-3 py-2 text-right font-semibold">Pressure ({units.pressure})</th>
-                <th className="px-3 py-2 text-right font-semibold">Temperature ({units.temperature})</th>
+                <th className="px-3 py-2 text-right font-semibold">
+                  Pressure ({units.pressure})
+                </th>
+                <th className="px-3 py-2 text-right font-semibold">
+                  Temperature ({units.temperature})
+                </th>
                 {ok.map((r) => (
-                  <th key={r.property} className="px-3 py-2 text-right font-semibold">
+                  <th
+                    key={r.property}
+                    className="px-3 py-2 text-right font-semibold"
+                  >
                     {PROPERTY_NAMES[r.property]} ({r.unit})
                   </th>
                 ))}
@@ -126,24 +199,44 @@ export function LookupResultsTable({
             <tbody>
               {conditions.map((c, i) => {
                 const codes = new Set<string>();
-                for (const r of ok) for (const w of warningsOf(r.results[i]!, c.pressure)) codes.add(w);
+                for (const r of ok)
+                  for (const w of warningsOf(r.results[i]!, c.pressure))
+                    codes.add(w);
                 return (
                   <tr key={i} className="border-t border-line align-top">
-                    <td className="px-3 py-1.5 text-right tabular-nums">{c.pressure}</td>
-                    <td className="px-3 py-1.5 text-right tabular-nums">{c.temperature}</td>
+                    <td className="px-3 py-1.5 text-right tabular-nums">
+                      {c.pressure}
+                    </td>
+                    <td className="px-3 py-1.5 text-right tabular-nums">
+                      {c.temperature}
+                    </td>
                     {ok.map((r) => {
                       const x = r.results[i]!;
-                      const serious = x.warnings.some((w) => SERIOUS_WARNINGS.has(w));
+                      const serious = x.warnings.some((w) =>
+                        SERIOUS_WARNINGS.has(w),
+                      );
                       if (x.value === null || x.errorEstimate === null) {
                         return (
-                          <td key={r.property} className="max-w-64 px-3 py-1.5 text-right" data-testid={`value-${r.property}-${i}`}>
-                            <span className="font-semibold text-danger">not computed</span>
-                            <div className="text-xs text-danger">{x.refusal?.message ?? "The server gave no value for this point."}</div>
+                          <td
+                            key={r.property}
+                            className="max-w-64 px-3 py-1.5 text-right"
+                            data-testid={`value-${r.property}-${i}`}
+                          >
+                            <span className="font-semibold text-danger">
+                              not computed
+                            </span>
+                            <div className="text-xs text-danger">
+                              {x.refusal?.message ??
+                                "The server gave no value for this point."}
+                            </div>
                           </td>
                         );
                       }
                       return (
-                        <td key={r.property} className="px-3 py-1.5 text-right tabular-nums">
+                        <td
+                          key={r.property}
+                          className="px-3 py-1.5 text-right tabular-nums"
+                        >
                           <button
                             type="button"
                             onClick={() => onExplain(i, r.property)}
@@ -179,7 +272,10 @@ export function LookupResultsTable({
           </table>
         </div>
       ) : null}
-      <p className="mt-2 text-xs text-ink-muted">Select a value to see how it was obtained. Hover a warning for its explanation.</p>
+      <p className="mt-2 text-xs text-ink-muted">
+        Select a value to see how it was obtained. Hover a warning for its
+        explanation.
+      </p>
     </section>
   );
 }

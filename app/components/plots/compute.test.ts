@@ -3,14 +3,25 @@
 // methods used are exact on them (a plane for linear and Newton), stated beside each check.
 import { describe, expect, test } from "vitest";
 import { interpolateGrid } from "~/core/interpolation";
-import { axisWith, curveOf, evaluatePoints, evaluateQueries, measuredPoints, surfaceOf } from "./compute";
+import {
+  axisWith,
+  curveOf,
+  evaluatePoints,
+  evaluateQueries,
+  measuredPoints,
+  surfaceOf,
+} from "./compute";
 import type { PlotGrid } from "./types";
 
 const P = [500, 1000, 1500, 2000, 2500, 3000];
 const T = [150, 180, 210, 240];
 // invented plane: linear and Newton interpolation reproduce it exactly
 const plane = (p: number, t: number) => 1.05 + 0.0001 * p + 0.0005 * t;
-const grid: PlotGrid = { pressures: P, temperatures: T, values: P.map((p) => T.map((t) => plane(p, t))) };
+const grid: PlotGrid = {
+  pressures: P,
+  temperatures: T,
+  values: P.map((p) => T.map((t) => plane(p, t))),
+};
 
 describe("axisWith", () => {
   test("even steps merged with the measured nodes, sorted, without duplicates", () => {
@@ -22,12 +33,16 @@ describe("axisWith", () => {
 describe("surfaceOf", () => {
   test("covers the measured range on an evenly spaced grid (Plotly refines uneven ones enormously), exact on a plane", () => {
     const s = surfaceOf(grid, "newton", 3, { pressures: 11, temperatures: 4 });
-    expect(s.pressures).toEqual([500, 750, 1000, 1250, 1500, 1750, 2000, 2250, 2500, 2750, 3000]);
+    expect(s.pressures).toEqual([
+      500, 750, 1000, 1250, 1500, 1750, 2000, 2250, 2500, 2750, 3000,
+    ]);
     expect(s.temperatures).toEqual([150, 180, 210, 240]);
     expect(s.z).toHaveLength(s.temperatures.length);
     s.z.forEach((row, k) => {
       expect(row).toHaveLength(s.pressures.length);
-      row.forEach((v, i) => expect(v).toBeCloseTo(plane(s.pressures[i]!, s.temperatures[k]!), 10));
+      row.forEach((v, i) =>
+        expect(v).toBeCloseTo(plane(s.pressures[i]!, s.temperatures[k]!), 10),
+      );
     });
     expect(s.min).toBeCloseTo(plane(500, 150), 10);
     expect(s.max).toBeCloseTo(plane(3000, 240), 10);
@@ -35,8 +50,16 @@ describe("surfaceOf", () => {
 
   test("points the engine refuses (an unmeasured corner) are left null, the rest is drawn", () => {
     // the two highest pressures were not measured at the two highest temperatures
-    const holes: PlotGrid = { ...grid, values: grid.values.map((row, i) => row.map((v, j) => (i >= 4 && j >= 2 ? null : v))) };
-    const s = surfaceOf(holes, "linear", undefined, { pressures: 11, temperatures: 4 });
+    const holes: PlotGrid = {
+      ...grid,
+      values: grid.values.map((row, i) =>
+        row.map((v, j) => (i >= 4 && j >= 2 ? null : v)),
+      ),
+    };
+    const s = surfaceOf(holes, "linear", undefined, {
+      pressures: 11,
+      temperatures: 4,
+    });
     const flat = s.z.flat();
     const empty = flat.filter((v) => v === null).length;
     expect(empty).toBeGreaterThan(0);
@@ -45,7 +68,11 @@ describe("surfaceOf", () => {
     s.z.forEach((row, k) =>
       row.forEach((v, i) => {
         if (v === null) return;
-        const r = interpolateGrid(holes, { pressure: s.pressures[i]!, temperature: s.temperatures[k]! }, { method: "linear" });
+        const r = interpolateGrid(
+          holes,
+          { pressure: s.pressures[i]!, temperature: s.temperatures[k]! },
+          { method: "linear" },
+        );
         expect(v).toBeCloseTo(r.value, 12);
       }),
     );
@@ -64,8 +91,21 @@ describe("evaluatePoints", () => {
   });
 
   test("a bad grid still throws", () => {
-    const bad: PlotGrid = { pressures: [2, 1], temperatures: [1], values: [[1], [2]] };
-    expect(() => evaluatePoints(bad, Float64Array.from([1.5]), Float64Array.from([1]), "linear", undefined, false)).toThrow();
+    const bad: PlotGrid = {
+      pressures: [2, 1],
+      temperatures: [1],
+      values: [[1], [2]],
+    };
+    expect(() =>
+      evaluatePoints(
+        bad,
+        Float64Array.from([1.5]),
+        Float64Array.from([1]),
+        "linear",
+        undefined,
+        false,
+      ),
+    ).toThrow();
   });
 });
 
@@ -87,8 +127,18 @@ describe("evaluateQueries", () => {
   });
 
   test("inside the table's range but past a column's last measured cell: beyond the envelope", () => {
-    const holes: PlotGrid = { ...grid, values: grid.values.map((row, i) => row.map((v, j) => (i >= 4 && j >= 2 ? null : v))) };
-    const [q] = evaluateQueries(holes, [{ pressure: 2900, temperature: 235 }], "linear", undefined);
+    const holes: PlotGrid = {
+      ...grid,
+      values: grid.values.map((row, i) =>
+        row.map((v, j) => (i >= 4 && j >= 2 ? null : v)),
+      ),
+    };
+    const [q] = evaluateQueries(
+      holes,
+      [{ pressure: 2900, temperature: 235 }],
+      "linear",
+      undefined,
+    );
     expect(q!.flag).toBe("beyond-envelope");
     expect(q!.value).toBeCloseTo(plane(2900, 235), 10);
   });
@@ -96,14 +146,19 @@ describe("evaluateQueries", () => {
 
 describe("curveOf", () => {
   test("bubble point from the engine, the measured column at a measured temperature, exact on a plane", () => {
-    const withPb: PlotGrid = { ...grid, bubblePoints: [1800, 1900, 2000, 2100] };
+    const withPb: PlotGrid = {
+      ...grid,
+      bubblePoints: [1800, 1900, 2000, 2100],
+    };
     const c = curveOf(withPb, 210, "newton", 3, 20);
     expect(c.bubblePoint?.pressure).toBeCloseTo(2000, 6);
     expect(c.pressures).toContain(c.bubblePoint!.pressure);
     expect(c.measured.map((m) => m.pressure)).toEqual(P);
     const noColumn = curveOf(withPb, 200, "newton", 3, 20);
     expect(noColumn.measured).toEqual([]);
-    c.values.forEach((v, i) => expect(v).toBeCloseTo(plane(c.pressures[i]!, 210), 8));
+    c.values.forEach((v, i) =>
+      expect(v).toBeCloseTo(plane(c.pressures[i]!, 210), 8),
+    );
   });
 
   test("no bubble points: none marked", () => {

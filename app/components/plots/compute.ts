@@ -3,7 +3,11 @@
  * pressure–temperature grid, curves along pressure at fixed temperatures, bubble points and query points.
  * Pure (no React, no Plotly), so it is unit-tested directly.
  */
-import { InterpolationError, WARNING_FLAGS, type Grid } from "~/core/interpolation";
+import {
+  InterpolationError,
+  WARNING_FLAGS,
+  type Grid,
+} from "~/core/interpolation";
 import { bubblePointsAt, lookupCanonical } from "~/core/lookup";
 import type { PlotGrid, PlotMethod, QueryFlag, QueryPoint } from "./types";
 
@@ -13,7 +17,10 @@ import type { PlotGrid, PlotMethod, QueryFlag, QueryPoint } from "./types";
  * million vertices, seconds of work with software WebGL. The surface is therefore sampled on an evenly spaced
  * grid (measured nodes are not inserted), and 60 × 30 refines to exactly 120 × 120.
  */
-export const DEFAULT_SURFACE_RESOLUTION = { pressures: 60, temperatures: 30 } as const;
+export const DEFAULT_SURFACE_RESOLUTION = {
+  pressures: 60,
+  temperatures: 30,
+} as const;
 export const DEFAULT_CURVE_RESOLUTION = 120;
 
 export type Evaluation = {
@@ -24,13 +31,21 @@ export type Evaluation = {
   refused: Uint8Array;
 };
 
-export function normalizeDegree(degree: number | [number, number] | undefined): [number, number] {
+export function normalizeDegree(
+  degree: number | [number, number] | undefined,
+): [number, number] {
   if (degree === undefined) return [3, 3];
   return typeof degree === "number" ? [degree, degree] : degree;
 }
 
 function asGrid(grid: PlotGrid): Grid {
-  return grid.bubblePoints ? grid : { pressures: grid.pressures, temperatures: grid.temperatures, values: grid.values };
+  return grid.bubblePoints
+    ? grid
+    : {
+        pressures: grid.pressures,
+        temperatures: grid.temperatures,
+        values: grid.values,
+      };
 }
 
 /**
@@ -57,13 +72,24 @@ export function evaluatePoints(
     const [start, end] = pending.pop()!;
     if (start >= end) continue;
     try {
-      const out = lookupCanonical(g, pressures.subarray(start, end), temperatures.subarray(start, end), options);
+      const out = lookupCanonical(
+        g,
+        pressures.subarray(start, end),
+        temperatures.subarray(start, end),
+        options,
+      );
       values.set(out.values, start);
       flags.set(out.flags, start);
     } catch (error) {
-      const k = error instanceof InterpolationError ? error.details.pointIndex : undefined;
-      const refusable = error instanceof InterpolationError && (error.code === "out-of-range" || error.code === "no-valid-zone");
-      if (!refusable || typeof k !== "number" || k < 0 || k >= end - start) throw error;
+      const k =
+        error instanceof InterpolationError
+          ? error.details.pointIndex
+          : undefined;
+      const refusable =
+        error instanceof InterpolationError &&
+        (error.code === "out-of-range" || error.code === "no-valid-zone");
+      if (!refusable || typeof k !== "number" || k < 0 || k >= end - start)
+        throw error;
       refused[start + k] = 1;
       pending.push([start, start + k], [start + k + 1, end]);
     }
@@ -72,27 +98,41 @@ export function evaluatePoints(
 }
 
 /** n evenly spaced values from a to b, merged with `extra` values inside [a, b], sorted, without near-duplicates. */
-export function axisWith(a: number, b: number, n: number, extra: readonly number[] = []): number[] {
+export function axisWith(
+  a: number,
+  b: number,
+  n: number,
+  extra: readonly number[] = [],
+): number[] {
   const base: number[] = [];
   if (n <= 1 || a === b) base.push(a);
   else for (let i = 0; i < n; i++) base.push(a + ((b - a) * i) / (n - 1));
   const lo = Math.min(a, b);
   const hi = Math.max(a, b);
-  const all = [...base, ...extra.filter((v) => Number.isFinite(v) && v >= lo && v <= hi)].sort((x, y) => x - y);
+  const all = [
+    ...base,
+    ...extra.filter((v) => Number.isFinite(v) && v >= lo && v <= hi),
+  ].sort((x, y) => x - y);
   const tol = Math.max(Math.abs(hi - lo), Math.abs(hi), 1) * 1e-9;
   const out: number[] = [];
-  for (const v of all) if (out.length === 0 || v - out[out.length - 1]! > tol) out.push(v);
+  for (const v of all)
+    if (out.length === 0 || v - out[out.length - 1]! > tol) out.push(v);
   return out;
 }
 
-export type MeasuredPoint = { pressure: number; temperature: number; value: number };
+export type MeasuredPoint = {
+  pressure: number;
+  temperature: number;
+  value: number;
+};
 
 export function measuredPoints(grid: PlotGrid): MeasuredPoint[] {
   const out: MeasuredPoint[] = [];
   grid.pressures.forEach((p, i) => {
     grid.temperatures.forEach((t, j) => {
       const v = grid.values[i]?.[j];
-      if (v !== null && v !== undefined && Number.isFinite(v)) out.push({ pressure: p, temperature: t, value: v });
+      if (v !== null && v !== undefined && Number.isFinite(v))
+        out.push({ pressure: p, temperature: t, value: v });
     });
   });
   return out;
@@ -112,12 +152,19 @@ export function surfaceOf(
   grid: PlotGrid,
   method: PlotMethod,
   degree: number | [number, number] | undefined,
-  resolution: { pressures: number; temperatures: number } = DEFAULT_SURFACE_RESOLUTION,
+  resolution: {
+    pressures: number;
+    temperatures: number;
+  } = DEFAULT_SURFACE_RESOLUTION,
 ): Surface {
   const P = grid.pressures;
   const T = grid.temperatures;
   const pressures = axisWith(P[0]!, P[P.length - 1]!, resolution.pressures);
-  const temperatures = axisWith(T[0]!, T[T.length - 1]!, resolution.temperatures);
+  const temperatures = axisWith(
+    T[0]!,
+    T[T.length - 1]!,
+    resolution.temperatures,
+  );
   const np = pressures.length;
   const nt = temperatures.length;
   const ps = new Float64Array(np * nt);
@@ -154,10 +201,18 @@ export function bubblePointsOf(
   method: PlotMethod,
   degree: number | [number, number] | undefined,
 ): (number | null)[] {
-  if (!grid.bubblePoints || temperatures.length === 0) return temperatures.map(() => null);
+  if (!grid.bubblePoints || temperatures.length === 0)
+    return temperatures.map(() => null);
   try {
-    const out = bubblePointsAt(asGrid(grid), Float64Array.from(temperatures), method === "auto" ? "newton" : method, normalizeDegree(degree)[1]);
-    return temperatures.map((_, k) => (out && Number.isFinite(out[k]!) ? out[k]! : null));
+    const out = bubblePointsAt(
+      asGrid(grid),
+      Float64Array.from(temperatures),
+      method === "auto" ? "newton" : method,
+      normalizeDegree(degree)[1],
+    );
+    return temperatures.map((_, k) =>
+      out && Number.isFinite(out[k]!) ? out[k]! : null,
+    );
   } catch {
     return temperatures.map(() => null);
   }
@@ -185,13 +240,27 @@ export function curveOf(
   const pMin = P[0]!;
   const pMax = P[P.length - 1]!;
   const pb = bubblePointsOf(grid, [temperature], method, degree)[0] ?? null;
-  const pressures = axisWith(pMin, pMax, resolution, pb === null ? P : [...P, pb]);
+  const pressures = axisWith(
+    pMin,
+    pMax,
+    resolution,
+    pb === null ? P : [...P, pb],
+  );
   const ts = new Float64Array(pressures.length).fill(temperature);
-  const { values } = evaluatePoints(grid, Float64Array.from(pressures), ts, method, degree, false);
+  const { values } = evaluatePoints(
+    grid,
+    Float64Array.from(pressures),
+    ts,
+    method,
+    degree,
+    false,
+  );
   const list = Array.from(values, (v) => (Number.isFinite(v) ? v : null));
   let bubblePoint: Curve["bubblePoint"] = null;
   if (pb !== null) {
-    const at = pressures.findIndex((p) => Math.abs(p - pb) <= Math.max(Math.abs(pb), 1) * 1e-9);
+    const at = pressures.findIndex(
+      (p) => Math.abs(p - pb) <= Math.max(Math.abs(pb), 1) * 1e-9,
+    );
     bubblePoint = { pressure: pb, value: at >= 0 ? (list[at] ?? null) : null };
   }
   const T = grid.temperatures;
@@ -201,7 +270,8 @@ export function curveOf(
   if (j >= 0) {
     P.forEach((p, i) => {
       const v = grid.values[i]?.[j];
-      if (v !== null && v !== undefined && Number.isFinite(v)) measured.push({ pressure: p, value: v });
+      if (v !== null && v !== undefined && Number.isFinite(v))
+        measured.push({ pressure: p, value: v });
     });
   }
   return { temperature, pressures, values: list, bubblePoint, measured };
@@ -224,17 +294,30 @@ export function evaluateQueries(
   if (queries.length === 0) return [];
   const ps = Float64Array.from(queries, (q) => q.pressure);
   const ts = Float64Array.from(queries, (q) => q.temperature);
-  const ok = queries.every((q) => Number.isFinite(q.pressure) && Number.isFinite(q.temperature));
-  const evaluation = ok ? evaluatePoints(grid, ps, ts, method, degree, true) : null;
+  const ok = queries.every(
+    (q) => Number.isFinite(q.pressure) && Number.isFinite(q.temperature),
+  );
+  const evaluation = ok
+    ? evaluatePoints(grid, ps, ts, method, degree, true)
+    : null;
   const P = grid.pressures;
   const T = grid.temperatures;
   return queries.map((q, k) => {
     const label = q.label ?? `Q${k + 1}`;
-    const inRange = q.pressure >= P[0]! && q.pressure <= P[P.length - 1]! && q.temperature >= T[0]! && q.temperature <= T[T.length - 1]!;
+    const inRange =
+      q.pressure >= P[0]! &&
+      q.pressure <= P[P.length - 1]! &&
+      q.temperature >= T[0]! &&
+      q.temperature <= T[T.length - 1]!;
     const v = evaluation?.values[k];
-    if (!evaluation || v === undefined || !Number.isFinite(v)) return { ...q, label, value: null, flag: "unavailable" };
+    if (!evaluation || v === undefined || !Number.isFinite(v))
+      return { ...q, label, value: null, flag: "unavailable" };
     const flags = evaluation.flags[k]!;
-    const flag: QueryFlag = !inRange ? "extrapolated" : flags & WARNING_FLAGS.extrapolated ? "beyond-envelope" : "inside";
+    const flag: QueryFlag = !inRange
+      ? "extrapolated"
+      : flags & WARNING_FLAGS.extrapolated
+        ? "beyond-envelope"
+        : "inside";
     return { ...q, label, value: v, flag };
   });
 }
@@ -242,6 +325,7 @@ export function evaluateQueries(
 export const QUERY_FLAG_TEXT: Record<QueryFlag, string> = {
   inside: "inside the measured data",
   extrapolated: "extrapolated: outside the measured pressure–temperature range",
-  "beyond-envelope": "beyond the measured envelope: inside the table's range, but past the last measured cell of a column",
+  "beyond-envelope":
+    "beyond the measured envelope: inside the table's range, but past the last measured cell of a column",
   unavailable: "no value: the engine cannot serve this point",
 };

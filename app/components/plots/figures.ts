@@ -6,7 +6,15 @@
  * the Okabe–Ito colours and, in addition, by line dash and marker symbol; query points have their own symbols
  * (a filled diamond or star, and a vermilion cross when flagged).
  */
-import type { Annotation, Data, Layout, ScatterData, Scatter3dData, Shape, SurfaceData } from "plotly.js-dist-min";
+import type {
+  Annotation,
+  Data,
+  Layout,
+  ScatterData,
+  Scatter3dData,
+  Shape,
+  SurfaceData,
+} from "plotly.js-dist-min";
 import {
   curveOf,
   DEFAULT_CURVE_RESOLUTION,
@@ -18,19 +26,43 @@ import {
   type EvaluatedQuery,
 } from "./compute";
 import { SLICES_HEIGHT, sceneGrid, surfaceHeight } from "./size";
-import type { PlotMethod, PlotSeries, PlotUnits, PropertySlicesProps, PropertySurfaceProps, QueryPoint } from "./types";
+import type {
+  PlotMethod,
+  PlotSeries,
+  PlotUnits,
+  PropertySlicesProps,
+  PropertySurfaceProps,
+  QueryPoint,
+} from "./types";
 
 /** Okabe–Ito colours (distinguishable with the common colour-vision deficiencies). */
-export const SERIES_COLOURS = ["#0072B2", "#E69F00", "#009E73", "#CC79A7"] as const;
+export const SERIES_COLOURS = [
+  "#0072B2",
+  "#E69F00",
+  "#009E73",
+  "#CC79A7",
+] as const;
 export const DASHES = ["solid", "dash", "dot", "dashdot"] as const;
-const SYMBOLS_2D = ["circle", "square", "triangle-up", "triangle-down"] as const;
+const SYMBOLS_2D = [
+  "circle",
+  "square",
+  "triangle-up",
+  "triangle-down",
+] as const;
 const SYMBOLS_3D = ["circle", "square", "circle-open", "square-open"] as const;
 const INK = "#1c2733";
 const FLAG = "#D55E00";
 const GRID_LINE = "#dfe4e1";
-export const FONT = { family: "Noto Sans, ui-sans-serif, system-ui, sans-serif", size: 12, color: INK };
+export const FONT = {
+  family: "Noto Sans, ui-sans-serif, system-ui, sans-serif",
+  size: 12,
+  color: INK,
+};
 
-export type Figure = { data: Data[]; layout: Partial<Layout> & Record<string, unknown> };
+export type Figure = {
+  data: Data[];
+  layout: Partial<Layout> & Record<string, unknown>;
+};
 
 /** Legend entry of query points outside the measured data (extrapolated or beyond the envelope). */
 export const FLAGGED_NAME = "Query points outside the data (*)";
@@ -39,7 +71,11 @@ const pick = <T>(list: readonly T[], i: number): T => list[i % list.length]!;
 
 /** Text for Plotly hover templates and annotations: its tags and %{…} placeholders are neutralised. */
 export function plotText(s: string): string {
-  return s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/%/g, "&#37;");
+  return s
+    .replace(/&/g, "&amp;")
+    .replace(/</g, "&lt;")
+    .replace(/>/g, "&gt;")
+    .replace(/%/g, "&#37;");
 }
 
 const NUM = ",.5~g";
@@ -52,7 +88,13 @@ function axisTitles(units: PlotUnits, valueLabel: string) {
   };
 }
 
-function hoverLines(units: PlotUnits, valueLabel: string, x = "x", y = "y", z = "z") {
+function hoverLines(
+  units: PlotUnits,
+  valueLabel: string,
+  x = "x",
+  y = "y",
+  z = "z",
+) {
   const u = plotText(units.value);
   return [
     `p ${"%{"}${x}:${NUM}} ${plotText(units.pressure)}`,
@@ -62,11 +104,21 @@ function hoverLines(units: PlotUnits, valueLabel: string, x = "x", y = "y", z = 
 }
 
 function formatNumber(v: number): string {
-  return Number(v.toPrecision(5)).toLocaleString("en-US", { maximumFractionDigits: 6 });
+  return Number(v.toPrecision(5)).toLocaleString("en-US", {
+    maximumFractionDigits: 6,
+  });
 }
 
-function queryHover(q: EvaluatedQuery, series: string, units: PlotUnits, valueLabel: string): string {
-  const value = q.value === null ? "no value" : `${formatNumber(q.value)}${units.value ? ` ${units.value}` : ""}`;
+function queryHover(
+  q: EvaluatedQuery,
+  series: string,
+  units: PlotUnits,
+  valueLabel: string,
+): string {
+  const value =
+    q.value === null
+      ? "no value"
+      : `${formatNumber(q.value)}${units.value ? ` ${units.value}` : ""}`;
   return plotText(
     `${q.label} · ${series}\np ${formatNumber(q.pressure)} ${units.pressure}\nT ${formatNumber(q.temperature)} ${units.temperature}\n${valueLabel} ${value}\n${QUERY_FLAG_TEXT[q.flag]}`,
   ).replace(/\n/g, "<br>");
@@ -103,7 +155,12 @@ function queryTraces3d(
       ...common(ok),
       name: "Query points",
       text: ok.map((q) => plotText(q.label)),
-      marker: { symbol: "diamond", size: 7, color: "#000000", line: { color: "#ffffff", width: 1 } },
+      marker: {
+        symbol: "diamond",
+        size: 7,
+        color: "#000000",
+        line: { color: "#ffffff", width: 1 },
+      },
       textfont: { color: "#000000", size: 12, family: FONT.family },
     });
   }
@@ -114,7 +171,12 @@ function queryTraces3d(
       legendgroup: "query-flagged",
       text: flagged.map((q) => plotText(`${q.label}*`)),
       // 3D markers are drawn as text glyphs: "x" and "cross" have none in the app's font, the open diamond has
-      marker: { symbol: "diamond-open", size: 8, color: FLAG, line: { color: FLAG, width: 2 } },
+      marker: {
+        symbol: "diamond-open",
+        size: 8,
+        color: FLAG,
+        line: { color: FLAG, width: 2 },
+      },
       textfont: { color: FLAG, size: 12, family: FONT.family },
     });
   }
@@ -123,23 +185,37 @@ function queryTraces3d(
 
 type SurfaceInput = Pick<
   PropertySurfaceProps,
-  "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "arrangement" | "resolution" | "height"
+  | "series"
+  | "valueLabel"
+  | "units"
+  | "method"
+  | "degree"
+  | "queryPoints"
+  | "arrangement"
+  | "resolution"
+  | "height"
 > & { narrow?: boolean };
 
 export function surfaceFigure(input: SurfaceInput): Figure {
   const method: PlotMethod = input.method ?? "auto";
-  const series = input.series.filter((s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0);
-  const arrangement = series.length > 1 ? (input.arrangement ?? "overlaid") : "side-by-side";
+  const series = input.series.filter(
+    (s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0,
+  );
+  const arrangement =
+    series.length > 1 ? (input.arrangement ?? "overlaid") : "side-by-side";
   const titles = axisTitles(input.units, input.valueLabel);
   const resolution = input.resolution ?? DEFAULT_SURFACE_RESOLUTION;
-  const surfaces = series.map((s) => surfaceOf(s.grid, method, input.degree, resolution));
+  const surfaces = series.map((s) =>
+    surfaceOf(s.grid, method, input.degree, resolution),
+  );
   const cmin = Math.min(...surfaces.map((s) => s.min));
   const cmax = Math.max(...surfaces.map((s) => s.max));
   const queries = input.queryPoints ?? [];
   const data: Data[] = [];
   const overlaid = arrangement === "overlaid";
   const sceneCount = overlaid ? 1 : series.length;
-  const sceneId = (k: number) => (overlaid || k === 0 ? "scene" : `scene${k + 1}`);
+  const sceneId = (k: number) =>
+    overlaid || k === 0 ? "scene" : `scene${k + 1}`;
   const hover = hoverLines(input.units, input.valueLabel);
 
   series.forEach((s, k) => {
@@ -167,7 +243,12 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         opacity: 0.82,
         showlegend: true,
         legendgroup: `series-${k}`,
-        lighting: { ambient: 0.65, diffuse: 0.6, specular: 0.05, roughness: 0.9 },
+        lighting: {
+          ambient: 0.65,
+          diffuse: 0.6,
+          specular: 0.05,
+          roughness: 0.9,
+        },
       });
     } else {
       Object.assign(trace, {
@@ -176,7 +257,13 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         cmax,
         showscale: k === series.length - 1,
         showlegend: false,
-        colorbar: { title: { text: plotText(titles.value), side: "right" }, thickness: 14, len: 0.75, outlinewidth: 0, tickfont: { size: 11 } },
+        colorbar: {
+          title: { text: plotText(titles.value), side: "right" },
+          thickness: 14,
+          len: 0.75,
+          outlinewidth: 0,
+          tickfont: { size: 11 },
+        },
       });
     }
     data.push(trace);
@@ -192,14 +279,33 @@ export function surfaceFigure(input: SurfaceInput): Figure {
       z: measured.map((m) => m.value),
       hovertemplate: `<b>${plotText(s.label)}</b><br>${hover.join("<br>")}<extra>measured</extra>`,
       marker: overlaid
-        ? { symbol: pick(SYMBOLS_3D, k), size: 3.5, color: colour, line: { color: INK, width: 1 } }
-        : { symbol: "circle", size: 3, color: "#ffffff", line: { color: INK, width: 1.5 } },
+        ? {
+            symbol: pick(SYMBOLS_3D, k),
+            size: 3.5,
+            color: colour,
+            line: { color: INK, width: 1 },
+          }
+        : {
+            symbol: "circle",
+            size: 3,
+            color: "#ffffff",
+            line: { color: INK, width: 1.5 },
+          },
       legendgroup: overlaid ? `series-${k}` : "measured",
       showlegend: overlaid ? false : k === 0,
     };
     data.push(markers);
     const evaluated = evaluateQueries(s.grid, queries, method, input.degree);
-    data.push(...queryTraces3d(evaluated, s, input.units, input.valueLabel, scene, overlaid ? k === 0 : k === 0));
+    data.push(
+      ...queryTraces3d(
+        evaluated,
+        s,
+        input.units,
+        input.valueLabel,
+        scene,
+        overlaid ? k === 0 : k === 0,
+      ),
+    );
   });
 
   const narrow = input.narrow ?? false;
@@ -216,7 +322,13 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         x: [col * width, (col + 1) * width - 0.01],
         y: [1 - (row + 1) * heightShare, 1 - row * heightShare - titleRoom],
       },
-      xaxis: { title: { text: plotText(titles.pressure) }, gridcolor: GRID_LINE, backgroundcolor: "#ffffff", showbackground: true, hoverformat: NUM },
+      xaxis: {
+        title: { text: plotText(titles.pressure) },
+        gridcolor: GRID_LINE,
+        backgroundcolor: "#ffffff",
+        showbackground: true,
+        hoverformat: NUM,
+      },
       yaxis: {
         title: { text: plotText(titles.temperature) },
         gridcolor: GRID_LINE,
@@ -224,15 +336,27 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         showbackground: true,
         hoverformat: NUM,
       },
-      zaxis: { title: { text: plotText(titles.value) }, gridcolor: GRID_LINE, backgroundcolor: "#f6f7f5", showbackground: true, hoverformat: NUM },
+      zaxis: {
+        title: { text: plotText(titles.value) },
+        gridcolor: GRID_LINE,
+        backgroundcolor: "#f6f7f5",
+        showbackground: true,
+        hoverformat: NUM,
+      },
       aspectmode: "manual",
       aspectratio: { x: 1.35, y: 1, z: 0.75 },
       // narrow side-by-side scenes need the camera further back, or the axis titles fall outside
       camera: narrow
         ? { eye: { x: 1.85, y: -2.0, z: 1.1 }, center: { x: 0, y: 0, z: -0.1 } }
         : sceneCount > 1
-          ? { eye: { x: 1.6, y: -1.75, z: 0.95 }, center: { x: 0, y: 0, z: -0.1 } }
-          : { eye: { x: 1.3, y: -1.45, z: 0.75 }, center: { x: 0, y: 0, z: -0.2 } },
+          ? {
+              eye: { x: 1.6, y: -1.75, z: 0.95 },
+              center: { x: 0, y: 0, z: -0.1 },
+            }
+          : {
+              eye: { x: 1.3, y: -1.45, z: 0.75 },
+              center: { x: 0, y: 0, z: -0.2 },
+            },
     };
   };
   const layout: Figure["layout"] = {
@@ -242,7 +366,14 @@ export function surfaceFigure(input: SurfaceInput): Figure {
     height: input.height ?? surfaceHeight(series.length, arrangement, narrow),
     autosize: true,
     showlegend: true,
-    legend: { orientation: "h", x: 0, y: 0, yanchor: "bottom", bgcolor: "rgba(255,255,255,0.8)", font: { size: 12 } },
+    legend: {
+      orientation: "h",
+      x: 0,
+      y: 0,
+      yanchor: "bottom",
+      bgcolor: "rgba(255,255,255,0.8)",
+      font: { size: 12 },
+    },
     hoverlabel: { font: { family: FONT.family, size: 12 } },
     uirevision: "isopleth-surface",
   };
@@ -269,7 +400,15 @@ export function surfaceFigure(input: SurfaceInput): Figure {
 
 type SlicesInput = Pick<
   PropertySlicesProps,
-  "series" | "valueLabel" | "units" | "method" | "degree" | "queryPoints" | "temperatures" | "resolution" | "height"
+  | "series"
+  | "valueLabel"
+  | "units"
+  | "method"
+  | "degree"
+  | "queryPoints"
+  | "temperatures"
+  | "resolution"
+  | "height"
 > & { narrow?: boolean };
 
 /** The default slice temperatures: the measured temperatures of the first series. */
@@ -279,10 +418,14 @@ export function defaultSliceTemperatures(series: PlotSeries[]): number[] {
 
 export function slicesFigure(input: SlicesInput): Figure {
   const method: PlotMethod = input.method ?? "auto";
-  const series = input.series.filter((s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0);
-  const temperatures = (input.temperatures && input.temperatures.length > 0 ? input.temperatures : defaultSliceTemperatures(series)).filter(
-    Number.isFinite,
+  const series = input.series.filter(
+    (s) => s.grid.pressures.length > 0 && s.grid.temperatures.length > 0,
   );
+  const temperatures = (
+    input.temperatures && input.temperatures.length > 0
+      ? input.temperatures
+      : defaultSliceTemperatures(series)
+  ).filter(Number.isFinite);
   const titles = axisTitles(input.units, input.valueLabel);
   const units = input.units;
   const many = series.length > 1;
@@ -292,7 +435,19 @@ export function slicesFigure(input: SlicesInput): Figure {
   const hover = hoverLines(units, input.valueLabel);
   const tUnit = units.temperature;
   const curves = series.flatMap((s, k) =>
-    temperatures.map((t, j) => ({ s, k, t, j, curve: curveOf(s.grid, t, method, input.degree, input.resolution ?? DEFAULT_CURVE_RESOLUTION) })),
+    temperatures.map((t, j) => ({
+      s,
+      k,
+      t,
+      j,
+      curve: curveOf(
+        s.grid,
+        t,
+        method,
+        input.degree,
+        input.resolution ?? DEFAULT_CURVE_RESOLUTION,
+      ),
+    })),
   );
   // with many curves the dashed lines and labels would bury the data: the hollow diamonds remain
   const annotateBubble = curves.filter((c) => c.curve.bubblePoint).length <= 6;
@@ -301,9 +456,16 @@ export function slicesFigure(input: SlicesInput): Figure {
 
   for (const { s, k, t, j, curve } of curves) {
     const colour = many ? pick(SERIES_COLOURS, k) : pick(SERIES_COLOURS, j);
-    const dash = many && temperatures.length > 1 ? pick(DASHES, j) : many ? pick(DASHES, k) : pick(DASHES, j);
+    const dash =
+      many && temperatures.length > 1
+        ? pick(DASHES, j)
+        : many
+          ? pick(DASHES, k)
+          : pick(DASHES, j);
     const symbol = many ? pick(SYMBOLS_2D, k) : pick(SYMBOLS_2D, j);
-    const name = many ? `${s.label} · ${formatNumber(t)} ${tUnit}` : `${formatNumber(t)} ${tUnit}`;
+    const name = many
+      ? `${s.label} · ${formatNumber(t)} ${tUnit}`
+      : `${formatNumber(t)} ${tUnit}`;
     const group = `curve-${k}-${j}`;
     const tLine = `T ${formatNumber(t)} ${plotText(tUnit)}`;
     data.push({
@@ -326,7 +488,12 @@ export function slicesFigure(input: SlicesInput): Figure {
         showlegend: false,
         x: curve.measured.map((m) => m.pressure),
         y: curve.measured.map((m) => m.value),
-        marker: { symbol, size: 8, color: colour, line: { color: INK, width: 1 } },
+        marker: {
+          symbol,
+          size: 8,
+          color: colour,
+          line: { color: INK, width: 1 },
+        },
         hovertemplate: `<b>${plotText(s.label)}</b><br>${hover[0]}<br>${tLine}<br>${hover[2]}<extra>measured</extra>`,
       } satisfies Partial<ScatterData>);
     }
@@ -354,7 +521,12 @@ export function slicesFigure(input: SlicesInput): Figure {
           showlegend: false,
           x: [pb.pressure],
           y: [pb.value],
-          marker: { symbol: "diamond-wide", size: 13, color: "#ffffff", line: { color: colour, width: 2.5 } },
+          marker: {
+            symbol: "diamond-wide",
+            size: 13,
+            color: "#ffffff",
+            line: { color: colour, width: 2.5 },
+          },
           hovertemplate:
             plotText(`Bubble point of ${s.label}`) +
             `<br>pb ${formatNumber(pb.pressure)} ${plotText(units.pressure)}<br>${tLine}<br>${plotText(input.valueLabel)} %{y:${NUM}} ${plotText(units.value)}<extra></extra>`,
@@ -385,7 +557,12 @@ export function slicesFigure(input: SlicesInput): Figure {
       name: "Bubble point",
       x: [null],
       y: [null],
-      marker: { symbol: "diamond-wide", size: 13, color: "#ffffff", line: { color: INK, width: 2 } },
+      marker: {
+        symbol: "diamond-wide",
+        size: 13,
+        color: "#ffffff",
+        line: { color: INK, width: 2 },
+      },
       hoverinfo: "skip",
     } satisfies Partial<ScatterData>);
   }
@@ -394,19 +571,35 @@ export function slicesFigure(input: SlicesInput): Figure {
   const queries: QueryPoint[] = input.queryPoints ?? [];
   if (queries.length > 0) {
     // labelled once (on the first sample's curve); the other samples' markers say which point they are on hover
-    const all = series.flatMap((s, k) => evaluateQueries(s.grid, queries, method, input.degree).map((q) => ({ q, s, labelled: k === 0 })));
+    const all = series.flatMap((s, k) =>
+      evaluateQueries(s.grid, queries, method, input.degree).map((q) => ({
+        q,
+        s,
+        labelled: k === 0,
+      })),
+    );
     const shown = all.filter(({ q }) => q.value !== null);
     const groups = [
       {
         list: shown.filter(({ q }) => q.flag === "inside"),
         name: "Query points",
-        marker: { symbol: "star" as const, size: 13, color: "#000000", line: { color: "#ffffff", width: 1 } },
+        marker: {
+          symbol: "star" as const,
+          size: 13,
+          color: "#000000",
+          line: { color: "#ffffff", width: 1 },
+        },
         text: "#000000",
       },
       {
         list: shown.filter(({ q }) => q.flag !== "inside"),
         name: FLAGGED_NAME,
-        marker: { symbol: "x" as const, size: 11, color: FLAG, line: { color: "#ffffff", width: 0.5 } },
+        marker: {
+          symbol: "x" as const,
+          size: 11,
+          color: FLAG,
+          line: { color: "#ffffff", width: 0.5 },
+        },
         text: FLAG,
       },
     ];
@@ -418,11 +611,17 @@ export function slicesFigure(input: SlicesInput): Figure {
         name: g.name,
         x: g.list.map(({ q }) => q.pressure),
         y: g.list.map(({ q }) => q.value),
-        text: g.list.map(({ q, labelled }) => (labelled ? plotText(q.flag === "inside" ? q.label : `${q.label}*`) : "")),
+        text: g.list.map(({ q, labelled }) =>
+          labelled
+            ? plotText(q.flag === "inside" ? q.label : `${q.label}*`)
+            : "",
+        ),
         textposition: "top center",
         textfont: { color: g.text, size: 12, family: FONT.family },
         marker: g.marker,
-        hovertext: g.list.map(({ q, s }) => queryHover(q, s.label, units, input.valueLabel)),
+        hovertext: g.list.map(({ q, s }) =>
+          queryHover(q, s.label, units, input.valueLabel),
+        ),
         hoverinfo: "text",
       } satisfies Partial<ScatterData>);
     }
@@ -435,10 +634,18 @@ export function slicesFigure(input: SlicesInput): Figure {
     height:
       input.height ??
       (input.narrow
-        ? SLICES_HEIGHT + 24 * Math.ceil(data.filter((d) => (d as { showlegend?: boolean }).showlegend !== false).length / 2)
+        ? SLICES_HEIGHT +
+          24 *
+            Math.ceil(
+              data.filter(
+                (d) => (d as { showlegend?: boolean }).showlegend !== false,
+              ).length / 2,
+            )
         : SLICES_HEIGHT),
     autosize: true,
-    margin: input.narrow ? { l: 56, r: 8, t: 16, b: 56 } : { l: 72, r: 16, t: 16, b: 56 },
+    margin: input.narrow
+      ? { l: 56, r: 8, t: 16, b: 56 }
+      : { l: 72, r: 16, t: 16, b: 56 },
     xaxis: {
       title: { text: plotText(titles.pressure) },
       gridcolor: GRID_LINE,
@@ -459,8 +666,21 @@ export function slicesFigure(input: SlicesInput): Figure {
     showlegend: true,
     // narrow screens: the legend goes under the axes instead of taking half the width
     legend: input.narrow
-      ? { orientation: "h", x: 0, xanchor: "left", y: -0.18, yanchor: "top", font: { size: 11 } }
-      : { orientation: "v", x: 1.01, xanchor: "left", y: 1, font: { size: 12 } },
+      ? {
+          orientation: "h",
+          x: 0,
+          xanchor: "left",
+          y: -0.18,
+          yanchor: "top",
+          font: { size: 11 },
+        }
+      : {
+          orientation: "v",
+          x: 1.01,
+          xanchor: "left",
+          y: 1,
+          font: { size: 12 },
+        },
     hoverlabel: { font: { family: FONT.family, size: 12 } },
     shapes,
     annotations,

@@ -1,6 +1,11 @@
 // Plot components for property grids. Safe to import anywhere: Plotly itself is loaded lazily, in the browser
 // only, by the components below. See README.md.
-export { PlotPlaceholder, PropertySlices, PropertySurface, preloadPlots } from "./lazy-plot";
+export {
+  PlotPlaceholder,
+  PropertySlices,
+  PropertySurface,
+  preloadPlots,
+} from "./lazy-plot";
 export type {
   CommonPlotProps,
   PlotGrid,

@@ -3,7 +3,14 @@
  * loading box (role="status"); after mount they load plots.client.tsx (and with it Plotly) with a lazy
  * import inside Suspense. A failed chunk load shows a message instead of breaking the page.
  */
-import { Component, lazy, Suspense, useEffect, useState, type ReactNode } from "react";
+import {
+  Component,
+  lazy,
+  Suspense,
+  useEffect,
+  useState,
+  type ReactNode,
+} from "react";
 import { SLICES_HEIGHT, surfaceHeight } from "./size";
 import type { PropertySlicesProps, PropertySurfaceProps } from "./types";
 
@@ -18,8 +25,12 @@ export function preloadPlots() {
   return loading;
 }
 
-const LazySurface = lazy(() => preloadPlots().then((m) => ({ default: m.SurfaceFigure })));
-const LazySlices = lazy(() => preloadPlots().then((m) => ({ default: m.SlicesFigure })));
+const LazySurface = lazy(() =>
+  preloadPlots().then((m) => ({ default: m.SurfaceFigure })),
+);
+const LazySlices = lazy(() =>
+  preloadPlots().then((m) => ({ default: m.SlicesFigure })),
+);
 
 function useMounted() {
   const [mounted, setMounted] = useState(false);
@@ -27,7 +38,15 @@ function useMounted() {
   return mounted;
 }
 
-export function PlotPlaceholder({ text, height, className = "" }: { text: string; height: number; className?: string }) {
+export function PlotPlaceholder({
+  text,
+  height,
+  className = "",
+}: {
+  text: string;
+  height: number;
+  className?: string;
+}) {
   return (
     <div
       role="status"
@@ -36,14 +55,20 @@ export function PlotPlaceholder({ text, height, className = "" }: { text: string
       style={{ height }}
     >
       <span className="flex items-center gap-2">
-        <span aria-hidden="true" className="inline-block h-3 w-3 animate-pulse rounded-full bg-accent/60" />
+        <span
+          aria-hidden="true"
+          className="inline-block h-3 w-3 animate-pulse rounded-full bg-accent/60"
+        />
         {text}
       </span>
     </div>
   );
 }
 
-class PlotErrorBoundary extends Component<{ height: number; children: ReactNode }, { failed: boolean }> {
+class PlotErrorBoundary extends Component<
+  { height: number; children: ReactNode },
+  { failed: boolean }
+> {
   state = { failed: false };
   static getDerivedStateFromError() {
     return { failed: true };
@@ -56,21 +81,36 @@ class PlotErrorBoundary extends Component<{ height: number; children: ReactNode 
         className="flex items-center justify-center rounded border border-line bg-panel p-6 text-sm text-danger"
         style={{ height: this.props.height }}
       >
-        The plotting code could not be loaded. Check the connection and reload the page; the numbers above do not depend on it.
+        The plotting code could not be loaded. Check the connection and reload
+        the page; the numbers above do not depend on it.
       </div>
     );
   }
 }
 
 function surfaceHeightOf(props: PropertySurfaceProps) {
-  return props.height ?? surfaceHeight(props.series.length, props.series.length > 1 ? (props.arrangement ?? "overlaid") : "side-by-side");
+  return (
+    props.height ??
+    surfaceHeight(
+      props.series.length,
+      props.series.length > 1
+        ? (props.arrangement ?? "overlaid")
+        : "side-by-side",
+    )
+  );
 }
 
 /** 3D surface of one property for one or several samples (see README.md). */
 export function PropertySurface(props: PropertySurfaceProps) {
   const mounted = useMounted();
   const height = surfaceHeightOf(props);
-  const placeholder = <PlotPlaceholder text="Loading the 3D surface…" height={height} className={props.className} />;
+  const placeholder = (
+    <PlotPlaceholder
+      text="Loading the 3D surface…"
+      height={height}
+      className={props.className}
+    />
+  );
   if (!mounted) return placeholder;
   return (
     <PlotErrorBoundary height={height}>
@@ -85,7 +125,13 @@ export function PropertySurface(props: PropertySurfaceProps) {
 export function PropertySlices(props: PropertySlicesProps) {
   const mounted = useMounted();
   const height = props.height ?? SLICES_HEIGHT;
-  const placeholder = <PlotPlaceholder text="Loading the pressure slices…" height={height} className={props.className} />;
+  const placeholder = (
+    <PlotPlaceholder
+      text="Loading the pressure slices…"
+      height={height}
+      className={props.className}
+    />
+  );
   if (!mounted) return placeholder;
   return (
     <PlotErrorBoundary height={height}>

@@ -20,7 +20,10 @@ performance.mark("isopleth:plotly-ready");
 const CONFIG = {
   // Plotly draws 3D scenes at twice the CSS resolution by default; with software WebGL (no GPU) that quadruples
   // the work of every frame. The screen's own ratio keeps them sharp on high-density displays.
-  plotGlPixelRatio: typeof window === "undefined" ? 1 : Math.min(window.devicePixelRatio || 1, 2),
+  plotGlPixelRatio:
+    typeof window === "undefined"
+      ? 1
+      : Math.min(window.devicePixelRatio || 1, 2),
   displaylogo: false,
   responsive: true,
   modeBarButtonsToRemove: ["sendDataToCloud", "lasso2d", "select2d"],
@@ -31,7 +34,9 @@ type State = "drawing" | "drawn" | "error";
 
 /** True on screens narrower than NARROW_WIDTH (after mount; this module never runs on the server). */
 function useNarrow(): boolean {
-  const [narrow, setNarrow] = useState(() => window.matchMedia(`(max-width: ${NARROW_WIDTH}px)`).matches);
+  const [narrow, setNarrow] = useState(
+    () => window.matchMedia(`(max-width: ${NARROW_WIDTH}px)`).matches,
+  );
   useEffect(() => {
     const query = window.matchMedia(`(max-width: ${NARROW_WIDTH}px)`);
     const update = () => setNarrow(query.matches);
@@ -65,7 +70,10 @@ function FigureView({
     try {
       return { figure: build(), error: null };
     } catch (error) {
-      return { figure: null, error: error instanceof Error ? error.message : String(error) };
+      return {
+        figure: null,
+        error: error instanceof Error ? error.message : String(error),
+      };
     }
     // `key` stands for the inputs
   }, [key]);
@@ -85,7 +93,13 @@ function FigureView({
     );
   }
   return (
-    <div className={className} data-testid={testId} data-state={state} role="figure" aria-label={label}>
+    <div
+      className={className}
+      data-testid={testId}
+      data-state={state}
+      role="figure"
+      aria-label={label}
+    >
       <Plot
         data={result.figure.data}
         layout={result.figure.layout}
@@ -109,7 +123,19 @@ function FigureView({
 
 export function SurfaceFigure(props: PropertySurfaceProps) {
   const narrow = useNarrow();
-  const { series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height, className, onReady } = props;
+  const {
+    series,
+    valueLabel,
+    units,
+    method,
+    degree,
+    queryPoints,
+    arrangement,
+    resolution,
+    height,
+    className,
+    onReady,
+  } = props;
   return (
     <FigureView
       testId="property-surface"
@@ -117,15 +143,51 @@ export function SurfaceFigure(props: PropertySurfaceProps) {
       height={height ?? 460}
       className={className}
       onReady={onReady}
-      build={() => surfaceFigure({ series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height, narrow })}
-      inputs={[series, valueLabel, units, method, degree, queryPoints, arrangement, resolution, height, narrow]}
+      build={() =>
+        surfaceFigure({
+          series,
+          valueLabel,
+          units,
+          method,
+          degree,
+          queryPoints,
+          arrangement,
+          resolution,
+          height,
+          narrow,
+        })
+      }
+      inputs={[
+        series,
+        valueLabel,
+        units,
+        method,
+        degree,
+        queryPoints,
+        arrangement,
+        resolution,
+        height,
+        narrow,
+      ]}
     />
   );
 }
 
 export function SlicesFigure(props: PropertySlicesProps) {
   const narrow = useNarrow();
-  const { series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height, className, onReady } = props;
+  const {
+    series,
+    valueLabel,
+    units,
+    method,
+    degree,
+    queryPoints,
+    temperatures,
+    resolution,
+    height,
+    className,
+    onReady,
+  } = props;
   return (
     <FigureView
       testId="property-slices"
@@ -133,8 +195,32 @@ export function SlicesFigure(props: PropertySlicesProps) {
       height={height ?? 420}
       className={className}
       onReady={onReady}
-      build={() => slicesFigure({ series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height, narrow })}
-      inputs={[series, valueLabel, units, method, degree, queryPoints, temperatures, resolution, height, narrow]}
+      build={() =>
+        slicesFigure({
+          series,
+          valueLabel,
+          units,
+          method,
+          degree,
+          queryPoints,
+          temperatures,
+          resolution,
+          height,
+          narrow,
+        })
+      }
+      inputs={[
+        series,
+        valueLabel,
+        units,
+        method,
+        degree,
+        queryPoints,
+        temperatures,
+        resolution,
+        height,
+        narrow,
+      ]}
     />
   );
 }

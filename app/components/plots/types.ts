@@ -25,7 +25,11 @@ export type PlotSeries = {
 };
 
 /** Unit symbols as shown on axes and in hover labels, e.g. { pressure: "psia", temperature: "°F", value: "rb/STB" }. */
-export type PlotUnits = { pressure: string; temperature: string; value: string };
+export type PlotUnits = {
+  pressure: string;
+  temperature: string;
+  value: string;
+};
 
 /** "auto" is newton with pchip where newton overshoots, as the lookup API does. */
 export type PlotMethod = "auto" | "newton" | "pchip" | "linear";
@@ -39,7 +43,8 @@ export type QueryPoint = {
 };
 
 /** How a query point relates to the measured data of one series. */
-export type QueryFlag = "inside" | "extrapolated" | "beyond-envelope" | "unavailable";
+export type QueryFlag =
+  "inside" | "extrapolated" | "beyond-envelope" | "unavailable";
 
 /** Props shared by PropertySurface and PropertySlices. */
 export type CommonPlotProps = {

@@ -1,6 +1,11 @@
 import { formatValue } from "./format";
 import { PROPERTY_LABELS, SEVERITY_LABELS } from "./labels";
-import type { CellMark, DisplayBubblePoints, DisplayGrid, Severity } from "./types";
+import type {
+  CellMark,
+  DisplayBubblePoints,
+  DisplayGrid,
+  Severity,
+} from "./types";
 
 /*
  * A measured grid as a table: pressures down, temperatures across, the value unit in the header, numbers
@@ -9,17 +14,26 @@ import type { CellMark, DisplayBubblePoints, DisplayGrid, Severity } from "./typ
  */
 
 export const MARK_STYLES: Record<Severity, string> = {
-  error: "bg-red-100 text-danger ring-1 ring-inset ring-danger/50 font-semibold",
-  warning: "bg-caution-soft text-caution ring-1 ring-inset ring-caution/40 font-semibold",
+  error:
+    "bg-red-100 text-danger ring-1 ring-inset ring-danger/50 font-semibold",
+  warning:
+    "bg-caution-soft text-caution ring-1 ring-inset ring-caution/40 font-semibold",
   info: "bg-accent-soft text-accent-strong",
 };
 
-function Marker({ mark, linkFindings }: { mark: CellMark; linkFindings: boolean }) {
+function Marker({
+  mark,
+  linkFindings,
+}: {
+  mark: CellMark;
+  linkFindings: boolean;
+}) {
   return (
     <sup className="ml-0.5 text-[0.65rem] font-semibold">
       <span className="sr-only">
         {" "}
-        ({SEVERITY_LABELS[mark.severity].toLowerCase()}, finding {mark.findings.join(", ")})
+        ({SEVERITY_LABELS[mark.severity].toLowerCase()}, finding{" "}
+        {mark.findings.join(", ")})
       </span>
       <span aria-hidden="true">
         {mark.findings.map((n, k) => (
@@ -39,19 +53,37 @@ function Marker({ mark, linkFindings }: { mark: CellMark; linkFindings: boolean 
   );
 }
 
-export function GridTable({ grid, linkFindings = true, caption }: { grid: DisplayGrid; linkFindings?: boolean; caption?: React.ReactNode }) {
+export function GridTable({
+  grid,
+  linkFindings = true,
+  caption,
+}: {
+  grid: DisplayGrid;
+  linkFindings?: boolean;
+  caption?: React.ReactNode;
+}) {
   const label = PROPERTY_LABELS[grid.property];
-  const unit = grid.unit === "–" || grid.unit === "-" || grid.unit === "" ? "" : ` (${grid.unit})`;
+  const unit =
+    grid.unit === "–" || grid.unit === "-" || grid.unit === ""
+      ? ""
+      : ` (${grid.unit})`;
   const flagged = Object.keys(grid.marks).length;
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-panel" data-testid={`grid-${grid.property}`}>
+    <div
+      className="overflow-x-auto rounded-lg border border-line bg-panel"
+      data-testid={`grid-${grid.property}`}
+    >
       <table className="w-full text-sm">
         <caption className="px-3 pt-3 pb-2 text-left">
           <span className="font-semibold">
             {label.name}, {label.symbol}
             {unit}
           </span>
-          {grid.sourceUnit ? <span className="ml-2 text-xs text-ink-muted">reported by the laboratory in {grid.sourceUnit}</span> : null}
+          {grid.sourceUnit ? (
+            <span className="ml-2 text-xs text-ink-muted">
+              reported by the laboratory in {grid.sourceUnit}
+            </span>
+          ) : null}
           {flagged > 0 ? (
             <span className="ml-2 text-xs text-ink-muted">
               {flagged} flagged {flagged === 1 ? "cell" : "cells"}
@@ -61,17 +93,29 @@ export function GridTable({ grid, linkFindings = true, caption }: { grid: Displa
         </caption>
         <thead className="bg-surface text-ink-muted">
           <tr>
-            <th scope="col" rowSpan={2} className="px-3 py-1.5 text-right align-bottom font-semibold">
+            <th
+              scope="col"
+              rowSpan={2}
+              className="px-3 py-1.5 text-right align-bottom font-semibold"
+            >
               Pressure ({grid.pressureUnit})
             </th>
-            <th scope="colgroup" colSpan={grid.temperatures.length} className="px-3 py-1.5 text-center font-semibold">
+            <th
+              scope="colgroup"
+              colSpan={grid.temperatures.length}
+              className="px-3 py-1.5 text-center font-semibold"
+            >
               {label.symbol}
               {unit} at temperature ({grid.temperatureUnit})
             </th>
           </tr>
           <tr>
             {grid.temperatures.map((t, j) => (
-              <th key={j} scope="col" className="px-3 py-1.5 text-right font-semibold tabular-nums">
+              <th
+                key={j}
+                scope="col"
+                className="px-3 py-1.5 text-right font-semibold tabular-nums"
+              >
                 {formatValue(t)}
               </th>
             ))}
@@ -80,14 +124,20 @@ export function GridTable({ grid, linkFindings = true, caption }: { grid: Displa
         <tbody>
           {grid.pressures.map((p, i) => (
             <tr key={i} className="border-t border-line">
-              <th scope="row" className="px-3 py-1 text-right font-normal tabular-nums text-ink-muted">
+              <th
+                scope="row"
+                className="px-3 py-1 text-right font-normal text-ink-muted tabular-nums"
+              >
                 {formatValue(p)}
               </th>
               {grid.temperatures.map((_, j) => {
                 const v = grid.values[i]?.[j] ?? null;
                 const mark = grid.marks[`${i}:${j}`];
                 const pb = grid.bubblePoints[j];
-                const atBubble = pb !== null && pb !== undefined && Math.abs(pb - p) <= 1e-6 * Math.max(pb, 1);
+                const atBubble =
+                  pb !== null &&
+                  pb !== undefined &&
+                  Math.abs(pb - p) <= 1e-6 * Math.max(pb, 1);
                 return (
                   <td
                     key={j}
@@ -95,9 +145,17 @@ export function GridTable({ grid, linkFindings = true, caption }: { grid: Displa
                     title={atBubble ? "At the bubble point" : undefined}
                     data-flag={mark?.severity}
                   >
-                    {v === null ? <span className="text-ink-muted">–</span> : formatValue(v)}
-                    {atBubble ? <span className="sr-only"> (at the bubble point)</span> : null}
-                    {mark ? <Marker mark={mark} linkFindings={linkFindings} /> : null}
+                    {v === null ? (
+                      <span className="text-ink-muted">–</span>
+                    ) : (
+                      formatValue(v)
+                    )}
+                    {atBubble ? (
+                      <span className="sr-only"> (at the bubble point)</span>
+                    ) : null}
+                    {mark ? (
+                      <Marker mark={mark} linkFindings={linkFindings} />
+                    ) : null}
                   </td>
                 );
               })}
@@ -109,14 +167,29 @@ export function GridTable({ grid, linkFindings = true, caption }: { grid: Displa
   );
 }
 
-export function BubblePointTable({ bubblePoints, linkFindings = true }: { bubblePoints: DisplayBubblePoints; linkFindings?: boolean }) {
+export function BubblePointTable({
+  bubblePoints,
+  linkFindings = true,
+}: {
+  bubblePoints: DisplayBubblePoints;
+  linkFindings?: boolean;
+}) {
   if (bubblePoints.rows.length === 0) {
-    return <p className="text-sm text-ink-muted">No bubble points were stated with this data.</p>;
+    return (
+      <p className="text-sm text-ink-muted">
+        No bubble points were stated with this data.
+      </p>
+    );
   }
   return (
-    <div className="inline-block overflow-x-auto rounded-lg border border-line bg-panel" data-testid="bubble-points">
+    <div
+      className="inline-block overflow-x-auto rounded-lg border border-line bg-panel"
+      data-testid="bubble-points"
+    >
       <table className="text-sm">
-        <caption className="px-3 pt-3 pb-2 text-left font-semibold">Bubble-point pressure per temperature</caption>
+        <caption className="px-3 pt-3 pb-2 text-left font-semibold">
+          Bubble-point pressure per temperature
+        </caption>
         <thead className="bg-surface text-ink-muted">
           <tr>
             <th scope="col" className="px-3 py-1.5 text-right font-semibold">
@@ -130,12 +203,20 @@ export function BubblePointTable({ bubblePoints, linkFindings = true }: { bubble
         <tbody>
           {bubblePoints.rows.map((r, k) => (
             <tr key={k} className="border-t border-line">
-              <th scope="row" className="px-3 py-1 text-right font-normal tabular-nums text-ink-muted">
+              <th
+                scope="row"
+                className="px-3 py-1 text-right font-normal text-ink-muted tabular-nums"
+              >
                 {formatValue(r.temperature)}
               </th>
-              <td className={`px-3 py-1 text-right tabular-nums ${r.mark ? MARK_STYLES[r.mark.severity] : ""}`} data-flag={r.mark?.severity}>
+              <td
+                className={`px-3 py-1 text-right tabular-nums ${r.mark ? MARK_STYLES[r.mark.severity] : ""}`}
+                data-flag={r.mark?.severity}
+              >
                 {formatValue(r.pressure)}
-                {r.mark ? <Marker mark={r.mark} linkFindings={linkFindings} /> : null}
+                {r.mark ? (
+                  <Marker mark={r.mark} linkFindings={linkFindings} />
+                ) : null}
               </td>
             </tr>
           ))}

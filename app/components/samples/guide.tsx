@@ -15,7 +15,10 @@ export function Inline({ text }: { text: string }) {
     <>
       {parts.map((p, k) =>
         p.startsWith("`") && p.endsWith("`") && p.length > 1 ? (
-          <code key={k} className="rounded bg-surface px-1 font-mono text-[0.85em]">
+          <code
+            key={k}
+            className="rounded bg-surface px-1 font-mono text-[0.85em]"
+          >
             {p.slice(1, -1)}
           </code>
         ) : p.startsWith("**") && p.endsWith("**") && p.length > 3 ? (
@@ -29,12 +32,16 @@ export function Inline({ text }: { text: string }) {
 }
 
 /** Splits the guide into its sections (level-2 headings); the title and the text before the first section form the intro. */
-export function guideSections(blocks: GuideBlock[]): { intro: GuideBlock[]; sections: { title: string; blocks: GuideBlock[] }[] } {
+export function guideSections(blocks: GuideBlock[]): {
+  intro: GuideBlock[];
+  sections: { title: string; blocks: GuideBlock[] }[];
+} {
   const intro: GuideBlock[] = [];
   const sections: { title: string; blocks: GuideBlock[] }[] = [];
   for (const b of blocks) {
     if (b.kind === "heading" && b.level === 1) continue;
-    if (b.kind === "heading" && b.level === 2) sections.push({ title: b.text, blocks: [] });
+    if (b.kind === "heading" && b.level === 2)
+      sections.push({ title: b.text, blocks: [] });
     else if (sections.length > 0) sections[sections.length - 1]!.blocks.push(b);
     else intro.push(b);
   }
@@ -70,18 +77,28 @@ export function GuideBlocks({ blocks }: { blocks: GuideBlock[] }) {
             );
           case "code":
             return (
-              <pre key={k} className="overflow-x-auto rounded border border-line bg-surface p-3 font-mono text-xs leading-relaxed">
+              <pre
+                key={k}
+                className="overflow-x-auto rounded border border-line bg-surface p-3 font-mono text-xs leading-relaxed"
+              >
                 {b.text}
               </pre>
             );
           case "table":
             return (
-              <div key={k} className="overflow-x-auto rounded border border-line">
+              <div
+                key={k}
+                className="overflow-x-auto rounded border border-line"
+              >
                 <table className="w-full text-left text-xs">
                   <thead className="bg-surface">
                     <tr>
                       {b.head.map((h, j) => (
-                        <th key={j} scope="col" className="px-2 py-1.5 font-semibold">
+                        <th
+                          key={j}
+                          scope="col"
+                          className="px-2 py-1.5 font-semibold"
+                        >
                           <Inline text={h} />
                         </th>
                       ))}

@@ -1,7 +1,10 @@
 import type { PropertyKey } from "~/core/units";
 
 /** How properties are named on screen: a plain name and the usual symbol. */
-export const PROPERTY_LABELS: Record<PropertyKey, { name: string; symbol: string }> = {
+export const PROPERTY_LABELS: Record<
+  PropertyKey,
+  { name: string; symbol: string }
+> = {
   oil_fvf: { name: "Oil formation volume factor", symbol: "Bo" },
   solution_gor: { name: "Solution gas–oil ratio", symbol: "Rs" },
   oil_viscosity: { name: "Oil viscosity", symbol: "μo" },
@@ -38,7 +41,17 @@ export const SEVERITY_LABELS: Record<"error" | "warning" | "info", string> = {
 };
 
 /** How the sample list can be sorted and filtered (query string values). */
-export const SAMPLE_SORTS = ["field", "well", "label", "type", "sampled", "pressure", "temperature", "revision", "updated"] as const;
+export const SAMPLE_SORTS = [
+  "field",
+  "well",
+  "label",
+  "type",
+  "sampled",
+  "pressure",
+  "temperature",
+  "revision",
+  "updated",
+] as const;
 export type SampleSort = (typeof SAMPLE_SORTS)[number];
 export const SAMPLE_STATUS_FILTERS = ["approved", "none", "draft"] as const;
 export type SampleStatusFilter = (typeof SAMPLE_STATUS_FILTERS)[number];

@@ -11,7 +11,11 @@ const BADGE: Record<Severity, string> = {
 
 export function SeverityBadge({ severity }: { severity: Severity }) {
   return (
-    <span className={`inline-block rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${BADGE[severity]}`}>{SEVERITY_LABELS[severity]}</span>
+    <span
+      className={`inline-block rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${BADGE[severity]}`}
+    >
+      {SEVERITY_LABELS[severity]}
+    </span>
   );
 }
 
@@ -21,10 +25,18 @@ const STATUS_STYLE: Record<QcSummary["status"], string> = {
   fail: "border-danger/40 bg-red-50 text-danger",
 };
 
-export function QcStatusBadge({ status, label }: { status: QcSummary["status"] | null; label?: string }) {
+export function QcStatusBadge({
+  status,
+  label,
+}: {
+  status: QcSummary["status"] | null;
+  label?: string;
+}) {
   if (!status) return <span className="text-ink-muted">not recorded</span>;
   return (
-    <span className={`inline-block rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${STATUS_STYLE[status]}`}>
+    <span
+      className={`inline-block rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${STATUS_STYLE[status]}`}
+    >
       {label ?? `QC: ${QC_STATUS_LABELS[status]}`}
     </span>
   );
@@ -64,15 +76,34 @@ function Place({ f }: { f: DisplayFinding }) {
   );
 }
 
-export function FindingList({ findings, title, empty }: { findings: DisplayFinding[]; title?: string; empty?: string }) {
-  if (findings.length === 0) return empty ? <p className="text-sm text-ink-muted">{empty}</p> : null;
+export function FindingList({
+  findings,
+  title,
+  empty,
+}: {
+  findings: DisplayFinding[];
+  title?: string;
+  empty?: string;
+}) {
+  if (findings.length === 0)
+    return empty ? <p className="text-sm text-ink-muted">{empty}</p> : null;
   return (
     <section aria-label={title ?? "Findings"}>
       {title ? <h3 className="mb-2 font-semibold">{title}</h3> : null}
-      <ol className="divide-y divide-line rounded-lg border border-line bg-panel" data-testid="findings">
+      <ol
+        className="divide-y divide-line rounded-lg border border-line bg-panel"
+        data-testid="findings"
+      >
         {findings.map((f) => (
-          <li key={f.n} id={`finding-${f.n}`} className="flex gap-3 px-4 py-3 text-sm target:bg-accent-soft" data-severity={f.severity}>
-            <span className="w-6 shrink-0 pt-0.5 text-right font-semibold tabular-nums text-ink-muted">{f.n}.</span>
+          <li
+            key={f.n}
+            id={`finding-${f.n}`}
+            className="flex gap-3 px-4 py-3 text-sm target:bg-accent-soft"
+            data-severity={f.severity}
+          >
+            <span className="w-6 shrink-0 pt-0.5 text-right font-semibold text-ink-muted tabular-nums">
+              {f.n}.
+            </span>
             <div className="min-w-0 flex-1">
               <div className="flex flex-wrap items-start gap-2">
                 <SeverityBadge severity={f.severity} />
@@ -88,7 +119,9 @@ export function FindingList({ findings, title, empty }: { findings: DisplayFindi
               ) : null}
               {f.ruleTitle || f.source ? (
                 <details className="mt-1 text-xs text-ink-muted">
-                  <summary className="cursor-pointer">Rule{f.ruleTitle ? `: ${f.ruleTitle}` : ""}</summary>
+                  <summary className="cursor-pointer">
+                    Rule{f.ruleTitle ? `: ${f.ruleTitle}` : ""}
+                  </summary>
                   {f.source ? <p className="mt-1">Basis: {f.source}</p> : null}
                 </details>
               ) : null}

@@ -9,7 +9,9 @@ const STYLE: Record<string, string> = {
 
 export function RevisionStatusBadge({ status }: { status: string }) {
   return (
-    <span className={`inline-block rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${STYLE[status] ?? STYLE.superseded}`}>
+    <span
+      className={`inline-block rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${STYLE[status] ?? STYLE.superseded}`}
+    >
       {REVISION_STATUS_LABELS[status] ?? status}
     </span>
   );

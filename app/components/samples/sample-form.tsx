@@ -12,23 +12,46 @@ import { SAMPLE_TYPE_LABELS } from "./labels";
 
 export type FormSystem = "field" | "metric";
 
-export const SAMPLE_TYPES = ["bottomhole", "separator_recombined", "wellhead", "formation_tester"] as const;
+export const SAMPLE_TYPES = [
+  "bottomhole",
+  "separator_recombined",
+  "wellhead",
+  "formation_tester",
+] as const;
 
 /** Units the form uses for each system. */
-export const FORM_UNITS: Record<FormSystem, { pressure: string; temperature: string; depth: string }> = {
+export const FORM_UNITS: Record<
+  FormSystem,
+  { pressure: string; temperature: string; depth: string }
+> = {
   field: { pressure: "psia", temperature: "°F", depth: "ft" },
   metric: { pressure: "bara", temperature: "°C", depth: "m" },
 };
 
 /** Plausible limits, in the form's units (checked again in canonical units on the server). */
-const LIMITS: Record<FormSystem, { pressure: [number, number]; temperature: [number, number]; depth: [number, number] }> = {
-  field: { pressure: [14.7, 30000], temperature: [-40, 700], depth: [0, 40000] },
+const LIMITS: Record<
+  FormSystem,
+  {
+    pressure: [number, number];
+    temperature: [number, number];
+    depth: [number, number];
+  }
+> = {
+  field: {
+    pressure: [14.7, 30000],
+    temperature: [-40, 700],
+    depth: [0, 40000],
+  },
   metric: { pressure: [1, 2000], temperature: [-40, 370], depth: [0, 12000] },
 };
 
 /** Multi-line notes: line breaks allowed, other control characters refused (app/utils/labels.ts). */
 function notesText(label: string, max: number) {
-  return multilineTextSchema(label).trim().max(max, `Use at most ${max} characters.`).optional().default("");
+  return multilineTextSchema(label)
+    .trim()
+    .max(max, `Use at most ${max} characters.`)
+    .optional()
+    .default("");
 }
 
 function optionalNumber(label: string, range: [number, number], unit = "") {
@@ -41,10 +64,19 @@ function optionalNumber(label: string, range: [number, number], unit = "") {
     .superRefine((value, ctx) => {
       if (value === "") return;
       const n = Number(value);
-      if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(value) || !Number.isFinite(n)) {
-        ctx.addIssue({ code: "custom", message: `Enter the ${label} as a plain number (for example 1234.5), or leave it empty.` });
+      if (
+        !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(value) ||
+        !Number.isFinite(n)
+      ) {
+        ctx.addIssue({
+          code: "custom",
+          message: `Enter the ${label} as a plain number (for example 1234.5), or leave it empty.`,
+        });
       } else if (n < range[0] || n > range[1]) {
-        ctx.addIssue({ code: "custom", message: `The ${label} should lie between ${range[0]} and ${range[1]}${suffix}.` });
+        ctx.addIssue({
+          code: "custom",
+          message: `The ${label} should lie between ${range[0]} and ${range[1]}${suffix}.`,
+        });
       }
     })
     .transform((value) => (value === "" ? null : Number(value)));
@@ -64,15 +96,35 @@ export function sampleFormSchema(system: FormSystem) {
       .trim()
       .optional()
       .default("")
-      .refine((v) => v === "" || (/^\d{4}-\d{2}-\d{2}$/.test(v) && !Number.isNaN(Date.parse(`${v}T00:00:00Z`))), {
-        message: "Enter the sampling date as YYYY-MM-DD.",
-      }),
+      .refine(
+        (v) =>
+          v === "" ||
+          (/^\d{4}-\d{2}-\d{2}$/.test(v) &&
+            !Number.isNaN(Date.parse(`${v}T00:00:00Z`))),
+        {
+          message: "Enter the sampling date as YYYY-MM-DD.",
+        },
+      ),
     samplingDepth: optionalNumber("sampling depth", limits.depth, units.depth),
-    reservoirPressure: optionalNumber("reservoir pressure", limits.pressure, units.pressure),
-    reservoirTemperature: optionalNumber("reservoir temperature", limits.temperature, units.temperature),
+    reservoirPressure: optionalNumber(
+      "reservoir pressure",
+      limits.pressure,
+      units.pressure,
+    ),
+    reservoirTemperature: optionalNumber(
+      "reservoir temperature",
+      limits.temperature,
+      units.temperature,
+    ),
     stockTankApi: optionalNumber("stock-tank oil gravity", [5, 80], "°API"),
-    gasSpecificGravity: optionalNumber("gas specific gravity", [0.55, 2.5], "(air = 1)"),
-    standardConditions: z.string().min(1, "Choose the standard conditions of the report."),
+    gasSpecificGravity: optionalNumber(
+      "gas specific gravity",
+      [0.55, 2.5],
+      "(air = 1)",
+    ),
+    standardConditions: z
+      .string()
+      .min(1, "Choose the standard conditions of the report."),
     laboratory: labelSchema("laboratory", 160, false),
     reportReference: labelSchema("report reference", 160, false),
     notes: notesText("notes", 4000),
@@ -82,7 +134,9 @@ export function sampleFormSchema(system: FormSystem) {
 export type SampleFormValues = z.output<ReturnType<typeof sampleFormSchema>>;
 
 /** Values to show in the form (already in the form's units). */
-export type SampleFormDefaults = Partial<Record<keyof SampleFormValues, string>>;
+export type SampleFormDefaults = Partial<
+  Record<keyof SampleFormValues, string>
+>;
 
 const inputClass =
   "mt-1 block w-full rounded border border-line bg-panel px-3 py-2 text-sm focus:border-accent focus:outline-2 focus:outline-accent/30 aria-invalid:border-danger";
@@ -103,13 +157,23 @@ function SelectField({
   hint?: string;
 }) {
   const id = useId();
-  const describedBy = [hint ? `${id}-hint` : null, errors?.length ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;
+  const describedBy =
+    [hint ? `${id}-hint` : null, errors?.length ? `${id}-error` : null]
+      .filter(Boolean)
+      .join(" ") || undefined;
   return (
     <div>
       <label htmlFor={id} className="block text-sm font-semibold">
         {label}
       </label>
-      <select id={id} name={name} defaultValue={defaultValue} aria-invalid={errors?.length ? true : undefined} aria-describedby={describedBy} className={inputClass}>
+      <select
+        id={id}
+        name={name}
+        defaultValue={defaultValue}
+        aria-invalid={errors?.length ? true : undefined}
+        aria-describedby={describedBy}
+        className={inputClass}
+      >
         {children}
       </select>
       {hint ? (
@@ -143,10 +207,22 @@ export function SampleFormFields({
   return (
     <div className="space-y-6">
       <fieldset className="rounded-lg border border-line bg-panel p-5">
-        <legend className="px-1 font-semibold">Where the sample comes from</legend>
-        <p className="text-sm text-ink-muted">Type an existing field or well, or a new name to create it.</p>
+        <legend className="px-1 font-semibold">
+          Where the sample comes from
+        </legend>
+        <p className="text-sm text-ink-muted">
+          Type an existing field or well, or a new name to create it.
+        </p>
         <div className="mt-3 grid gap-4 sm:grid-cols-3">
-          <TextField label="Field" name="fieldName" list="field-names" required defaultValue={defaults.fieldName} errors={errors.fieldName} autoComplete="off" />
+          <TextField
+            label="Field"
+            name="fieldName"
+            list="field-names"
+            required
+            defaultValue={defaults.fieldName}
+            errors={errors.fieldName}
+            autoComplete="off"
+          />
           <TextField
             label="Region (for a new field)"
             name="fieldRegion"
@@ -154,7 +230,15 @@ export function SampleFormFields({
             errors={errors.fieldRegion}
             hint="Optional; kept only when the field is created."
           />
-          <TextField label="Well" name="wellName" list="well-names" required defaultValue={defaults.wellName} errors={errors.wellName} autoComplete="off" />
+          <TextField
+            label="Well"
+            name="wellName"
+            list="well-names"
+            required
+            defaultValue={defaults.wellName}
+            errors={errors.wellName}
+            autoComplete="off"
+          />
         </div>
         <datalist id="field-names">
           {fieldNames.map((n) => (
@@ -171,15 +255,32 @@ export function SampleFormFields({
       <fieldset className="rounded-lg border border-line bg-panel p-5">
         <legend className="px-1 font-semibold">Sample</legend>
         <div className="grid gap-4 sm:grid-cols-3">
-          <TextField label="Sample label" name="label" required defaultValue={defaults.label} errors={errors.label} />
-          <SelectField label="Sample type" name="sampleType" defaultValue={defaults.sampleType ?? "bottomhole"} errors={errors.sampleType}>
+          <TextField
+            label="Sample label"
+            name="label"
+            required
+            defaultValue={defaults.label}
+            errors={errors.label}
+          />
+          <SelectField
+            label="Sample type"
+            name="sampleType"
+            defaultValue={defaults.sampleType ?? "bottomhole"}
+            errors={errors.sampleType}
+          >
             {SAMPLE_TYPES.map((t) => (
               <option key={t} value={t}>
                 {SAMPLE_TYPE_LABELS[t]}
               </option>
             ))}
           </SelectField>
-          <TextField label="Sampling date" name="samplingDate" type="date" defaultValue={defaults.samplingDate} errors={errors.samplingDate} />
+          <TextField
+            label="Sampling date"
+            name="samplingDate"
+            type="date"
+            defaultValue={defaults.samplingDate}
+            errors={errors.samplingDate}
+          />
           <TextField
             label={`Sampling depth (${units.depth})`}
             name="samplingDepth"
@@ -220,11 +321,17 @@ export function SampleFormFields({
           <SelectField
             label="Standard conditions of the report"
             name="standardConditions"
-            defaultValue={defaults.standardConditions ?? STANDARD_CONDITIONS_PRESETS[0]!.id}
+            defaultValue={
+              defaults.standardConditions ?? STANDARD_CONDITIONS_PRESETS[0]!.id
+            }
             errors={errors.standardConditions}
             hint="The base of the gas volumes (Rs, Bg) in the report."
           >
-            {currentStandard ? <option value="current">{currentStandard.label} (as recorded)</option> : null}
+            {currentStandard ? (
+              <option value="current">
+                {currentStandard.label} (as recorded)
+              </option>
+            ) : null}
             {STANDARD_CONDITIONS_PRESETS.map((p) => (
               <option key={p.id} value={p.id}>
                 {p.label}
@@ -233,15 +340,26 @@ export function SampleFormFields({
           </SelectField>
         </div>
         <p className="mt-3 text-sm text-ink-muted">
-          Bubble-point pressures are part of each uploaded revision (one per measured temperature), so they travel with the measured grids.
+          Bubble-point pressures are part of each uploaded revision (one per
+          measured temperature), so they travel with the measured grids.
         </p>
       </fieldset>
 
       <fieldset className="rounded-lg border border-line bg-panel p-5">
         <legend className="px-1 font-semibold">Report</legend>
         <div className="grid gap-4 sm:grid-cols-2">
-          <TextField label="Laboratory" name="laboratory" defaultValue={defaults.laboratory} errors={errors.laboratory} />
-          <TextField label="Report reference" name="reportReference" defaultValue={defaults.reportReference} errors={errors.reportReference} />
+          <TextField
+            label="Laboratory"
+            name="laboratory"
+            defaultValue={defaults.laboratory}
+            errors={errors.laboratory}
+          />
+          <TextField
+            label="Report reference"
+            name="reportReference"
+            defaultValue={defaults.reportReference}
+            errors={errors.reportReference}
+          />
         </div>
         <div className="mt-4">
           <label htmlFor={notesId} className="block text-sm font-semibold">
@@ -253,7 +371,9 @@ export function SampleFormFields({
             rows={3}
             defaultValue={defaults.notes}
             aria-invalid={errors.notes?.length ? true : undefined}
-            aria-describedby={errors.notes?.length ? `${notesId}-error` : undefined}
+            aria-describedby={
+              errors.notes?.length ? `${notesId}-error` : undefined
+            }
             className={inputClass}
           />
           <FieldError id={`${notesId}-error`} errors={errors.notes} />

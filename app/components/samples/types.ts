@@ -7,7 +7,14 @@ import type { PropertyKey } from "~/core/units";
 export type Severity = "error" | "warning" | "info";
 
 /** Where a finding points in the uploaded file. */
-export type FindingPlace = { file: string; sheet?: string; row?: number; column?: number; columnLetter?: string; value?: string };
+export type FindingPlace = {
+  file: string;
+  sheet?: string;
+  row?: number;
+  column?: number;
+  columnLetter?: string;
+  value?: string;
+};
 
 export type DisplayFinding = {
   /** 1-based number shown beside highlighted cells. */
@@ -49,4 +56,9 @@ export type DisplayBubblePoints = {
   rows: { temperature: number; pressure: number; mark: CellMark | null }[];
 };
 
-export type QcSummary = { status: "pass" | "warn" | "fail"; errors: number; warnings: number; notes: number };
+export type QcSummary = {
+  status: "pass" | "warn" | "fail";
+  errors: number;
+  warnings: number;
+  notes: number;
+};

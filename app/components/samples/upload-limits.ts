@@ -3,4 +3,5 @@
  * Kept equal to MAX_UPLOAD_BYTES of app/core/lab-data by a unit test (app/.server/samples/upload.test.ts).
  */
 export const UPLOAD_LIMIT_BYTES = 5 * 1024 * 1024;
-export const UPLOAD_ACCEPT = ".csv,.tsv,.txt,.xlsx,.xlsm,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";
+export const UPLOAD_ACCEPT =
+  ".csv,.tsv,.txt,.xlsx,.xlsm,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";

@@ -6,7 +6,9 @@ import { csvCell, csvCommentLine, csvRow } from "./index";
 const csvParse = async () => (await import("csv-parse/sync")).parse;
 
 test("text a spreadsheet would run as a formula is prefixed with a single quote and quoted (OWASP CSV Injection)", () => {
-  expect(csvCell('=HYPERLINK("http://evil.example","x")')).toBe(`"'=HYPERLINK(""http://evil.example"",""x"")"`);
+  expect(csvCell('=HYPERLINK("http://evil.example","x")')).toBe(
+    `"'=HYPERLINK(""http://evil.example"",""x"")"`,
+  );
   expect(csvCell("+1+2")).toBe(`"'+1+2"`);
   expect(csvCell("-2+3")).toBe(`"'-2+3"`);
   expect(csvCell("@SUM(A1:A2)")).toBe(`"'@SUM(A1:A2)"`);
@@ -37,13 +39,19 @@ test("ordinary text is quoted only when RFC 4180 needs it", () => {
 });
 
 test("a comment line is one cell: a label after a comma cannot become a cell of its own", async () => {
-  const line = csvCommentLine('sample x,=HYPERLINK("http://evil.example","x")\nnext');
+  const line = csvCommentLine(
+    'sample x,=HYPERLINK("http://evil.example","x")\nnext',
+  );
   const cells = (await csvParse())(line, { relax_quotes: true }) as string[][];
-  expect(cells).toEqual([['# sample x,=HYPERLINK("http://evil.example","x") next']]);
+  expect(cells).toEqual([
+    ['# sample x,=HYPERLINK("http://evil.example","x") next'],
+  ]);
   expect(csvCommentLine("plain note")).toBe("# plain note");
 });
 
 test("a row read back by a CSV parser gives the text with its leading quote, and the numbers", async () => {
   const row = csvRow(["=1+1", -1.5, "ok", null, "a,b"]);
-  expect((await csvParse())(row) as string[][]).toEqual([["'=1+1", "-1.5", "ok", "", "a,b"]]);
+  expect((await csvParse())(row) as string[][]).toEqual([
+    ["'=1+1", "-1.5", "ok", "", "a,b"],
+  ]);
 });

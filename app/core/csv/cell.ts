@@ -19,7 +19,10 @@ export type CsvCellOptions = {
 export const FORMULA_TRIGGERS = ["=", "+", "-", "@", "\t", "\r", "\0"] as const;
 
 export function startsLikeFormula(text: string): boolean {
-  return text.length > 0 && (FORMULA_TRIGGERS as readonly string[]).includes(text[0]!);
+  return (
+    text.length > 0 &&
+    (FORMULA_TRIGGERS as readonly string[]).includes(text[0]!)
+  );
 }
 
 function quoted(text: string): string {
@@ -35,11 +38,16 @@ export function csvCell(value: CsvValue, options: CsvCellOptions = {}): string {
     return options.decimalMark === "," ? text.replace(".", ",") : text;
   }
   if (startsLikeFormula(value)) return quoted(`'${value}`);
-  return /["\r\n]/.test(value) || value.includes(delimiter) ? quoted(value) : value;
+  return /["\r\n]/.test(value) || value.includes(delimiter)
+    ? quoted(value)
+    : value;
 }
 
 /** One line of cells (no line end). */
-export function csvRow(values: readonly CsvValue[], options: CsvCellOptions = {}): string {
+export function csvRow(
+  values: readonly CsvValue[],
+  options: CsvCellOptions = {},
+): string {
   return values.map((v) => csvCell(v, options)).join(options.delimiter ?? ",");
 }
 
@@ -47,7 +55,10 @@ export function csvRow(values: readonly CsvValue[], options: CsvCellOptions = {}
  * A comment line ("# text"), one cell: line breaks become spaces, and a text holding the delimiter or a quote is
  * quoted whole, so that nothing after a delimiter can become a cell of its own (and a formula).
  */
-export function csvCommentLine(text: string, options: CsvCellOptions = {}): string {
+export function csvCommentLine(
+  text: string,
+  options: CsvCellOptions = {},
+): string {
   const line = `# ${text.replace(/[\r\n]+/g, " ")}`;
   return csvCell(line, options);
 }

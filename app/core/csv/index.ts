@@ -1,1 +1,9 @@
-export { csvCell, csvCommentLine, csvRow, FORMULA_TRIGGERS, startsLikeFormula, type CsvCellOptions, type CsvValue } from "./cell";
+export {
+  csvCell,
+  csvCommentLine,
+  csvRow,
+  FORMULA_TRIGGERS,
+  startsLikeFormula,
+  type CsvCellOptions,
+  type CsvValue,
+} from "./cell";

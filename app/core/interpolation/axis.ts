@@ -6,7 +6,12 @@
  * (so a point on the last node uses the last cell, and a point below the first node uses cell 0).
  * Returns a local index (0-based from `off`). With one node the cell is 0.
  */
-export function cellOf(x: Float64Array, off: number, n: number, t: number): number {
+export function cellOf(
+  x: Float64Array,
+  off: number,
+  n: number,
+  t: number,
+): number {
   if (n < 2) return 0;
   let lo = 0;
   let hi = n - 2;
@@ -48,7 +53,8 @@ export class AxisIndex {
     }
     const span = nodes[n - 1]! - nodes[0]!;
     let minGap = Infinity;
-    for (let i = 1; i < n; i++) minGap = Math.min(minGap, nodes[i]! - nodes[i - 1]!);
+    for (let i = 1; i < n; i++)
+      minGap = Math.min(minGap, nodes[i]! - nodes[i - 1]!);
     // Buckets no wider than half the smallest gap: each bucket holds at most one node, so the correction
     // below takes at most one step. Capped to keep the table small on very uneven axes.
     const buckets = Math.max(n, Math.min(4096, Math.ceil((2 * span) / minGap)));
@@ -80,7 +86,14 @@ export class AxisIndex {
  * odd m: s = k − (m−1)/2; even m: s = k − m/2 when t is closer to x[k] than to x[k+1] or exactly midway,
  * else k − m/2 + 1; then s is clamped to 0..n−1−m. The zone is x[s .. s+m]. Returns s (local index).
  */
-export function zoneStart(x: Float64Array, off: number, n: number, t: number, m: number, k: number): number {
+export function zoneStart(
+  x: Float64Array,
+  off: number,
+  n: number,
+  t: number,
+  m: number,
+  k: number,
+): number {
   let s: number;
   if (m % 2 === 1) s = k - (m - 1) / 2;
   else if (n < 2 || t - x[off + k]! <= x[off + k + 1]! - t) s = k - m / 2;

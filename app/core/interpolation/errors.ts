@@ -31,7 +31,11 @@ export class InterpolationError extends Error {
   /** Structured facts behind the message (axis, index, value, range, point index in a batch, ...). */
   readonly details: Readonly<Record<string, unknown>>;
 
-  constructor(code: InterpolationErrorCode, message: string, details: Record<string, unknown> = {}) {
+  constructor(
+    code: InterpolationErrorCode,
+    message: string,
+    details: Record<string, unknown> = {},
+  ) {
     super(message);
     this.name = "InterpolationError";
     this.code = code;

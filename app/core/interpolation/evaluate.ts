@@ -31,36 +31,76 @@ export function evaluateRange(
         out.pressureCount[outOffset] = tb.p.valueTerms;
         out.temperatureCount[outOffset] = tb.t.valueTerms;
       } else {
-        out.pressureCount.fill(tb.p.valueTerms, outOffset, outOffset + to - from);
-        out.temperatureCount.fill(tb.t.valueTerms, outOffset, outOffset + to - from);
+        out.pressureCount.fill(
+          tb.p.valueTerms,
+          outOffset,
+          outOffset + to - from,
+        );
+        out.temperatureCount.fill(
+          tb.t.valueTerms,
+          outOffset,
+          outOffset + to - from,
+        );
       }
     }
   } else {
     for (let idx = from; idx < to; idx++) {
-      evaluateGeneral(plan, ps[idx]!, ts[idx]!, extrapolate, out, outOffset + idx - from, batch ? idx : -1, null);
+      evaluateGeneral(
+        plan,
+        ps[idx]!,
+        ts[idx]!,
+        extrapolate,
+        out,
+        outOffset + idx - from,
+        batch ? idx : -1,
+        null,
+      );
     }
   }
   finishAlternatives(out, outOffset, outOffset + to - from);
 }
 
 export function checkPoint(point: Point, pointIndex: number): void {
-  if (typeof point !== "object" || point === null) throw badPoint(point, "", pointIndex);
+  if (typeof point !== "object" || point === null)
+    throw badPoint(point, "", pointIndex);
   const p: unknown = point.pressure;
   const t: unknown = point.temperature;
-  if (typeof p !== "number" || !Number.isFinite(p)) throw badPoint(p, "pressure", pointIndex);
-  if (typeof t !== "number" || !Number.isFinite(t)) throw badPoint(t, "temperature", pointIndex);
+  if (typeof p !== "number" || !Number.isFinite(p))
+    throw badPoint(p, "pressure", pointIndex);
+  if (typeof t !== "number" || !Number.isFinite(t))
+    throw badPoint(t, "temperature", pointIndex);
 }
 
-function badPoint(value: unknown, axis: "" | "pressure" | "temperature", pointIndex: number): InterpolationError {
+function badPoint(
+  value: unknown,
+  axis: "" | "pressure" | "temperature",
+  pointIndex: number,
+): InterpolationError {
   const prefix = pointIndex < 0 ? "The point" : `Point ${pointIndex}`;
-  const details = { axis: axis || undefined, pointIndex: pointIndex < 0 ? undefined : pointIndex };
+  const details = {
+    axis: axis || undefined,
+    pointIndex: pointIndex < 0 ? undefined : pointIndex,
+  };
   return axis === ""
-    ? new InterpolationError("invalid-point", `${prefix} must be an object { pressure, temperature }; got ${describeBadNumber(value)}.`, details)
-    : new InterpolationError("invalid-point", `${prefix} has ${axis} ${describeBadNumber(value)}; a finite number is needed.`, details);
+    ? new InterpolationError(
+        "invalid-point",
+        `${prefix} must be an object { pressure, temperature }; got ${describeBadNumber(value)}.`,
+        details,
+      )
+    : new InterpolationError(
+        "invalid-point",
+        `${prefix} has ${axis} ${describeBadNumber(value)}; a finite number is needed.`,
+        details,
+      );
 }
 
 /** Evaluates one point into plan.single and returns it as a Result. */
-export function evaluatePoint(plan: Plan, point: Point, extrapolate: boolean, pointIndex: number): Result {
+export function evaluatePoint(
+  plan: Plan,
+  point: Point,
+  extrapolate: boolean,
+  pointIndex: number,
+): Result {
   checkPoint(point, pointIndex);
   const kernel = plan.kernel;
   if (kernel && pointIndex < 0) {
@@ -79,7 +119,17 @@ export function evaluatePoint(plan: Plan, point: Point, extrapolate: boolean, po
   }
   plan.singleP[0] = point.pressure;
   plan.singleT[0] = point.temperature;
-  evaluateRange(plan, plan.singleP, plan.singleT, 0, 1, extrapolate, plan.single, 0, false);
+  evaluateRange(
+    plan,
+    plan.singleP,
+    plan.singleT,
+    0,
+    1,
+    extrapolate,
+    plan.single,
+    0,
+    false,
+  );
   return toResult(plan);
 }
 

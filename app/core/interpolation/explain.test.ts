@@ -5,9 +5,11 @@ import type { Grid } from "./index";
 
 /** Only JSON-like values: numbers, strings, booleans, null, arrays and plain objects. */
 function isPlainData(x: unknown): boolean {
-  if (x === null || ["number", "string", "boolean"].includes(typeof x)) return true;
+  if (x === null || ["number", "string", "boolean"].includes(typeof x))
+    return true;
   if (Array.isArray(x)) return x.every(isPlainData);
-  if (typeof x === "object" && Object.getPrototypeOf(x) === Object.prototype) return Object.values(x).every(isPlainData);
+  if (typeof x === "object" && Object.getPrototypeOf(x) === Object.prototype)
+    return Object.values(x).every(isPlainData);
   return false;
 }
 
@@ -20,7 +22,11 @@ const g: Grid = {
 
 describe("explanation (reference: from memory — the divided differences of x² on 0,1,2,3 are 1,3,5 then 1,1 then 0)", () => {
   test("step one lists each column's zone with its divided-difference table", () => {
-    const e = explainInterpolation(g, { pressure: 1.5, temperature: 0.5 }, { method: "newton", degree: [2, 1] });
+    const e = explainInterpolation(
+      g,
+      { pressure: 1.5, temperature: 0.5 },
+      { method: "newton", degree: [2, 1] },
+    );
     expect(e.degree).toEqual([2, 1]);
     expect(e.stepOne).toHaveLength(2);
     const first = e.stepOne[0]!;
@@ -33,7 +39,12 @@ describe("explanation (reference: from memory — the divided differences of x²
       [2, 2, "zone"],
       [3, 3, "error-check"],
     ]);
-    expect(first.dividedDifferences).toEqual([[0, 1, 4, 9], [1, 3, 5], [1, 1], [0]]);
+    expect(first.dividedDifferences).toEqual([
+      [0, 1, 4, 9],
+      [1, 3, 5],
+      [1, 1],
+      [0],
+    ]);
     expect(first.value).toBe(2.25);
     expect(Math.abs(first.correction)).toBe(0);
     // step two: along temperature through the new row (2.25 at t=0, 3.25 at t=1)
@@ -55,14 +66,22 @@ describe("explanation (reference: from memory — the divided differences of x²
       expect(e.warnings).toEqual(r.warnings);
       expect(e.stencil).toEqual(r.stencil);
       // the error estimate is the sum of its parts
-      expect(e.errorParts.pressure + e.errorParts.temperature + e.errorParts.rounding).toBeCloseTo(e.errorEstimate, 15);
+      expect(
+        e.errorParts.pressure +
+          e.errorParts.temperature +
+          e.errorParts.rounding,
+      ).toBeCloseTo(e.errorEstimate, 15);
       expect(e.errorParts.rounding).toBeGreaterThan(0);
       expect(isPlainData(e)).toBe(true);
     }
   });
 
   test("pchip steps show the shape-preserving and the three-point slopes", () => {
-    const e = explainInterpolation(g, { pressure: 1.5, temperature: 0 }, { method: "pchip" });
+    const e = explainInterpolation(
+      g,
+      { pressure: 1.5, temperature: 0 },
+      { method: "pchip" },
+    );
     const col = e.stepOne[0]!;
     expect(col.dividedDifferences).toBeNull();
     expect(col.pchip?.cell).toEqual([1, 2]);

@@ -35,7 +35,11 @@ export type ExplanationStep = {
   /** Newton/linear: dividedDifferences[l][i] = f[x_i … x_{i+l}] over `nodes` in the order listed. */
   dividedDifferences: number[][] | null;
   /** pchip: the cell, the shape-preserving end slopes and the plain three-point slopes. */
-  pchip: { cell: [number, number]; derivatives: [number, number]; threePointDerivatives: [number, number] } | null;
+  pchip: {
+    cell: [number, number];
+    derivatives: [number, number];
+    threePointDerivatives: [number, number];
+  } | null;
   value: number;
   /** Newton: the last Newton term; pchip: the value minus the three-point-slope cubic. */
   correction: number;
@@ -59,8 +63,19 @@ export type Explanation = {
   alternative: { method: "pchip"; value: number } | null;
 };
 
-function toStep(step: TraceStep, axis: "pressure" | "temperature", target: number, temperatures: number[], method: Method): ExplanationStep {
-  const nodes = step.nodes.map((n) => ({ at: n.coordinate, value: n.value, index: n.index, role: n.role }));
+function toStep(
+  step: TraceStep,
+  axis: "pressure" | "temperature",
+  target: number,
+  temperatures: number[],
+  method: Method,
+): ExplanationStep {
+  const nodes = step.nodes.map((n) => ({
+    at: n.coordinate,
+    value: n.value,
+    index: n.index,
+    role: n.role,
+  }));
   return {
     axis,
     target,
@@ -87,13 +102,31 @@ function toStep(step: TraceStep, axis: "pressure" | "temperature", target: numbe
  * divided-difference table, or pchip slopes), step two along temperature, the error estimate's parts
  * and the warnings. The value equals interpolateGrid's to rounding (it runs the general evaluator).
  */
-export function explainInterpolation(grid: Grid, point: Point, options: Options): Explanation {
+export function explainInterpolation(
+  grid: Grid,
+  point: Point,
+  options: Options,
+): Explanation {
   const opts = normalizeOptions(options);
   const prep = prepareGrid(grid);
   checkPoint(point, -1);
   const plan = getPlan(prep, opts.method, opts.m, opts.n);
-  const trace: Trace = { stepOne: [], stepTwo: null, errorPressure: 0, errorTemperature: 0 };
-  evaluateGeneral(plan, point.pressure, point.temperature, opts.extrapolate, plan.single, 0, -1, trace);
+  const trace: Trace = {
+    stepOne: [],
+    stepTwo: null,
+    errorPressure: 0,
+    errorTemperature: 0,
+  };
+  evaluateGeneral(
+    plan,
+    point.pressure,
+    point.temperature,
+    opts.extrapolate,
+    plan.single,
+    0,
+    -1,
+    trace,
+  );
   const buf = plan.single;
   const flags = buf.warnings[0]!;
   const value = buf.values[0]!;
@@ -106,15 +139,33 @@ export function explainInterpolation(grid: Grid, point: Point, options: Options)
     degree: opts.method === "pchip" ? null : [opts.m, opts.n],
     branch:
       prep.bubble && buf.branches
-        ? { side: buf.branches[0] === 1 ? "saturated" : "undersaturated", bubblePointPressure: plan.scratch.pbStar }
+        ? {
+            side: buf.branches[0] === 1 ? "saturated" : "undersaturated",
+            bubblePointPressure: plan.scratch.pbStar,
+          }
         : null,
-    stepOne: trace.stepOne.map((s) => toStep(s, "pressure", point.pressure, grid.temperatures, opts.method)),
-    stepTwo: toStep(trace.stepTwo!, "temperature", point.temperature, grid.temperatures, opts.method),
+    stepOne: trace.stepOne.map((s) =>
+      toStep(s, "pressure", point.pressure, grid.temperatures, opts.method),
+    ),
+    stepTwo: toStep(
+      trace.stepTwo!,
+      "temperature",
+      point.temperature,
+      grid.temperatures,
+      opts.method,
+    ),
     value,
     errorEstimate,
-    errorParts: { pressure, temperature, rounding: errorEstimate - pressure - temperature },
+    errorParts: {
+      pressure,
+      temperature,
+      rounding: errorEstimate - pressure - temperature,
+    },
     warnings: warningsFromFlags(flags),
     stencil: stencilLists(plan),
-    alternative: flags & W_OVERSHOOT ? { method: "pchip", value: buf.alternatives?.[0] ?? value } : null,
+    alternative:
+      flags & W_OVERSHOOT
+        ? { method: "pchip", value: buf.alternatives?.[0] ?? value }
+        : null,
   };
 }

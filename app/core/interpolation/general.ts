@@ -24,7 +24,12 @@ import {
  * A node as shown to a person. `index` is the grid row (step one, along pressure) or the grid column (step
  * two, along temperature); null for a bubble-point node that lies between grid rows.
  */
-export type TraceNode = { coordinate: number; value: number; index: number | null; role: "zone" | "error-check" };
+export type TraceNode = {
+  coordinate: number;
+  value: number;
+  index: number | null;
+  role: "zone" | "error-check";
+};
 
 export type TraceStep = {
   /** Grid column (step one) or −1 (step two, along temperature). */
@@ -36,10 +41,19 @@ export type TraceStep = {
   value: number;
   /** Newton: the last term (see README); pchip: pchip minus the three-point-slope cubic. */
   correction: number;
-  pchip?: { cell: [number, number]; derivatives: [number, number]; threePointDerivatives: [number, number] };
+  pchip?: {
+    cell: [number, number];
+    derivatives: [number, number];
+    threePointDerivatives: [number, number];
+  };
 };
 
-export type Trace = { stepOne: TraceStep[]; stepTwo: TraceStep | null; errorPressure: number; errorTemperature: number };
+export type Trace = {
+  stepOne: TraceStep[];
+  stepTwo: TraceStep | null;
+  errorPressure: number;
+  errorTemperature: number;
+};
 
 const STATUS = ["inside", "branch-extrapolated", "extrapolated"] as const;
 
@@ -64,7 +78,8 @@ export function evaluateGeneral(
   if (prep.bubble) {
     const pb = bubblePointAt(plan, t);
     sc.pbStar = pb;
-    if (t < prep.bubble.knownLo || t > prep.bubble.knownHi) flags |= W_BUBBLE_POINT_EXTRAPOLATED;
+    if (t < prep.bubble.knownLo || t > prep.bubble.knownHi)
+      flags |= W_BUBBLE_POINT_EXTRAPOLATED;
     b = p <= pb ? 1 : 2;
   }
   sc.branch = b;
@@ -116,7 +131,10 @@ export function evaluateGeneral(
       if (zone) flags |= statusFlag(sc.status[u]!);
       flags |= newtonColumn(plan, br, j, p, c, zone);
       if (zone) scale += Math.abs(sc.r[c]!);
-      if (trace) trace.stepOne.push(traceNewtonColumn(plan, br, j, c, zone, sc.status[u]!));
+      if (trace)
+        trace.stepOne.push(
+          traceNewtonColumn(plan, br, j, c, zone, sc.status[u]!),
+        );
     }
     // step two along temperature on the new row; then the pressure corrections along temperature
     for (let c = 0; c < qT; c++) sc.d[c] = sc.r[c]!;
@@ -128,14 +146,31 @@ export function evaluateGeneral(
     dividedDifferences(sc.tx, 0, sc.d, 0, vT);
     newtonTerms(sc.tx, 0, sc.d, 0, vT, vT, t);
     errP = newtonOut.value;
-    if (plan.method === "newton" && vT > 2 && rowOvershoot(sc.r, sc.tx, vT, t, value)) flags |= W_OVERSHOOT;
+    if (
+      plan.method === "newton" &&
+      vT > 2 &&
+      rowOvershoot(sc.r, sc.tx, vT, t, value)
+    )
+      flags |= W_OVERSHOOT;
     if (trace) {
       const nodes: TraceNode[] = [];
       for (let c = 0; c < qT; c++) {
         const column = sc.usable[sc.tOrd[c]!]!;
-        nodes.push({ coordinate: sc.tx[c]!, value: sc.r[c]!, index: column, role: c < vT ? "zone" : "error-check" });
+        nodes.push({
+          coordinate: sc.tx[c]!,
+          value: sc.r[c]!,
+          index: column,
+          role: c < vT ? "zone" : "error-check",
+        });
       }
-      trace.stepTwo = { column: -1, role: "zone", status: "inside", nodes, value, correction: errT };
+      trace.stepTwo = {
+        column: -1,
+        role: "zone",
+        status: "inside",
+        nodes,
+        value,
+        correction: errT,
+      };
     }
   } else {
     const kT = cellOf(sc.ux, 0, nu, t);
@@ -159,28 +194,38 @@ export function evaluateGeneral(
       sc.colOff[c] = off;
       sc.vFrom[c] = cnt < 2 ? 0 : Math.max(0, k - 1);
       sc.vTo[c] = cnt < 2 ? 0 : Math.min(cnt - 1, k + 2);
-      if (trace) trace.stepOne.push(tracePchip(br.x, br.y, br.row, off, cnt, k, j, sc.status[u]!));
+      if (trace)
+        trace.stepOne.push(
+          tracePchip(br.x, br.y, br.row, off, cnt, k, j, sc.status[u]!),
+        );
     }
     pchipCell(sc.ux, 0, sc.r, 0, nu, kT, t);
     value = pchipOut.value;
     errT = pchipOut.estimate;
     if (nu < 2) errP = Math.abs(sc.e[0]!);
     else {
-      const w = Math.min(1, Math.max(0, (t - sc.ux[kT]!) / (sc.ux[kT + 1]! - sc.ux[kT]!)));
+      const w = Math.min(
+        1,
+        Math.max(0, (t - sc.ux[kT]!) / (sc.ux[kT + 1]! - sc.ux[kT]!)),
+      );
       errP = (1 - w) * Math.abs(sc.e[kT]!) + w * Math.abs(sc.e[kT + 1]!);
     }
     if (trace) {
       trace.stepTwo = tracePchip(sc.ux, sc.r, sc.usable, 0, nu, kT, -1, 0);
     }
   }
-  if (!prep.complete && idealZoneHasGap(plan, br, p, t)) flags |= W_MISSING_DATA;
+  if (!prep.complete && idealZoneHasGap(plan, br, p, t))
+    flags |= W_MISSING_DATA;
 
   if (trace) {
     trace.errorPressure = errP;
     trace.errorTemperature = errT;
   }
   out.values[o] = value;
-  out.errorEstimates[o] = Math.abs(errP) + Math.abs(errT) + 4 * Number.EPSILON * (scale + Math.abs(value));
+  out.errorEstimates[o] =
+    Math.abs(errP) +
+    Math.abs(errT) +
+    4 * Number.EPSILON * (scale + Math.abs(value));
   out.warnings[o] = flags;
   if (out.branches) out.branches[o] = b;
   writeStencilSpan(plan, br, out, o);
@@ -197,14 +242,25 @@ export function evaluateGeneral(
 }
 
 function statusFlag(status: number): number {
-  return status === 1 ? W_BRANCH_EXTRAPOLATED : status === 2 ? W_EXTRAPOLATED : 0;
+  return status === 1
+    ? W_BRANCH_EXTRAPOLATED
+    : status === 2
+      ? W_EXTRAPOLATED
+      : 0;
 }
 
 /**
  * Step one for the c-th column of the temperature zone: the zone rule on this column's own nodes, Newton
  * divided differences, value (sc.r[c]) and last term (sc.e[c]). Returns warning flags.
  */
-function newtonColumn(plan: Plan, br: BranchNodes, j: number, p: number, c: number, zone: boolean): number {
+function newtonColumn(
+  plan: Plan,
+  br: BranchNodes,
+  j: number,
+  p: number,
+  c: number,
+  zone: boolean,
+): number {
   const sc = plan.scratch;
   const off = br.off[j]!;
   const cnt = br.off[j + 1]! - off;
@@ -233,7 +289,13 @@ function newtonColumn(plan: Plan, br: BranchNodes, j: number, p: number, c: numb
   sc.colOff[c] = off;
   sc.vFrom[c] = lo;
   sc.vTo[c] = hi;
-  if (zone && plan.method === "newton" && m >= 2 && p >= br.x[off + lo]! && p <= br.x[off + hi]!) {
+  if (
+    zone &&
+    plan.method === "newton" &&
+    m >= 2 &&
+    p >= br.x[off + lo]! &&
+    p <= br.x[off + hi]!
+  ) {
     // step-one overshoot: the zone's values rise or fall steadily and the value leaves their range (only
     // between the zone's nodes: beyond them, continuing a steady rise is expected, not an overshoot)
     let up = true;
@@ -258,7 +320,13 @@ function newtonColumn(plan: Plan, br: BranchNodes, j: number, p: number, c: numb
 }
 
 /** Step-two overshoot on the zone part of the new row (r in Newton order, x its temperatures), at t. */
-function rowOvershoot(r: Float64Array, x: Float64Array, v: number, t: number, value: number): boolean {
+function rowOvershoot(
+  r: Float64Array,
+  x: Float64Array,
+  v: number,
+  t: number,
+  value: number,
+): boolean {
   let xMin = Infinity;
   let xMax = -Infinity;
   for (let c = 0; c < v; c++) {
@@ -275,7 +343,8 @@ function rowOvershoot(r: Float64Array, x: Float64Array, v: number, t: number, va
   let prevY = NaN;
   for (let step = 0; step < v; step++) {
     let best = -1;
-    for (let c = 0; c < v; c++) if (x[c]! > prevX && (best < 0 || x[c]! < x[best]!)) best = c;
+    for (let c = 0; c < v; c++)
+      if (x[c]! > prevX && (best < 0 || x[c]! < x[best]!)) best = c;
     const y = r[best]!;
     min = Math.min(min, y);
     max = Math.max(max, y);
@@ -320,7 +389,12 @@ export function bubblePointAt(plan: Plan, t: number): number {
  * Would the zone rule, applied as if every cell had been measured, have used a cell that was not? Then the
  * zone was moved or shrunk because of missing data.
  */
-function idealZoneHasGap(plan: Plan, br: BranchNodes, p: number, t: number): boolean {
+function idealZoneHasGap(
+  plan: Plan,
+  br: BranchNodes,
+  p: number,
+  t: number,
+): boolean {
   const sc = plan.scratch;
   const { M, T } = plan.prep;
   let ni = 0;
@@ -359,12 +433,18 @@ function idealZoneHasGap(plan: Plan, br: BranchNodes, p: number, t: number): boo
       from = fc < 2 ? 0 : Math.max(0, k - 1);
       to = fc < 2 ? 0 : Math.min(fc - 1, k + 2);
     }
-    for (let i = from; i <= to; i++) if (Number.isNaN(br.fullY[fo + i]!)) return true;
+    for (let i = from; i <= to; i++)
+      if (Number.isNaN(br.fullY[fo + i]!)) return true;
   }
   return false;
 }
 
-function writeStencilSpan(plan: Plan, br: BranchNodes, out: BatchResult, o: number): void {
+function writeStencilSpan(
+  plan: Plan,
+  br: BranchNodes,
+  out: BatchResult,
+  o: number,
+): void {
   const sc = plan.scratch;
   let rLo = Infinity;
   let rHi = -Infinity;
@@ -390,7 +470,10 @@ function writeStencilSpan(plan: Plan, br: BranchNodes, out: BatchResult, o: numb
 }
 
 /** Grid rows and columns whose measured values make up the last result (for `Result.stencil`). */
-export function stencilLists(plan: Plan): { pressure: number[]; temperature: number[] } {
+export function stencilLists(plan: Plan): {
+  pressure: number[];
+  temperature: number[];
+} {
   const sc = plan.scratch;
   const br = plan.prep.branches[sc.branch]!;
   const rows = new Set<number>();
@@ -403,10 +486,20 @@ export function stencilLists(plan: Plan): { pressure: number[]; temperature: num
       if (row >= 0) rows.add(row);
     }
   }
-  return { pressure: [...rows].sort((a, b) => a - b), temperature: cols.sort((a, b) => a - b) };
+  return {
+    pressure: [...rows].sort((a, b) => a - b),
+    temperature: cols.sort((a, b) => a - b),
+  };
 }
 
-function traceNewtonColumn(plan: Plan, br: BranchNodes, j: number, c: number, zone: boolean, status: number): TraceStep {
+function traceNewtonColumn(
+  plan: Plan,
+  br: BranchNodes,
+  j: number,
+  c: number,
+  zone: boolean,
+  status: number,
+): TraceStep {
   const sc = plan.scratch;
   const off = br.off[j]!;
   const cnt = br.off[j + 1]! - off;
@@ -423,7 +516,14 @@ function traceNewtonColumn(plan: Plan, br: BranchNodes, j: number, c: number, zo
       role: i <= m ? "zone" : "error-check",
     });
   }
-  return { column: j, role: zone ? "zone" : "error-check", status: STATUS[status]!, nodes, value: sc.r[c]!, correction: sc.e[c]! };
+  return {
+    column: j,
+    role: zone ? "zone" : "error-check",
+    status: STATUS[status]!,
+    nodes,
+    value: sc.r[c]!,
+    correction: sc.e[c]!,
+  };
 }
 
 function tracePchip(
@@ -441,7 +541,12 @@ function tracePchip(
   const nodes: TraceNode[] = [];
   for (let li = from; li <= to; li++) {
     const row = rows[off + li]!;
-    nodes.push({ coordinate: x[off + li]!, value: y[off + li]!, index: row >= 0 ? row : null, role: "zone" });
+    nodes.push({
+      coordinate: x[off + li]!,
+      value: y[off + li]!,
+      index: row >= 0 ? row : null,
+      role: "zone",
+    });
   }
   const step: TraceStep = {
     column,
@@ -461,7 +566,11 @@ function tracePchip(
   return step;
 }
 
-const BRANCH_TEXT = ["", " on the saturated branch (at or below the bubble point)", " on the undersaturated branch (above the bubble point)"];
+const BRANCH_TEXT = [
+  "",
+  " on the saturated branch (at or below the bubble point)",
+  " on the undersaturated branch (above the bubble point)",
+];
 
 function noValidZone(
   prep: PreparedGrid,
@@ -492,6 +601,11 @@ function noValidZone(
   return new InterpolationError(
     "no-valid-zone",
     `${prefix}No measured values surround pressure ${formatNumber(p)} and temperature ${formatNumber(t)}: ${reason}. Measured pressure ranges per temperature${BRANCH_TEXT[b]}: ${parts.join("; ")}.${prep.complete ? "" : " Cells that were not measured (null) cannot be used."}${b === 0 ? "" : " A column's values on the other side of its bubble point are never used."} Pass extrapolate: true to extrapolate from the nearest measured values.`,
-    { pressure: p, temperature: t, pointIndex: pointIndex < 0 ? undefined : pointIndex, branch: ["none", "saturated", "undersaturated"][b] },
+    {
+      pressure: p,
+      temperature: t,
+      pointIndex: pointIndex < 0 ? undefined : pointIndex,
+      branch: ["none", "saturated", "undersaturated"][b],
+    },
   );
 }

@@ -4,23 +4,54 @@ import { InterpolationError } from "./errors";
 import { evaluatePoint, evaluateRange } from "./evaluate";
 import { allocateBatch, getPlan } from "./plan";
 import { prepareGrid } from "./prepare";
-import type { BatchResult, Grid, Options, Point, PointColumns, Result } from "./types";
+import type {
+  BatchResult,
+  Grid,
+  Options,
+  Point,
+  PointColumns,
+  Result,
+} from "./types";
 import type { NormalizedOptions } from "./validate";
 import { normalizeOptions } from "./validate";
 
-const scratchOptions: NormalizedOptions = { method: "linear", m: 1, n: 1, extrapolate: false };
+const scratchOptions: NormalizedOptions = {
+  method: "linear",
+  m: 1,
+  n: 1,
+  extrapolate: false,
+};
 
-export type { Branch, BatchResult, Grid, Method, Options, Point, PointColumns, Result, Stencil } from "./types";
+export type {
+  Branch,
+  BatchResult,
+  Grid,
+  Method,
+  Options,
+  Point,
+  PointColumns,
+  Result,
+  Stencil,
+} from "./types";
 export { InterpolationError } from "./errors";
 export type { InterpolationErrorCode } from "./errors";
-export { describeWarning, WARNING_CODES, WARNING_FLAGS, warningsFromFlags } from "./warnings";
+export {
+  describeWarning,
+  WARNING_CODES,
+  WARNING_FLAGS,
+  warningsFromFlags,
+} from "./warnings";
 export type { Warning } from "./warnings";
 export { DEFAULT_DEGREE, MAX_DEGREE } from "./validate";
 export { explainInterpolation } from "./explain";
 export type { Explanation, ExplanationNode, ExplanationStep } from "./explain";
 
 /** Interpolates one point. Throws InterpolationError for bad input or a point it cannot serve. */
-export function interpolateGrid(grid: Grid, point: Point, options: Options): Result {
+export function interpolateGrid(
+  grid: Grid,
+  point: Point,
+  options: Options,
+): Result {
   const opts = normalizeOptions(options, scratchOptions);
   const plan = getPlan(prepareGrid(grid), opts.method, opts.m, opts.n);
   return evaluatePoint(plan, point, opts.extrapolate, -1);
@@ -35,8 +66,17 @@ export function interpolateGrid(grid: Grid, point: Point, options: Options): Res
  * points if and only if this one has them); its arrays are overwritten and returned instead of new ones,
  * so a plot redrawn many times allocates nothing at all.
  */
-export function interpolateGridMany(grid: Grid, points: readonly Point[], options: Options): Result[];
-export function interpolateGridMany(grid: Grid, points: PointColumns, options: Options, reuse?: BatchResult): BatchResult;
+export function interpolateGridMany(
+  grid: Grid,
+  points: readonly Point[],
+  options: Options,
+): Result[];
+export function interpolateGridMany(
+  grid: Grid,
+  points: PointColumns,
+  options: Options,
+  reuse?: BatchResult,
+): BatchResult;
 export function interpolateGridMany(
   grid: Grid,
   points: readonly Point[] | PointColumns,
@@ -53,8 +93,14 @@ export function interpolateGridMany(
         return evaluatePoint(plan, point, opts.extrapolate, i);
       } catch (e) {
         // name the point in errors raised without its index (range, missing data)
-        if (e instanceof InterpolationError && e.details.pointIndex === undefined) {
-          throw new InterpolationError(e.code, `Point ${i}: ${e.message}`, { ...e.details, pointIndex: i });
+        if (
+          e instanceof InterpolationError &&
+          e.details.pointIndex === undefined
+        ) {
+          throw new InterpolationError(e.code, `Point ${i}: ${e.message}`, {
+            ...e.details,
+            pointIndex: i,
+          });
         }
         throw e;
       }
@@ -80,9 +126,14 @@ export function interpolateGridMany(
     );
   }
   let out: BatchResult;
-  if (reuse === undefined) out = allocateBatch(pressures.length, prep.bubble !== null);
+  if (reuse === undefined)
+    out = allocateBatch(pressures.length, prep.bubble !== null);
   else {
-    if (reuse.count !== pressures.length || reuse.values.length !== reuse.count || (reuse.branches !== null) !== (prep.bubble !== null)) {
+    if (
+      reuse.count !== pressures.length ||
+      reuse.values.length !== reuse.count ||
+      (reuse.branches !== null) !== (prep.bubble !== null)
+    ) {
       throw new InterpolationError(
         "invalid-options",
         `The result to reuse was made for ${reuse.count} points${reuse.branches ? " on a grid with bubble points" : ""}; this call has ${pressures.length} points${prep.bubble ? " on a grid with bubble points" : ""}.`,
@@ -91,6 +142,16 @@ export function interpolateGridMany(
     out = reuse;
     out.alternatives = null;
   }
-  evaluateRange(plan, pressures, temperatures, 0, pressures.length, opts.extrapolate, out, 0, true);
+  evaluateRange(
+    plan,
+    pressures,
+    temperatures,
+    0,
+    pressures.length,
+    opts.extrapolate,
+    out,
+    0,
+    true,
+  );
   return out;
 }

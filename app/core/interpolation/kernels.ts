@@ -18,8 +18,20 @@ import { W_EXTRAPOLATED, W_OVERSHOOT } from "./warnings";
 export function fastKernel(plan: Plan): Kernel | null {
   const tb = plan.newton;
   if (tb) {
-    if (tb.p.q === 3 && tb.t.q === 3 && tb.p.valueTerms === 2 && tb.t.valueTerms === 2) return runNewton11;
-    if (tb.p.q === 5 && tb.t.q === 5 && tb.p.valueTerms === 4 && tb.t.valueTerms === 4) return runNewton33;
+    if (
+      tb.p.q === 3 &&
+      tb.t.q === 3 &&
+      tb.p.valueTerms === 2 &&
+      tb.t.valueTerms === 2
+    )
+      return runNewton11;
+    if (
+      tb.p.q === 5 &&
+      tb.t.q === 5 &&
+      tb.p.valueTerms === 4 &&
+      tb.t.valueTerms === 4
+    )
+      return runNewton33;
     return runNewtonFast;
   }
   return plan.pchip ? runPchipFast : null;
@@ -70,7 +82,8 @@ export function runNewtonFast(
   const tAsc = tb.t.asc;
   const newton = plan.method === "newton";
   const eps4 = 4 * Number.EPSILON;
-  const { values, errorEstimates, warnings, pressureStart, temperatureStart } = out;
+  const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
+    out;
 
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -107,7 +120,8 @@ export function runNewtonFast(
       e[c] = qp > 1 ? coef[cb + qp - 1]! * wp[qp - 1]! : 0;
       if (c < vt) {
         scale += Math.abs(s);
-        if (checkOvershoot && (s < zoneLo[zi]! || s > zoneHi[zi]!)) flags |= W_OVERSHOOT;
+        if (checkOvershoot && (s < zoneLo[zi]! || s > zoneHi[zi]!))
+          flags |= W_OVERSHOOT;
       }
     }
 
@@ -115,7 +129,8 @@ export function runNewtonFast(
     for (let c = 0; c < qt; c++) d[c] = r[c]!;
     for (let l = 1; l < qt; l++) {
       const ib = (varT * qt + l) * qt;
-      for (let i = qt - 1; i >= l; i--) d[i] = (d[i]! - d[i - 1]!) * invT[ib + i]!;
+      for (let i = qt - 1; i >= l; i--)
+        d[i] = (d[i]! - d[i - 1]!) * invT[ib + i]!;
     }
     let value = d[0]!;
     for (let i = 1; i < vt; i++) value += d[i]! * wt[i]!;
@@ -124,20 +139,24 @@ export function runNewtonFast(
     for (let c = 0; c < vt; c++) d[c] = e[c]!;
     for (let l = 1; l < vt; l++) {
       const ib = (varT * qt + l) * qt;
-      for (let i = vt - 1; i >= l; i--) d[i] = (d[i]! - d[i - 1]!) * invT[ib + i]!;
+      for (let i = vt - 1; i >= l; i--)
+        d[i] = (d[i]! - d[i - 1]!) * invT[ib + i]!;
     }
     let dP = d[0]!;
     for (let i = 1; i < vt; i++) dP += d[i]! * wt[i]!;
 
-    if (checkOvershoot && vt > 2) flags |= rowOvershoot(r, tOrd, tAsc, txo, varT * vt, vt, value);
+    if (checkOvershoot && vt > 2)
+      flags |= rowOvershoot(r, tOrd, tAsc, txo, varT * vt, vt, value);
 
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * (scale + Math.abs(value));
+    errorEstimates[o] =
+      Math.abs(dP) + Math.abs(dT) + eps4 * (scale + Math.abs(value));
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
-    if (flags & W_OVERSHOOT) alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
+    if (flags & W_OVERSHOOT)
+      alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
   }
 }
 
@@ -211,7 +230,8 @@ function runNewton11(
   const tScale = tAxis.scale;
   const constFlags = plan.constFlags;
   const eps4 = 4 * Number.EPSILON;
-  const { values, errorEstimates, warnings, pressureStart, temperatureStart } = out;
+  const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
+    out;
 
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -259,7 +279,10 @@ function runNewton11(
 
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * (Math.abs(r0) + Math.abs(r1) + Math.abs(value));
+    errorEstimates[o] =
+      Math.abs(dP) +
+      Math.abs(dT) +
+      eps4 * (Math.abs(r0) + Math.abs(r1) + Math.abs(value));
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
@@ -301,7 +324,8 @@ function runNewton33(
   const constFlags = plan.constFlags;
   const newton = plan.method === "newton";
   const eps4 = 4 * Number.EPSILON;
-  const { values, errorEstimates, warnings, pressureStart, temperatureStart } = out;
+  const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
+    out;
 
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -337,15 +361,20 @@ function runNewton33(
     const z2 = base + tOrd[to5 + 2]!;
     const z3 = base + tOrd[to5 + 3]!;
     let cb = z0 * 5;
-    const r0 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const r0 =
+      coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
     cb = z1 * 5;
-    const r1 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const r1 =
+      coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
     cb = z2 * 5;
-    const r2 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const r2 =
+      coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
     cb = z3 * 5;
-    const r3 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const r3 =
+      coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
     cb = (base + tOrd[to5 + 4]!) * 5;
-    const r4 = coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
+    const r4 =
+      coef[cb]! + coef[cb + 1]! * w1 + coef[cb + 2]! * w2 + coef[cb + 3]! * w3;
 
     // step two: divided differences along temperature (precomputed reciprocal spacings)
     const ib = to5 * 5;
@@ -366,19 +395,24 @@ function runNewton33(
     const dT = d4 * (v3 * (t - tx[to5 + 3]!));
     // pressure corrections carried along temperature: their Newton coefficients are precomputed
     const go = (varP * vtCount + varT) * 4;
-    const dP = w4 * (topT[go]! + topT[go + 1]! * v1 + topT[go + 2]! * v2 + topT[go + 3]! * v3);
+    const dP =
+      w4 *
+      (topT[go]! +
+        topT[go + 1]! * v1 +
+        topT[go + 2]! * v2 +
+        topT[go + 3]! * v3);
 
     if (newton && (flags & W_EXTRAPOLATED) === 0) {
       if (
         zoneSafe[varP * vtCount + varT] === 0 &&
         (r0 < zoneLo[z0]! ||
-        r0 > zoneHi[z0]! ||
-        r1 < zoneLo[z1]! ||
-        r1 > zoneHi[z1]! ||
-        r2 < zoneLo[z2]! ||
-        r2 > zoneHi[z2]! ||
-        r3 < zoneLo[z3]! ||
-        r3 > zoneHi[z3]!)
+          r0 > zoneHi[z0]! ||
+          r1 < zoneLo[z1]! ||
+          r1 > zoneHi[z1]! ||
+          r2 < zoneLo[z2]! ||
+          r2 > zoneHi[z2]! ||
+          r3 < zoneLo[z3]! ||
+          r3 > zoneHi[z3]!)
       ) {
         flags |= W_OVERSHOOT;
       }
@@ -395,14 +429,20 @@ function runNewton33(
       }
     }
 
-    const scale = Math.abs(r0) + Math.abs(r1) + Math.abs(r2) + Math.abs(r3) + Math.abs(value);
+    const scale =
+      Math.abs(r0) +
+      Math.abs(r1) +
+      Math.abs(r2) +
+      Math.abs(r3) +
+      Math.abs(value);
     const o = outOffset + idx - from;
     values[o] = value;
     errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * scale;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
-    if (flags & W_OVERSHOOT) alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
+    if (flags & W_OVERSHOOT)
+      alternativesOf(out)[o] = pchipAt(plan, p, t).values[0]!;
   }
 }
 
@@ -441,7 +481,15 @@ export function runPchipFast(
   const { cells, hT, invHT, invSumT, r, e } = tb;
   const eps4 = 4 * Number.EPSILON;
   const stride = (N - 1) * 7;
-  const { values, errorEstimates, warnings, pressureStart, pressureCount, temperatureStart, temperatureCount } = out;
+  const {
+    values,
+    errorEstimates,
+    warnings,
+    pressureStart,
+    pressureCount,
+    temperatureStart,
+    temperatureCount,
+  } = out;
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
     const t = ts[idx]!;
@@ -459,7 +507,9 @@ export function runPchipFast(
       const dx = p - P[kp]!;
       for (let j = jLo; j <= jHi; j++) {
         const c = j * stride + kp * 7;
-        const s = ((cells[c + 3]! * dx + cells[c + 2]!) * dx + cells[c + 1]!) * dx + cells[c]!;
+        const s =
+          ((cells[c + 3]! * dx + cells[c + 2]!) * dx + cells[c + 1]!) * dx +
+          cells[c]!;
         r[j] = s;
         e[j] = ((cells[c + 6]! * dx + cells[c + 5]!) * dx + cells[c + 4]!) * dx;
         scale += Math.abs(s);
@@ -554,6 +604,7 @@ function harmonicSlope(hl: number, hr: number, ml: number, mr: number): number {
 /** End pchip slope from the three-point slope d (as pchipEndDerivative). */
 function endSlope(d: number, m0: number, m1: number): number {
   if (Math.sign(d) !== Math.sign(m0)) return 0;
-  if (Math.sign(m0) !== Math.sign(m1) && Math.abs(d) > 3 * Math.abs(m0)) return 3 * m0;
+  if (Math.sign(m0) !== Math.sign(m1) && Math.abs(d) > 3 * Math.abs(m0))
+    return 3 * m0;
   return d;
 }

@@ -1,18 +1,25 @@
 // Cells that were not measured (null): the zone moves or shrinks around them with a warning, or the
 // engine refuses with a typed error; never NaN, never a silent wrong number.
 import { describe, expect, test } from "vitest";
-import { interpolateGrid, interpolateGridMany, InterpolationError } from "./index";
+import {
+  interpolateGrid,
+  interpolateGridMany,
+  InterpolationError,
+} from "./index";
 import type { Grid } from "./index";
 import { gridFrom } from "./test-helpers";
 
 // invented smooth surface
-const f = (p: number, t: number): number => 1.1 + 0.2 * Math.log(p / 500) * (1 + 0.003 * (t - 100)) + 1e-5 * t * t;
+const f = (p: number, t: number): number =>
+  1.1 + 0.2 * Math.log(p / 500) * (1 + 0.003 * (t - 100)) + 1e-5 * t * t;
 const P = [500, 900, 1300, 1800, 2400, 3000, 3700, 4500];
 const T = [100, 130, 160, 200, 240, 280];
 const complete = gridFrom(P, T, f);
 const withHoles = (cells: [number, number][]): Grid => ({
   ...complete,
-  values: complete.values.map((row, i) => row.map((v, j) => (cells.some(([a, b]) => a === i && b === j) ? null : v))),
+  values: complete.values.map((row, i) =>
+    row.map((v, j) => (cells.some(([a, b]) => a === i && b === j) ? null : v)),
+  ),
 });
 
 describe("missing cells (reference: issue 3 — shift or shrink with a warning, else a typed error)", () => {
@@ -63,7 +70,11 @@ describe("missing cells (reference: issue 3 — shift or shrink with a warning, 
       [2, 5],
     ]);
     // at 190 the cubic zone would be 130–240; 240 has no value at 1000, so the zone shifts to 100–200
-    const r = interpolateGrid(g, { pressure: 1000, temperature: 190 }, { method: "newton" });
+    const r = interpolateGrid(
+      g,
+      { pressure: 1000, temperature: 190 },
+      { method: "newton" },
+    );
     expect(r.warnings).toContain("missing-data");
     expect(r.stencil.temperature).toEqual([0, 1, 2, 3]);
     expect(Math.abs(r.value - f(1000, 190))).toBeLessThan(3 * r.errorEstimate);
@@ -71,15 +82,25 @@ describe("missing cells (reference: issue 3 — shift or shrink with a warning, 
     for (const temperature of [230, 270]) {
       let caught: unknown = null;
       try {
-        interpolateGrid(g, { pressure: 1000, temperature }, { method: "newton" });
+        interpolateGrid(
+          g,
+          { pressure: 1000, temperature },
+          { method: "newton" },
+        );
       } catch (err) {
         caught = err;
       }
       expect(caught).toBeInstanceOf(InterpolationError);
       expect((caught as InterpolationError).code).toBe("no-valid-zone");
-      expect((caught as InterpolationError).message).toMatch(/at 240: 1800 to 4500; at 280: 1800 to 4500/);
+      expect((caught as InterpolationError).message).toMatch(
+        /at 240: 1800 to 4500; at 280: 1800 to 4500/,
+      );
     }
-    const x = interpolateGrid(g, { pressure: 1000, temperature: 270 }, { method: "newton", extrapolate: true });
+    const x = interpolateGrid(
+      g,
+      { pressure: 1000, temperature: 270 },
+      { method: "newton", extrapolate: true },
+    );
     expect(x.warnings).toContain("extrapolated");
     expect(Number.isFinite(x.value)).toBe(true);
   });
@@ -88,14 +109,27 @@ describe("missing cells (reference: issue 3 — shift or shrink with a warning, 
     // column 2 keeps only three measured pressures: a cubic along pressure is impossible there
     const holes: [number, number][] = [0, 1, 2, 3, 4].map((i) => [i, 2]);
     const g = withHoles(holes);
-    const r = interpolateGrid(g, { pressure: 3300, temperature: 160 }, { method: "newton" });
+    const r = interpolateGrid(
+      g,
+      { pressure: 3300, temperature: 160 },
+      { method: "newton" },
+    );
     expect(r.warnings).toContain("degree-reduced");
     expect(Number.isFinite(r.value)).toBe(true);
   });
 
   test("nothing measured at all is an error", () => {
-    const g: Grid = { ...complete, values: complete.values.map((row) => row.map(() => null)) };
-    expect(() => interpolateGrid(g, { pressure: 1000, temperature: 150 }, { method: "pchip" })).toThrow(InterpolationError);
+    const g: Grid = {
+      ...complete,
+      values: complete.values.map((row) => row.map(() => null)),
+    };
+    expect(() =>
+      interpolateGrid(
+        g,
+        { pressure: 1000, temperature: 150 },
+        { method: "pchip" },
+      ),
+    ).toThrow(InterpolationError);
   });
 
   test("the typed batch on a grid with holes matches single points and flags the same warnings", () => {
@@ -110,13 +144,18 @@ describe("missing cells (reference: issue 3 — shift or shrink with a warning, 
     ];
     const b = interpolateGridMany(
       g,
-      { pressures: Float64Array.from(pts.map((p) => p.pressure)), temperatures: Float64Array.from(pts.map((p) => p.temperature)) },
+      {
+        pressures: Float64Array.from(pts.map((p) => p.pressure)),
+        temperatures: Float64Array.from(pts.map((p) => p.temperature)),
+      },
       { method: "newton" },
     );
     pts.forEach((pt, k) => {
       const r = interpolateGrid(g, pt, { method: "newton" });
       expect(b.values[k]).toBe(r.value);
-      expect(b.warnings[k]! & 4).toBe(r.warnings.includes("missing-data") ? 4 : 0);
+      expect(b.warnings[k]! & 4).toBe(
+        r.warnings.includes("missing-data") ? 4 : 0,
+      );
       expect(b.pressureStart[k]).toBe(r.stencil.pressure[0]);
     });
   });

@@ -4,7 +4,13 @@
  * Turns c[co .. co+q-1] (values at the nodes x[xo .. xo+q-1], in the zone's order) into the Newton
  * coefficients f[x0], f[x0,x1], ..., f[x0..x_{q-1}], in place.
  */
-export function dividedDifferences(x: Float64Array, xo: number, c: Float64Array, co: number, q: number): void {
+export function dividedDifferences(
+  x: Float64Array,
+  xo: number,
+  c: Float64Array,
+  co: number,
+  q: number,
+): void {
   for (let l = 1; l < q; l++) {
     for (let i = q - 1; i >= l; i--) {
       c[co + i] = (c[co + i]! - c[co + i - 1]!) / (x[xo + i]! - x[xo + i - l]!);
@@ -44,7 +50,10 @@ export function newtonTerms(
 }
 
 /** The full divided-difference table for display: table[l][i] = f[x_i .. x_{i+l}]. */
-export function dividedDifferenceTable(xs: readonly number[], ys: readonly number[]): number[][] {
+export function dividedDifferenceTable(
+  xs: readonly number[],
+  ys: readonly number[],
+): number[][] {
   const table: number[][] = [ys.slice()];
   for (let l = 1; l < xs.length; l++) {
     const prev = table[l - 1]!;

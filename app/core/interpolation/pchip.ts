@@ -4,7 +4,12 @@
 // Indices are in range by construction.
 
 /** Interior derivative: weighted harmonic mean of the two slopes, zero at a local extremum or flat step. */
-export function pchipInteriorDerivative(hl: number, hr: number, ml: number, mr: number): number {
+export function pchipInteriorDerivative(
+  hl: number,
+  hr: number,
+  ml: number,
+  mr: number,
+): number {
   if ((ml > 0 && mr > 0) || (ml < 0 && mr < 0)) {
     const w1 = 2 * hr + hl;
     const w2 = hr + 2 * hl;
@@ -14,10 +19,16 @@ export function pchipInteriorDerivative(hl: number, hr: number, ml: number, mr: 
 }
 
 /** End derivative: the one-sided three-point formula, limited to keep the shape (Moler's pchip). */
-export function pchipEndDerivative(h0: number, h1: number, m0: number, m1: number): number {
+export function pchipEndDerivative(
+  h0: number,
+  h1: number,
+  m0: number,
+  m1: number,
+): number {
   const d = ((2 * h0 + h1) * m0 - h0 * m1) / (h0 + h1);
   if (Math.sign(d) !== Math.sign(m0)) return 0;
-  if (Math.sign(m0) !== Math.sign(m1) && Math.abs(d) > 3 * Math.abs(m0)) return 3 * m0;
+  if (Math.sign(m0) !== Math.sign(m1) && Math.abs(d) > 3 * Math.abs(m0))
+    return 3 * m0;
   return d;
 }
 
@@ -90,7 +101,8 @@ export function pchipCell(
   out.value = hermite(y0, d0, d1, m, h, dx);
   const e0 = d0 - b0;
   const e1 = d1 - b1;
-  out.estimate = ((((e0 + e1) / (h * h)) * dx + (-2 * e0 - e1) / h) * dx + e0) * dx;
+  out.estimate =
+    ((((e0 + e1) / (h * h)) * dx + (-2 * e0 - e1) / h) * dx + e0) * dx;
   out.d0 = d0;
   out.d1 = d1;
   out.b0 = b0;
@@ -98,7 +110,14 @@ export function pchipCell(
 }
 
 /** Cubic Hermite on one cell in power form about its left node (the form SciPy evaluates). */
-export function hermite(y0: number, d0: number, d1: number, slope: number, h: number, dx: number): number {
+export function hermite(
+  y0: number,
+  d0: number,
+  d1: number,
+  slope: number,
+  h: number,
+  dx: number,
+): number {
   const c1 = (3 * slope - 2 * d0 - d1) / h;
   const c0 = (d0 + d1 - 2 * slope) / (h * h);
   return ((c0 * dx + c1) * dx + d0) * dx + y0;

@@ -6,7 +6,11 @@ import { pchipEndDerivative, pchipInteriorDerivative } from "./pchip";
 import type { PreparedGrid } from "./prepare";
 import type { BatchResult, Method } from "./types";
 import { MAX_DEGREE } from "./validate";
-import { W_BUBBLE_POINT_UNKNOWN, W_DEGREE_REDUCED, W_OVERSHOOT } from "./warnings";
+import {
+  W_BUBBLE_POINT_UNKNOWN,
+  W_DEGREE_REDUCED,
+  W_OVERSHOOT,
+} from "./warnings";
 
 /**
  * The zone of every cell of one axis, for a fixed degree. A cell k has two variants, v = 2k + h, where
@@ -26,7 +30,10 @@ export type AxisVariants = {
   asc: Int32Array;
 };
 
-export function buildVariants(nodes: Float64Array, degree: number): AxisVariants {
+export function buildVariants(
+  nodes: Float64Array,
+  degree: number,
+): AxisVariants {
   const n = nodes.length;
   const m = Math.min(degree, n - 1);
   const cells = Math.max(1, n - 1);
@@ -168,9 +175,15 @@ export type Plan = {
 
 export const STRIDE = MAX_DEGREE + 2;
 
-export function getPlan(prep: PreparedGrid, method: Method, m: number, n: number): Plan {
+export function getPlan(
+  prep: PreparedGrid,
+  method: Method,
+  m: number,
+  n: number,
+): Plan {
   // degrees are 1..MAX_DEGREE (validated), so this is a small dense index
-  const key = method === "pchip" ? 0 : method === "linear" ? 1 : 2 + m * STRIDE + n;
+  const key =
+    method === "pchip" ? 0 : method === "linear" ? 1 : 2 + m * STRIDE + n;
   let plan = prep.plans[key];
   if (plan === undefined) {
     plan = buildPlan(prep, method, m, n);
@@ -185,13 +198,21 @@ export function alternativesOf(out: BatchResult): Float64Array {
 }
 
 /** After a range was evaluated: points without an overshoot get their own value as the alternative. */
-export function finishAlternatives(out: BatchResult, from: number, to: number): void {
+export function finishAlternatives(
+  out: BatchResult,
+  from: number,
+  to: number,
+): void {
   const alt = out.alternatives;
   if (!alt) return;
-  for (let k = from; k < to; k++) if ((out.warnings[k]! & W_OVERSHOOT) === 0) alt[k] = out.values[k]!;
+  for (let k = from; k < to; k++)
+    if ((out.warnings[k]! & W_OVERSHOOT) === 0) alt[k] = out.values[k]!;
 }
 
-export function allocateBatch(count: number, withBranches: boolean): BatchResult {
+export function allocateBatch(
+  count: number,
+  withBranches: boolean,
+): BatchResult {
   return {
     count,
     values: new Float64Array(count),
@@ -206,7 +227,12 @@ export function allocateBatch(count: number, withBranches: boolean): BatchResult
   };
 }
 
-function buildPlan(prep: PreparedGrid, method: Method, m: number, n: number): Plan {
+function buildPlan(
+  prep: PreparedGrid,
+  method: Method,
+  m: number,
+  n: number,
+): Plan {
   const { N, M } = prep;
   const fastEligible = prep.complete && prep.bubble === null;
   let constFlags = prep.bubbleUnknown ? W_BUBBLE_POINT_UNKNOWN : 0;
@@ -214,7 +240,8 @@ function buildPlan(prep: PreparedGrid, method: Method, m: number, n: number): Pl
   let pchip: PchipTables | null = null;
   if (fastEligible && method !== "pchip") {
     newton = buildNewtonTables(prep, m, n);
-    if ((m > N - 1 && N > 1) || (n > M - 1 && M > 1)) constFlags |= W_DEGREE_REDUCED;
+    if ((m > N - 1 && N > 1) || (n > M - 1 && M > 1))
+      constFlags |= W_DEGREE_REDUCED;
   } else if (fastEligible) {
     pchip = buildPchipTables(prep);
   }
@@ -259,7 +286,11 @@ function buildPlan(prep: PreparedGrid, method: Method, m: number, n: number): Pl
   };
 }
 
-function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTables {
+function buildNewtonTables(
+  prep: PreparedGrid,
+  m: number,
+  n: number,
+): NewtonTables {
   const { N, M, P, T, V } = prep;
   const p = buildVariants(P, m);
   const t = buildVariants(T, n);
@@ -270,7 +301,8 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
   for (let vp = 0; vp < vpCount; vp++) {
     for (let j = 0; j < M; j++) {
       const cb = (vp * M + j) * p.q;
-      for (let i = 0; i < p.q; i++) coef[cb + i] = V[j * N + p.order[vp * p.q + i]!]!;
+      for (let i = 0; i < p.q; i++)
+        coef[cb + i] = V[j * N + p.order[vp * p.q + i]!]!;
       dividedDifferences(p.x, vp * p.q, coef, cb, p.q);
       let lo = Infinity;
       let hi = -Infinity;
@@ -296,10 +328,14 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
   for (let vt = 0; vt < vtCount; vt++) {
     const xo = vt * t.q;
     for (let l = 1; l < t.q; l++) {
-      for (let i = l; i < t.q; i++) invT[(vt * t.q + l) * t.q + i] = 1 / (t.x[xo + i]! - t.x[xo + i - l]!);
+      for (let i = l; i < t.q; i++)
+        invT[(vt * t.q + l) * t.q + i] = 1 / (t.x[xo + i]! - t.x[xo + i - l]!);
     }
   }
-  const zoneSafe = p.valueTerms === 4 && N >= 2 ? buildZoneSafe(P, p, t, coef, zoneLo, zoneHi, M) : new Uint8Array(0);
+  const zoneSafe =
+    p.valueTerms === 4 && N >= 2
+      ? buildZoneSafe(P, p, t, coef, zoneLo, zoneHi, M)
+      : new Uint8Array(0);
   let topT = new Float64Array(0);
   if (p.q === 5 && p.valueTerms === 4 && t.q === 5 && t.valueTerms === 4) {
     const vtCount = t.order.length / 5;
@@ -307,7 +343,8 @@ function buildNewtonTables(prep: PreparedGrid, m: number, n: number): NewtonTabl
     for (let vp = 0; vp < vpCount; vp++) {
       for (let vt = 0; vt < vtCount; vt++) {
         const o = (vp * vtCount + vt) * 4;
-        for (let c = 0; c < 4; c++) topT[o + c] = coef[(vp * M + t.order[vt * 5 + c]!) * 5 + 4]!;
+        for (let c = 0; c < 4; c++)
+          topT[o + c] = coef[(vp * M + t.order[vt * 5 + c]!) * 5 + 4]!;
         dividedDifferences(t.x, vt * 5, topT, o, 4);
       }
     }
@@ -363,7 +400,11 @@ function buildZoneSafe(
       const c1 = coef[cb + 1]!;
       const c2 = coef[cb + 2]!;
       const c3 = coef[cb + 3]!;
-      const q = (x: number): number => c0 + c1 * (x - x0) + c2 * (x - x0) * (x - x1) + c3 * (x - x0) * (x - x1) * (x - x2);
+      const q = (x: number): number =>
+        c0 +
+        c1 * (x - x0) +
+        c2 * (x - x0) * (x - x1) +
+        c3 * (x - x0) * (x - x1) * (x - x2);
       // q in powers of u = x − x0: A u³ + B u² + C u + c0; extremes at the ends and where q' = 0
       const d1 = x1 - x0;
       const d2 = x2 - x0;
@@ -374,7 +415,10 @@ function buildZoneSafe(
       const disc = 4 * B * B - 12 * A * C;
       if (A !== 0 && disc >= 0) {
         const r = Math.sqrt(disc);
-        candidates.push(x0 + (-2 * B + r) / (6 * A), x0 + (-2 * B - r) / (6 * A));
+        candidates.push(
+          x0 + (-2 * B + r) / (6 * A),
+          x0 + (-2 * B - r) / (6 * A),
+        );
       } else if (A === 0 && B !== 0) candidates.push(x0 - C / (2 * B));
       let min = Infinity;
       let max = -Infinity;
@@ -385,7 +429,9 @@ function buildZoneSafe(
         max = Math.max(max, y);
       }
       // half the tolerance is kept back for the rounding of the evaluation itself
-      const slack = (hi - lo) * 1e-10 + 64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi));
+      const slack =
+        (hi - lo) * 1e-10 +
+        64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi));
       colSafe[zi] = min >= lo + slack && max <= hi - slack ? 1 : 0;
     }
   }
@@ -393,7 +439,8 @@ function buildZoneSafe(
   for (let vp = 0; vp < vpCount; vp++) {
     for (let vt = 0; vt < vtCount; vt++) {
       let safe = 1;
-      for (let c = 0; c < t.valueTerms; c++) safe &= colSafe[vp * M + t.order[vt * t.q + c]!]!;
+      for (let c = 0; c < t.valueTerms; c++)
+        safe &= colSafe[vp * M + t.order[vt * t.q + c]!]!;
       zoneSafe[vp * vtCount + vt] = safe;
     }
   }
@@ -405,7 +452,10 @@ function buildZoneSafe(
  * any overshoot that matters, far above the rounding of evaluating a polynomial at its own nodes.
  */
 export function overshootTolerance(lo: number, hi: number): number {
-  return 1e-9 * (hi - lo) + 64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi));
+  return (
+    1e-9 * (hi - lo) +
+    64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi))
+  );
 }
 
 function buildPchipTables(prep: PreparedGrid): PchipTables {
@@ -422,7 +472,8 @@ function buildPchipTables(prep: PreparedGrid): PchipTables {
           const h0 = Math.abs(P[a + s]! - P[a]!);
           const h1 = Math.abs(P[a + 2 * s]! - P[a + s]!);
           const m0 = (V[o + a + s]! - V[o + a]!) / (P[a + s]! - P[a]!);
-          const m1 = (V[o + a + 2 * s]! - V[o + a + s]!) / (P[a + 2 * s]! - P[a + s]!);
+          const m1 =
+            (V[o + a + 2 * s]! - V[o + a + s]!) / (P[a + 2 * s]! - P[a + s]!);
           d[o + i] = pchipEndDerivative(h0, h1, m0, m1);
           b[o + i] = ((2 * h0 + h1) * m0 - h0 * m1) / (h0 + h1);
         } else {
@@ -468,5 +519,14 @@ function buildPchipTables(prep: PreparedGrid): PchipTables {
     invHT[k] = 1 / hT[k]!;
   }
   for (let k = 1; k + 1 < M; k++) invSumT[k] = 1 / (hT[k - 1]! + hT[k]!);
-  return { d, b, cells, hT, invHT, invSumT, r: new Float64Array(M), e: new Float64Array(M) };
+  return {
+    d,
+    b,
+    cells,
+    hT,
+    invHT,
+    invSumT,
+    r: new Float64Array(M),
+    e: new Float64Array(M),
+  };
 }

@@ -54,7 +54,11 @@ export type PreparedGrid = {
   /** Bubble points were given, but every entry is null. */
   readonly bubbleUnknown: boolean;
   /** Index 0: all nodes (no bubble point); 1: saturated branch; 2: undersaturated branch. */
-  readonly branches: readonly [BranchNodes, BranchNodes | null, BranchNodes | null];
+  readonly branches: readonly [
+    BranchNodes,
+    BranchNodes | null,
+    BranchNodes | null,
+  ];
   /** Evaluation plans by method and degree (see plan.ts), built on first use. */
   readonly plans: (Plan | undefined)[];
 };
@@ -84,7 +88,12 @@ export function prepareGrid(grid: Grid): PreparedGrid {
 }
 
 function sameRefs(refs: readonly unknown[], grid: Grid): boolean {
-  return refs[0] === grid.pressures && refs[1] === grid.temperatures && refs[2] === grid.values && refs[3] === grid.bubblePoints;
+  return (
+    refs[0] === grid.pressures &&
+    refs[1] === grid.temperatures &&
+    refs[2] === grid.values &&
+    refs[3] === grid.bubblePoints
+  );
 }
 
 function buildPrepared(grid: Grid): PreparedGrid {
@@ -112,7 +121,11 @@ function buildPrepared(grid: Grid): PreparedGrid {
   }
   const all = buildBranch(P, V, N, M, null, 0);
   const branches: PreparedGrid["branches"] = bubble
-    ? [all, buildBranch(P, V, N, M, bubble, 1), buildBranch(P, V, N, M, bubble, 2)]
+    ? [
+        all,
+        buildBranch(P, V, N, M, bubble, 1),
+        buildBranch(P, V, N, M, bubble, 2),
+      ]
     : [all, null, null];
   return {
     source: grid,
@@ -135,7 +148,12 @@ function buildPrepared(grid: Grid): PreparedGrid {
 /** Relative distance under which a bubble point is taken to sit on a grid row. */
 const SNAP = 1e-6;
 
-function buildBubble(given: (number | null)[], P: Float64Array, T: Float64Array, V: Float64Array): BubbleInfo | null {
+function buildBubble(
+  given: (number | null)[],
+  P: Float64Array,
+  T: Float64Array,
+  V: Float64Array,
+): BubbleInfo | null {
   const M = T.length;
   const N = P.length;
   const known = new Uint8Array(M);
@@ -165,11 +183,15 @@ function buildBubble(given: (number | null)[], P: Float64Array, T: Float64Array,
     value[j] = NaN;
     // On a grid row (within rounding) with a measured value: that row is the shared node.
     let nearest = 0;
-    for (let i = 1; i < N; i++) if (Math.abs(P[i]! - p) < Math.abs(P[nearest]! - p)) nearest = i;
+    for (let i = 1; i < N; i++)
+      if (Math.abs(P[i]! - p) < Math.abs(P[nearest]! - p)) nearest = i;
     const gapBelow = nearest > 0 ? P[nearest]! - P[nearest - 1]! : Infinity;
     const gapAbove = nearest < N - 1 ? P[nearest + 1]! - P[nearest]! : Infinity;
     const gap = N > 1 ? Math.min(gapBelow, gapAbove) : Math.max(1, Math.abs(p));
-    if (Math.abs(P[nearest]! - p) <= SNAP * gap && !Number.isNaN(V[col + nearest]!)) {
+    if (
+      Math.abs(P[nearest]! - p) <= SNAP * gap &&
+      !Number.isNaN(V[col + nearest]!)
+    ) {
       pb[j] = P[nearest]!;
       row[j] = nearest;
       value[j] = V[col + nearest]!;
@@ -191,7 +213,12 @@ function buildBubble(given: (number | null)[], P: Float64Array, T: Float64Array,
  * Bubble point of a column given as null: piecewise linear along temperature through the known columns,
  * continued straight through the nearest two beyond them, constant when only one is known.
  */
-function fillAlongTemperature(given: (number | null)[], knownIdx: number[], T: Float64Array, j: number): number {
+function fillAlongTemperature(
+  given: (number | null)[],
+  knownIdx: number[],
+  T: Float64Array,
+  j: number,
+): number {
   let lower = -1;
   let upper = -1;
   for (const idx of knownIdx) {
@@ -201,7 +228,10 @@ function fillAlongTemperature(given: (number | null)[], knownIdx: number[], T: F
   if (lower < 0 || upper < 0) {
     if (knownIdx.length === 1) return given[knownIdx[0]!]!;
     const k = knownIdx.length;
-    [lower, upper] = lower < 0 ? [knownIdx[0]!, knownIdx[1]!] : [knownIdx[k - 2]!, knownIdx[k - 1]!];
+    [lower, upper] =
+      lower < 0
+        ? [knownIdx[0]!, knownIdx[1]!]
+        : [knownIdx[k - 2]!, knownIdx[k - 1]!];
   }
   const a = given[lower]!;
   const b = given[upper]!;
@@ -217,7 +247,13 @@ const cs3 = new Float64Array(3);
  * estimates are blended with weights inversely proportional to the distance from pb to each branch's
  * nearest node, so the side measured closer to pb counts more. NaN when neither branch has a value.
  */
-function bubbleValue(P: Float64Array, V: Float64Array, col: number, N: number, pb: number): number {
+function bubbleValue(
+  P: Float64Array,
+  V: Float64Array,
+  col: number,
+  N: number,
+  pb: number,
+): number {
   let sum = 0;
   let weights = 0;
   for (const side of [-1, 1] as const) {
@@ -264,7 +300,8 @@ function buildBranch(
     const col = j * N;
     const pb = bubble ? bubble.pb[j]! : NaN;
     const bRow = bubble ? bubble.row[j]! : -1;
-    const hasNode = bubble !== null && (bRow >= 0 || (pb > P[0]! && pb < P[N - 1]!));
+    const hasNode =
+      bubble !== null && (bRow >= 0 || (pb > P[0]! && pb < P[N - 1]!));
     const push = (px: number, py: number, r: number): void => {
       fullX.push(px);
       fullY.push(py);

@@ -2,19 +2,25 @@
 // modules import only each other — no framework, database, node built-ins or environment.
 import { expect, test } from "vitest";
 
-const sources = import.meta.glob(["./*.ts", "!./*.test.ts", "!./test-helpers.ts"], {
-  query: "?raw",
-  import: "default",
-  eager: true,
-}) as Record<string, string>;
+const sources = import.meta.glob(
+  ["./*.ts", "!./*.test.ts", "!./test-helpers.ts"],
+  {
+    query: "?raw",
+    import: "default",
+    eager: true,
+  },
+) as Record<string, string>;
 
 test("library modules import only sibling modules and read no environment", () => {
   const files = Object.keys(sources);
   expect(files).toContain("./index.ts");
   expect(files.length).toBeGreaterThan(8);
   for (const [file, text] of Object.entries(sources)) {
-    const specifiers = [...text.matchAll(/^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm)].map((m) => m[1]!);
-    for (const s of specifiers) expect(s, `${file} imports ${s}`).toMatch(/^\.\/[a-z-]+$/);
+    const specifiers = [
+      ...text.matchAll(/^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm),
+    ].map((m) => m[1]!);
+    for (const s of specifiers)
+      expect(s, `${file} imports ${s}`).toMatch(/^\.\/[a-z-]+$/);
     expect(text, file).not.toMatch(/process\.env|require\(/);
   }
 });

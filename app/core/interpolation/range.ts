@@ -3,14 +3,22 @@ import type { PreparedGrid } from "./prepare";
 import { W_EXTRAPOLATED } from "./warnings";
 
 function where(pointIndex: number, p: number, t: number): string {
-  return pointIndex < 0 ? "" : `Point ${pointIndex} (pressure ${formatNumber(p)}, temperature ${formatNumber(t)}): `;
+  return pointIndex < 0
+    ? ""
+    : `Point ${pointIndex} (pressure ${formatNumber(p)}, temperature ${formatNumber(t)}): `;
 }
 
 /**
  * Checks a point against the measured range. Returns W_EXTRAPOLATED when it lies outside and
  * extrapolation is allowed, 0 when inside; throws otherwise. pointIndex < 0 for a single point.
  */
-export function checkRange(prep: PreparedGrid, p: number, t: number, extrapolate: boolean, pointIndex: number): number {
+export function checkRange(
+  prep: PreparedGrid,
+  p: number,
+  t: number,
+  extrapolate: boolean,
+  pointIndex: number,
+): number {
   if (!Number.isFinite(p) || !Number.isFinite(t)) {
     const axis = Number.isFinite(p) ? "temperature" : "pressure";
     const bad = axis === "pressure" ? p : t;
@@ -27,7 +35,8 @@ export function checkRange(prep: PreparedGrid, p: number, t: number, extrapolate
     flags = W_EXTRAPOLATED;
   }
   if (t < T[0]! || t > T[M - 1]!) {
-    if (!extrapolate) throw outOfRange("temperature", t, T, M, pointIndex, p, t);
+    if (!extrapolate)
+      throw outOfRange("temperature", t, T, M, pointIndex, p, t);
     flags = W_EXTRAPOLATED;
   }
   return flags;
@@ -52,6 +61,12 @@ function outOfRange(
   return new InterpolationError(
     "out-of-range",
     `${where(pointIndex, p, t)}${text} Pass extrapolate: true to extrapolate; the result is then marked 'extrapolated'.`,
-    { axis, value, min: lo, max: hi, pointIndex: pointIndex < 0 ? undefined : pointIndex },
+    {
+      axis,
+      value,
+      min: lo,
+      max: hi,
+      pointIndex: pointIndex < 0 ? undefined : pointIndex,
+    },
   );
 }

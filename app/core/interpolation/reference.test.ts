@@ -19,7 +19,13 @@ type Case = {
   checkPressure?: Check;
   checkTemperature?: Check;
 };
-type Fixture = { library: string; version: string; function: string; grids: Record<string, Grid>; cases: Case[] };
+type Fixture = {
+  library: string;
+  version: string;
+  function: string;
+  grids: Record<string, Grid>;
+  cases: Case[];
+};
 
 const linear = linearJson as unknown as Fixture;
 const newton = newtonJson as unknown as Fixture;
@@ -51,7 +57,9 @@ describe(`linear vs ${linear.function} (SciPy ${linear.version})`, () => {
     expect(relErr(r.value, c.value)).toBeLessThan(1e-12);
     // reference: the zone rule of issue 3 for degree 1 (the cell), re-implemented in the fixture script
     expect(r.stencil).toEqual(c.stencil);
-    expect(r.warnings.includes("extrapolated")).toBe(c.options.extrapolate === true);
+    expect(r.warnings.includes("extrapolated")).toBe(
+      c.options.extrapolate === true,
+    );
   });
 });
 
@@ -64,13 +72,25 @@ describe(`newton vs ${newton.function} on the zone (SciPy ${newton.version})`, (
     // reference: the zone rule of issue 3, re-implemented independently in the fixture script
     expect(r.stencil).toEqual(c.stencil);
     expect(r.warnings.includes("degree-reduced")).toBe(c.degreeReduced);
-    expect(r.warnings.includes("extrapolated")).toBe(c.options.extrapolate === true);
+    expect(r.warnings.includes("extrapolated")).toBe(
+      c.options.extrapolate === true,
+    );
     // the error estimate's parts are the changes when one axis' degree is raised (or lowered) by one,
     // each recomputed by SciPy BarycentricInterpolator on its own zone
     const e = explainInterpolation(grid, c.point, c.options);
     const tol = 1e-9 * Math.max(1, Math.abs(c.value));
-    expect(Math.abs(e.errorParts.pressure - Math.abs((c.checkPressure?.value ?? c.value) - c.value))).toBeLessThan(tol);
-    expect(Math.abs(e.errorParts.temperature - Math.abs((c.checkTemperature?.value ?? c.value) - c.value))).toBeLessThan(tol);
+    expect(
+      Math.abs(
+        e.errorParts.pressure -
+          Math.abs((c.checkPressure?.value ?? c.value) - c.value),
+      ),
+    ).toBeLessThan(tol);
+    expect(
+      Math.abs(
+        e.errorParts.temperature -
+          Math.abs((c.checkTemperature?.value ?? c.value) - c.value),
+      ),
+    ).toBeLessThan(tol);
     expect(r.errorEstimate).toBeGreaterThan(0);
   });
 });
@@ -80,6 +100,8 @@ describe(`pchip vs ${pchip.function}, pressure then temperature (SciPy ${pchip.v
     const r = interpolateGrid(pchip.grids[c.grid]!, c.point, c.options);
     // reference: SciPy PchipInterpolator along pressure per column, then along temperature
     expect(relErr(r.value, c.value)).toBeLessThan(1e-11);
-    expect(r.warnings.includes("extrapolated")).toBe(c.options.extrapolate === true);
+    expect(r.warnings.includes("extrapolated")).toBe(
+      c.options.extrapolate === true,
+    );
   });
 });

@@ -3,16 +3,25 @@ import fc from "fast-check";
 import type { Grid } from "./index";
 
 /** A strictly increasing axis of n nodes from `start`, gaps between 0.3 and 1 times `unit` (never extreme). */
-export function axisArb(n: number, start: number, unit: number): fc.Arbitrary<number[]> {
-  return fc.array(fc.double({ min: 0.3, max: 1, noNaN: true }), { minLength: n, maxLength: n }).map((gaps) => {
-    const out: number[] = [];
-    let x = start;
-    for (let i = 0; i < n; i++) {
-      if (i > 0) x += gaps[i]! * unit;
-      out.push(x);
-    }
-    return out;
-  });
+export function axisArb(
+  n: number,
+  start: number,
+  unit: number,
+): fc.Arbitrary<number[]> {
+  return fc
+    .array(fc.double({ min: 0.3, max: 1, noNaN: true }), {
+      minLength: n,
+      maxLength: n,
+    })
+    .map((gaps) => {
+      const out: number[] = [];
+      let x = start;
+      for (let i = 0; i < n; i++) {
+        if (i > 0) x += gaps[i]! * unit;
+        out.push(x);
+      }
+      return out;
+    });
 }
 
 /** Grid shape and axes: N pressures and M temperatures within the given bounds. */
@@ -23,15 +32,29 @@ export function axesArb(
   mMax: number,
 ): fc.Arbitrary<{ pressures: number[]; temperatures: number[] }> {
   return fc
-    .tuple(fc.integer({ min: nMin, max: nMax }), fc.integer({ min: mMin, max: mMax }))
+    .tuple(
+      fc.integer({ min: nMin, max: nMax }),
+      fc.integer({ min: mMin, max: mMax }),
+    )
     .chain(([n, m]) =>
-      fc.record({ pressures: axisArb(n, 500, 400), temperatures: axisArb(m, 60, 25) }),
+      fc.record({
+        pressures: axisArb(n, 500, 400),
+        temperatures: axisArb(m, 60, 25),
+      }),
     );
 }
 
 /** A grid with values from f. */
-export function gridFrom(pressures: number[], temperatures: number[], f: (p: number, t: number) => number): Grid {
-  return { pressures, temperatures, values: pressures.map((p) => temperatures.map((t) => f(p, t))) };
+export function gridFrom(
+  pressures: number[],
+  temperatures: number[],
+  f: (p: number, t: number) => number,
+): Grid {
+  return {
+    pressures,
+    temperatures,
+    values: pressures.map((p) => temperatures.map((t) => f(p, t))),
+  };
 }
 
 /** A number in [lo, hi] from a fraction in [0, 1]. */

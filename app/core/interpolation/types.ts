@@ -50,7 +50,10 @@ export type Result = {
 };
 
 /** Many points as two typed arrays of equal length (the allocation-free batch form). */
-export type PointColumns = { pressures: Float64Array; temperatures: Float64Array };
+export type PointColumns = {
+  pressures: Float64Array;
+  temperatures: Float64Array;
+};
 
 /**
  * Result of `interpolateGridMany` for typed-array input: one entry per point in each array.

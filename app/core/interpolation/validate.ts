@@ -5,17 +5,28 @@ import type { Grid, Method, Options } from "./types";
 export const MAX_DEGREE = 8;
 export const DEFAULT_DEGREE = 3;
 
-const AXIS_LABEL = { pressures: "pressure", temperatures: "temperature" } as const;
+const AXIS_LABEL = {
+  pressures: "pressure",
+  temperatures: "temperature",
+} as const;
 
 function checkAxis(grid: Grid, name: "pressures" | "temperatures"): void {
   const axis: unknown = grid[name];
   if (!Array.isArray(axis)) {
-    throw new InterpolationError("invalid-grid-shape", `The grid has no ${name} array.`, { axis: AXIS_LABEL[name] });
+    throw new InterpolationError(
+      "invalid-grid-shape",
+      `The grid has no ${name} array.`,
+      { axis: AXIS_LABEL[name] },
+    );
   }
   if (axis.length === 0) {
-    throw new InterpolationError("axis-empty", `The grid has no ${name}: at least one is needed.`, {
-      axis: AXIS_LABEL[name],
-    });
+    throw new InterpolationError(
+      "axis-empty",
+      `The grid has no ${name}: at least one is needed.`,
+      {
+        axis: AXIS_LABEL[name],
+      },
+    );
   }
   for (let i = 0; i < axis.length; i++) {
     const v: unknown = axis[i];
@@ -46,14 +57,20 @@ function checkAxis(grid: Grid, name: "pressures" | "temperatures"): void {
 /** Throws an InterpolationError describing the first problem found in the grid. */
 export function validateGrid(grid: Grid): void {
   if (typeof grid !== "object" || grid === null) {
-    throw new InterpolationError("invalid-grid-shape", "The grid must be an object with pressures, temperatures and values.");
+    throw new InterpolationError(
+      "invalid-grid-shape",
+      "The grid must be an object with pressures, temperatures and values.",
+    );
   }
   checkAxis(grid, "pressures");
   checkAxis(grid, "temperatures");
   const { pressures, temperatures } = grid;
   const values: unknown = grid.values;
   if (!Array.isArray(values)) {
-    throw new InterpolationError("invalid-grid-shape", "The grid has no values array.");
+    throw new InterpolationError(
+      "invalid-grid-shape",
+      "The grid has no values array.",
+    );
   }
   if (values.length !== pressures.length) {
     throw new InterpolationError(
@@ -65,7 +82,9 @@ export function validateGrid(grid: Grid): void {
   for (let i = 0; i < values.length; i++) {
     const row: unknown = values[i];
     if (!Array.isArray(row) || row.length !== temperatures.length) {
-      const got = Array.isArray(row) ? `${row.length} entries` : describeBadNumber(row);
+      const got = Array.isArray(row)
+        ? `${row.length} entries`
+        : describeBadNumber(row);
       throw new InterpolationError(
         "ragged-values",
         `values[${i}] (pressure ${formatNumber(pressures[i]!)}) has ${got} but there are ${temperatures.length} temperatures.`,
@@ -79,15 +98,25 @@ export function validateGrid(grid: Grid): void {
         throw new InterpolationError(
           "value-not-finite",
           `values[${i}][${j}] (pressure ${formatNumber(pressures[i]!)}, temperature ${formatNumber(temperatures[j]!)}) is ${describeBadNumber(v)}; a measured value must be a finite number, and a cell that was not measured must be null.`,
-          { row: i, column: j, pressure: pressures[i], temperature: temperatures[j] },
+          {
+            row: i,
+            column: j,
+            pressure: pressures[i],
+            temperature: temperatures[j],
+          },
         );
       }
     }
   }
   const bubblePoints: unknown = grid.bubblePoints;
   if (bubblePoints === undefined) return;
-  if (!Array.isArray(bubblePoints) || bubblePoints.length !== temperatures.length) {
-    const got = Array.isArray(bubblePoints) ? `${bubblePoints.length} entries` : describeBadNumber(bubblePoints);
+  if (
+    !Array.isArray(bubblePoints) ||
+    bubblePoints.length !== temperatures.length
+  ) {
+    const got = Array.isArray(bubblePoints)
+      ? `${bubblePoints.length} entries`
+      : describeBadNumber(bubblePoints);
     throw new InterpolationError(
       "invalid-bubble-points",
       `bubblePoints has ${got} but there are ${temperatures.length} temperatures; give one bubble-point pressure (or null) per temperature column.`,
@@ -115,7 +144,12 @@ export type NormalizedOptions = {
 };
 
 function checkDegree(d: unknown, what: string): number {
-  if (typeof d !== "number" || !Number.isInteger(d) || d < 1 || d > MAX_DEGREE) {
+  if (
+    typeof d !== "number" ||
+    !Number.isInteger(d) ||
+    d < 1 ||
+    d > MAX_DEGREE
+  ) {
     throw new InterpolationError(
       "invalid-options",
       `${what} must be a whole number from 1 to ${MAX_DEGREE}; got ${describeBadNumber(d)}.`,
@@ -126,9 +160,20 @@ function checkDegree(d: unknown, what: string): number {
 }
 
 /** Reads and checks options into `into` (reused by callers on the hot path) and returns it. */
-export function normalizeOptions(options: Options, into: NormalizedOptions = { method: "linear", m: 1, n: 1, extrapolate: false }): NormalizedOptions {
+export function normalizeOptions(
+  options: Options,
+  into: NormalizedOptions = {
+    method: "linear",
+    m: 1,
+    n: 1,
+    extrapolate: false,
+  },
+): NormalizedOptions {
   if (typeof options !== "object" || options === null) {
-    throw new InterpolationError("invalid-options", "Options are required, e.g. { method: 'newton' }.");
+    throw new InterpolationError(
+      "invalid-options",
+      "Options are required, e.g. { method: 'newton' }.",
+    );
   }
   const method: unknown = options.method;
   if (method !== "linear" && method !== "newton" && method !== "pchip") {
@@ -155,7 +200,10 @@ export function normalizeOptions(options: Options, into: NormalizedOptions = { m
   }
   const extrapolate: unknown = options.extrapolate;
   if (extrapolate !== undefined && typeof extrapolate !== "boolean") {
-    throw new InterpolationError("invalid-options", `extrapolate must be true or false; got ${describeBadNumber(extrapolate)}.`);
+    throw new InterpolationError(
+      "invalid-options",
+      `extrapolate must be true or false; got ${describeBadNumber(extrapolate)}.`,
+    );
   }
   if (method === "linear") m = n = 1;
   into.method = method;

@@ -1,6 +1,11 @@
 // Warning codes, bits and sentences (reference: the library's own contract, README "Warnings").
 import { expect, test } from "vitest";
-import { describeWarning, WARNING_CODES, WARNING_FLAGS, warningsFromFlags } from "./index";
+import {
+  describeWarning,
+  WARNING_CODES,
+  WARNING_FLAGS,
+  warningsFromFlags,
+} from "./index";
 
 test("every warning has its own bit and a sentence, and bitmasks expand back to codes", () => {
   const bits = WARNING_CODES.map((c) => WARNING_FLAGS[c]);
@@ -12,6 +17,8 @@ test("every warning has its own bit and a sentence, and bitmasks expand back to 
     expect(describeWarning(c).length).toBeGreaterThan(40);
     expect(warningsFromFlags(WARNING_FLAGS[c])).toEqual([c]);
   }
-  expect(warningsFromFlags(WARNING_FLAGS.overshoot | WARNING_FLAGS.extrapolated)).toEqual(["extrapolated", "overshoot"]);
+  expect(
+    warningsFromFlags(WARNING_FLAGS.overshoot | WARNING_FLAGS.extrapolated),
+  ).toEqual(["extrapolated", "overshoot"]);
   expect(warningsFromFlags(0)).toEqual([]);
 });

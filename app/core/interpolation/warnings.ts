@@ -30,7 +30,8 @@ export const W_DEGREE_REDUCED = WARNING_FLAGS["degree-reduced"];
 export const W_MISSING_DATA = WARNING_FLAGS["missing-data"];
 export const W_OVERSHOOT = WARNING_FLAGS.overshoot;
 export const W_BRANCH_EXTRAPOLATED = WARNING_FLAGS["branch-extrapolated"];
-export const W_BUBBLE_POINT_EXTRAPOLATED = WARNING_FLAGS["bubble-point-extrapolated"];
+export const W_BUBBLE_POINT_EXTRAPOLATED =
+  WARNING_FLAGS["bubble-point-extrapolated"];
 export const W_BUBBLE_POINT_UNKNOWN = WARNING_FLAGS["bubble-point-unknown"];
 
 const DESCRIPTIONS: Record<Warning, string> = {
@@ -57,6 +58,7 @@ export function describeWarning(warning: Warning): string {
 /** Expands a warnings bitmask (as in `BatchResult.warnings`) into codes, in the order of WARNING_CODES. */
 export function warningsFromFlags(flags: number): Warning[] {
   const out: Warning[] = [];
-  for (const code of WARNING_CODES) if (flags & WARNING_FLAGS[code]) out.push(code);
+  for (const code of WARNING_CODES)
+    if (flags & WARNING_FLAGS[code]) out.push(code);
   return out;
 }

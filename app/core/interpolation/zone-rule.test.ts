@@ -52,7 +52,15 @@ describe("zone rule properties (reference: common practice; the (m+1)-zone must 
   test("raising the degree by one adds exactly one node to the zone", () => {
     fc.assert(
       fc.property(
-        fc.integer({ min: 3, max: 12 }).chain((n) => fc.tuple(axisArb(n, 0, 1), fc.integer({ min: 1, max: n - 2 }), unit)),
+        fc
+          .integer({ min: 3, max: 12 })
+          .chain((n) =>
+            fc.tuple(
+              axisArb(n, 0, 1),
+              fc.integer({ min: 1, max: n - 2 }),
+              unit,
+            ),
+          ),
         ([nodes, m, u]) => {
           const x = Float64Array.from(nodes);
           const n = x.length;
@@ -69,13 +77,23 @@ describe("zone rule properties (reference: common practice; the (m+1)-zone must 
   test("the lookup-table search finds the same cell as a binary search", () => {
     fc.assert(
       fc.property(
-        fc.integer({ min: 1, max: 40 }).chain((n) => fc.tuple(axisArb(n, 100, 37), fc.array(unit, { minLength: 20, maxLength: 20 }))),
+        fc
+          .integer({ min: 1, max: 40 })
+          .chain((n) =>
+            fc.tuple(
+              axisArb(n, 100, 37),
+              fc.array(unit, { minLength: 20, maxLength: 20 }),
+            ),
+          ),
         ([nodes, us]) => {
           const x = Float64Array.from(nodes);
           const index = new AxisIndex(x);
           const n = x.length;
-          const probes = us.map((u) => lerp(x[0]! - 10, x[n - 1]! + 10, u)).concat(nodes);
-          for (const t of probes) expect(index.cell(t)).toBe(cellOf(x, 0, n, t));
+          const probes = us
+            .map((u) => lerp(x[0]! - 10, x[n - 1]! + 10, u))
+            .concat(nodes);
+          for (const t of probes)
+            expect(index.cell(t)).toBe(cellOf(x, 0, n, t));
         },
       ),
       { numRuns: 300 },

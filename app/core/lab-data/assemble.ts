@@ -3,24 +3,49 @@
  * sorted axes), bubble points per temperature; reports properties given twice, conflicting bubble points,
  * and columns without values.
  */
-import { CANONICAL_UNITS, PROPERTY_KEYS, PROPERTY_QUANTITIES, type PropertyKey } from "../units";
+import {
+  CANONICAL_UNITS,
+  PROPERTY_KEYS,
+  PROPERTY_QUANTITIES,
+  type PropertyKey,
+} from "../units";
 import { quote, type FindingList, type Place } from "./findings";
 import { HEADER_LABELS } from "./header-names";
 import { describeShort } from "./parse-grid";
-import type { BubbleRecord, PointRecord, PropertyRecord, SheetResult } from "./sheet-context";
+import type {
+  BubbleRecord,
+  PointRecord,
+  PropertyRecord,
+  SheetResult,
+} from "./sheet-context";
 import type { BubblePoint, CellSource, PropertyGrid } from "./types";
 
 function placeOf(source: CellSource): Place {
-  return { ...(source.sheet !== undefined ? { sheet: source.sheet } : {}), row: source.row, column: source.column };
+  return {
+    ...(source.sheet !== undefined ? { sheet: source.sheet } : {}),
+    row: source.row,
+    column: source.column,
+  };
 }
 
-export function buildGrid(record: PropertyRecord, points: readonly PointRecord[]): PropertyGrid {
-  const pressures = [...new Set(points.map((p) => p.pressure))].sort((a, b) => a - b);
-  const temperatures = [...new Set(points.map((p) => p.temperature))].sort((a, b) => a - b);
+export function buildGrid(
+  record: PropertyRecord,
+  points: readonly PointRecord[],
+): PropertyGrid {
+  const pressures = [...new Set(points.map((p) => p.pressure))].sort(
+    (a, b) => a - b,
+  );
+  const temperatures = [...new Set(points.map((p) => p.temperature))].sort(
+    (a, b) => a - b,
+  );
   const pIndex = new Map(pressures.map((p, i) => [p, i]));
   const tIndex = new Map(temperatures.map((t, j) => [t, j]));
-  const values: (number | null)[][] = pressures.map(() => temperatures.map(() => null));
-  const sources: (CellSource | null)[][] = pressures.map(() => temperatures.map(() => null));
+  const values: (number | null)[][] = pressures.map(() =>
+    temperatures.map(() => null),
+  );
+  const sources: (CellSource | null)[][] = pressures.map(() =>
+    temperatures.map(() => null),
+  );
   for (const point of points) {
     const i = pIndex.get(point.pressure);
     const j = tIndex.get(point.temperature);
@@ -55,7 +80,10 @@ export interface Assembled {
   readonly bubblePoints: BubblePoint[];
 }
 
-export function assemble(results: readonly SheetResult[], findings: FindingList): Assembled {
+export function assemble(
+  results: readonly SheetResult[],
+  findings: FindingList,
+): Assembled {
   const records = new Map<PropertyKey, PropertyRecord>();
   for (const result of results) {
     for (const record of result.properties) {
@@ -98,7 +126,11 @@ export function assemble(results: readonly SheetResult[], findings: FindingList)
     }
     const np = new Set(list.map((p) => p.pressure)).size;
     const nt = new Set(list.map((p) => p.temperature)).size;
-    if (np > MAX_GRID_PRESSURES || nt > MAX_GRID_TEMPERATURES || np * nt > MAX_GRID_CELLS) {
+    if (
+      np > MAX_GRID_PRESSURES ||
+      nt > MAX_GRID_TEMPERATURES ||
+      np * nt > MAX_GRID_CELLS
+    ) {
       findings.error(
         "GRID_TOO_LARGE",
         record.place,
@@ -119,7 +151,10 @@ export function assemble(results: readonly SheetResult[], findings: FindingList)
         byTemperature.set(bubble.temperature, bubble);
         continue;
       }
-      if (Math.abs(previous.pressure - bubble.pressure) > 1e-9 * previous.pressure) {
+      if (
+        Math.abs(previous.pressure - bubble.pressure) >
+        1e-9 * previous.pressure
+      ) {
         findings.error(
           "CONFLICTING_BUBBLE_POINT",
           placeOf(bubble.source),
@@ -130,12 +165,20 @@ export function assemble(results: readonly SheetResult[], findings: FindingList)
     }
   }
   const allTemperatures = new Set<number>();
-  for (const grid of Object.values(properties)) for (const t of grid.temperatures) allTemperatures.add(t);
+  for (const grid of Object.values(properties))
+    for (const t of grid.temperatures) allTemperatures.add(t);
   const bubblePoints: BubblePoint[] = [...byTemperature.values()]
     .sort((a, b) => a.temperature - b.temperature)
-    .map((b) => ({ temperature: b.temperature, pressure: b.pressure, source: b.source }));
+    .map((b) => ({
+      temperature: b.temperature,
+      pressure: b.pressure,
+      source: b.source,
+    }));
   for (const b of byTemperature.values()) {
-    if (!allTemperatures.has(b.temperature) && Object.keys(properties).length > 0) {
+    if (
+      !allTemperatures.has(b.temperature) &&
+      Object.keys(properties).length > 0
+    ) {
       findings.info(
         "BUBBLE_POINT_WITHOUT_DATA",
         placeOf(b.source),

@@ -44,7 +44,9 @@ export function isBlankRow(row: RawRow): boolean {
 /** A comment row: its first non-empty cell starts with "#". */
 export function isCommentRow(row: RawRow): boolean {
   const first = row.cells.find((c) => !isEmptyCell(c));
-  return first !== undefined && first.kind === "text" && first.text.startsWith("#");
+  return (
+    first !== undefined && first.kind === "text" && first.text.startsWith("#")
+  );
 }
 
 /** Index after the last non-empty cell. */

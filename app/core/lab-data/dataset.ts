@@ -11,7 +11,12 @@ import {
   type Quantity,
 } from "../units";
 import { LabDataError } from "./errors";
-import type { BubblePoint, ParsedDataset, PropertyGrid, UnitRef } from "./types";
+import type {
+  BubblePoint,
+  ParsedDataset,
+  PropertyGrid,
+  UnitRef,
+} from "./types";
 
 export interface CanonicalGridInput {
   readonly pressures: readonly number[];
@@ -29,7 +34,10 @@ export function unitRef(quantity: Quantity, id: string): UnitRef {
     const def = getUnit(quantity, id);
     return { quantity, id: def.id, symbol: def.symbol, label: def.id };
   } catch {
-    throw new LabDataError("UNKNOWN_UNIT", `"${id}" is not a ${quantity} unit in the catalogue.`);
+    throw new LabDataError(
+      "UNKNOWN_UNIT",
+      `"${id}" is not a ${quantity} unit in the catalogue.`,
+    );
   }
 }
 

@@ -2,7 +2,8 @@
  * Typed errors for misuse of the library by calling code (bad arguments). Bad *input files* never throw:
  * they become Findings.
  */
-export type LabDataErrorCode = "UNKNOWN_LAYOUT" | "UNKNOWN_UNIT" | "INVALID_DATASET";
+export type LabDataErrorCode =
+  "UNKNOWN_LAYOUT" | "UNKNOWN_UNIT" | "INVALID_DATASET";
 
 export class LabDataError extends Error {
   readonly code: LabDataErrorCode;

@@ -2,7 +2,12 @@
  * Building parse findings: each names the file, sheet (XLSX), row, column and value, in one sentence.
  */
 import { columnLetter } from "./cells";
-import type { FileLocation, Finding, ParseFindingCode, Severity } from "./types";
+import type {
+  FileLocation,
+  Finding,
+  ParseFindingCode,
+  Severity,
+} from "./types";
 
 /** Most findings listed for one upload; the rest are summarised in one last finding. */
 export const MAX_FINDINGS = 100;
@@ -27,16 +32,23 @@ export function describePlace(file: string, place: Place): string {
   const parts = [`In ${file}`];
   if (place.sheet !== undefined) parts.push(`sheet ${quote(place.sheet)}`);
   if (place.row !== undefined) parts.push(`row ${place.row}`);
-  if (place.column !== undefined) parts.push(`column ${columnLetter(place.column)}`);
+  if (place.column !== undefined)
+    parts.push(`column ${columnLetter(place.column)}`);
   return parts.join(", ");
 }
 
-export function makeLocation(file: string, place: Place, value?: string): FileLocation {
+export function makeLocation(
+  file: string,
+  place: Place,
+  value?: string,
+): FileLocation {
   return {
     file,
     ...(place.sheet !== undefined ? { sheet: place.sheet } : {}),
     ...(place.row !== undefined ? { row: place.row } : {}),
-    ...(place.column !== undefined ? { column: place.column, columnLetter: columnLetter(place.column) } : {}),
+    ...(place.column !== undefined
+      ? { column: place.column, columnLetter: columnLetter(place.column) }
+      : {}),
     ...(value !== undefined ? { value } : {}),
   };
 }
@@ -53,7 +65,13 @@ export class FindingList {
    * Add a finding at a place. `sentence` continues "In file, sheet, row, column, …" and ends with a full stop;
    * `value` is the offending text as written.
    */
-  add(severity: Severity, code: ParseFindingCode, place: Place, sentence: string, value?: string): void {
+  add(
+    severity: Severity,
+    code: ParseFindingCode,
+    place: Place,
+    sentence: string,
+    value?: string,
+  ): void {
     const list = severity === "error" ? this.errors : this.warnings;
     if (list.length >= MAX_FINDINGS) {
       this.dropped++;
@@ -68,15 +86,30 @@ export class FindingList {
     });
   }
 
-  error(code: ParseFindingCode, place: Place, sentence: string, value?: string): void {
+  error(
+    code: ParseFindingCode,
+    place: Place,
+    sentence: string,
+    value?: string,
+  ): void {
     this.add("error", code, place, sentence, value);
   }
 
-  warn(code: ParseFindingCode, place: Place, sentence: string, value?: string): void {
+  warn(
+    code: ParseFindingCode,
+    place: Place,
+    sentence: string,
+    value?: string,
+  ): void {
     this.add("warning", code, place, sentence, value);
   }
 
-  info(code: ParseFindingCode, place: Place, sentence: string, value?: string): void {
+  info(
+    code: ParseFindingCode,
+    place: Place,
+    sentence: string,
+    value?: string,
+  ): void {
     this.add("info", code, place, sentence, value);
   }
 

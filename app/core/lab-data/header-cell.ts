@@ -21,7 +21,9 @@ export interface HeaderCell {
 }
 
 /** Split "Name (unit)", "Name [unit]" or "Name, unit"; null when there is no unit part. */
-export function splitHeaderText(text: string): { name: string; unit: string } | null {
+export function splitHeaderText(
+  text: string,
+): { name: string; unit: string } | null {
   const t = text.trim();
   const last = t.at(-1);
   if (last === ")" || last === "]") {
@@ -80,7 +82,9 @@ export function parseHeaderCell(
   const split = splitHeaderText(text);
   const name = resolveHeaderName(split ? split.name : text);
   if (name === null) {
-    const hint = options.aloneInRow ? ' If this line is a title or a note, start it with "#" so it is read as a comment.' : "";
+    const hint = options.aloneInRow
+      ? ' If this line is a title or a note, start it with "#" so it is read as a comment.'
+      : "";
     ctx.findings.error(
       "UNKNOWN_COLUMN",
       place,
@@ -92,7 +96,11 @@ export function parseHeaderCell(
   const quantity: Quantity = HEADER_QUANTITIES[name];
   if (!split) {
     if (name === "z_factor") {
-      return { name, text, unit: { quantity: "dimensionless", id: "-", symbol: "–", label: "" } };
+      return {
+        name,
+        text,
+        unit: { quantity: "dimensionless", id: "-", symbol: "–", label: "" },
+      };
     }
     ctx.findings.error(
       "MISSING_UNIT",
@@ -104,13 +112,32 @@ export function parseHeaderCell(
   }
   try {
     const parsed = parseUnitLabel(split.unit, { quantity });
-    return { name, text, unit: { quantity, id: parsed.unit, symbol: parsed.symbol, label: split.unit } };
+    return {
+      name,
+      text,
+      unit: {
+        quantity,
+        id: parsed.unit,
+        symbol: parsed.symbol,
+        label: split.unit,
+      },
+    };
   } catch (error) {
     const label = HEADER_LABELS[name];
     if (isUnitError(error) && error.code === "AMBIGUOUS_UNIT") {
-      ctx.findings.error("AMBIGUOUS_UNIT", place, `the unit in the header ${quote(text)} is ambiguous: ${lowerFirst(error.message)}`, text);
+      ctx.findings.error(
+        "AMBIGUOUS_UNIT",
+        place,
+        `the unit in the header ${quote(text)} is ambiguous: ${lowerFirst(error.message)}`,
+        text,
+      );
     } else if (isUnitError(error) && error.code === "WRONG_QUANTITY") {
-      ctx.findings.error("WRONG_UNIT", place, `the header ${quote(text)} has a unit of the wrong kind for ${label}: ${lowerFirst(error.message)}`, text);
+      ctx.findings.error(
+        "WRONG_UNIT",
+        place,
+        `the header ${quote(text)} has a unit of the wrong kind for ${label}: ${lowerFirst(error.message)}`,
+        text,
+      );
     } else {
       ctx.findings.error(
         "UNKNOWN_UNIT",
@@ -124,7 +151,9 @@ export function parseHeaderCell(
 }
 
 function lowerFirst(message: string): string {
-  return /^[A-Z][a-z]/.test(message) ? message.charAt(0).toLowerCase() + message.slice(1) : message;
+  return /^[A-Z][a-z]/.test(message)
+    ? message.charAt(0).toLowerCase() + message.slice(1)
+    : message;
 }
 
 function defaultUnitHint(quantity: Quantity): string {

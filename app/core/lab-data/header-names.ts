@@ -2,7 +2,12 @@
  * Column and block names we recognise, and the property each stands for. Matching ignores case, spaces,
  * dots, hyphens, underscores and slashes between words ("Solution GOR" = "solution-gor" = "solution_gor").
  */
-import { PROPERTY_KEYS, PROPERTY_QUANTITIES, type PropertyKey, type Quantity } from "../units";
+import {
+  PROPERTY_KEYS,
+  PROPERTY_QUANTITIES,
+  type PropertyKey,
+  type Quantity,
+} from "../units";
 
 export type AxisName = "pressure" | "temperature" | "bubble_point";
 export type HeaderName = PropertyKey | AxisName;
@@ -20,7 +25,12 @@ export const HEADER_NAMES: Readonly<Record<HeaderName, readonly string[]>> = {
     "pb",
     "psat",
   ],
-  oil_fvf: ["oil formation volume factor", "oil FVF", "Bo", "oil volume factor"],
+  oil_fvf: [
+    "oil formation volume factor",
+    "oil FVF",
+    "Bo",
+    "oil volume factor",
+  ],
   solution_gor: [
     "solution GOR",
     "solution gas-oil ratio",
@@ -28,9 +38,26 @@ export const HEADER_NAMES: Readonly<Record<HeaderName, readonly string[]>> = {
     "dissolved gas-oil ratio",
     "Rs",
   ],
-  oil_viscosity: ["oil viscosity", "viscosity of oil", "live oil viscosity", "muo", "μo"],
-  oil_density: ["oil density", "density of oil", "live oil density", "rhoo", "ρo"],
-  gas_fvf: ["gas formation volume factor", "gas FVF", "Bg", "gas volume factor"],
+  oil_viscosity: [
+    "oil viscosity",
+    "viscosity of oil",
+    "live oil viscosity",
+    "muo",
+    "μo",
+  ],
+  oil_density: [
+    "oil density",
+    "density of oil",
+    "live oil density",
+    "rhoo",
+    "ρo",
+  ],
+  gas_fvf: [
+    "gas formation volume factor",
+    "gas FVF",
+    "Bg",
+    "gas volume factor",
+  ],
   gas_viscosity: ["gas viscosity", "viscosity of gas", "mug", "μg"],
   z_factor: [
     "Z factor",
@@ -75,7 +102,10 @@ export function normalizeHeaderName(name: string): string {
 
 const LOOKUP: ReadonlyMap<string, HeaderName> = (() => {
   const map = new Map<string, HeaderName>();
-  for (const [key, names] of Object.entries(HEADER_NAMES) as [HeaderName, readonly string[]][]) {
+  for (const [key, names] of Object.entries(HEADER_NAMES) as [
+    HeaderName,
+    readonly string[],
+  ][]) {
     for (const name of names) map.set(normalizeHeaderName(name), key);
   }
   return map;

@@ -4,9 +4,24 @@
  */
 export * from "./types";
 export { LabDataError, isLabDataError, type LabDataErrorCode } from "./errors";
-export { parseUpload, MAX_UPLOAD_BYTES, ACCEPTED_EXTENSIONS, displayFileName, detectLayout } from "./parse-upload";
-export { HEADER_NAMES, HEADER_LABELS, resolveHeaderName, type HeaderName } from "./header-names";
-export { datasetFromCanonicalGrids, unitRef, type CanonicalGridInput } from "./dataset";
+export {
+  parseUpload,
+  MAX_UPLOAD_BYTES,
+  ACCEPTED_EXTENSIONS,
+  displayFileName,
+  detectLayout,
+} from "./parse-upload";
+export {
+  HEADER_NAMES,
+  HEADER_LABELS,
+  resolveHeaderName,
+  type HeaderName,
+} from "./header-names";
+export {
+  datasetFromCanonicalGrids,
+  unitRef,
+  type CanonicalGridInput,
+} from "./dataset";
 export {
   layoutSheets,
   longLayoutRows,
@@ -17,8 +32,17 @@ export {
   type TableSheet,
   type WriteOptions,
 } from "./write-tables";
-export { buildTemplateCsv, buildTemplateXlsx, templateDataset, templateFileName } from "./templates";
+export {
+  buildTemplateCsv,
+  buildTemplateXlsx,
+  templateDataset,
+  templateFileName,
+} from "./templates";
 export { runQc, qcStatus } from "./qc/run-qc";
 export type { QcMeta } from "./qc/context";
-export { RULES as QC_RULES, type RuleId as QcRuleId, type RuleInfo as QcRuleInfo } from "./qc/rules";
+export {
+  RULES as QC_RULES,
+  type RuleId as QcRuleId,
+  type RuleInfo as QcRuleInfo,
+} from "./qc/rules";
 export { PLAUSIBLE_BANDS } from "./qc/ranges";

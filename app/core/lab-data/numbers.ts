@@ -14,7 +14,10 @@ const COMMA_DECIMAL = /^[+-]?(?:\d+,\d*|,\d+)(?:[eE][+-]?\d+)?$/;
 
 /** Trim, fold the Unicode minus sign and no-break spaces. */
 export function tidyNumberText(text: string): string {
-  return text.replace(/[\u00a0\u202f]/g, " ").trim().replace(/^[\u2212\u2013]/, "-");
+  return text
+    .replace(/[\u00a0\u202f]/g, " ")
+    .trim()
+    .replace(/^[\u2212\u2013]/, "-");
 }
 
 export type NumberStyle = "integer" | "dot" | "comma";
@@ -29,7 +32,10 @@ export function numberStyle(text: string): NumberStyle | null {
 }
 
 /** The number a cell's text stands for under the file's decimal mark, or null. Never NaN or ±∞. */
-export function parseNumberText(text: string, mark: DecimalMark): number | null {
+export function parseNumberText(
+  text: string,
+  mark: DecimalMark,
+): number | null {
   const t = tidyNumberText(text);
   const style = numberStyle(t);
   if (style === null) return null;
@@ -42,12 +48,19 @@ export function parseNumberText(text: string, mark: DecimalMark): number | null 
 /** Short hint on why a text is not a number, for messages. */
 export function notNumberHint(text: string, mark: DecimalMark): string {
   const t = tidyNumberText(text);
-  if (/^[+-]?\d{1,3}([,. ']\d{3})+([.,]\d+)?$/.test(t) && numberStyle(t) === null) {
+  if (
+    /^[+-]?\d{1,3}([,. ']\d{3})+([.,]\d+)?$/.test(t) &&
+    numberStyle(t) === null
+  ) {
     return "remove the thousands separators";
   }
-  if (numberStyle(t) === "comma" && mark === ".") return "this file uses a decimal point";
-  if (numberStyle(t) === "dot" && mark === ",") return "this file uses a decimal comma";
-  if (/^[+-]?[\d.,]+(?:[eE][+-]?\d+)?\s*\S+$/.test(t)) return "put the unit in the column header, not in the cell";
-  if (/^(n\/?a|nd|-+|—|–|\?)$/i.test(t)) return "leave the cell empty when nothing was measured";
+  if (numberStyle(t) === "comma" && mark === ".")
+    return "this file uses a decimal point";
+  if (numberStyle(t) === "dot" && mark === ",")
+    return "this file uses a decimal comma";
+  if (/^[+-]?[\d.,]+(?:[eE][+-]?\d+)?\s*\S+$/.test(t))
+    return "put the unit in the column header, not in the cell";
+  if (/^(n\/?a|nd|-+|—|–|\?)$/i.test(t))
+    return "leave the cell empty when nothing was measured";
   return "write a plain number";
 }

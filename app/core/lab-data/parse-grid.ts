@@ -11,7 +11,17 @@
  * one row of bubble points (first cell empty or "bubble point").
  */
 import type { PropertyKey } from "../units";
-import { cellAt, cellText, columnLetter, isBlankRow, isCommentRow, isEmptyCell, usedWidth, type RawRow, type RawSheet } from "./cells";
+import {
+  cellAt,
+  cellText,
+  columnLetter,
+  isBlankRow,
+  isCommentRow,
+  isEmptyCell,
+  usedWidth,
+  type RawRow,
+  type RawSheet,
+} from "./cells";
 import { quote, type Place } from "./findings";
 import { headerNameOf, parseHeaderCell, type HeaderCell } from "./header-cell";
 import { HEADER_LABELS, isPropertyName } from "./header-names";
@@ -50,8 +60,17 @@ function looksNumeric(text: string): boolean {
   return numberStyle(text) !== null;
 }
 
-export function parseGridSheet(ctx: SheetContext, sheet: RawSheet, seenTitles: Map<string, Place>): SheetResult {
-  const result: SheetResult = { layout: "grid", properties: [], points: [], bubblePoints: [] };
+export function parseGridSheet(
+  ctx: SheetContext,
+  sheet: RawSheet,
+  seenTitles: Map<string, Place>,
+): SheetResult {
+  const result: SheetResult = {
+    layout: "grid",
+    properties: [],
+    points: [],
+    bubblePoints: [],
+  };
   const at = (row: number, column?: number): Place => ({
     ...(sheet.name !== undefined ? { sheet: sheet.name } : {}),
     row,
@@ -62,9 +81,19 @@ export function parseGridSheet(ctx: SheetContext, sheet: RawSheet, seenTitles: M
 
   const close = (): void => {
     if (block && block.ok && block.temperatures && block.dataRows === 0) {
-      ctx.findings.error("NO_DATA", at(block.titleRow.row, 1), `the block ${quote(block.title.text)} has no rows of values under its temperatures.`, block.title.text);
+      ctx.findings.error(
+        "NO_DATA",
+        at(block.titleRow.row, 1),
+        `the block ${quote(block.title.text)} has no rows of values under its temperatures.`,
+        block.title.text,
+      );
     } else if (block && block.ok && !block.temperatures) {
-      ctx.findings.error("MISSING_VALUE", at(block.titleRow.row, 1), `the block ${quote(block.title.text)} has no row of temperatures under its title.`, block.title.text);
+      ctx.findings.error(
+        "MISSING_VALUE",
+        at(block.titleRow.row, 1),
+        `the block ${quote(block.title.text)} has no row of temperatures under its title.`,
+        block.title.text,
+      );
     }
     block = null;
   };
@@ -77,7 +106,10 @@ export function parseGridSheet(ctx: SheetContext, sheet: RawSheet, seenTitles: M
       continue;
     }
     const first = cellAt(row, 0);
-    const awaitingBubbleRow = block?.title.name === "bubble_point" && block.temperatures !== undefined && block.dataRows === 0;
+    const awaitingBubbleRow =
+      block?.title.name === "bubble_point" &&
+      block.temperatures !== undefined &&
+      block.dataRows === 0;
     const startsTitle = isGridTitleRow(row) && !awaitingBubbleRow;
     if (block === null || startsTitle) {
       if (block !== null) close();
@@ -146,7 +178,9 @@ function openBlock(
         text,
       );
     } else {
-      const header = parseHeaderCell(ctx, first, at(row.row, 1), { aloneInRow: usedWidth(row) === 1 }); // explains the name or unit
+      const header = parseHeaderCell(ctx, first, at(row.row, 1), {
+        aloneInRow: usedWidth(row) === 1,
+      }); // explains the name or unit
       if (header) {
         ctx.findings.error(
           "UNKNOWN_LAYOUT",
@@ -172,8 +206,14 @@ function openBlock(
       ok = false;
       continue;
     }
-    if (header.name === "pressure" && !pressure && title.name !== "bubble_point") pressure = header;
-    else if (header.name === "temperature" && !temperature) temperature = header;
+    if (
+      header.name === "pressure" &&
+      !pressure &&
+      title.name !== "bubble_point"
+    )
+      pressure = header;
+    else if (header.name === "temperature" && !temperature)
+      temperature = header;
     else {
       ctx.findings.error(
         "UNKNOWN_COLUMN",
@@ -186,7 +226,10 @@ function openBlock(
   }
   if (!ok) return null;
   if (!temperature || (!pressure && title.name !== "bubble_point")) {
-    const needs = title.name === "bubble_point" ? 'a cell "temperature (°F)"' : 'cells such as "pressure (psia)" and "temperature (°F)"';
+    const needs =
+      title.name === "bubble_point"
+        ? 'a cell "temperature (°F)"'
+        : 'cells such as "pressure (psia)" and "temperature (°F)"';
     ctx.findings.error(
       "MISSING_UNIT",
       at(row.row, 1),
@@ -236,9 +279,17 @@ export function describeShort(place: Place): string {
   return parts.join(", ");
 }
 
-function readTemperatureRow(ctx: SheetContext, block: Block, row: RawRow, at: (row: number, column?: number) => Place): void {
+function readTemperatureRow(
+  ctx: SheetContext,
+  block: Block,
+  row: RawRow,
+  at: (row: number, column?: number) => Place,
+): void {
   const corner = cellAt(row, 0);
-  if (corner.kind === "number" || (corner.kind === "text" && looksNumeric(corner.text))) {
+  if (
+    corner.kind === "number" ||
+    (corner.kind === "text" && looksNumeric(corner.text))
+  ) {
     ctx.findings.error(
       "MISSING_VALUE",
       at(row.row, 1),
@@ -250,7 +301,12 @@ function readTemperatureRow(ctx: SheetContext, block: Block, row: RawRow, at: (r
   }
   const width = usedWidth(row);
   if (width < 2) {
-    ctx.findings.error("MISSING_VALUE", at(row.row, 2), `the row under the block title ${quote(block.title.text)} has no temperatures.`, "");
+    ctx.findings.error(
+      "MISSING_VALUE",
+      at(row.row, 2),
+      `the row under the block title ${quote(block.title.text)} has no temperatures.`,
+      "",
+    );
     block.ok = false;
     return;
   }
@@ -262,13 +318,28 @@ function readTemperatureRow(ctx: SheetContext, block: Block, row: RawRow, at: (r
     const place = at(row.row, c + 1);
     texts.push(cellText(cell));
     if (isEmptyCell(cell)) {
-      ctx.findings.error("MISSING_VALUE", place, `the temperature is empty in the middle of the row of temperatures of block ${quote(block.title.text)}.`, "");
+      ctx.findings.error(
+        "MISSING_VALUE",
+        place,
+        `the temperature is empty in the middle of the row of temperatures of block ${quote(block.title.text)}.`,
+        "",
+      );
       block.ok = false;
       temperatures.push(undefined);
       continue;
     }
     const raw = readNumber(ctx, cell, place, "the temperature");
-    const t = raw === null || raw === undefined ? undefined : toCanonicalChecked(ctx, raw, block.temperature.unit, place, cell, "the temperature");
+    const t =
+      raw === null || raw === undefined
+        ? undefined
+        : toCanonicalChecked(
+            ctx,
+            raw,
+            block.temperature.unit,
+            place,
+            cell,
+            "the temperature",
+          );
     if (t === undefined) {
       block.ok = false;
       temperatures.push(undefined);
@@ -306,11 +377,23 @@ function readValueRow(
   if (!pressureUnit) return;
   const pRaw = readNumber(ctx, first, pPlace, "the pressure");
   if (pRaw === null) {
-    ctx.findings.error("MISSING_VALUE", pPlace, `the pressure is empty; in block ${quote(block.title.text)} each row starts with its pressure.`, "");
+    ctx.findings.error(
+      "MISSING_VALUE",
+      pPlace,
+      `the pressure is empty; in block ${quote(block.title.text)} each row starts with its pressure.`,
+      "",
+    );
     return;
   }
   if (pRaw === undefined) return;
-  const pressure = toCanonicalChecked(ctx, pRaw, pressureUnit.unit, pPlace, first, "the pressure");
+  const pressure = toCanonicalChecked(
+    ctx,
+    pRaw,
+    pressureUnit.unit,
+    pPlace,
+    first,
+    "the pressure",
+  );
   if (pressure === undefined) return;
   const dup = block.pressures.get(pressure);
   if (dup !== undefined) {
@@ -329,10 +412,24 @@ function readValueRow(
     const cell = cellAt(row, c);
     const place = at(row.row, c + 1);
     const raw = readNumber(ctx, cell, place, label);
-    if (raw === null || raw === undefined || temperature === undefined) continue;
-    const value = toCanonicalChecked(ctx, raw, block.title.unit, place, cell, label);
+    if (raw === null || raw === undefined || temperature === undefined)
+      continue;
+    const value = toCanonicalChecked(
+      ctx,
+      raw,
+      block.title.unit,
+      place,
+      cell,
+      label,
+    );
     if (value === undefined) continue;
-    result.points.push({ property: block.title.name as PropertyKey, pressure, temperature, value, source: sourceOf(place) });
+    result.points.push({
+      property: block.title.name as PropertyKey,
+      pressure,
+      temperature,
+      value,
+      source: sourceOf(place),
+    });
   }
 }
 
@@ -368,9 +465,22 @@ function readBubbleRow(
     const cell = cellAt(row, c);
     const place = at(row.row, c + 1);
     const raw = readNumber(ctx, cell, place, "the bubble point");
-    if (raw === null || raw === undefined || temperature === undefined) continue;
-    const pb = toCanonicalChecked(ctx, raw, block.title.unit, place, cell, "the bubble point");
+    if (raw === null || raw === undefined || temperature === undefined)
+      continue;
+    const pb = toCanonicalChecked(
+      ctx,
+      raw,
+      block.title.unit,
+      place,
+      cell,
+      "the bubble point",
+    );
     if (pb === undefined) continue;
-    result.bubblePoints.push({ temperature, pressure: pb, source: sourceOf(place), text: cellText(cell) });
+    result.bubblePoints.push({
+      temperature,
+      pressure: pb,
+      source: sourceOf(place),
+      text: cellText(cell),
+    });
   }
 }

@@ -9,7 +9,16 @@
  * a bubble point. Columns may come in any order.
  */
 import type { PropertyKey } from "../units";
-import { cellAt, cellText, isBlankRow, isCommentRow, isEmptyCell, usedWidth, type RawRow, type RawSheet } from "./cells";
+import {
+  cellAt,
+  cellText,
+  isBlankRow,
+  isCommentRow,
+  isEmptyCell,
+  usedWidth,
+  type RawRow,
+  type RawSheet,
+} from "./cells";
 import { quote, type Place } from "./findings";
 import { parseHeaderCell, type HeaderCell } from "./header-cell";
 import { HEADER_LABELS, isPropertyName, type HeaderName } from "./header-names";
@@ -30,8 +39,16 @@ interface Column {
   readonly header: HeaderCell;
 }
 
-export function parseLongSheet(ctx: SheetContext, sheet: RawSheet): SheetResult {
-  const result: SheetResult = { layout: "long", properties: [], points: [], bubblePoints: [] };
+export function parseLongSheet(
+  ctx: SheetContext,
+  sheet: RawSheet,
+): SheetResult {
+  const result: SheetResult = {
+    layout: "long",
+    properties: [],
+    points: [],
+    bubblePoints: [],
+  };
   const rows = sheet.rows.filter((r) => !isBlankRow(r) && !isCommentRow(r));
   const headerRow = rows[0];
   if (!headerRow) return result;
@@ -53,7 +70,9 @@ export function parseLongSheet(ctx: SheetContext, sheet: RawSheet): SheetResult 
       emptyHeaders.push(c);
       continue;
     }
-    const header = parseHeaderCell(ctx, cell, at(headerRow.row, c + 1), { aloneInRow: width === 1 });
+    const header = parseHeaderCell(ctx, cell, at(headerRow.row, c + 1), {
+      aloneInRow: width === 1,
+    });
     if (!header) {
       headerOk = false;
       continue;
@@ -78,18 +97,33 @@ export function parseLongSheet(ctx: SheetContext, sheet: RawSheet): SheetResult 
   const bubble = seen.get("bubble_point");
   const propertyColumns = columns.filter((c) => isPropertyName(c.header.name));
   const headerPlace = at(headerRow.row);
-  const headerText = headerRow.cells.map(cellText).filter((t) => t !== "").join(", ");
+  const headerText = headerRow.cells
+    .map(cellText)
+    .filter((t) => t !== "")
+    .join(", ");
   const missing = (what: string, hint: string): void =>
-    ctx.findings.error("MISSING_COLUMN", headerPlace, `the header row ${quote(headerText)} has no ${what} column; ${hint}`, headerText);
-  if (!pressure && headerOk) missing("pressure", 'add one such as "pressure (psia)".');
-  if (!temperature && headerOk) missing("temperature", 'add one such as "temperature (°F)", even when every row is at the same temperature.');
-  if (propertyColumns.length === 0 && headerOk) missing("property", 'add at least one, such as "oil viscosity (cP)".');
+    ctx.findings.error(
+      "MISSING_COLUMN",
+      headerPlace,
+      `the header row ${quote(headerText)} has no ${what} column; ${hint}`,
+      headerText,
+    );
+  if (!pressure && headerOk)
+    missing("pressure", 'add one such as "pressure (psia)".');
+  if (!temperature && headerOk)
+    missing(
+      "temperature",
+      'add one such as "temperature (°F)", even when every row is at the same temperature.',
+    );
+  if (propertyColumns.length === 0 && headerOk)
+    missing("property", 'add at least one, such as "oil viscosity (cP)".');
   if (!pressure || !temperature || !headerOk) {
     // The rows cannot be converted, but their cells can still be checked, so that one upload lists all problems.
     for (const row of rows.slice(1)) {
       for (let c = 0; c < width; c++) {
         const cell = cellAt(row, c);
-        if (!isEmptyCell(cellAt(headerRow, c))) readNumber(ctx, cell, at(row.row, c + 1), "the value");
+        if (!isEmptyCell(cellAt(headerRow, c)))
+          readNumber(ctx, cell, at(row.row, c + 1), "the value");
       }
     }
     return result;
@@ -111,7 +145,18 @@ export function parseLongSheet(ctx: SheetContext, sheet: RawSheet): SheetResult 
   // Data rows.
   const pairs = new Map<string, number>();
   for (const row of rows.slice(1)) {
-    readRow(ctx, row, { width, headerFields: headerRow.fieldCount, emptyHeaders, pressure, temperature, bubble, propertyColumns, pairs, at, result });
+    readRow(ctx, row, {
+      width,
+      headerFields: headerRow.fieldCount,
+      emptyHeaders,
+      pressure,
+      temperature,
+      bubble,
+      propertyColumns,
+      pairs,
+      at,
+      result,
+    });
   }
   return result;
 }
@@ -156,7 +201,12 @@ function readRow(ctx: SheetContext, row: RawRow, rc: RowContext): void {
   for (const c of rc.emptyHeaders) {
     const cell = cellAt(row, c);
     if (!isEmptyCell(cell)) {
-      ctx.findings.error("MISSING_COLUMN", at(row.row, c + 1), `the value ${quote(cellText(cell))} is in a column without a header; add the header or remove the value.`, cellText(cell));
+      ctx.findings.error(
+        "MISSING_COLUMN",
+        at(row.row, c + 1),
+        `the value ${quote(cellText(cell))} is in a column without a header; add the header or remove the value.`,
+        cellText(cell),
+      );
       return;
     }
   }
@@ -167,9 +217,24 @@ function readRow(ctx: SheetContext, row: RawRow, rc: RowContext): void {
   const tPlace = at(row.row, rc.temperature.index + 1);
   const pRaw = readNumber(ctx, pCell, pPlace, "the pressure");
   const tRaw = readNumber(ctx, tCell, tPlace, "the temperature");
-  const temperature = tRaw === null || tRaw === undefined ? undefined : toCanonicalChecked(ctx, tRaw, rc.temperature.header.unit, tPlace, tCell, "the temperature");
+  const temperature =
+    tRaw === null || tRaw === undefined
+      ? undefined
+      : toCanonicalChecked(
+          ctx,
+          tRaw,
+          rc.temperature.header.unit,
+          tPlace,
+          tCell,
+          "the temperature",
+        );
   if (tRaw === null) {
-    ctx.findings.error("MISSING_VALUE", tPlace, "the temperature is empty; every row needs one.", "");
+    ctx.findings.error(
+      "MISSING_VALUE",
+      tPlace,
+      "the temperature is empty; every row needs one.",
+      "",
+    );
   }
 
   // Values of the properties on this row.
@@ -178,10 +243,22 @@ function readRow(ctx: SheetContext, row: RawRow, rc: RowContext): void {
   for (const column of rc.propertyColumns) {
     const cell = cellAt(row, column.index);
     const place = at(row.row, column.index + 1);
-    const raw = readNumber(ctx, cell, place, `the ${HEADER_LABELS[column.header.name]}`);
+    const raw = readNumber(
+      ctx,
+      cell,
+      place,
+      `the ${HEADER_LABELS[column.header.name]}`,
+    );
     if (raw === undefined) valuesOk = false;
     if (raw === null || raw === undefined) continue;
-    const value = toCanonicalChecked(ctx, raw, column.header.unit, place, cell, `the ${HEADER_LABELS[column.header.name]}`);
+    const value = toCanonicalChecked(
+      ctx,
+      raw,
+      column.header.unit,
+      place,
+      cell,
+      `the ${HEADER_LABELS[column.header.name]}`,
+    );
     if (value === undefined) valuesOk = false;
     else values.push({ column, value, place });
   }
@@ -193,16 +270,33 @@ function readRow(ctx: SheetContext, row: RawRow, rc: RowContext): void {
     const place = at(row.row, rc.bubble.index + 1);
     const raw = readNumber(ctx, cell, place, "the bubble point");
     if (raw !== null && raw !== undefined) {
-      const pb = toCanonicalChecked(ctx, raw, rc.bubble.header.unit, place, cell, "the bubble point");
+      const pb = toCanonicalChecked(
+        ctx,
+        raw,
+        rc.bubble.header.unit,
+        place,
+        cell,
+        "the bubble point",
+      );
       if (pb !== undefined && temperature !== undefined) {
-        bubble = { temperature, pressure: pb, source: sourceOf(place), text: cellText(cell) };
+        bubble = {
+          temperature,
+          pressure: pb,
+          source: sourceOf(place),
+          text: cellText(cell),
+        };
       }
     }
   }
 
   if (pRaw === null) {
     // A row that only states a bubble point.
-    if (rc.bubble && !isEmptyCell(cellAt(row, rc.bubble.index)) && values.length === 0 && valuesOk) {
+    if (
+      rc.bubble &&
+      !isEmptyCell(cellAt(row, rc.bubble.index)) &&
+      values.length === 0 &&
+      valuesOk
+    ) {
       if (bubble) rc.result.bubblePoints.push(bubble);
       return;
     }
@@ -217,7 +311,14 @@ function readRow(ctx: SheetContext, row: RawRow, rc: RowContext): void {
     return;
   }
   if (pRaw === undefined) return;
-  const pressure = toCanonicalChecked(ctx, pRaw, rc.pressure.header.unit, pPlace, pCell, "the pressure");
+  const pressure = toCanonicalChecked(
+    ctx,
+    pRaw,
+    rc.pressure.header.unit,
+    pPlace,
+    pCell,
+    "the pressure",
+  );
   if (pressure === undefined || temperature === undefined) return;
 
   const key = `${tidy(pressure)}|${tidy(temperature)}`;

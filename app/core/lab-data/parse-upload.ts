@@ -3,7 +3,13 @@
  * everything wrong with it. Never throws for bad input: every problem becomes a Finding naming the file,
  * sheet, row, column and value.
  */
-import { cellAt, isBlankRow, isCommentRow, isEmptyCell, type RawSheet } from "./cells";
+import {
+  cellAt,
+  isBlankRow,
+  isCommentRow,
+  isEmptyCell,
+  type RawSheet,
+} from "./cells";
 import { FindingList, quote, type Place } from "./findings";
 import { numberStyle, type DecimalMark } from "./numbers";
 import { isGridTitleRow, parseGridSheet } from "./parse-grid";
@@ -12,19 +18,36 @@ import { readCsv, type Delimiter } from "./read-csv";
 import { readXlsx } from "./read-xlsx";
 import { assemble } from "./assemble";
 import type { SheetContext, SheetResult } from "./sheet-context";
-import { extensionOf, sniffFile, TEXT_EXTENSIONS, WORKBOOK_EXTENSIONS } from "./sniff-file";
-import type { FileFormat, Finding, Layout, ParsedDataset, ParseOptions, ParseOutcome } from "./types";
+import {
+  extensionOf,
+  sniffFile,
+  TEXT_EXTENSIONS,
+  WORKBOOK_EXTENSIONS,
+} from "./sniff-file";
+import type {
+  FileFormat,
+  Finding,
+  Layout,
+  ParsedDataset,
+  ParseOptions,
+  ParseOutcome,
+} from "./types";
 
 /** Largest upload accepted: 5 MB. */
 export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
 
 /** Extensions accepted on the upload page. */
-export const ACCEPTED_EXTENSIONS: readonly string[] = [...TEXT_EXTENSIONS, ...WORKBOOK_EXTENSIONS];
+export const ACCEPTED_EXTENSIONS: readonly string[] = [
+  ...TEXT_EXTENSIONS,
+  ...WORKBOOK_EXTENSIONS,
+];
 
 /** A file name safe to show: no folders, no control characters, not too long. */
 export function displayFileName(filename: unknown): string {
   const raw = typeof filename === "string" ? filename : "";
-  const base = (raw.split(/[\\/]/).pop() ?? "").replace(/[\u0000-\u001f\u007f-\u009f]/g, "").trim();
+  const base = (raw.split(/[\\/]/).pop() ?? "")
+    .replace(/[\u0000-\u001f\u007f-\u009f]/g, "")
+    .trim();
   if (base === "") return "the uploaded file";
   return base.length > 120 ? `${base.slice(0, 117)}…` : base;
 }
@@ -42,8 +65,13 @@ export async function parseUpload(
   try {
     const dataset = await parseInto(input, options, file, findings);
     if (dataset === null || findings.hasErrors) {
-      if (!findings.hasErrors) findings.error("NO_DATA", {}, "no measurements were found.");
-      return { ok: false, errors: findings.finalErrors(), warnings: findings.warnings };
+      if (!findings.hasErrors)
+        findings.error("NO_DATA", {}, "no measurements were found.");
+      return {
+        ok: false,
+        errors: findings.finalErrors(),
+        warnings: findings.warnings,
+      };
     }
     return { ok: true, dataset, warnings: findings.warnings };
   } catch {
@@ -53,7 +81,11 @@ export async function parseUpload(
       message: `In ${file}, the file could not be read because of an error in Isopleth itself; nothing was stored. Please report it with the file.`,
       location: { file },
     };
-    return { ok: false, errors: [...findings.finalErrors(), internal], warnings: findings.warnings };
+    return {
+      ok: false,
+      errors: [...findings.finalErrors(), internal],
+      warnings: findings.warnings,
+    };
   }
 }
 
@@ -69,7 +101,11 @@ async function parseInto(
     return null;
   }
   if (bytes.length > MAX_UPLOAD_BYTES) {
-    findings.error("FILE_TOO_LARGE", {}, `the file is ${megabytes(bytes.length)}, over the ${megabytes(MAX_UPLOAD_BYTES)} limit; upload only the results table.`);
+    findings.error(
+      "FILE_TOO_LARGE",
+      {},
+      `the file is ${megabytes(bytes.length)}, over the ${megabytes(MAX_UPLOAD_BYTES)} limit; upload only the results table.`,
+    );
     return null;
   }
   if (bytes.length === 0) {
@@ -89,19 +125,34 @@ async function parseInto(
         `the file is not a text table: it ${sniff.what} (character ${sniff.offset + 1} has code ${sniff.byte ?? 0}); upload a CSV or XLSX file.`,
       );
     } else {
-      findings.error("WRONG_FILE_TYPE", {}, `the file is ${sniff.what}, not a CSV or XLSX table; save the results as .csv or .xlsx.`);
+      findings.error(
+        "WRONG_FILE_TYPE",
+        {},
+        `the file is ${sniff.what}, not a CSV or XLSX table; save the results as .csv or .xlsx.`,
+      );
     }
     return null;
   }
-  const extension = extensionOf(typeof input.filename === "string" ? input.filename : "");
+  const extension = extensionOf(
+    typeof input.filename === "string" ? input.filename : "",
+  );
   if (extension !== "" && !ACCEPTED_EXTENSIONS.includes(extension)) {
-    findings.error("WRONG_FILE_TYPE", {}, `files of type ${quote(`.${extension}`)} are not accepted; upload a .csv, .tsv, .txt or .xlsx file.`, `.${extension}`);
+    findings.error(
+      "WRONG_FILE_TYPE",
+      {},
+      `files of type ${quote(`.${extension}`)} are not accepted; upload a .csv, .tsv, .txt or .xlsx file.`,
+      `.${extension}`,
+    );
     return null;
   }
   if (sniff.kind === "zip") {
     format = "xlsx";
     if (TEXT_EXTENSIONS.includes(extension)) {
-      findings.warn("CONTENT_TYPE_MISMATCH", {}, `the file is named ${quote(`.${extension}`)} but holds an Excel workbook; it was read as XLSX.`);
+      findings.warn(
+        "CONTENT_TYPE_MISMATCH",
+        {},
+        `the file is named ${quote(`.${extension}`)} but holds an Excel workbook; it was read as XLSX.`,
+      );
     }
     const read = await readXlsx(bytes, findings);
     if (read === null) return null;
@@ -110,7 +161,11 @@ async function parseInto(
     format = "csv";
     encoding = sniff.encoding;
     if (WORKBOOK_EXTENSIONS.includes(extension)) {
-      findings.warn("CONTENT_TYPE_MISMATCH", {}, `the file is named ${quote(`.${extension}`)} but holds plain text; it was read as CSV.`);
+      findings.warn(
+        "CONTENT_TYPE_MISMATCH",
+        {},
+        `the file is named ${quote(`.${extension}`)} but holds plain text; it was read as CSV.`,
+      );
     }
     if (sniff.encoding === "windows-1252") {
       findings.warn(
@@ -129,9 +184,17 @@ async function parseInto(
     delimiter = read.delimiter;
   }
 
-  const contentSheets = sheets.filter((s) => s.rows.some((r) => !isBlankRow(r) && !isCommentRow(r)));
+  const contentSheets = sheets.filter((s) =>
+    s.rows.some((r) => !isBlankRow(r) && !isCommentRow(r)),
+  );
   if (contentSheets.length === 0) {
-    findings.error("EMPTY_FILE", {}, format === "xlsx" ? "the workbook's sheets hold no table." : "the file holds only comments or blank lines.");
+    findings.error(
+      "EMPTY_FILE",
+      {},
+      format === "xlsx"
+        ? "the workbook's sheets hold no table."
+        : "the file holds only comments or blank lines.",
+    );
     return null;
   }
 
@@ -140,18 +203,28 @@ async function parseInto(
   const ctx: SheetContext = {
     findings,
     decimalMark,
-    ...(options.barometricPsia !== undefined ? { barometricPsia: options.barometricPsia } : {}),
+    ...(options.barometricPsia !== undefined
+      ? { barometricPsia: options.barometricPsia }
+      : {}),
   };
 
   const results: SheetResult[] = [];
   const seenTitles = new Map<string, Place>();
   for (const sheet of contentSheets) {
-    results.push(detectLayout(sheet) === "grid" ? parseGridSheet(ctx, sheet, seenTitles) : parseLongSheet(ctx, sheet));
+    results.push(
+      detectLayout(sheet) === "grid"
+        ? parseGridSheet(ctx, sheet, seenTitles)
+        : parseLongSheet(ctx, sheet),
+    );
   }
   const assembled = assemble(results, findings);
   if (findings.hasErrors) return null;
   if (Object.keys(assembled.properties).length === 0) {
-    findings.error("NO_DATA", {}, "no property values were found under the headers.");
+    findings.error(
+      "NO_DATA",
+      {},
+      "no property values were found under the headers.",
+    );
     return null;
   }
   const layout: Layout = results[0]?.layout ?? "long";
@@ -165,7 +238,9 @@ async function parseInto(
       ...(encoding !== undefined ? { encoding } : {}),
       ...(delimiter !== undefined ? { delimiter } : {}),
       decimalMark,
-      ...(format === "xlsx" ? { sheets: contentSheets.map((s) => s.name ?? "") } : {}),
+      ...(format === "xlsx"
+        ? { sheets: contentSheets.map((s) => s.name ?? "") }
+        : {}),
     },
   };
 }
@@ -179,14 +254,20 @@ export function detectLayout(sheet: RawSheet): Layout {
   const cell = cellAt(second, 0);
   if (isEmptyCell(cell)) return "grid";
   if (cell.kind === "number") return "long";
-  return cell.kind === "text" && numberStyle(cell.text) !== null ? "long" : "grid";
+  return cell.kind === "text" && numberStyle(cell.text) !== null
+    ? "long"
+    : "grid";
 }
 
 /**
  * The decimal mark of the file. A comma is accepted when the columns are not separated by commas and no
  * number in the file uses a decimal point; otherwise each comma number is reported as ambiguous.
  */
-function decideDecimalMark(sheets: readonly RawSheet[], delimiter: Delimiter | undefined, findings: FindingList): DecimalMark | null {
+function decideDecimalMark(
+  sheets: readonly RawSheet[],
+  delimiter: Delimiter | undefined,
+  findings: FindingList,
+): DecimalMark | null {
   let firstDot: { place: Place; text: string } | undefined;
   const commas: { place: Place; text: string }[] = [];
   for (const sheet of sheets) {
@@ -195,7 +276,11 @@ function decideDecimalMark(sheets: readonly RawSheet[], delimiter: Delimiter | u
       row.cells.forEach((cell, c) => {
         if (cell.kind !== "text") return;
         const style = numberStyle(cell.text);
-        const place: Place = { ...(sheet.name !== undefined ? { sheet: sheet.name } : {}), row: row.row, column: c + 1 };
+        const place: Place = {
+          ...(sheet.name !== undefined ? { sheet: sheet.name } : {}),
+          row: row.row,
+          column: c + 1,
+        };
         if (style === "dot" && !firstDot) firstDot = { place, text: cell.text };
         if (style === "comma") commas.push({ place, text: cell.text });
       });
@@ -227,7 +312,12 @@ function decideDecimalMark(sheets: readonly RawSheet[], delimiter: Delimiter | u
   }
   const example = commas[0];
   if (example) {
-    findings.info("DECIMAL_COMMA", example.place, `numbers were read with a decimal comma (${quote(example.text)} = ${example.text.replace(",", ".")}).`, example.text);
+    findings.info(
+      "DECIMAL_COMMA",
+      example.place,
+      `numbers were read with a decimal comma (${quote(example.text)} = ${example.text.replace(",", ".")}).`,
+      example.text,
+    );
   }
   return ",";
 }

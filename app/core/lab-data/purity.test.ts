@@ -3,17 +3,23 @@
 // demand) — no framework, database, node built-ins or environment.
 import { expect, test } from "vitest";
 
-const sources = import.meta.glob(["./**/*.ts", "!./**/*.test.ts", "!./test-support.ts"], {
-  query: "?raw",
-  import: "default",
-  eager: true,
-}) as Record<string, string>;
+const sources = import.meta.glob(
+  ["./**/*.ts", "!./**/*.test.ts", "!./test-support.ts"],
+  {
+    query: "?raw",
+    import: "default",
+    eager: true,
+  },
+) as Record<string, string>;
 
 const PACKAGES = ["csv-parse/sync", "exceljs"];
 
 /** Where a relative import lands, seen from app/core: "lab-data/qc/context", "units", "properties/standing". */
 function target(file: string, specifier: string): string {
-  const parts = ["lab-data", ...file.replace(/^\.\//, "").split("/").slice(0, -1)];
+  const parts = [
+    "lab-data",
+    ...file.replace(/^\.\//, "").split("/").slice(0, -1),
+  ];
   for (const piece of specifier.split("/")) {
     if (piece === "..") parts.pop();
     else if (piece !== ".") parts.push(piece);
@@ -27,14 +33,20 @@ test("library modules import only their own modules, units, properties, the CSV 
   expect(files).toContain("./qc/run-qc.ts");
   for (const [file, text] of Object.entries(sources)) {
     const specifiers = [
-      ...[...text.matchAll(/^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm)].map((m) => m[1] ?? ""),
+      ...[
+        ...text.matchAll(/^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm),
+      ].map((m) => m[1] ?? ""),
       ...[...text.matchAll(/import\("([^"]+)"\)/g)].map((m) => m[1] ?? ""),
     ];
     for (const s of specifiers) {
       if (PACKAGES.includes(s)) continue;
       expect(s, `${file} imports ${s}`).toMatch(/^\.{1,2}\//);
-      expect(target(file, s), `${file} imports ${s}`).toMatch(/^(lab-data|units|properties|csv)(\/[a-z-/]+)?$/);
+      expect(target(file, s), `${file} imports ${s}`).toMatch(
+        /^(lab-data|units|properties|csv)(\/[a-z-/]+)?$/,
+      );
     }
-    expect(text, file).not.toMatch(/process\.env|require\(|from "node:|from "react|drizzle|\.server/);
+    expect(text, file).not.toMatch(
+      /process\.env|require\(|from "node:|from "react|drizzle|\.server/,
+    );
   }
 });

@@ -58,7 +58,10 @@ interface CsvRecord {
 }
 
 /** Read delimited text. Returns null (with a finding) when the text is not well-formed CSV. */
-export function readCsv(text: string, findings: FindingList): { sheet: RawSheet; delimiter: Delimiter } | null {
+export function readCsv(
+  text: string,
+  findings: FindingList,
+): { sheet: RawSheet; delimiter: Delimiter } | null {
   const delimiter = detectDelimiter(text);
   let records: CsvRecord[];
   try {
@@ -73,7 +76,8 @@ export function readCsv(text: string, findings: FindingList): { sheet: RawSheet;
     }) as unknown as CsvRecord[];
   } catch (error) {
     const e = error as { code?: unknown; lines?: unknown };
-    const line = typeof e.lines === "number" && e.lines > 0 ? e.lines : undefined;
+    const line =
+      typeof e.lines === "number" && e.lines > 0 ? e.lines : undefined;
     const why =
       e.code === "CSV_QUOTE_NOT_CLOSED"
         ? "a double quote opened here is never closed"
@@ -82,7 +86,8 @@ export function readCsv(text: string, findings: FindingList): { sheet: RawSheet;
           : e.code === "CSV_INVALID_CLOSING_QUOTE"
             ? "a closing double quote is followed by more text in the same field"
             : "the line cannot be split into fields";
-    const lineText = line !== undefined ? (text.split(/\r\n|\n|\r/)[line - 1] ?? "") : "";
+    const lineText =
+      line !== undefined ? (text.split(/\r\n|\n|\r/)[line - 1] ?? "") : "";
     findings.error(
       "CSV_SYNTAX",
       line !== undefined ? { row: line } : {},
@@ -93,8 +98,15 @@ export function readCsv(text: string, findings: FindingList): { sheet: RawSheet;
   }
   const rows: RawRow[] = records.map(({ record, info }) => {
     // info.lines is the line on which the record ends; quoted line breaks push it past the start line.
-    const breaks = record.reduce((n, f) => n + (f.match(/\r\n|\n|\r/g)?.length ?? 0), 0);
-    return { row: Math.max(1, info.lines - breaks), cells: record.map(toCell), fieldCount: record.length };
+    const breaks = record.reduce(
+      (n, f) => n + (f.match(/\r\n|\n|\r/g)?.length ?? 0),
+      0,
+    );
+    return {
+      row: Math.max(1, info.lines - breaks),
+      cells: record.map(toCell),
+      fieldCount: record.length,
+    };
   });
   return { sheet: { rows }, delimiter };
 }

@@ -16,32 +16,59 @@ export const MAX_SHEET_COLUMNS = 1_000;
 type ExcelModule = typeof import("exceljs");
 
 async function loadExcel(): Promise<ExcelModule> {
-  const mod = (await import("exceljs")) as ExcelModule & { default?: ExcelModule };
+  const mod = (await import("exceljs")) as ExcelModule & {
+    default?: ExcelModule;
+  };
   return mod.default ?? mod;
 }
 
 function fromValue(value: CellValue): RawCell {
   if (value === null || value === undefined) return EMPTY_CELL;
   if (typeof value === "number") {
-    return Number.isFinite(value) ? { kind: "number", value, text: String(value) } : { kind: "other", text: String(value), what: "not a finite number" };
+    return Number.isFinite(value)
+      ? { kind: "number", value, text: String(value) }
+      : { kind: "other", text: String(value), what: "not a finite number" };
   }
   if (typeof value === "string") {
     const text = value.trim();
     return text === "" ? EMPTY_CELL : { kind: "text", text };
   }
-  if (typeof value === "boolean") return { kind: "other", text: value ? "TRUE" : "FALSE", what: "a TRUE/FALSE value" };
+  if (typeof value === "boolean")
+    return {
+      kind: "other",
+      text: value ? "TRUE" : "FALSE",
+      what: "a TRUE/FALSE value",
+    };
   if (value instanceof Date) {
-    return { kind: "other", text: Number.isNaN(value.getTime()) ? "date" : value.toISOString().slice(0, 10), what: "a date" };
+    return {
+      kind: "other",
+      text: Number.isNaN(value.getTime())
+        ? "date"
+        : value.toISOString().slice(0, 10),
+      what: "a date",
+    };
   }
-  if ("error" in value) return { kind: "other", text: String(value.error), what: `the error value ${String(value.error)}` };
+  if ("error" in value)
+    return {
+      kind: "other",
+      text: String(value.error),
+      what: `the error value ${String(value.error)}`,
+    };
   if ("richText" in value) {
-    const text = (Array.isArray(value.richText) ? value.richText : []).map((r) => String(r.text ?? "")).join("").trim();
+    const text = (Array.isArray(value.richText) ? value.richText : [])
+      .map((r) => String(r.text ?? ""))
+      .join("")
+      .trim();
     return text === "" ? EMPTY_CELL : { kind: "text", text };
   }
   if ("formula" in value || "sharedFormula" in value) {
     const result = (value as { result?: CellValue }).result;
     if (result === undefined || result === null) {
-      return { kind: "other", text: `=${String((value as { formula?: unknown }).formula ?? "")}`, what: "a formula without a stored result (open and save the file in a spreadsheet program first)" };
+      return {
+        kind: "other",
+        text: `=${String((value as { formula?: unknown }).formula ?? "")}`,
+        what: "a formula without a stored result (open and save the file in a spreadsheet program first)",
+      };
     }
     return fromValue(result);
   }
@@ -56,10 +83,17 @@ function fromValue(value: CellValue): RawCell {
  * Read the visible sheets of an XLSX workbook. Returns null (with findings) when the bytes are not a
  * readable workbook.
  */
-export async function readXlsx(bytes: Uint8Array, findings: FindingList): Promise<RawSheet[] | null> {
+export async function readXlsx(
+  bytes: Uint8Array,
+  findings: FindingList,
+): Promise<RawSheet[] | null> {
   const directory = zipDirectory(bytes);
   if (directory === null) {
-    findings.error("UNREADABLE_WORKBOOK", {}, "the file starts like a ZIP archive (as XLSX workbooks do) but its table of contents is damaged or missing; save it again from the spreadsheet program.");
+    findings.error(
+      "UNREADABLE_WORKBOOK",
+      {},
+      "the file starts like a ZIP archive (as XLSX workbooks do) but its table of contents is damaged or missing; save it again from the spreadsheet program.",
+    );
     return null;
   }
   if (!directory.names.includes("xl/workbook.xml")) {
@@ -70,11 +104,19 @@ export async function readXlsx(bytes: Uint8Array, findings: FindingList): Promis
         : directory.names.some((n) => n.startsWith("ppt/"))
           ? "a PowerPoint presentation"
           : "a ZIP archive";
-    findings.error("WRONG_FILE_TYPE", {}, `the file is ${what}, not an Excel workbook; save the results as .xlsx or .csv.`);
+    findings.error(
+      "WRONG_FILE_TYPE",
+      {},
+      `the file is ${what}, not an Excel workbook; save the results as .xlsx or .csv.`,
+    );
     return null;
   }
   if (directory.uncompressedBytes > MAX_UNPACKED_BYTES) {
-    findings.error("FILE_TOO_LARGE", {}, `the workbook unpacks to more than ${MAX_UNPACKED_BYTES / 1024 / 1024} MB, far more than a table of laboratory results needs; upload only the results.`);
+    findings.error(
+      "FILE_TOO_LARGE",
+      {},
+      `the workbook unpacks to more than ${MAX_UNPACKED_BYTES / 1024 / 1024} MB, far more than a table of laboratory results needs; upload only the results.`,
+    );
     return null;
   }
 
@@ -82,9 +124,15 @@ export async function readXlsx(bytes: Uint8Array, findings: FindingList): Promis
   try {
     const ExcelJS = await loadExcel();
     workbook = new ExcelJS.Workbook();
-    await workbook.xlsx.load(bytes as unknown as Parameters<typeof workbook.xlsx.load>[0]);
+    await workbook.xlsx.load(
+      bytes as unknown as Parameters<typeof workbook.xlsx.load>[0],
+    );
   } catch {
-    findings.error("UNREADABLE_WORKBOOK", {}, "the workbook cannot be opened (it may be damaged, encrypted or password-protected); save it again as a plain .xlsx or as .csv.");
+    findings.error(
+      "UNREADABLE_WORKBOOK",
+      {},
+      "the workbook cannot be opened (it may be damaged, encrypted or password-protected); save it again as a plain .xlsx or as .csv.",
+    );
     return null;
   }
 
@@ -94,17 +142,29 @@ export async function readXlsx(bytes: Uint8Array, findings: FindingList): Promis
     if (tooBig) return;
     const name = worksheet.name;
     if (worksheet.state !== "visible") {
-      findings.info("HIDDEN_SHEET_IGNORED", { sheet: name }, "the sheet is hidden and was not read.");
+      findings.info(
+        "HIDDEN_SHEET_IGNORED",
+        { sheet: name },
+        "the sheet is hidden and was not read.",
+      );
       return;
     }
     const rowCount = worksheet.rowCount;
     if (rowCount > MAX_SHEET_ROWS) {
-      findings.error("TOO_MANY_ROWS", { sheet: name }, `the sheet has ${rowCount} rows; at most ${MAX_SHEET_ROWS} are read.`);
+      findings.error(
+        "TOO_MANY_ROWS",
+        { sheet: name },
+        `the sheet has ${rowCount} rows; at most ${MAX_SHEET_ROWS} are read.`,
+      );
       tooBig = true;
       return;
     }
     if (worksheet.columnCount > MAX_SHEET_COLUMNS) {
-      findings.error("TOO_MANY_ROWS", { sheet: name }, `the sheet has ${worksheet.columnCount} columns; at most ${MAX_SHEET_COLUMNS} are read.`);
+      findings.error(
+        "TOO_MANY_ROWS",
+        { sheet: name },
+        `the sheet has ${worksheet.columnCount} columns; at most ${MAX_SHEET_COLUMNS} are read.`,
+      );
       tooBig = true;
       return;
     }

@@ -76,16 +76,31 @@ export function tidy(value: number): number {
  * Read a number from a cell. Returns null for an empty cell and undefined (with an error) for a cell that
  * is not a number. `what` names the quantity in the message ("the pressure", "the oil viscosity").
  */
-export function readNumber(ctx: SheetContext, cell: RawCell, place: Place, what: string): number | null | undefined {
+export function readNumber(
+  ctx: SheetContext,
+  cell: RawCell,
+  place: Place,
+  what: string,
+): number | null | undefined {
   if (cell.kind === "empty") return null;
   if (cell.kind === "number") return cell.value;
   if (cell.kind === "other") {
-    ctx.findings.error("NOT_A_NUMBER", place, `${what} ${quote(cell.text)} is ${cell.what}, not a number; write a plain number.`, cell.text);
+    ctx.findings.error(
+      "NOT_A_NUMBER",
+      place,
+      `${what} ${quote(cell.text)} is ${cell.what}, not a number; write a plain number.`,
+      cell.text,
+    );
     return undefined;
   }
   const value = parseNumberText(cell.text, ctx.decimalMark);
   if (value === null) {
-    ctx.findings.error("NOT_A_NUMBER", place, `${what} ${quote(cell.text)} is not a number; ${notNumberHint(cell.text, ctx.decimalMark)}.`, cell.text);
+    ctx.findings.error(
+      "NOT_A_NUMBER",
+      place,
+      `${what} ${quote(cell.text)} is not a number; ${notNumberHint(cell.text, ctx.decimalMark)}.`,
+      cell.text,
+    );
     return undefined;
   }
   return value;
@@ -104,23 +119,39 @@ export function toCanonicalChecked(
   what: string,
 ): number | undefined {
   const text = cellText(cell);
-  if (unit.id === CANONICAL_UNITS[unit.quantity] && unit.quantity !== "pressure" && unit.quantity !== "temperature") {
+  if (
+    unit.id === CANONICAL_UNITS[unit.quantity] &&
+    unit.quantity !== "pressure" &&
+    unit.quantity !== "temperature"
+  ) {
     return value; // Already canonical: nothing to convert or tidy.
   }
   let canonical: number;
   try {
     canonical = toCanonical(value, unit.quantity, unit.id as UnitId<Quantity>, {
-      ...(ctx.barometricPsia !== undefined ? { barometricPsia: ctx.barometricPsia } : {}),
+      ...(ctx.barometricPsia !== undefined
+        ? { barometricPsia: ctx.barometricPsia }
+        : {}),
     });
   } catch (error) {
     if (isUnitError(error) && error.code === "BELOW_ABSOLUTE_ZERO") {
-      ctx.findings.error("BELOW_ABSOLUTE_ZERO", place, `${what} ${quote(text)} ${unit.symbol} is below absolute zero.`, text);
+      ctx.findings.error(
+        "BELOW_ABSOLUTE_ZERO",
+        place,
+        `${what} ${quote(text)} ${unit.symbol} is below absolute zero.`,
+        text,
+      );
       return undefined;
     }
     if (isUnitError(error) && error.code === "NEGATIVE_ABSOLUTE_PRESSURE") {
       canonical = Number.NEGATIVE_INFINITY;
     } else {
-      ctx.findings.error("NOT_A_NUMBER", place, `${what} ${quote(text)} cannot be converted from ${unit.symbol}.`, text);
+      ctx.findings.error(
+        "NOT_A_NUMBER",
+        place,
+        `${what} ${quote(text)} cannot be converted from ${unit.symbol}.`,
+        text,
+      );
       return undefined;
     }
   }

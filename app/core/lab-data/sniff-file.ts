@@ -4,11 +4,23 @@
  */
 export type SniffResult =
   | { readonly kind: "zip" }
-  | { readonly kind: "text"; readonly text: string; readonly encoding: "utf-8" | "utf-16" | "windows-1252" }
-  | { readonly kind: "binary"; readonly what: string; readonly offset?: number; readonly byte?: number };
+  | {
+      readonly kind: "text";
+      readonly text: string;
+      readonly encoding: "utf-8" | "utf-16" | "windows-1252";
+    }
+  | {
+      readonly kind: "binary";
+      readonly what: string;
+      readonly offset?: number;
+      readonly byte?: number;
+    };
 
 const SIGNATURES: ReadonlyArray<readonly [readonly number[], string]> = [
-  [[0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1], "an old-style Excel 97–2003 (.xls) or other OLE2 document"],
+  [
+    [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1],
+    "an old-style Excel 97–2003 (.xls) or other OLE2 document",
+  ],
   [[0x25, 0x50, 0x44, 0x46], "a PDF document"],
   [[0x89, 0x50, 0x4e, 0x47], "a PNG image"],
   [[0xff, 0xd8, 0xff], "a JPEG image"],
@@ -29,21 +41,30 @@ function startsWith(bytes: Uint8Array, prefix: readonly number[]): boolean {
 function firstControlChar(text: string): number {
   for (let i = 0; i < text.length; i++) {
     const c = text.charCodeAt(i);
-    if ((c < 0x20 && c !== 0x09 && c !== 0x0a && c !== 0x0d && c !== 0x0c) || (c >= 0x7f && c <= 0x9f)) return i;
+    if (
+      (c < 0x20 && c !== 0x09 && c !== 0x0a && c !== 0x0d && c !== 0x0c) ||
+      (c >= 0x7f && c <= 0x9f)
+    )
+      return i;
   }
   return -1;
 }
 
 function decode(encoding: string, bytes: Uint8Array): string | null {
   try {
-    return new TextDecoder(encoding, { fatal: true, ignoreBOM: false }).decode(bytes);
+    return new TextDecoder(encoding, { fatal: true, ignoreBOM: false }).decode(
+      bytes,
+    );
   } catch {
     return null;
   }
 }
 
 export function sniffFile(bytes: Uint8Array): SniffResult {
-  if (startsWith(bytes, [0x50, 0x4b, 0x03, 0x04]) || startsWith(bytes, [0x50, 0x4b, 0x05, 0x06])) {
+  if (
+    startsWith(bytes, [0x50, 0x4b, 0x03, 0x04]) ||
+    startsWith(bytes, [0x50, 0x4b, 0x05, 0x06])
+  ) {
     return { kind: "zip" };
   }
   for (const [signature, what] of SIGNATURES) {
@@ -68,7 +89,12 @@ export function sniffFile(bytes: Uint8Array): SniffResult {
   if (text === null) return { kind: "binary", what: "not readable as text" };
   const bad = firstControlChar(text);
   if (bad >= 0) {
-    return { kind: "binary", what: "contains control characters that text files do not have", offset: bad, byte: text.charCodeAt(bad) };
+    return {
+      kind: "binary",
+      what: "contains control characters that text files do not have",
+      offset: bad,
+      byte: text.charCodeAt(bad),
+    };
   }
   return { kind: "text", text: text.replace(/^\uFEFF/, ""), encoding };
 }
@@ -88,7 +114,9 @@ export const WORKBOOK_EXTENSIONS: readonly string[] = ["xlsx", "xlsm"];
  * the file names it holds and the sum of their declared uncompressed sizes (a guard against zip bombs).
  * Returns null when the directory cannot be found.
  */
-export function zipDirectory(bytes: Uint8Array): { names: string[]; uncompressedBytes: number } | null {
+export function zipDirectory(
+  bytes: Uint8Array,
+): { names: string[]; uncompressedBytes: number } | null {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const minEocd = 22;
   if (bytes.length < minEocd) return null;
@@ -110,7 +138,8 @@ export function zipDirectory(bytes: Uint8Array): { names: string[]; uncompressed
   let at = dirOffset;
   const utf8 = new TextDecoder("utf-8");
   for (let n = 0; n < entries; n++) {
-    if (at + 46 > bytes.length || view.getUint32(at, true) !== 0x02014b50) return null;
+    if (at + 46 > bytes.length || view.getUint32(at, true) !== 0x02014b50)
+      return null;
     const uncompressed = view.getUint32(at + 24, true);
     const nameLength = view.getUint16(at + 28, true);
     const extraLength = view.getUint16(at + 30, true);
@@ -118,7 +147,8 @@ export function zipDirectory(bytes: Uint8Array): { names: string[]; uncompressed
     if (at + 46 + nameLength > bytes.length) return null;
     names.push(utf8.decode(bytes.subarray(at + 46, at + 46 + nameLength)));
     // 0xFFFFFFFF marks a ZIP64 size: treat it as too large rather than reading ZIP64 records.
-    total += uncompressed === 0xffffffff ? Number.POSITIVE_INFINITY : uncompressed;
+    total +=
+      uncompressed === 0xffffffff ? Number.POSITIVE_INFINITY : uncompressed;
     at += 46 + nameLength + extraLength + commentLength;
   }
   return { names, uncompressedBytes: total };

@@ -4,7 +4,10 @@
  * layout is clear; a lab replaces the numbers with its measurements. Every template reads back through
  * parseUpload to the same grids (tested).
  */
-import { createSampleModel, generateSample } from "../properties/generate-sample";
+import {
+  createSampleModel,
+  generateSample,
+} from "../properties/generate-sample";
 import { PROPERTY_KEYS, type PropertyKey } from "../units";
 import { datasetFromCanonicalGrids, type CanonicalGridInput } from "./dataset";
 import { LabDataError } from "./errors";
@@ -22,7 +25,12 @@ const DIGITS: Readonly<Record<PropertyKey, number>> = {
   z_factor: 3,
 };
 
-const TEMPLATE_FLUID = { apiGravity: 35, gasGravity: 0.75, bubblePoint: 2500, bubblePointTemperature: 200 } as const;
+const TEMPLATE_FLUID = {
+  apiGravity: 35,
+  gasGravity: 0.75,
+  bubblePoint: 2500,
+  bubblePointTemperature: 200,
+} as const;
 
 let cached: ParsedDataset | undefined;
 
@@ -32,7 +40,9 @@ export function templateDataset(): ParsedDataset {
   const temperatures = [160, 200];
   const model = createSampleModel(TEMPLATE_FLUID);
   const pbs = temperatures.map((t) => Math.round(model.bubblePoint(t)));
-  const pressures = [...new Set([500, 1000, 1500, 2000, ...pbs, 3000, 4000, 5000])].sort((a, b) => a - b);
+  const pressures = [
+    ...new Set([500, 1000, 1500, 2000, ...pbs, 3000, 4000, 5000]),
+  ].sort((a, b) => a - b);
   const sample = generateSample({ ...TEMPLATE_FLUID, temperatures, pressures });
   const properties: { [K in PropertyKey]?: CanonicalGridInput } = {};
   for (const key of PROPERTY_KEYS) {
@@ -40,7 +50,11 @@ export function templateDataset(): ParsedDataset {
     properties[key] = {
       pressures,
       temperatures,
-      values: grid.values.map((row) => row.map((v) => (v === null ? null : Number(v.toPrecision(DIGITS[key]))))),
+      values: grid.values.map((row) =>
+        row.map((v) =>
+          v === null ? null : Number(v.toPrecision(DIGITS[key])),
+        ),
+      ),
       ...(key === "gas_fvf" ? { displayUnit: "ft3/scf" } : {}),
     };
   }
@@ -51,13 +65,20 @@ export function templateDataset(): ParsedDataset {
     properties.gas_fvf = {
       ...gas,
       values: sample.grids.gas_fvf.values.map((row) =>
-        row.map((v) => (v === null ? null : Number((v * perBarrel).toPrecision(DIGITS.gas_fvf)) / perBarrel)),
+        row.map((v) =>
+          v === null
+            ? null
+            : Number((v * perBarrel).toPrecision(DIGITS.gas_fvf)) / perBarrel,
+        ),
       ),
     };
   }
   cached = datasetFromCanonicalGrids({
     properties,
-    bubblePoints: temperatures.map((t, j) => ({ temperature: t, pressure: pbs[j] ?? 0 })),
+    bubblePoints: temperatures.map((t, j) => ({
+      temperature: t,
+      pressure: pbs[j] ?? 0,
+    })),
   });
   return cached;
 }
@@ -79,24 +100,40 @@ const NOTES: Readonly<Record<Layout, readonly string[]>> = {
 
 function checkLayout(layout: Layout): void {
   if (layout !== "long" && layout !== "grid") {
-    throw new LabDataError("UNKNOWN_LAYOUT", `Unknown layout "${String(layout)}": use "long" or "grid".`);
+    throw new LabDataError(
+      "UNKNOWN_LAYOUT",
+      `Unknown layout "${String(layout)}": use "long" or "grid".`,
+    );
   }
 }
 
 /** CSV template text (comma-separated, ASCII unit labels so that any spreadsheet program opens it cleanly). */
 export function buildTemplateCsv(layout: Layout): string {
   checkLayout(layout);
-  const sheets = layoutSheets(templateDataset(), layout, { comments: NOTES[layout] }, true);
+  const sheets = layoutSheets(
+    templateDataset(),
+    layout,
+    { comments: NOTES[layout] },
+    true,
+  );
   return toCsv(sheets[0]?.rows ?? []);
 }
 
 /** XLSX template bytes: the long layout on one sheet, the grid layout with one sheet per property. */
 export async function buildTemplateXlsx(layout: Layout): Promise<Uint8Array> {
   checkLayout(layout);
-  return toXlsx(layoutSheets(templateDataset(), layout, { comments: NOTES[layout], unitLabels: "symbols" }));
+  return toXlsx(
+    layoutSheets(templateDataset(), layout, {
+      comments: NOTES[layout],
+      unitLabels: "symbols",
+    }),
+  );
 }
 
 /** Suggested download names. */
-export function templateFileName(layout: Layout, format: "csv" | "xlsx"): string {
+export function templateFileName(
+  layout: Layout,
+  format: "csv" | "xlsx",
+): string {
   return `isopleth-template-${layout}.${format}`;
 }

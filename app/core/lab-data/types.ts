@@ -182,8 +182,16 @@ export interface ParsedDataset {
 }
 
 export type ParseOutcome =
-  | { readonly ok: true; readonly dataset: ParsedDataset; readonly warnings: readonly Finding[] }
-  | { readonly ok: false; readonly errors: readonly Finding[]; readonly warnings: readonly Finding[] };
+  | {
+      readonly ok: true;
+      readonly dataset: ParsedDataset;
+      readonly warnings: readonly Finding[];
+    }
+  | {
+      readonly ok: false;
+      readonly errors: readonly Finding[];
+      readonly warnings: readonly Finding[];
+    };
 
 export interface ParseOptions {
   /**

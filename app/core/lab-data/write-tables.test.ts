@@ -10,11 +10,18 @@ test("text cells starting with = + - @ are written with a leading quote; numbers
     [-1.5, '=HYPERLINK("http://evil.example","x")'],
     [2, "@SUM(A1)"],
   ]);
-  expect(csv.split("\r\n")).toEqual(["pressure (psia),label", `-1.5,"'=HYPERLINK(""http://evil.example"",""x"")"`, `2,"'@SUM(A1)"`, ""]);
+  expect(csv.split("\r\n")).toEqual([
+    "pressure (psia),label",
+    `-1.5,"'=HYPERLINK(""http://evil.example"",""x"")"`,
+    `2,"'@SUM(A1)"`,
+    "",
+  ]);
 });
 
 test("a comment holding a comma is written as one quoted cell, so no part of it becomes a cell", () => {
-  expect(toCsv([["# sample x,=1+1"], ["a"]])).toBe('"# sample x,=1+1"\r\na\r\n');
+  expect(toCsv([["# sample x,=1+1"], ["a"]])).toBe(
+    '"# sample x,=1+1"\r\na\r\n',
+  );
 });
 
 test("every comment line of both templates is a bare comment line (read back as a comment)", () => {

@@ -9,15 +9,28 @@
  */
 import { interpolateGridMany, type Grid, type Method } from "../interpolation";
 
-type Entry = { readonly source: Grid["bubblePoints"]; readonly temperatures: number[]; readonly grid: Grid | null };
+type Entry = {
+  readonly source: Grid["bubblePoints"];
+  readonly temperatures: number[];
+  readonly grid: Grid | null;
+};
 const cache = new WeakMap<Grid, Entry>();
 
 /** The one-row grid of bubble points along temperature, or null when the grid has none known. */
 export function bubblePointGrid(grid: Grid): Grid | null {
   const hit = cache.get(grid);
-  if (hit && hit.source === grid.bubblePoints && hit.temperatures === grid.temperatures) return hit.grid;
+  if (
+    hit &&
+    hit.source === grid.bubblePoints &&
+    hit.temperatures === grid.temperatures
+  )
+    return hit.grid;
   const built = build(grid);
-  cache.set(grid, { source: grid.bubblePoints, temperatures: grid.temperatures, grid: built });
+  cache.set(grid, {
+    source: grid.bubblePoints,
+    temperatures: grid.temperatures,
+    grid: built,
+  });
   return built;
 }
 
@@ -26,7 +39,8 @@ function build(grid: Grid): Grid | null {
   if (!given) return null;
   const T = grid.temperatures;
   const known: number[] = [];
-  for (let j = 0; j < given.length; j++) if (given[j] !== null && given[j] !== undefined) known.push(j);
+  for (let j = 0; j < given.length; j++)
+    if (given[j] !== null && given[j] !== undefined) known.push(j);
   if (known.length === 0) return null;
   const row = T.map((t, j) => {
     const g = given[j];
@@ -42,7 +56,8 @@ function build(grid: Grid): Grid | null {
     if (lower < 0 || upper < 0) {
       if (known.length === 1) return given[known[0]!]!;
       const k = known.length;
-      [lower, upper] = lower < 0 ? [known[0]!, known[1]!] : [known[k - 2]!, known[k - 1]!];
+      [lower, upper] =
+        lower < 0 ? [known[0]!, known[1]!] : [known[k - 2]!, known[k - 1]!];
     }
     const a = given[lower]!;
     const b = given[upper]!;
@@ -67,7 +82,11 @@ export function bubblePointsAt(
   const out = interpolateGridMany(
     pbGrid,
     { pressures, temperatures },
-    { method, degree: [1, method === "linear" ? 1 : temperatureDegree], extrapolate: true },
+    {
+      method,
+      degree: [1, method === "linear" ? 1 : temperatureDegree],
+      extrapolate: true,
+    },
   );
   return out.values;
 }

@@ -23,7 +23,12 @@ export class LookupError extends Error {
   /** Structured facts behind the message (point index, axis, value and range in the caller's units, ...). */
   readonly details: Readonly<Record<string, unknown>>;
 
-  constructor(code: LookupErrorCode, message: string, details: Record<string, unknown> = {}, cause?: unknown) {
+  constructor(
+    code: LookupErrorCode,
+    message: string,
+    details: Record<string, unknown> = {},
+    cause?: unknown,
+  ) {
     super(message, cause === undefined ? undefined : { cause });
     this.name = "LookupError";
     this.code = code;

@@ -24,7 +24,12 @@ export type {
   UnitContext,
 } from "./run-lookup";
 export { LOOKUP_METHODS, lookupCanonical, METHOD_CODES } from "./compute";
-export type { CanonicalLookup, CanonicalOptions, LookupMethod, UsedMethod } from "./compute";
+export type {
+  CanonicalLookup,
+  CanonicalOptions,
+  LookupMethod,
+  UsedMethod,
+} from "./compute";
 export { bubblePointsAt } from "./bubble-point";
 export { isLookupError, LookupError } from "./errors";
 export type { LookupErrorCode } from "./errors";
@@ -38,7 +43,20 @@ export {
   W_PCHIP_FALLBACK,
 } from "./warnings";
 export type { LookupWarning } from "./warnings";
-export { affineToCanonical, fromCanonicalWith, LOOKUP_UNITS, PROPERTY_NAMES, toCanonicalWith, unitLabel, unitSystemOf } from "./unit-map";
+export {
+  affineToCanonical,
+  fromCanonicalWith,
+  LOOKUP_UNITS,
+  PROPERTY_NAMES,
+  toCanonicalWith,
+  unitLabel,
+  unitSystemOf,
+} from "./unit-map";
 export type { Affine, LookupUnits, UnitLabel } from "./unit-map";
-export { describeValue, nestedDeeperThan, pointColumns, readLookupText } from "./point-columns";
+export {
+  describeValue,
+  nestedDeeperThan,
+  pointColumns,
+  readLookupText,
+} from "./point-columns";
 export type { LookupText, PointColumns, PointIssue } from "./point-columns";

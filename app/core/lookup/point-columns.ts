@@ -16,7 +16,9 @@ export function describeValue(v: unknown): string {
   if (Array.isArray(v)) return "a list";
   if (typeof v === "object") return "an object";
   const text = JSON.stringify(v);
-  return text.length <= 40 ? text : `${text.slice(0, 24)}… (${text.length} characters)`;
+  return text.length <= 40
+    ? text
+    : `${text.slice(0, 24)}… (${text.length} characters)`;
 }
 
 export function pointColumns(points: readonly unknown[]): PointColumns {
@@ -27,20 +29,41 @@ export function pointColumns(points: readonly unknown[]): PointColumns {
   for (let i = 0; i < n && issues.length < 20; i++) {
     const p = points[i] as Record<string, unknown> | null;
     if (typeof p !== "object" || p === null || Array.isArray(p)) {
-      issues.push({ path: ["points", i], message: "Expected an object { pressure, temperature }." });
+      issues.push({
+        path: ["points", i],
+        message: "Expected an object { pressure, temperature }.",
+      });
       continue;
     }
     const pressure = p.pressure;
     const temperature = p.temperature;
-    if (typeof pressure !== "number" || !Number.isFinite(pressure)) issues.push({ path: ["points", i, "pressure"], message: `Expected a finite number, received ${describeValue(pressure)}.` });
+    if (typeof pressure !== "number" || !Number.isFinite(pressure))
+      issues.push({
+        path: ["points", i, "pressure"],
+        message: `Expected a finite number, received ${describeValue(pressure)}.`,
+      });
     else pressures[i] = pressure;
-    if (typeof temperature !== "number" || !Number.isFinite(temperature)) issues.push({ path: ["points", i, "temperature"], message: `Expected a finite number, received ${describeValue(temperature)}.` });
+    if (typeof temperature !== "number" || !Number.isFinite(temperature))
+      issues.push({
+        path: ["points", i, "temperature"],
+        message: `Expected a finite number, received ${describeValue(temperature)}.`,
+      });
     else temperatures[i] = temperature;
     let extra: string[] | undefined;
-    for (const key in p) if (key !== "pressure" && key !== "temperature") (extra ??= []).push(key);
-    if (extra) issues.push({ path: ["points", i], message: `Unrecognized key${extra.length > 1 ? "s" : ""}: ${extra.slice(0, 5).map((k) => describeValue(k)).join(", ")}` });
+    for (const key in p)
+      if (key !== "pressure" && key !== "temperature") (extra ??= []).push(key);
+    if (extra)
+      issues.push({
+        path: ["points", i],
+        message: `Unrecognized key${extra.length > 1 ? "s" : ""}: ${extra
+          .slice(0, 5)
+          .map((k) => describeValue(k))
+          .join(", ")}`,
+      });
   }
-  return issues.length ? { ok: false, issues } : { ok: true, pressures, temperatures };
+  return issues.length
+    ? { ok: false, issues }
+    : { ok: true, pressures, temperatures };
 }
 
 /**
@@ -55,11 +78,14 @@ export function nestedDeeperThan(value: unknown, limit: number): boolean {
     if (typeof v !== "object" || v === null) continue;
     if (depth >= limit) return true;
     if (Array.isArray(v)) {
-      for (const item of v) if (typeof item === "object" && item !== null) stack.push([item, depth + 1]);
+      for (const item of v)
+        if (typeof item === "object" && item !== null)
+          stack.push([item, depth + 1]);
     } else {
       for (const key in v) {
         const item = (v as Record<string, unknown>)[key];
-        if (typeof item === "object" && item !== null) stack.push([item, depth + 1]);
+        if (typeof item === "object" && item !== null)
+          stack.push([item, depth + 1]);
       }
     }
   }
@@ -72,7 +98,13 @@ export function nestedDeeperThan(value: unknown, limit: number): boolean {
  * it with the API schema); `count` is the number of points.
  */
 export type LookupText =
-  | { ok: true; head: Record<string, unknown>; count: number; pressures: Float64Array; temperatures: Float64Array }
+  | {
+      ok: true;
+      head: Record<string, unknown>;
+      count: number;
+      pressures: Float64Array;
+      temperatures: Float64Array;
+    }
   | { ok: false; message: string; issues?: PointIssue[] };
 
 export function readLookupText(text: string, maxDepth: number): LookupText {
@@ -80,17 +112,45 @@ export function readLookupText(text: string, maxDepth: number): LookupText {
   try {
     value = JSON.parse(text) as unknown;
   } catch (error) {
-    return { ok: false, message: `The body is not valid JSON: ${(error as Error).message.slice(0, 120)}` };
+    return {
+      ok: false,
+      message: `The body is not valid JSON: ${(error as Error).message.slice(0, 120)}`,
+    };
   }
   if (nestedDeeperThan(value, maxDepth)) {
-    return { ok: false, message: `The body nests lists or objects more than ${maxDepth} levels deep; a lookup body needs three.` };
+    return {
+      ok: false,
+      message: `The body nests lists or objects more than ${maxDepth} levels deep; a lookup body needs three.`,
+    };
   }
   if (typeof value !== "object" || value === null || Array.isArray(value)) {
-    return { ok: false, message: "The lookup request is not valid; see issues.", issues: [{ path: [], message: "Expected an object." }] };
+    return {
+      ok: false,
+      message: "The lookup request is not valid; see issues.",
+      issues: [{ path: [], message: "Expected an object." }],
+    };
   }
   const { points, ...head } = value as Record<string, unknown>;
-  if (!Array.isArray(points)) return { ok: true, head: { ...head, points }, count: 0, pressures: new Float64Array(0), temperatures: new Float64Array(0) };
+  if (!Array.isArray(points))
+    return {
+      ok: true,
+      head: { ...head, points },
+      count: 0,
+      pressures: new Float64Array(0),
+      temperatures: new Float64Array(0),
+    };
   const columns = pointColumns(points);
-  if (!columns.ok) return { ok: false, message: "The lookup request is not valid; see issues.", issues: columns.issues };
-  return { ok: true, head, count: points.length, pressures: columns.pressures, temperatures: columns.temperatures };
+  if (!columns.ok)
+    return {
+      ok: false,
+      message: "The lookup request is not valid; see issues.",
+      issues: columns.issues,
+    };
+  return {
+    ok: true,
+    head,
+    count: points.length,
+    pressures: columns.pressures,
+    temperatures: columns.temperatures,
+  };
 }

@@ -2,14 +2,24 @@
 // interpolation engine and the units library — no framework, database, node built-ins or environment.
 import { expect, test } from "vitest";
 
-const sources = import.meta.glob(["./*.ts", "!./*.test.ts"], { query: "?raw", import: "default", eager: true }) as Record<string, string>;
+const sources = import.meta.glob(["./*.ts", "!./*.test.ts"], {
+  query: "?raw",
+  import: "default",
+  eager: true,
+}) as Record<string, string>;
 
 test("lookup modules import only their own files, ../interpolation and ../units", () => {
   expect(Object.keys(sources)).toContain("./index.ts");
   for (const [file, text] of Object.entries(sources)) {
-    for (const m of text.matchAll(/^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm)) {
-      expect(m[1], `${file} imports ${m[1]}`).toMatch(/^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/units)$/);
+    for (const m of text.matchAll(
+      /^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm,
+    )) {
+      expect(m[1], `${file} imports ${m[1]}`).toMatch(
+        /^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/units)$/,
+      );
     }
-    expect(text, file).not.toMatch(/process\.env|require\(|import\(|from "node:|from "react|drizzle|\.server/);
+    expect(text, file).not.toMatch(
+      /process\.env|require\(|import\(|from "node:|from "react|drizzle|\.server/,
+    );
   }
 });

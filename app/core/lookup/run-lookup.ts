@@ -4,9 +4,22 @@
  * interpolated by the engine's typed-array batch path, and values, error estimates, stencil coordinates and
  * bubble points are converted back to the units of that system.
  */
-import { DEFAULT_DEGREE, InterpolationError, MAX_DEGREE, type Branch, type Grid } from "../interpolation";
+import {
+  DEFAULT_DEGREE,
+  InterpolationError,
+  MAX_DEGREE,
+  type Branch,
+  type Grid,
+} from "../interpolation";
 import { isPropertyKey, type PropertyKey } from "../units";
-import { lookupCanonical, LOOKUP_METHODS, METHOD_CODES, type CanonicalLookup, type LookupMethod, type UsedMethod } from "./compute";
+import {
+  lookupCanonical,
+  LOOKUP_METHODS,
+  METHOD_CODES,
+  type CanonicalLookup,
+  type LookupMethod,
+  type UsedMethod,
+} from "./compute";
 import { LookupError } from "./errors";
 import {
   affineToCanonical,
@@ -149,29 +162,56 @@ export type NormalizedLookupOptions = {
 
 function describe(value: unknown): string {
   if (typeof value === "string") return JSON.stringify(value);
-  if (typeof value === "number" || typeof value === "boolean" || value === null || value === undefined) return String(value);
+  if (
+    typeof value === "number" ||
+    typeof value === "boolean" ||
+    value === null ||
+    value === undefined
+  )
+    return String(value);
   return `a ${Array.isArray(value) ? "list" : typeof value}`;
 }
 
 function checkDegree(d: unknown, what: string): number {
-  if (typeof d !== "number" || !Number.isInteger(d) || d < 1 || d > MAX_DEGREE) {
-    throw new LookupError("INVALID_OPTIONS", `${what} must be a whole number from 1 to ${MAX_DEGREE}; got ${describe(d)}.`, {
-      field: "degree",
-    });
+  if (
+    typeof d !== "number" ||
+    !Number.isInteger(d) ||
+    d < 1 ||
+    d > MAX_DEGREE
+  ) {
+    throw new LookupError(
+      "INVALID_OPTIONS",
+      `${what} must be a whole number from 1 to ${MAX_DEGREE}; got ${describe(d)}.`,
+      {
+        field: "degree",
+      },
+    );
   }
   return d;
 }
 
 /** Checks lookup options; throws LookupError INVALID_OPTIONS naming the field. */
-export function normalizeLookupOptions(options: LookupOptions): NormalizedLookupOptions {
+export function normalizeLookupOptions(
+  options: LookupOptions,
+): NormalizedLookupOptions {
   if (typeof options !== "object" || options === null) {
-    throw new LookupError("INVALID_OPTIONS", "Lookup options are required: { method, property, units }.");
+    throw new LookupError(
+      "INVALID_OPTIONS",
+      "Lookup options are required: { method, property, units }.",
+    );
   }
   const method: unknown = options.method;
-  if (typeof method !== "string" || !(LOOKUP_METHODS as readonly string[]).includes(method)) {
-    throw new LookupError("INVALID_OPTIONS", `method must be one of ${LOOKUP_METHODS.join(", ")}; got ${describe(method)}.`, {
-      field: "method",
-    });
+  if (
+    typeof method !== "string" ||
+    !(LOOKUP_METHODS as readonly string[]).includes(method)
+  ) {
+    throw new LookupError(
+      "INVALID_OPTIONS",
+      `method must be one of ${LOOKUP_METHODS.join(", ")}; got ${describe(method)}.`,
+      {
+        field: "method",
+      },
+    );
   }
   const property: unknown = options.property;
   if (typeof property !== "string" || !isPropertyKey(property)) {
@@ -182,18 +222,33 @@ export function normalizeLookupOptions(options: LookupOptions): NormalizedLookup
     );
   }
   const units: unknown = options.units;
-  if (typeof units !== "string" || !(LOOKUP_UNITS as readonly string[]).includes(units)) {
-    throw new LookupError("INVALID_OPTIONS", `units must be 'field' or 'metric'; got ${describe(units)}.`, { field: "units" });
+  if (
+    typeof units !== "string" ||
+    !(LOOKUP_UNITS as readonly string[]).includes(units)
+  ) {
+    throw new LookupError(
+      "INVALID_OPTIONS",
+      `units must be 'field' or 'metric'; got ${describe(units)}.`,
+      { field: "units" },
+    );
   }
   const extrapolate: unknown = options.extrapolate;
   if (extrapolate !== undefined && typeof extrapolate !== "boolean") {
-    throw new LookupError("INVALID_OPTIONS", `extrapolate must be true or false; got ${describe(extrapolate)}.`, {
-      field: "extrapolate",
-    });
+    throw new LookupError(
+      "INVALID_OPTIONS",
+      `extrapolate must be true or false; got ${describe(extrapolate)}.`,
+      {
+        field: "extrapolate",
+      },
+    );
   }
   const messages: unknown = options.messages;
   if (messages !== undefined && typeof messages !== "boolean") {
-    throw new LookupError("INVALID_OPTIONS", `messages must be true or false; got ${describe(messages)}.`, { field: "messages" });
+    throw new LookupError(
+      "INVALID_OPTIONS",
+      `messages must be true or false; got ${describe(messages)}.`,
+      { field: "messages" },
+    );
   }
   const degree: unknown = options.degree;
   let m = DEFAULT_DEGREE;
@@ -223,7 +278,10 @@ export function normalizeLookupOptions(options: LookupOptions): NormalizedLookup
 }
 
 /** Plain words for a method and degree. */
-export function describeLookupMethod(method: LookupMethod, degree: [number, number] = [DEFAULT_DEGREE, DEFAULT_DEGREE]): string {
+export function describeLookupMethod(
+  method: LookupMethod,
+  degree: [number, number] = [DEFAULT_DEGREE, DEFAULT_DEGREE],
+): string {
   const d = `[${degree[0]},${degree[1]}]`;
   switch (method) {
     case "auto":
@@ -244,7 +302,10 @@ export type UnitContext = {
   labels: LookupUnitLabels;
 };
 
-export function unitContext(property: PropertyKey, units: LookupUnits): UnitContext {
+export function unitContext(
+  property: PropertyKey,
+  units: LookupUnits,
+): UnitContext {
   const system = unitSystemOf(units);
   const quantity = propertyQuantity(property);
   return {
@@ -263,40 +324,84 @@ export function unitContext(property: PropertyKey, units: LookupUnits): UnitCont
 
 const ABSOLUTE_ZERO_F = -459.67;
 
-function badPoint(index: number, axis: "pressure" | "temperature", value: unknown, ctx: UnitContext, why: string): LookupError {
-  const unit = axis === "pressure" ? ctx.labels.pressure.symbol : ctx.labels.temperature.symbol;
-  return new LookupError("INVALID_POINT", `Point ${index} has ${axis} ${describe(value)} ${unit}: ${why}`, {
-    pointIndex: index,
-    axis,
-    value,
-    unit,
-  });
+function badPoint(
+  index: number,
+  axis: "pressure" | "temperature",
+  value: unknown,
+  ctx: UnitContext,
+  why: string,
+): LookupError {
+  const unit =
+    axis === "pressure"
+      ? ctx.labels.pressure.symbol
+      : ctx.labels.temperature.symbol;
+  return new LookupError(
+    "INVALID_POINT",
+    `Point ${index} has ${axis} ${describe(value)} ${unit}: ${why}`,
+    {
+      pointIndex: index,
+      axis,
+      value,
+      unit,
+    },
+  );
 }
 
-function checkedPoint(i: number, p: unknown, t: unknown, ctx: UnitContext, ps: Float64Array, ts: Float64Array): void {
-  if (typeof p !== "number" || !Number.isFinite(p)) throw badPoint(i, "pressure", p, ctx, "a finite number is needed.");
-  if (typeof t !== "number" || !Number.isFinite(t)) throw badPoint(i, "temperature", t, ctx, "a finite number is needed.");
+function checkedPoint(
+  i: number,
+  p: unknown,
+  t: unknown,
+  ctx: UnitContext,
+  ps: Float64Array,
+  ts: Float64Array,
+): void {
+  if (typeof p !== "number" || !Number.isFinite(p))
+    throw badPoint(i, "pressure", p, ctx, "a finite number is needed.");
+  if (typeof t !== "number" || !Number.isFinite(t))
+    throw badPoint(i, "temperature", t, ctx, "a finite number is needed.");
   const pc = p * ctx.pressure.scale + ctx.pressure.offset;
   const tc = t * ctx.temperature.scale + ctx.temperature.offset;
-  if (!(pc > 0)) throw badPoint(i, "pressure", p, ctx, "pressures are absolute and must be above zero.");
-  if (!(tc > ABSOLUTE_ZERO_F)) throw badPoint(i, "temperature", t, ctx, "that is at or below absolute zero.");
+  if (!(pc > 0))
+    throw badPoint(
+      i,
+      "pressure",
+      p,
+      ctx,
+      "pressures are absolute and must be above zero.",
+    );
+  if (!(tc > ABSOLUTE_ZERO_F))
+    throw badPoint(
+      i,
+      "temperature",
+      t,
+      ctx,
+      "that is at or below absolute zero.",
+    );
   ps[i] = pc;
   ts[i] = tc;
 }
 
 function checkCount(count: number): void {
   if (count > MAX_LOOKUP_POINTS) {
-    throw new LookupError("TOO_MANY_POINTS", `${count} points were sent; one lookup takes at most ${MAX_LOOKUP_POINTS}.`, {
-      count,
-      max: MAX_LOOKUP_POINTS,
-    });
+    throw new LookupError(
+      "TOO_MANY_POINTS",
+      `${count} points were sent; one lookup takes at most ${MAX_LOOKUP_POINTS}.`,
+      {
+        count,
+        max: MAX_LOOKUP_POINTS,
+      },
+    );
   }
 }
 
-const NOT_POINTS = "Points must be a list of { pressure, temperature } or columns { pressures, temperatures } (number lists or Float64Array).";
+const NOT_POINTS =
+  "Points must be a list of { pressure, temperature } or columns { pressures, temperatures } (number lists or Float64Array).";
 
 /** Converts the caller's points to canonical typed arrays, checking each. */
-function canonicalPoints(points: LookupPoints, ctx: UnitContext): { ps: Float64Array; ts: Float64Array } {
+function canonicalPoints(
+  points: LookupPoints,
+  ctx: UnitContext,
+): { ps: Float64Array; ts: Float64Array } {
   if (Array.isArray(points)) {
     const list = points as readonly unknown[];
     const count = list.length;
@@ -306,24 +411,41 @@ function canonicalPoints(points: LookupPoints, ctx: UnitContext): { ps: Float64A
     for (let i = 0; i < count; i++) {
       const pt = list[i];
       if (typeof pt !== "object" || pt === null) {
-        throw new LookupError("INVALID_POINTS", `Point ${i} must be an object { pressure, temperature }; got ${describe(pt)}.`, {
-          pointIndex: i,
-        });
+        throw new LookupError(
+          "INVALID_POINTS",
+          `Point ${i} must be an object { pressure, temperature }; got ${describe(pt)}.`,
+          {
+            pointIndex: i,
+          },
+        );
       }
-      checkedPoint(i, (pt as LookupPoint).pressure, (pt as LookupPoint).temperature, ctx, ps, ts);
+      checkedPoint(
+        i,
+        (pt as LookupPoint).pressure,
+        (pt as LookupPoint).temperature,
+        ctx,
+        ps,
+        ts,
+      );
     }
     return { ps, ts };
   }
-  if (typeof points !== "object" || points === null) throw new LookupError("INVALID_POINTS", NOT_POINTS);
+  if (typeof points !== "object" || points === null)
+    throw new LookupError("INVALID_POINTS", NOT_POINTS);
   const pc: unknown = (points as LookupPointColumns).pressures;
   const tc: unknown = (points as LookupPointColumns).temperatures;
-  const ok = (c: unknown): c is Float64Array | readonly number[] => c instanceof Float64Array || Array.isArray(c);
+  const ok = (c: unknown): c is Float64Array | readonly number[] =>
+    c instanceof Float64Array || Array.isArray(c);
   if (!ok(pc) || !ok(tc)) throw new LookupError("INVALID_POINTS", NOT_POINTS);
   if (pc.length !== tc.length) {
-    throw new LookupError("INVALID_POINTS", `pressures has ${pc.length} entries but temperatures has ${tc.length}; they must pair up.`, {
-      pressures: pc.length,
-      temperatures: tc.length,
-    });
+    throw new LookupError(
+      "INVALID_POINTS",
+      `pressures has ${pc.length} entries but temperatures has ${tc.length}; they must pair up.`,
+      {
+        pressures: pc.length,
+        temperatures: tc.length,
+      },
+    );
   }
   const count = pc.length;
   checkCount(count);
@@ -343,7 +465,11 @@ function back(a: Affine, canonical: number): number {
 }
 
 /** Re-expresses an engine error in the caller's units and with the lookup's codes. */
-export function toLookupError(error: unknown, property: PropertyKey, ctx: UnitContext): unknown {
+export function toLookupError(
+  error: unknown,
+  property: PropertyKey,
+  ctx: UnitContext,
+): unknown {
   if (!(error instanceof InterpolationError)) return error;
   const d = error.details;
   const index = typeof d.pointIndex === "number" ? d.pointIndex : undefined;
@@ -374,11 +500,20 @@ export function toLookupError(error: unknown, property: PropertyKey, ctx: UnitCo
       const p = back(ctx.pressure, Number(d.pressure));
       const t = back(ctx.temperature, Number(d.temperature));
       const where = index === undefined ? "The point" : `Point ${index}`;
-      const branch = d.branch === "saturated" || d.branch === "undersaturated" ? ` on the ${d.branch} branch` : "";
+      const branch =
+        d.branch === "saturated" || d.branch === "undersaturated"
+          ? ` on the ${d.branch} branch`
+          : "";
       return new LookupError(
         "NO_VALID_ZONE",
         `${where} (${fmt(p)} ${pUnit}, ${fmt(t)} ${tUnit}): no measured values of ${PROPERTY_NAMES[property]} surround it${branch}. Cells around it were not measured, or it lies beyond the last measured pressure of the neighbouring temperatures. Allow extrapolation to get a value from the nearest measured values; it is then marked 'extrapolated'.`,
-        { pointIndex: index, pressure: p, temperature: t, branch: d.branch, engineMessage },
+        {
+          pointIndex: index,
+          pressure: p,
+          temperature: t,
+          branch: d.branch,
+          engineMessage,
+        },
         error,
       );
     }
@@ -387,7 +522,12 @@ export function toLookupError(error: unknown, property: PropertyKey, ctx: UnitCo
     case "invalid-options":
       return new LookupError("INVALID_OPTIONS", error.message, { ...d }, error);
     default:
-      return new LookupError("INVALID_GRID", `The stored table of ${PROPERTY_NAMES[property]} cannot be used: ${error.message}`, { ...d, engineCode: error.code }, error);
+      return new LookupError(
+        "INVALID_GRID",
+        `The stored table of ${PROPERTY_NAMES[property]} cannot be used: ${error.message}`,
+        { ...d, engineCode: error.code },
+        error,
+      );
   }
 }
 
@@ -405,7 +545,8 @@ function prepare(grid: Grid, points: LookupPoints, options: LookupOptions) {
 }
 
 function header(opts: NormalizedLookupOptions, ctx: UnitContext) {
-  const degree: [number, number] | null = opts.method === "pchip" ? null : opts.degree;
+  const degree: [number, number] | null =
+    opts.method === "pchip" ? null : opts.degree;
   return {
     property: opts.property,
     method: opts.method,
@@ -421,7 +562,11 @@ function header(opts: NormalizedLookupOptions, ctx: UnitContext) {
  * result per point in that system. Throws LookupError (codes in errors.ts) for bad options or points, a
  * point outside the measured range (unless `extrapolate`), or an unusable grid.
  */
-export function runLookup(grid: Grid, points: LookupPoints, options: LookupOptions): LookupResult {
+export function runLookup(
+  grid: Grid,
+  points: LookupPoints,
+  options: LookupOptions,
+): LookupResult {
   const { opts, ctx, raw } = prepare(grid, points, options);
   const n = raw.count;
   const va = ctx.value;
@@ -431,10 +576,23 @@ export function runLookup(grid: Grid, points: LookupPoints, options: LookupOptio
   const P = grid.pressures;
   const T = grid.temperatures;
   const stencils = new Map<number, LookupStencil>();
-  const methodCounts: Record<UsedMethod, number> = { newton: 0, pchip: 0, linear: 0 };
+  const methodCounts: Record<UsedMethod, number> = {
+    newton: 0,
+    pchip: 0,
+    linear: 0,
+  };
   const flagCounts = new Map<number, number>();
   const results: LookupPointResult[] = new Array<LookupPointResult>(n);
-  const { values, errorEstimates, flags, methods, branches, bubblePoints, alternatives, alternativeErrors } = raw;
+  const {
+    values,
+    errorEstimates,
+    flags,
+    methods,
+    branches,
+    bubblePoints,
+    alternatives,
+    alternativeErrors,
+  } = raw;
   for (let i = 0; i < n; i++) {
     const ps = raw.pressureStart[i]!;
     const pc = raw.pressureCount[i]!;
@@ -474,8 +632,14 @@ export function runLookup(grid: Grid, points: LookupPoints, options: LookupOptio
       warnings: expanded.warnings,
       method,
       stencil,
-      branch: branches ? (branches[i] === 1 ? "saturated" : "undersaturated") : null,
-      bubblePointPressure: bubblePoints ? (bubblePoints[i]! - pa.offset) / pa.scale : null,
+      branch: branches
+        ? branches[i] === 1
+          ? "saturated"
+          : "undersaturated"
+        : null,
+      bubblePointPressure: bubblePoints
+        ? (bubblePoints[i]! - pa.offset) / pa.scale
+        : null,
     };
     if (opts.messages && f !== 0) result.messages = expanded.messages;
     if (alternatives && !Number.isNaN(alternatives[i]!)) {
@@ -489,27 +653,44 @@ export function runLookup(grid: Grid, points: LookupPoints, options: LookupOptio
   }
   const warningCounts: Partial<Record<LookupWarning, number>> = {};
   for (const [f, c] of flagCounts) {
-    for (const code of expandWarningFlags(f).warnings) warningCounts[code] = (warningCounts[code] ?? 0) + c;
+    for (const code of expandWarningFlags(f).warnings)
+      warningCounts[code] = (warningCounts[code] ?? 0) + c;
   }
-  return { ...header(opts, ctx), results, summary: { count: n, methodCounts, warningCounts } };
+  return {
+    ...header(opts, ctx),
+    results,
+    summary: { count: n, methodCounts, warningCounts },
+  };
 }
 
 /**
  * As runLookup, but returns typed arrays instead of an object per point (plots, very large batches).
  * Values, error estimates and bubble points are in the output units; warnings are bit masks.
  */
-export function runLookupColumns(grid: Grid, points: LookupPoints, options: LookupOptions): LookupColumnsResult {
+export function runLookupColumns(
+  grid: Grid,
+  points: LookupPoints,
+  options: LookupOptions,
+): LookupColumnsResult {
   const { opts, ctx, raw } = prepare(grid, points, options);
   const n = raw.count;
   const va = ctx.value;
   const vScale = Math.abs(va.scale);
   const pa = ctx.pressure;
-  const { values, errorEstimates, bubblePoints, alternatives, alternativeErrors } = raw;
+  const {
+    values,
+    errorEstimates,
+    bubblePoints,
+    alternatives,
+    alternativeErrors,
+  } = raw;
   for (let i = 0; i < n; i++) {
     values[i] = (values[i]! - va.offset) / va.scale;
     errorEstimates[i] = errorEstimates[i]! / vScale;
   }
-  if (bubblePoints) for (let i = 0; i < n; i++) bubblePoints[i] = (bubblePoints[i]! - pa.offset) / pa.scale;
+  if (bubblePoints)
+    for (let i = 0; i < n; i++)
+      bubblePoints[i] = (bubblePoints[i]! - pa.offset) / pa.scale;
   if (alternatives && alternativeErrors) {
     for (let i = 0; i < n; i++) {
       alternatives[i] = (alternatives[i]! - va.offset) / va.scale;

@@ -32,12 +32,25 @@ export function unitSystemOf(units: LookupUnits): UnitSystem {
 const affineCache = new Map<string, Affine>();
 
 /** Coefficients taking a value of `quantity` in `system` to the canonical unit. */
-export function affineToCanonical(quantity: Quantity, system: UnitSystem): Affine {
+export function affineToCanonical(
+  quantity: Quantity,
+  system: UnitSystem,
+): Affine {
   const key = `${system.id}|${quantity}`;
   let hit = affineCache.get(key);
   if (!hit) {
-    const at0 = convertBetweenSystems(0, quantity, system, CANONICAL_UNIT_SYSTEM);
-    const at1 = convertBetweenSystems(1, quantity, system, CANONICAL_UNIT_SYSTEM);
+    const at0 = convertBetweenSystems(
+      0,
+      quantity,
+      system,
+      CANONICAL_UNIT_SYSTEM,
+    );
+    const at1 = convertBetweenSystems(
+      1,
+      quantity,
+      system,
+      CANONICAL_UNIT_SYSTEM,
+    );
     hit = Object.freeze({ scale: at1 - at0, offset: at0 });
     affineCache.set(key, hit);
   }
@@ -62,12 +75,13 @@ export function propertyQuantity(property: PropertyKey): Quantity {
 }
 
 /** Plain names of the properties, for messages and table headers. */
-export const PROPERTY_NAMES: Readonly<Record<PropertyKey, string>> = Object.freeze({
-  oil_fvf: "oil formation volume factor (Bo)",
-  solution_gor: "solution gas-oil ratio (Rs)",
-  oil_viscosity: "oil viscosity",
-  oil_density: "oil density",
-  gas_fvf: "gas formation volume factor (Bg)",
-  gas_viscosity: "gas viscosity",
-  z_factor: "gas compressibility factor (z)",
-});
+export const PROPERTY_NAMES: Readonly<Record<PropertyKey, string>> =
+  Object.freeze({
+    oil_fvf: "oil formation volume factor (Bo)",
+    solution_gor: "solution gas-oil ratio (Rs)",
+    oil_viscosity: "oil viscosity",
+    oil_density: "oil density",
+    gas_fvf: "gas formation volume factor (Bg)",
+    gas_viscosity: "gas viscosity",
+    z_factor: "gas compressibility factor (z)",
+  });

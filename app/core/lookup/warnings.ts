@@ -3,7 +3,12 @@
  * `pchip-fallback`, set by the automatic method where it replaced an overshooting Newton value by the
  * shape-preserving one. Plain-word texts come from the engine's `describeWarning` for its own codes.
  */
-import { describeWarning, WARNING_CODES, WARNING_FLAGS, type Warning } from "../interpolation";
+import {
+  describeWarning,
+  WARNING_CODES,
+  WARNING_FLAGS,
+  type Warning,
+} from "../interpolation";
 
 export const PCHIP_FALLBACK = "pchip-fallback" as const;
 
@@ -26,10 +31,17 @@ export function describeWarningCode(code: LookupWarning): string {
   return code === PCHIP_FALLBACK ? FALLBACK_TEXT : describeWarning(code);
 }
 
-const ENGINE_BITS: ReadonlyArray<readonly [Warning, number]> = WARNING_CODES.map((code) => [code, WARNING_FLAGS[code]] as const);
+const ENGINE_BITS: ReadonlyArray<readonly [Warning, number]> =
+  WARNING_CODES.map((code) => [code, WARNING_FLAGS[code]] as const);
 
-type Expanded = { warnings: readonly LookupWarning[]; messages: readonly string[] };
-const EMPTY: Expanded = Object.freeze({ warnings: Object.freeze([]), messages: Object.freeze([]) });
+type Expanded = {
+  warnings: readonly LookupWarning[];
+  messages: readonly string[];
+};
+const EMPTY: Expanded = Object.freeze({
+  warnings: Object.freeze([]),
+  messages: Object.freeze([]),
+});
 const expandedCache = new Map<number, Expanded>();
 
 /**
@@ -47,18 +59,24 @@ export function expandWarningFlags(flags: number): Expanded {
   for (const [code, bit] of ENGINE_BITS) {
     if ((flags & bit) === 0) continue;
     warnings.push(code);
-    if (!(fallback && code === "overshoot")) messages.push(describeWarning(code));
+    if (!(fallback && code === "overshoot"))
+      messages.push(describeWarning(code));
   }
   if (fallback) {
     warnings.push(PCHIP_FALLBACK);
     messages.push(FALLBACK_TEXT);
   }
-  hit = Object.freeze({ warnings: Object.freeze(warnings), messages: Object.freeze(messages) });
+  hit = Object.freeze({
+    warnings: Object.freeze(warnings),
+    messages: Object.freeze(messages),
+  });
   expandedCache.set(flags, hit);
   return hit;
 }
 
 /** Warning codes of a mask (engine bits plus W_PCHIP_FALLBACK), in the order of LOOKUP_WARNING_CODES. */
-export function lookupWarningsFromFlags(flags: number): readonly LookupWarning[] {
+export function lookupWarningsFromFlags(
+  flags: number,
+): readonly LookupWarning[] {
   return expandWarningFlags(flags).warnings;
 }

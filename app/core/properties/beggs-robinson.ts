@@ -24,16 +24,38 @@ import {
   type ValidityRanges,
 } from "./estimate";
 
-const SOURCE = "Beggs & Robinson (1975) data range, recalled (domain brief §3.3, from memory)";
+const SOURCE =
+  "Beggs & Robinson (1975) data range, recalled (domain brief §3.3, from memory)";
 
 export const BEGGS_ROBINSON_RANGES: ValidityRanges = {
-  temperature: { input: "temperature", unit: "°F", min: 70, max: 295, source: SOURCE },
-  apiGravity: { input: "API gravity", unit: "°API", min: 16, max: 58, source: SOURCE },
-  solutionGor: { input: "solution GOR", unit: "scf/STB", min: 20, max: 2070, source: SOURCE },
+  temperature: {
+    input: "temperature",
+    unit: "°F",
+    min: 70,
+    max: 295,
+    source: SOURCE,
+  },
+  apiGravity: {
+    input: "API gravity",
+    unit: "°API",
+    min: 16,
+    max: 58,
+    source: SOURCE,
+  },
+  solutionGor: {
+    input: "solution GOR",
+    unit: "scf/STB",
+    min: 20,
+    max: 2070,
+    source: SOURCE,
+  },
 };
 
 /** Dead (gas-free) oil viscosity, cP, at `temperature` °F (must be > 0 °F: T enters as a power). */
-export function beggsRobinsonDeadOilViscosity(input: { readonly apiGravity: number; readonly temperature: number }): Estimate {
+export function beggsRobinsonDeadOilViscosity(input: {
+  readonly apiGravity: number;
+  readonly temperature: number;
+}): Estimate {
   requireApi("apiGravity", input.apiGravity);
   requireTemperature("temperature", input.temperature);
   if (input.temperature <= 0) {
@@ -48,10 +70,14 @@ export function beggsRobinsonDeadOilViscosity(input: { readonly apiGravity: numb
   const y = 10 ** z;
   const x = y * input.temperature ** -1.163;
   const mu = 10 ** x - 1;
-  const warnings = rangeWarnings("beggs-robinson-1975-dead-oil-viscosity", BEGGS_ROBINSON_RANGES, {
-    temperature: input.temperature,
-    apiGravity: input.apiGravity,
-  });
+  const warnings = rangeWarnings(
+    "beggs-robinson-1975-dead-oil-viscosity",
+    BEGGS_ROBINSON_RANGES,
+    {
+      temperature: input.temperature,
+      apiGravity: input.apiGravity,
+    },
+  );
   return { value: mu, warnings };
 }
 
@@ -70,9 +96,13 @@ export function beggsRobinsonLiveOilViscosity(input: {
   const a = 10.715 * (input.solutionGor + 100) ** -0.515;
   const b = 5.44 * (input.solutionGor + 150) ** -0.338;
   const mu = a * input.deadOilViscosity ** b;
-  const warnings = rangeWarnings("beggs-robinson-1975-live-oil-viscosity", BEGGS_ROBINSON_RANGES, {
-    solutionGor: input.solutionGor,
-  });
+  const warnings = rangeWarnings(
+    "beggs-robinson-1975-live-oil-viscosity",
+    BEGGS_ROBINSON_RANGES,
+    {
+      solutionGor: input.solutionGor,
+    },
+  );
   return { value: mu, warnings, a, b };
 }
 
@@ -83,6 +113,13 @@ export function beggsRobinsonOilViscosity(input: {
   readonly solutionGor: number;
 }): LiveOilViscosityEstimate & { readonly deadOilViscosity: number } {
   const dead = beggsRobinsonDeadOilViscosity(input);
-  const live = beggsRobinsonLiveOilViscosity({ deadOilViscosity: dead.value, solutionGor: input.solutionGor });
-  return { ...live, warnings: mergeWarnings(dead.warnings, live.warnings), deadOilViscosity: dead.value };
+  const live = beggsRobinsonLiveOilViscosity({
+    deadOilViscosity: dead.value,
+    solutionGor: input.solutionGor,
+  });
+  return {
+    ...live,
+    warnings: mergeWarnings(dead.warnings, live.warnings),
+    deadOilViscosity: dead.value,
+  };
 }

@@ -15,7 +15,12 @@ export class PropertyInputError extends Error {
   readonly input: string;
   readonly value: unknown;
 
-  constructor(code: PropertyErrorCode, input: string, value: unknown, message: string) {
+  constructor(
+    code: PropertyErrorCode,
+    input: string,
+    value: unknown,
+    message: string,
+  ) {
     super(message);
     this.name = "PropertyInputError";
     this.code = code;
@@ -24,6 +29,8 @@ export class PropertyInputError extends Error {
   }
 }
 
-export function isPropertyInputError(error: unknown): error is PropertyInputError {
+export function isPropertyInputError(
+  error: unknown,
+): error is PropertyInputError {
   return error instanceof PropertyInputError;
 }

@@ -76,7 +76,12 @@ export function formatNumber(x: number): string {
 
 export function requireFinite(input: string, value: number): number {
   if (typeof value !== "number" || !Number.isFinite(value)) {
-    throw new PropertyInputError("NOT_FINITE", input, value, `${input} must be a finite number, got ${String(value)}.`);
+    throw new PropertyInputError(
+      "NOT_FINITE",
+      input,
+      value,
+      `${input} must be a finite number, got ${String(value)}.`,
+    );
   }
   return value;
 }
@@ -109,15 +114,31 @@ export function requireTemperature(input: string, degF: number): number {
   return degF + RANKINE_OFFSET;
 }
 
-export function requirePositive(input: string, value: number, what = "must be > 0"): number {
+export function requirePositive(
+  input: string,
+  value: number,
+  what = "must be > 0",
+): number {
   requireFinite(input, value);
-  if (value <= 0) throw new PropertyInputError("OUT_OF_DOMAIN", input, value, `${input} ${what}, got ${value}.`);
+  if (value <= 0)
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      input,
+      value,
+      `${input} ${what}, got ${value}.`,
+    );
   return value;
 }
 
 export function requireNonNegative(input: string, value: number): number {
   requireFinite(input, value);
-  if (value < 0) throw new PropertyInputError("OUT_OF_DOMAIN", input, value, `${input} must be ≥ 0, got ${value}.`);
+  if (value < 0)
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      input,
+      value,
+      `${input} must be ≥ 0, got ${value}.`,
+    );
   return value;
 }
 
@@ -125,12 +146,19 @@ export function requireNonNegative(input: string, value: number): number {
 export function requireApi(input: string, api: number): number {
   requireFinite(input, api);
   if (api <= 0 || api > 100) {
-    throw new PropertyInputError("OUT_OF_DOMAIN", input, api, `${input} must be between 0 and 100 °API, got ${api}.`);
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      input,
+      api,
+      `${input} must be between 0 and 100 °API, got ${api}.`,
+    );
   }
   return api;
 }
 
-export function mergeWarnings(...lists: ReadonlyArray<readonly PropertyWarning[]>): PropertyWarning[] {
+export function mergeWarnings(
+  ...lists: ReadonlyArray<readonly PropertyWarning[]>
+): PropertyWarning[] {
   const seen = new Set<string>();
   const out: PropertyWarning[] = [];
   for (const list of lists) {

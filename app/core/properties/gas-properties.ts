@@ -46,14 +46,27 @@ export function gasFvf(input: {
   const z = requirePositive("z", input.z);
   const sc = input.standardConditions ?? FIELD_STANDARD_CONDITIONS;
   assertStandardConditions(sc);
-  const ft3PerScf = ((sc.pressurePsia / (sc.temperatureF + RANKINE_OFFSET)) * z * tR) / p;
+  const ft3PerScf =
+    ((sc.pressurePsia / (sc.temperatureF + RANKINE_OFFSET)) * z * tR) / p;
   return { value: ft3PerScf / CUBIC_FOOT_PER_BARREL, warnings: [] };
 }
 
-function molarMassOf(input: { readonly gasGravity?: number; readonly molarMass?: number }): number {
-  if (input.molarMass !== undefined) return requirePositive("molarMass", input.molarMass);
-  if (input.gasGravity !== undefined) return gasGravityToMolarMass(requirePositive("gasGravity", input.gasGravity));
-  throw new PropertyInputError("OUT_OF_DOMAIN", "gasGravity", undefined, "Give gasGravity (air = 1) or molarMass (g/mol).");
+function molarMassOf(input: {
+  readonly gasGravity?: number;
+  readonly molarMass?: number;
+}): number {
+  if (input.molarMass !== undefined)
+    return requirePositive("molarMass", input.molarMass);
+  if (input.gasGravity !== undefined)
+    return gasGravityToMolarMass(
+      requirePositive("gasGravity", input.gasGravity),
+    );
+  throw new PropertyInputError(
+    "OUT_OF_DOMAIN",
+    "gasGravity",
+    undefined,
+    "Give gasGravity (air = 1) or molarMass (g/mol).",
+  );
 }
 
 /** Gas density in lb/ft³ at reservoir conditions. */
@@ -77,14 +90,16 @@ export const LEE_GONZALEZ_EAKIN_RANGES: ValidityRanges = {
     unit: "°F",
     min: 100,
     max: 340,
-    source: "Lee, Gonzalez & Eakin (1966) data, recalled (domain brief §3.7, from memory)",
+    source:
+      "Lee, Gonzalez & Eakin (1966) data, recalled (domain brief §3.7, from memory)",
   },
   pressure: {
     input: "pressure",
     unit: "psia",
     min: 100,
     max: 8000,
-    source: "Lee, Gonzalez & Eakin (1966) data, recalled (domain brief §3.7, from memory)",
+    source:
+      "Lee, Gonzalez & Eakin (1966) data, recalled (domain brief §3.7, from memory)",
   },
 };
 
@@ -113,9 +128,13 @@ export function leeGonzalezEakinViscosity(input: {
   const x = 3.5 + 986 / tR + 0.01 * ma;
   const y = 2.4 - 0.2 * x;
   const mu = 1e-4 * k * Math.exp(x * (rho / LB_PER_FT3_PER_G_PER_CM3) ** y);
-  const warnings = rangeWarnings("lee-gonzalez-eakin-1966-gas-viscosity", LEE_GONZALEZ_EAKIN_RANGES, {
-    temperature: input.temperature,
-    pressure: input.pressure,
-  });
+  const warnings = rangeWarnings(
+    "lee-gonzalez-eakin-1966-gas-viscosity",
+    LEE_GONZALEZ_EAKIN_RANGES,
+    {
+      temperature: input.temperature,
+      pressure: input.pressure,
+    },
+  );
   return { value: mu, warnings, k, x, y };
 }

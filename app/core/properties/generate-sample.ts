@@ -35,14 +35,34 @@ import {
   type UnitId,
   type UnitSystemId,
 } from "../units";
-import { beggsRobinsonDeadOilViscosity, beggsRobinsonLiveOilViscosity } from "./beggs-robinson";
+import {
+  beggsRobinsonDeadOilViscosity,
+  beggsRobinsonLiveOilViscosity,
+} from "./beggs-robinson";
 import { PropertyInputError } from "./errors";
-import { requireApi, requireFinite, requirePositive, requirePressure, type PropertyWarning } from "./estimate";
-import { gasDensity, gasFvf, leeGonzalezEakinViscosity } from "./gas-properties";
+import {
+  requireApi,
+  requireFinite,
+  requirePositive,
+  requirePressure,
+  type PropertyWarning,
+} from "./estimate";
+import {
+  gasDensity,
+  gasFvf,
+  leeGonzalezEakinViscosity,
+} from "./gas-properties";
 import { massBalanceOilDensity } from "./oil-density";
 import { createRandom } from "./prng";
-import { standingOilFvf, standingSaturationPressure, standingSolutionGor } from "./standing";
-import { vasquezBeggsUndersaturatedOilFvf, vasquezBeggsUndersaturatedViscosity } from "./vasquez-beggs";
+import {
+  standingOilFvf,
+  standingSaturationPressure,
+  standingSolutionGor,
+} from "./standing";
+import {
+  vasquezBeggsUndersaturatedOilFvf,
+  vasquezBeggsUndersaturatedViscosity,
+} from "./vasquez-beggs";
 import { gasZFactor, type ZFactorMethod } from "./z-factor";
 
 /** Same shape as the interpolation engine's Grid: values[i][j] at pressures[i], temperatures[j]. */
@@ -109,15 +129,21 @@ export interface SampleModel {
 
 export const SAMPLE_METHODS: Readonly<Record<PropertyKey, string>> = {
   solution_gor: "Standing (1947); Rsb above the bubble point",
-  oil_fvf: "Standing (1947) 0.9759 form below pb; Vasquez & Beggs (1980) compressibility above pb",
-  oil_viscosity: "Beggs & Robinson (1975) below pb; Vasquez & Beggs (1980) above pb",
+  oil_fvf:
+    "Standing (1947) 0.9759 form below pb; Vasquez & Beggs (1980) compressibility above pb",
+  oil_viscosity:
+    "Beggs & Robinson (1975) below pb; Vasquez & Beggs (1980) above pb",
   oil_density: "mass balance of stock-tank oil and dissolved gas",
-  z_factor: "Sutton (1985) pseudo-criticals with Dranchuk & Abou-Kassem (1975) or Hall & Yarborough (1973)",
+  z_factor:
+    "Sutton (1985) pseudo-criticals with Dranchuk & Abou-Kassem (1975) or Hall & Yarborough (1973)",
   gas_fvf: "Bg = (psc/Tsc) zT/p, 60 °F and 14.696 psia",
   gas_viscosity: "Lee, Gonzalez & Eakin (1966)",
 };
 
-function collect(store: Map<string, PropertyWarning>, warnings: readonly PropertyWarning[]): void {
+function collect(
+  store: Map<string, PropertyWarning>,
+  warnings: readonly PropertyWarning[],
+): void {
   for (const w of warnings) {
     const key = `${w.code}|${w.method}|${w.input ?? ""}`;
     if (!store.has(key)) store.set(key, w);
@@ -133,21 +159,36 @@ export function createSampleModel(description: FluidDescription): SampleModel {
 
   let rsb: number;
   if (description.rsb !== undefined && description.bubblePoint !== undefined) {
-    throw new PropertyInputError("OUT_OF_DOMAIN", "rsb", description.rsb, "Give either rsb or bubblePoint, not both.");
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      "rsb",
+      description.rsb,
+      "Give either rsb or bubblePoint, not both.",
+    );
   } else if (description.rsb !== undefined) {
     rsb = requirePositive("rsb", description.rsb);
   } else if (description.bubblePoint !== undefined) {
     const pb = requirePressure("bubblePoint", description.bubblePoint);
     const t = description.bubblePointTemperature;
     if (t === undefined) {
-      throw new PropertyInputError("OUT_OF_DOMAIN", "bubblePointTemperature", t, "bubblePoint needs the temperature it holds at.");
+      throw new PropertyInputError(
+        "OUT_OF_DOMAIN",
+        "bubblePointTemperature",
+        t,
+        "bubblePoint needs the temperature it holds at.",
+      );
     }
     requireFinite("bubblePointTemperature", t);
     const rs = standingSolutionGor({ ...base, temperature: t, pressure: pb });
     collect(store, rs.warnings);
     rsb = rs.value;
   } else {
-    throw new PropertyInputError("OUT_OF_DOMAIN", "rsb", undefined, "Give the solution GOR (rsb) or a bubble point.");
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      "rsb",
+      undefined,
+      "Give the solution GOR (rsb) or a bubble point.",
+    );
   }
 
   const fluid: SampleFluid = {
@@ -161,16 +202,30 @@ export function createSampleModel(description: FluidDescription): SampleModel {
   const requireSampleTemperature = (t: number): void => {
     requireFinite("temperature", t);
     if (t <= 0) {
-      throw new PropertyInputError("OUT_OF_DOMAIN", "temperature", t, `Sample temperatures must be above 0 °F, got ${t}.`);
+      throw new PropertyInputError(
+        "OUT_OF_DOMAIN",
+        "temperature",
+        t,
+        `Sample temperatures must be above 0 °F, got ${t}.`,
+      );
     }
   };
 
   const bubblePoint = (t: number): number => {
     requireSampleTemperature(t);
-    const pb = standingSaturationPressure({ ...base, temperature: t, solutionGor: rsb });
+    const pb = standingSaturationPressure({
+      ...base,
+      temperature: t,
+      solutionGor: rsb,
+    });
     collect(store, pb.warnings);
     if (!(pb.value > 0)) {
-      throw new PropertyInputError("OUT_OF_DOMAIN", "rsb", rsb, `Rsb = ${rsb} scf/STB is too small: no positive bubble point at ${t} °F.`);
+      throw new PropertyInputError(
+        "OUT_OF_DOMAIN",
+        "rsb",
+        rsb,
+        `Rsb = ${rsb} scf/STB is too small: no positive bubble point at ${t} °F.`,
+      );
     }
     return pb.value;
   };
@@ -189,7 +244,10 @@ export function createSampleModel(description: FluidDescription): SampleModel {
       const rsE = standingSolutionGor({ ...fl, pressure: p });
       rs = Math.min(rsE.value, rsb);
       const boE = standingOilFvf({ ...fl, solutionGor: rs });
-      const muE = beggsRobinsonLiveOilViscosity({ deadOilViscosity: dead.value, solutionGor: rs });
+      const muE = beggsRobinsonLiveOilViscosity({
+        deadOilViscosity: dead.value,
+        solutionGor: rs,
+      });
       collect(store, [...rsE.warnings, ...boE.warnings, ...muE.warnings]);
       bo = boE.value;
       muo = muE.value;
@@ -203,10 +261,19 @@ export function createSampleModel(description: FluidDescription): SampleModel {
         oilFvfAtBubblePoint: bob.value,
         solutionGorAtBubblePoint: rsb,
       });
-      const mub = beggsRobinsonLiveOilViscosity({ deadOilViscosity: dead.value, solutionGor: rsb });
-      const muE = vasquezBeggsUndersaturatedViscosity({ pressure: p, bubblePoint: pb, viscosityAtBubblePoint: mub.value });
+      const mub = beggsRobinsonLiveOilViscosity({
+        deadOilViscosity: dead.value,
+        solutionGor: rsb,
+      });
+      const muE = vasquezBeggsUndersaturatedViscosity({
+        pressure: p,
+        bubblePoint: pb,
+        viscosityAtBubblePoint: mub.value,
+      });
       collect(store, [...bob.warnings, ...mub.warnings, ...muE.warnings]);
-      const nonPhysical = boE.warnings.find((w) => w.code === "NONPHYSICAL_RESULT");
+      const nonPhysical = boE.warnings.find(
+        (w) => w.code === "NONPHYSICAL_RESULT",
+      );
       if (nonPhysical) {
         throw new PropertyInputError(
           "OUT_OF_DOMAIN",
@@ -220,11 +287,36 @@ export function createSampleModel(description: FluidDescription): SampleModel {
       bo = boE.value;
       muo = muE.value;
     }
-    const rho = massBalanceOilDensity({ apiGravity: api, gasGravity: gg, solutionGor: rs, oilFvf: bo });
-    const z = gasZFactor({ pressure: p, temperature: t, gasGravity: gg, method: fluid.zFactorMethod });
-    const bg = gasFvf({ pressure: p, temperature: t, z: z.value, standardConditions: FIELD_STANDARD_CONDITIONS });
-    const rhoG = gasDensity({ pressure: p, temperature: t, z: z.value, gasGravity: gg });
-    const mug = leeGonzalezEakinViscosity({ temperature: t, gasDensity: rhoG.value, gasGravity: gg, pressure: p });
+    const rho = massBalanceOilDensity({
+      apiGravity: api,
+      gasGravity: gg,
+      solutionGor: rs,
+      oilFvf: bo,
+    });
+    const z = gasZFactor({
+      pressure: p,
+      temperature: t,
+      gasGravity: gg,
+      method: fluid.zFactorMethod,
+    });
+    const bg = gasFvf({
+      pressure: p,
+      temperature: t,
+      z: z.value,
+      standardConditions: FIELD_STANDARD_CONDITIONS,
+    });
+    const rhoG = gasDensity({
+      pressure: p,
+      temperature: t,
+      z: z.value,
+      gasGravity: gg,
+    });
+    const mug = leeGonzalezEakinViscosity({
+      temperature: t,
+      gasDensity: rhoG.value,
+      gasGravity: gg,
+      pressure: p,
+    });
     collect(store, [...z.warnings, ...mug.warnings]);
     return {
       branch: saturated ? "saturated" : "undersaturated",
@@ -265,17 +357,32 @@ export interface GeneratedSample {
   readonly warnings: readonly PropertyWarning[];
 }
 
-const OIL_KEYS: ReadonlySet<PropertyKey> = new Set(["oil_fvf", "solution_gor", "oil_viscosity", "oil_density"]);
+const OIL_KEYS: ReadonlySet<PropertyKey> = new Set([
+  "oil_fvf",
+  "solution_gor",
+  "oil_viscosity",
+  "oil_density",
+]);
 
 function requireIncreasing(name: string, values: readonly number[]): void {
   if (!Array.isArray(values) || values.length === 0) {
-    throw new PropertyInputError("INSUFFICIENT_DATA", name, values, `${name} must be a non-empty array.`);
+    throw new PropertyInputError(
+      "INSUFFICIENT_DATA",
+      name,
+      values,
+      `${name} must be a non-empty array.`,
+    );
   }
   values.forEach((v, i) => {
     requireFinite(`${name}[${i}]`, v);
     const prev = values[i - 1];
     if (prev !== undefined && !(v > prev)) {
-      throw new PropertyInputError("OUT_OF_DOMAIN", name, values, `${name} must be strictly increasing (${prev} then ${v}).`);
+      throw new PropertyInputError(
+        "OUT_OF_DOMAIN",
+        name,
+        values,
+        `${name} must be strictly increasing (${prev} then ${v}).`,
+      );
     }
   });
 }
@@ -284,31 +391,48 @@ function requireIncreasing(name: string, values: readonly number[]): void {
  * Generate an invented sample: property grids for oil_fvf, solution_gor, oil_viscosity, oil_density,
  * gas_fvf, gas_viscosity and z_factor on `pressures` × `temperatures`, with a bubble point per temperature.
  */
-export function generateSample(description: SampleDescription): GeneratedSample {
+export function generateSample(
+  description: SampleDescription,
+): GeneratedSample {
   requireIncreasing("pressures", description.pressures);
   requireIncreasing("temperatures", description.temperatures);
-  description.pressures.forEach((p, i) => requirePressure(`pressures[${i}]`, p));
+  description.pressures.forEach((p, i) =>
+    requirePressure(`pressures[${i}]`, p),
+  );
   const noise = description.noise ?? 0;
   requireFinite("noise", noise);
   if (noise < 0 || noise > 0.1) {
-    throw new PropertyInputError("OUT_OF_DOMAIN", "noise", noise, `noise is a relative standard deviation from 0 to 0.1, got ${noise}.`);
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      "noise",
+      noise,
+      `noise is a relative standard deviation from 0 to 0.1, got ${noise}.`,
+    );
   }
   const seed = description.seed ?? 1;
   requireFinite("seed", seed);
   const systemId = description.unitSystem ?? "canonical";
   const system = UNIT_SYSTEMS[systemId];
   if (system === undefined) {
-    throw new PropertyInputError("OUT_OF_DOMAIN", "unitSystem", systemId, `Unknown unit system "${String(systemId)}".`);
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      "unitSystem",
+      systemId,
+      `Unknown unit system "${String(systemId)}".`,
+    );
   }
 
   const model = createSampleModel({
     ...description,
-    bubblePointTemperature: description.bubblePointTemperature ?? description.temperatures[0],
+    bubblePointTemperature:
+      description.bubblePointTemperature ?? description.temperatures[0],
   });
   const pressures = [...description.pressures];
   const temperatures = [...description.temperatures];
   const bubblePoints = temperatures.map((t) => model.bubblePoint(t));
-  const points = pressures.map((p) => temperatures.map((t) => model.evaluate(p, t)));
+  const points = pressures.map((p) =>
+    temperatures.map((t) => model.evaluate(p, t)),
+  );
 
   const random = createRandom(seed);
   const draw = (): number => {
@@ -319,9 +443,16 @@ export function generateSample(description: SampleDescription): GeneratedSample 
   };
 
   const out = (quantityValue: number, key: PropertyKey): number =>
-    convertBetweenSystems(quantityValue, PROPERTY_QUANTITIES[key], CANONICAL_UNIT_SYSTEM, system);
-  const outPressure = (p: number): number => convertBetweenSystems(p, "pressure", CANONICAL_UNIT_SYSTEM, system);
-  const outTemperature = (t: number): number => convertBetweenSystems(t, "temperature", CANONICAL_UNIT_SYSTEM, system);
+    convertBetweenSystems(
+      quantityValue,
+      PROPERTY_QUANTITIES[key],
+      CANONICAL_UNIT_SYSTEM,
+      system,
+    );
+  const outPressure = (p: number): number =>
+    convertBetweenSystems(p, "pressure", CANONICAL_UNIT_SYSTEM, system);
+  const outTemperature = (t: number): number =>
+    convertBetweenSystems(t, "temperature", CANONICAL_UNIT_SYSTEM, system);
 
   const axisP = pressures.map(outPressure);
   const axisT = temperatures.map(outTemperature);
@@ -361,7 +492,9 @@ export function generateSample(description: SampleDescription): GeneratedSample 
     synthetic: true,
     notice:
       "Invented data: generated from published correlations" +
-      (noise > 0 ? ` with ${(noise * 100).toFixed(2)} % artificial noise` : "") +
+      (noise > 0
+        ? ` with ${(noise * 100).toFixed(2)} % artificial noise`
+        : "") +
       "; not measurements of any real fluid.",
     fluid: model.fluid,
     noise,

@@ -4,7 +4,13 @@
  * each returning { value, warnings }. See README.md.
  */
 export * from "./errors";
-export type { Estimate, PropertyWarning, PropertyWarningCode, ValidityRange, ValidityRanges } from "./estimate";
+export type {
+  Estimate,
+  PropertyWarning,
+  PropertyWarningCode,
+  ValidityRange,
+  ValidityRanges,
+} from "./estimate";
 export * from "./standing";
 export * from "./vasquez-beggs";
 export * from "./beggs-robinson";
@@ -17,5 +23,9 @@ export * from "./y-function";
 export * from "./saturated-branch";
 export * from "./oil-density";
 export * from "./generate-sample";
-export { solveBracketed, solveFirstRoot, type RootResult } from "./solve-bracketed";
+export {
+  solveBracketed,
+  solveFirstRoot,
+  type RootResult,
+} from "./solve-bracketed";
 export { createRandom, type Random } from "./prng";

@@ -18,7 +18,12 @@ import {
   assertStandardConditions,
   type StandardConditions,
 } from "../units";
-import { requireApi, requireNonNegative, requirePositive, type Estimate } from "./estimate";
+import {
+  requireApi,
+  requireNonNegative,
+  requirePositive,
+  type Estimate,
+} from "./estimate";
 
 /** Density of water at 60 °F, lb/ft³ (999.0 kg/m³). */
 export const WATER_DENSITY_60F = 62.366;
@@ -38,11 +43,19 @@ export function massBalanceOilDensity(input: {
   requirePositive("gasGravity", input.gasGravity);
   requireNonNegative("solutionGor", input.solutionGor);
   requirePositive("oilFvf", input.oilFvf);
-  const rhoW = requirePositive("waterDensity", input.waterDensity ?? WATER_DENSITY_60F);
+  const rhoW = requirePositive(
+    "waterDensity",
+    input.waterDensity ?? WATER_DENSITY_60F,
+  );
   const sc = input.standardConditions ?? FIELD_STANDARD_CONDITIONS;
   assertStandardConditions(sc);
-  const molarVolume = (GAS_CONSTANT_FIELD * (sc.temperatureF + RANKINE_OFFSET)) / sc.pressurePsia; // scf/lbmol
-  const gasMassPerFt3Oil = ((MOLAR_MASS_AIR * input.gasGravity) / molarVolume) * (input.solutionGor / CUBIC_FOOT_PER_BARREL);
-  const rho = (rhoW * apiToSpecificGravity(input.apiGravity) + gasMassPerFt3Oil) / input.oilFvf;
+  const molarVolume =
+    (GAS_CONSTANT_FIELD * (sc.temperatureF + RANKINE_OFFSET)) / sc.pressurePsia; // scf/lbmol
+  const gasMassPerFt3Oil =
+    ((MOLAR_MASS_AIR * input.gasGravity) / molarVolume) *
+    (input.solutionGor / CUBIC_FOOT_PER_BARREL);
+  const rho =
+    (rhoW * apiToSpecificGravity(input.apiGravity) + gasMassPerFt3Oil) /
+    input.oilFvf;
   return { value: rho, warnings: [] };
 }

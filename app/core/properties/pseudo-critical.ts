@@ -39,13 +39,21 @@ export const SUTTON_RANGES: ValidityRanges = {
   },
 };
 
-export type PseudoCriticalMethod = "sutton" | "standing_natural_gas" | "standing_condensate";
+export type PseudoCriticalMethod =
+  "sutton" | "standing_natural_gas" | "standing_condensate";
 
-export function suttonPseudoCritical(input: { readonly gasGravity: number }): Estimate<PseudoCritical> {
+export function suttonPseudoCritical(input: {
+  readonly gasGravity: number;
+}): Estimate<PseudoCritical> {
   const g = requirePositive("gasGravity", input.gasGravity);
   return {
-    value: { temperatureR: 169.2 + 349.5 * g - 74.0 * g * g, pressurePsia: 756.8 - 131.0 * g - 3.6 * g * g },
-    warnings: rangeWarnings("sutton-1985-pseudo-critical", SUTTON_RANGES, { gasGravity: g }),
+    value: {
+      temperatureR: 169.2 + 349.5 * g - 74.0 * g * g,
+      pressurePsia: 756.8 - 131.0 * g - 3.6 * g * g,
+    },
+    warnings: rangeWarnings("sutton-1985-pseudo-critical", SUTTON_RANGES, {
+      gasGravity: g,
+    }),
   };
 }
 
@@ -56,12 +64,21 @@ export function standingPseudoCritical(input: {
   const g = requirePositive("gasGravity", input.gasGravity);
   const value =
     (input.system ?? "natural_gas") === "natural_gas"
-      ? { temperatureR: 168 + 325 * g - 12.5 * g * g, pressurePsia: 677 + 15.0 * g - 37.5 * g * g }
-      : { temperatureR: 187 + 330 * g - 71.5 * g * g, pressurePsia: 706 - 51.7 * g - 11.1 * g * g };
+      ? {
+          temperatureR: 168 + 325 * g - 12.5 * g * g,
+          pressurePsia: 677 + 15.0 * g - 37.5 * g * g,
+        }
+      : {
+          temperatureR: 187 + 330 * g - 71.5 * g * g,
+          pressurePsia: 706 - 51.7 * g - 11.1 * g * g,
+        };
   return { value, warnings: [] };
 }
 
-export function pseudoCritical(gasGravity: number, method: PseudoCriticalMethod = "sutton"): Estimate<PseudoCritical> {
+export function pseudoCritical(
+  gasGravity: number,
+  method: PseudoCriticalMethod = "sutton",
+): Estimate<PseudoCritical> {
   switch (method) {
     case "sutton":
       return suttonPseudoCritical({ gasGravity });
@@ -80,5 +97,8 @@ export function reducedConditions(
 ): { readonly tpr: number; readonly ppr: number } {
   requirePressure("pressure", pressure);
   requireTemperature("temperature", temperature);
-  return { tpr: (temperature + RANKINE_OFFSET) / critical.temperatureR, ppr: pressure / critical.pressurePsia };
+  return {
+    tpr: (temperature + RANKINE_OFFSET) / critical.temperatureR,
+    ppr: pressure / critical.pressurePsia,
+  };
 }

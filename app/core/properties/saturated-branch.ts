@@ -11,7 +11,12 @@
  * at the bubble point, where no gas has been liberated — uses the other end's value).
  */
 import { PropertyInputError } from "./errors";
-import { requireNonNegative, requirePositive, requirePressure, type Estimate } from "./estimate";
+import {
+  requireNonNegative,
+  requirePositive,
+  requirePressure,
+  type Estimate,
+} from "./estimate";
 
 /** Two-phase formation volume factor (rb/STB). */
 export function totalFvf(input: {
@@ -23,9 +28,14 @@ export function totalFvf(input: {
 }): Estimate {
   requirePositive("oilFvf", input.oilFvf);
   requirePositive("gasFvf", input.gasFvf);
-  requireNonNegative("solutionGorAtBubblePoint", input.solutionGorAtBubblePoint);
+  requireNonNegative(
+    "solutionGorAtBubblePoint",
+    input.solutionGorAtBubblePoint,
+  );
   requireNonNegative("solutionGor", input.solutionGor);
-  const bt = input.oilFvf + input.gasFvf * (input.solutionGorAtBubblePoint - input.solutionGor);
+  const bt =
+    input.oilFvf +
+    input.gasFvf * (input.solutionGorAtBubblePoint - input.solutionGor);
   return {
     value: bt,
     warnings:
@@ -36,7 +46,8 @@ export function totalFvf(input: {
               method: "two-phase-fvf",
               input: "solutionGor",
               value: input.solutionGor,
-              message: "Rs exceeds Rsb: the point is not on the saturated branch.",
+              message:
+                "Rs exceeds Rsb: the point is not on the saturated branch.",
             },
           ]
         : [],
@@ -74,9 +85,16 @@ export interface ConsistencyResult {
 }
 
 /** The inequality test dBo/dp < Bg·dRs/dp over every interval of a saturated table. */
-export function saturatedConsistencyTest(points: readonly SaturatedPoint[]): ConsistencyResult {
+export function saturatedConsistencyTest(
+  points: readonly SaturatedPoint[],
+): ConsistencyResult {
   if (points.length < 2) {
-    throw new PropertyInputError("INSUFFICIENT_DATA", "points", points.length, "The test needs at least two saturated points.");
+    throw new PropertyInputError(
+      "INSUFFICIENT_DATA",
+      "points",
+      points.length,
+      "The test needs at least two saturated points.",
+    );
   }
   for (const pt of points) {
     requirePressure("pressure", pt.pressure);
@@ -92,7 +110,12 @@ export function saturatedConsistencyTest(points: readonly SaturatedPoint[]): Con
     if (!lo || !hi) continue;
     const dp = hi.pressure - lo.pressure;
     if (dp === 0) {
-      throw new PropertyInputError("OUT_OF_DOMAIN", "pressure", hi.pressure, `Duplicated pressure ${hi.pressure} psia.`);
+      throw new PropertyInputError(
+        "OUT_OF_DOMAIN",
+        "pressure",
+        hi.pressure,
+        `Duplicated pressure ${hi.pressure} psia.`,
+      );
     }
     const bgs = [lo.gasFvf, hi.gasFvf].filter((b): b is number => b !== null);
     if (bgs.length === 0) {

@@ -1,6 +1,10 @@
 import { expect, test } from "vitest";
 import { PropertyInputError } from "./errors";
-import { adjustDifferentialLiberation, adjustSaturatedPoint, adjustUndersaturatedPoint } from "./separator-adjustment";
+import {
+  adjustDifferentialLiberation,
+  adjustSaturatedPoint,
+  adjustUndersaturatedPoint,
+} from "./separator-adjustment";
 
 // DL values Bod = 1.515, Rsd = 684 at 2100 psig and Bodb = 1.600, Rsdb = 854 from Table 6-11 [S];
 // separator test Bofb = 1.474, Rsfb = 768 (100 psig/75 °F) from memory (McCain ch. 10 / Ahmed) [M].
@@ -36,14 +40,31 @@ test("whole table: DL points below pb and CCE relative volumes above, sorted; a 
       { pressure: 4014.7, relativeVolume: 0.9848 },
     ],
   });
-  expect(r.value.map((row) => row.pressure)).toEqual([173.7, 2114.7, 2634.7, 4014.7]);
-  expect(r.value.map((row) => row.branch)).toEqual(["saturated", "saturated", "saturated", "undersaturated"]);
+  expect(r.value.map((row) => row.pressure)).toEqual([
+    173.7, 2114.7, 2634.7, 4014.7,
+  ]);
+  expect(r.value.map((row) => row.branch)).toEqual([
+    "saturated",
+    "saturated",
+    "saturated",
+    "undersaturated",
+  ]);
   expect(r.value[3]?.oilFvf).toBeCloseTo(0.9848 * 1.474, 12);
-  expect(r.value[0]?.solutionGor).toBeCloseTo(768 - (854 - 157) * (1.474 / 1.6), 10);
-  const volatile = adjustSaturatedPoint({ bofb: 1.2, rsfb: 300, bodb: 2.0, rsdb: 1000 }, { bod: 1.3, rsd: 100 });
+  expect(r.value[0]?.solutionGor).toBeCloseTo(
+    768 - (854 - 157) * (1.474 / 1.6),
+    10,
+  );
+  const volatile = adjustSaturatedPoint(
+    { bofb: 1.2, rsfb: 300, bodb: 2.0, rsdb: 1000 },
+    { bod: 1.3, rsd: 100 },
+  );
   expect(volatile.value.solutionGor).toBeLessThan(0);
   expect(volatile.warnings[0]?.code).toBe("NONPHYSICAL_RESULT");
   expect(() =>
-    adjustDifferentialLiberation({ bubblePoint: 2000, basis: BASIS, differential: [{ pressure: 2500, bod: 1.5, rsd: 800 }] }),
+    adjustDifferentialLiberation({
+      bubblePoint: 2000,
+      basis: BASIS,
+      differential: [{ pressure: 2500, bod: 1.5, rsd: 800 }],
+    }),
   ).toThrow(PropertyInputError);
 });

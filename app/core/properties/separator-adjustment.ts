@@ -103,7 +103,13 @@ export function adjustUndersaturatedPoint(
       message: `V/Vb = ${point.relativeVolume} > 1 above the bubble point: the oil would expand with pressure.`,
     });
   }
-  return { value: { oilFvf: point.relativeVolume * basis.bofb, solutionGor: basis.rsfb }, warnings };
+  return {
+    value: {
+      oilFvf: point.relativeVolume * basis.bofb,
+      solutionGor: basis.rsfb,
+    },
+    warnings,
+  };
 }
 
 export interface AdjustedRow extends AdjustedPoint {
@@ -118,8 +124,15 @@ export interface AdjustedRow extends AdjustedPoint {
 export function adjustDifferentialLiberation(input: {
   readonly bubblePoint: number;
   readonly basis: SeparatorAdjustmentBasis;
-  readonly differential: ReadonlyArray<{ readonly pressure: number; readonly bod: number; readonly rsd: number }>;
-  readonly relativeVolumes?: ReadonlyArray<{ readonly pressure: number; readonly relativeVolume: number }>;
+  readonly differential: ReadonlyArray<{
+    readonly pressure: number;
+    readonly bod: number;
+    readonly rsd: number;
+  }>;
+  readonly relativeVolumes?: ReadonlyArray<{
+    readonly pressure: number;
+    readonly relativeVolume: number;
+  }>;
 }): Estimate<AdjustedRow[]> {
   const pb = requirePressure("bubblePoint", input.bubblePoint);
   validateBasis(input.basis);
@@ -136,14 +149,22 @@ export function adjustDifferentialLiberation(input: {
       );
     }
     const adjusted = adjustSaturatedPoint(input.basis, point);
-    rows.push({ pressure: point.pressure, branch: "saturated", ...adjusted.value });
+    rows.push({
+      pressure: point.pressure,
+      branch: "saturated",
+      ...adjusted.value,
+    });
     warnings = mergeWarnings(warnings, adjusted.warnings);
   }
   for (const point of input.relativeVolumes ?? []) {
     requirePressure("relativeVolumes.pressure", point.pressure);
     if (point.pressure <= pb) continue; // below pb the DL data govern
     const adjusted = adjustUndersaturatedPoint(input.basis, point);
-    rows.push({ pressure: point.pressure, branch: "undersaturated", ...adjusted.value });
+    rows.push({
+      pressure: point.pressure,
+      branch: "undersaturated",
+      ...adjusted.value,
+    });
     warnings = mergeWarnings(warnings, adjusted.warnings);
   }
   rows.sort((a, b) => a.pressure - b.pressure);

@@ -54,7 +54,8 @@ export function solveBracketed(
     }
     const tol1 = 2 * Number.EPSILON * Math.abs(b) + 0.5 * tol;
     const xm = 0.5 * (c - b);
-    if (Math.abs(xm) <= tol1 || fb === 0) return { root: b, residual: fb, iterations: iteration };
+    if (Math.abs(xm) <= tol1 || fb === 0)
+      return { root: b, residual: fb, iterations: iteration };
     if (Math.abs(e) >= tol1 && Math.abs(fa) > Math.abs(fb)) {
       const s = fb / fa;
       let p: number;
@@ -110,7 +111,8 @@ export function solveFirstRoot(
   for (let k = 1; k <= steps; k++) {
     const x1 = lower + ((upper - lower) * k) / steps;
     const f1 = f(x1);
-    if (f1 === 0 || f0 * f1 < 0) return solveBracketed(f, x0, x1, { tolerance });
+    if (f1 === 0 || f0 * f1 < 0)
+      return solveBracketed(f, x0, x1, { tolerance });
     x0 = x1;
     f0 = f1;
   }

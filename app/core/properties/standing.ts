@@ -35,12 +35,48 @@ import {
 const SOURCE = "Standing (1947) data range, as quoted in the domain brief §3.1";
 
 export const STANDING_RANGES: ValidityRanges = {
-  pressure: { input: "pressure", unit: "psia", min: 130, max: 7000, source: SOURCE },
-  bubblePoint: { input: "bubble point", unit: "psia", min: 130, max: 7000, source: SOURCE },
-  temperature: { input: "temperature", unit: "°F", min: 100, max: 258, source: SOURCE },
-  solutionGor: { input: "solution GOR", unit: "scf/STB", min: 20, max: 1425, source: SOURCE },
-  apiGravity: { input: "API gravity", unit: "°API", min: 16.5, max: 63.8, source: SOURCE },
-  gasGravity: { input: "gas gravity", unit: "air = 1", min: 0.59, max: 0.95, source: SOURCE },
+  pressure: {
+    input: "pressure",
+    unit: "psia",
+    min: 130,
+    max: 7000,
+    source: SOURCE,
+  },
+  bubblePoint: {
+    input: "bubble point",
+    unit: "psia",
+    min: 130,
+    max: 7000,
+    source: SOURCE,
+  },
+  temperature: {
+    input: "temperature",
+    unit: "°F",
+    min: 100,
+    max: 258,
+    source: SOURCE,
+  },
+  solutionGor: {
+    input: "solution GOR",
+    unit: "scf/STB",
+    min: 20,
+    max: 1425,
+    source: SOURCE,
+  },
+  apiGravity: {
+    input: "API gravity",
+    unit: "°API",
+    min: 16.5,
+    max: 63.8,
+    source: SOURCE,
+  },
+  gasGravity: {
+    input: "gas gravity",
+    unit: "air = 1",
+    min: 0.59,
+    max: 0.95,
+    source: SOURCE,
+  },
 };
 
 export interface StandingFluid {
@@ -58,15 +94,27 @@ function validateFluid(input: StandingFluid): void {
   requireTemperature("temperature", input.temperature);
 }
 
-function nonPhysical(method: string, input: string, value: number, message: string): PropertyWarning {
+function nonPhysical(
+  method: string,
+  input: string,
+  value: number,
+  message: string,
+): PropertyWarning {
   return { code: "NONPHYSICAL_RESULT", method, input, value, message };
 }
 
 /** Bubble-point pressure (psia) of an oil with solution GOR `solutionGor` (scf/STB). */
-export function standingBubblePoint(input: StandingFluid & { readonly solutionGor: number }): Estimate {
+export function standingBubblePoint(
+  input: StandingFluid & { readonly solutionGor: number },
+): Estimate {
   validateFluid(input);
   requirePositive("solutionGor", input.solutionGor);
-  const { solutionGor: rs, gasGravity: gg, apiGravity: api, temperature: t } = input;
+  const {
+    solutionGor: rs,
+    gasGravity: gg,
+    apiGravity: api,
+    temperature: t,
+  } = input;
   const a = 0.00091 * t - 0.0125 * api;
   const pb = 18.2 * ((rs / gg) ** 0.83 * 10 ** a - 1.4);
   const method = "standing-1947-bubble-point";
@@ -77,15 +125,30 @@ export function standingBubblePoint(input: StandingFluid & { readonly solutionGo
     temperature: t,
     bubblePoint: pb,
   });
-  if (pb <= 0) warnings.push(nonPhysical(method, "result", pb, `Bubble point ${pb.toFixed(1)} psia is not positive: Rs is too small for this method.`));
+  if (pb <= 0)
+    warnings.push(
+      nonPhysical(
+        method,
+        "result",
+        pb,
+        `Bubble point ${pb.toFixed(1)} psia is not positive: Rs is too small for this method.`,
+      ),
+    );
   return { value: pb, warnings };
 }
 
 /** Solution GOR (scf/STB) of a saturated oil at `pressure` (psia, at or below the bubble point). */
-export function standingSolutionGor(input: StandingFluid & { readonly pressure: number }): Estimate {
+export function standingSolutionGor(
+  input: StandingFluid & { readonly pressure: number },
+): Estimate {
   validateFluid(input);
   requirePressure("pressure", input.pressure);
-  const { pressure: p, gasGravity: gg, apiGravity: api, temperature: t } = input;
+  const {
+    pressure: p,
+    gasGravity: gg,
+    apiGravity: api,
+    temperature: t,
+  } = input;
   const x = 0.0125 * api - 0.00091 * t;
   const rs = gg * ((p / 18.2 + 1.4) * 10 ** x) ** 1.2048;
   const method = "standing-1947-solution-gor";
@@ -103,10 +166,17 @@ export function standingSolutionGor(input: StandingFluid & { readonly pressure: 
  * Exact inverse of `standingSolutionGor`: the pressure (psia) at which Standing's Rs form gives
  * `solutionGor`. Differs from `standingBubblePoint` by the rounding of 1/0.83 (≈0.2 psi at 2000 psia).
  */
-export function standingSaturationPressure(input: StandingFluid & { readonly solutionGor: number }): Estimate {
+export function standingSaturationPressure(
+  input: StandingFluid & { readonly solutionGor: number },
+): Estimate {
   validateFluid(input);
   requirePositive("solutionGor", input.solutionGor);
-  const { solutionGor: rs, gasGravity: gg, apiGravity: api, temperature: t } = input;
+  const {
+    solutionGor: rs,
+    gasGravity: gg,
+    apiGravity: api,
+    temperature: t,
+  } = input;
   const x = 0.0125 * api - 0.00091 * t;
   const p = 18.2 * ((rs / gg) ** (1 / 1.2048) * 10 ** -x - 1.4);
   const method = "standing-1947-solution-gor-inverse";
@@ -117,15 +187,30 @@ export function standingSaturationPressure(input: StandingFluid & { readonly sol
     temperature: t,
     bubblePoint: p,
   });
-  if (p <= 0) warnings.push(nonPhysical(method, "result", p, `Saturation pressure ${p.toFixed(1)} psia is not positive: Rs is too small for this method.`));
+  if (p <= 0)
+    warnings.push(
+      nonPhysical(
+        method,
+        "result",
+        p,
+        `Saturation pressure ${p.toFixed(1)} psia is not positive: Rs is too small for this method.`,
+      ),
+    );
   return { value: p, warnings };
 }
 
 /** Saturated oil FVF (rb/STB) at solution GOR `solutionGor` — the 0.9759 + 0.00012 F^1.2 form. */
-export function standingOilFvf(input: StandingFluid & { readonly solutionGor: number }): Estimate {
+export function standingOilFvf(
+  input: StandingFluid & { readonly solutionGor: number },
+): Estimate {
   validateFluid(input);
   requireNonNegative("solutionGor", input.solutionGor);
-  const { solutionGor: rs, gasGravity: gg, apiGravity: api, temperature: t } = input;
+  const {
+    solutionGor: rs,
+    gasGravity: gg,
+    apiGravity: api,
+    temperature: t,
+  } = input;
   const gammaO = apiToSpecificGravity(api);
   const f = rs * Math.sqrt(gg / gammaO) + 1.25 * t;
   if (f < 0) {

@@ -11,13 +11,25 @@
  * Units: psia, 1/psi, rb/STB. Standard definitions (e.g. McCain 1990 ch. 10; Dake 1978 ch. 2).
  */
 import { PropertyInputError } from "./errors";
-import { requireFinite, requirePositive, requirePressure, type Estimate, type PropertyWarning } from "./estimate";
+import {
+  requireFinite,
+  requirePositive,
+  requirePressure,
+  type Estimate,
+  type PropertyWarning,
+} from "./estimate";
 
 const METHOD = "undersaturated-oil-fvf-from-compressibility";
 
 /** Adaptive Simpson quadrature of a smooth function on [a, b]. */
-export function integrate(f: (x: number) => number, a: number, b: number, tolerance = 1e-13): number {
-  const simpson = (fa: number, fm: number, fb: number, h: number) => (h / 6) * (fa + 4 * fm + fb);
+export function integrate(
+  f: (x: number) => number,
+  a: number,
+  b: number,
+  tolerance = 1e-13,
+): number {
+  const simpson = (fa: number, fm: number, fb: number, h: number) =>
+    (h / 6) * (fa + 4 * fm + fb);
   const recurse = (
     lo: number,
     hi: number,
@@ -36,9 +48,11 @@ export function integrate(f: (x: number) => number, a: number, b: number, tolera
     const left = simpson(flo, flm, fmid, mid - lo);
     const right = simpson(fmid, frm, fhi, hi - mid);
     const delta = left + right - whole;
-    if (depth <= 0 || Math.abs(delta) <= 15 * tol) return left + right + delta / 15;
+    if (depth <= 0 || Math.abs(delta) <= 15 * tol)
+      return left + right + delta / 15;
     return (
-      recurse(lo, mid, flo, flm, fmid, left, tol / 2, depth - 1) + recurse(mid, hi, fmid, frm, fhi, right, tol / 2, depth - 1)
+      recurse(lo, mid, flo, flm, fmid, left, tol / 2, depth - 1) +
+      recurse(mid, hi, fmid, frm, fhi, right, tol / 2, depth - 1)
     );
   };
   if (a === b) return 0;
@@ -93,7 +107,8 @@ function nonPositive(value: number): PropertyWarning {
     method: METHOD,
     input: "compressibility",
     value,
-    message: "Oil compressibility is not positive: Bo would rise with pressure above the bubble point.",
+    message:
+      "Oil compressibility is not positive: Bo would rise with pressure above the bubble point.",
   };
 }
 
@@ -117,8 +132,14 @@ export function averageCompressibility(
   requirePositive("relativeVolume", a.relativeVolume);
   requirePositive("relativeVolume", b.relativeVolume);
   if (a.pressure === b.pressure) {
-    throw new PropertyInputError("OUT_OF_DOMAIN", "pressure", a.pressure, "The two points have the same pressure.");
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      "pressure",
+      a.pressure,
+      "The two points have the same pressure.",
+    );
   }
-  const co = -Math.log(b.relativeVolume / a.relativeVolume) / (b.pressure - a.pressure);
+  const co =
+    -Math.log(b.relativeVolume / a.relativeVolume) / (b.pressure - a.pressure);
   return { value: co, warnings: co <= 0 ? [nonPositive(co)] : [] };
 }

@@ -36,21 +36,71 @@ import {
   type ValidityRanges,
 } from "./estimate";
 
-const SOURCE = "Vasquez & Beggs (1980) data range, recalled (domain brief §3.2, from memory)";
-const SOURCE_MU = "Vasquez & Beggs (1980) viscosity data range, recalled (domain brief §3.2, from memory)";
+const SOURCE =
+  "Vasquez & Beggs (1980) data range, recalled (domain brief §3.2, from memory)";
+const SOURCE_MU =
+  "Vasquez & Beggs (1980) viscosity data range, recalled (domain brief §3.2, from memory)";
 
 export const VASQUEZ_BEGGS_RANGES: ValidityRanges = {
-  pressure: { input: "pressure", unit: "psia", min: 50, max: 5250, source: SOURCE },
-  bubblePoint: { input: "bubble point", unit: "psia", min: 50, max: 5250, source: SOURCE },
-  temperature: { input: "temperature", unit: "°F", min: 70, max: 295, source: SOURCE },
-  apiGravity: { input: "API gravity", unit: "°API", min: 16, max: 58, source: SOURCE },
-  gasGravity: { input: "gas gravity (100 psig separator)", unit: "air = 1", min: 0.56, max: 1.18, source: SOURCE },
-  solutionGor: { input: "solution GOR", unit: "scf/STB", min: 20, max: 2070, source: SOURCE },
+  pressure: {
+    input: "pressure",
+    unit: "psia",
+    min: 50,
+    max: 5250,
+    source: SOURCE,
+  },
+  bubblePoint: {
+    input: "bubble point",
+    unit: "psia",
+    min: 50,
+    max: 5250,
+    source: SOURCE,
+  },
+  temperature: {
+    input: "temperature",
+    unit: "°F",
+    min: 70,
+    max: 295,
+    source: SOURCE,
+  },
+  apiGravity: {
+    input: "API gravity",
+    unit: "°API",
+    min: 16,
+    max: 58,
+    source: SOURCE,
+  },
+  gasGravity: {
+    input: "gas gravity (100 psig separator)",
+    unit: "air = 1",
+    min: 0.56,
+    max: 1.18,
+    source: SOURCE,
+  },
+  solutionGor: {
+    input: "solution GOR",
+    unit: "scf/STB",
+    min: 20,
+    max: 2070,
+    source: SOURCE,
+  },
 };
 
 export const VASQUEZ_BEGGS_VISCOSITY_RANGES: ValidityRanges = {
-  pressure: { input: "pressure", unit: "psia", min: 141, max: 9515, source: SOURCE_MU },
-  viscosityAtBubblePoint: { input: "viscosity", unit: "cP", min: 0.117, max: 148, source: SOURCE_MU },
+  pressure: {
+    input: "pressure",
+    unit: "psia",
+    min: 141,
+    max: 9515,
+    source: SOURCE_MU,
+  },
+  viscosityAtBubblePoint: {
+    input: "viscosity",
+    unit: "cP",
+    min: 0.117,
+    max: 148,
+    source: SOURCE_MU,
+  },
 };
 
 export interface SeparatorConditions {
@@ -80,7 +130,13 @@ export function vasquezBeggsGasGravity(input: {
   requirePressure("separator.pressure", input.separator.pressure);
   requireTemperature("separator.temperature", input.separator.temperature);
   const { gasGravity: gg, apiGravity: api, separator } = input;
-  const ggs = gg * (1 + 5.912e-5 * api * separator.temperature * Math.log10(separator.pressure / 114.7));
+  const ggs =
+    gg *
+    (1 +
+      5.912e-5 *
+        api *
+        separator.temperature *
+        Math.log10(separator.pressure / 114.7));
   const warnings: PropertyWarning[] = [];
   if (!(ggs > 0)) {
     warnings.push({
@@ -103,7 +159,8 @@ function resolve(input: VasquezBeggsFluid): Resolved {
   requirePositive("gasGravity", input.gasGravity);
   requireApi("apiGravity", input.apiGravity);
   requireTemperature("temperature", input.temperature);
-  if (input.separator === undefined) return { ggs: input.gasGravity, warnings: [] };
+  if (input.separator === undefined)
+    return { ggs: input.gasGravity, warnings: [] };
   const corrected = vasquezBeggsGasGravity({
     gasGravity: input.gasGravity,
     apiGravity: input.apiGravity,
@@ -118,11 +175,17 @@ function rsCoefficients(api: number): readonly [number, number, number] {
 }
 
 /** Solution GOR (scf/STB) at pressure ≤ pb. */
-export function vasquezBeggsSolutionGor(input: VasquezBeggsFluid & { readonly pressure: number }): Estimate {
+export function vasquezBeggsSolutionGor(
+  input: VasquezBeggsFluid & { readonly pressure: number },
+): Estimate {
   const { ggs, warnings } = resolve(input);
   requirePressure("pressure", input.pressure);
   const [c1, c2, c3] = rsCoefficients(input.apiGravity);
-  const rs = c1 * ggs * input.pressure ** c2 * Math.exp((c3 * input.apiGravity) / (input.temperature + 460));
+  const rs =
+    c1 *
+    ggs *
+    input.pressure ** c2 *
+    Math.exp((c3 * input.apiGravity) / (input.temperature + 460));
   const method = "vasquez-beggs-1980-solution-gor";
   return {
     value: rs,
@@ -140,11 +203,18 @@ export function vasquezBeggsSolutionGor(input: VasquezBeggsFluid & { readonly pr
 }
 
 /** Bubble-point pressure (psia) for solution GOR `solutionGor` (scf/STB): exact inverse of the Rs form. */
-export function vasquezBeggsBubblePoint(input: VasquezBeggsFluid & { readonly solutionGor: number }): Estimate {
+export function vasquezBeggsBubblePoint(
+  input: VasquezBeggsFluid & { readonly solutionGor: number },
+): Estimate {
   const { ggs, warnings } = resolve(input);
   requirePositive("solutionGor", input.solutionGor);
   const [c1, c2, c3] = rsCoefficients(input.apiGravity);
-  const pb = (input.solutionGor / (c1 * ggs * Math.exp((c3 * input.apiGravity) / (input.temperature + 460)))) ** (1 / c2);
+  const pb =
+    (input.solutionGor /
+      (c1 *
+        ggs *
+        Math.exp((c3 * input.apiGravity) / (input.temperature + 460)))) **
+    (1 / c2);
   const method = "vasquez-beggs-1980-bubble-point";
   return {
     value: pb,
@@ -162,10 +232,15 @@ export function vasquezBeggsBubblePoint(input: VasquezBeggsFluid & { readonly so
 }
 
 /** Saturated oil FVF (rb/STB) at solution GOR `solutionGor` (p ≤ pb). */
-export function vasquezBeggsOilFvf(input: VasquezBeggsFluid & { readonly solutionGor: number }): Estimate {
+export function vasquezBeggsOilFvf(
+  input: VasquezBeggsFluid & { readonly solutionGor: number },
+): Estimate {
   const { ggs, warnings } = resolve(input);
   requirePositive("solutionGor", input.solutionGor);
-  const [c1, c2, c3] = input.apiGravity <= 30 ? [4.677e-4, 1.751e-5, -1.811e-8] : [4.67e-4, 1.1e-5, 1.337e-9];
+  const [c1, c2, c3] =
+    input.apiGravity <= 30
+      ? [4.677e-4, 1.751e-5, -1.811e-8]
+      : [4.67e-4, 1.1e-5, 1.337e-9];
   const rs = input.solutionGor;
   const g = ((input.temperature - 60) * input.apiGravity) / ggs;
   const bo = 1 + c1 * rs + c2 * g + c3 * rs * g;
@@ -185,7 +260,12 @@ export function vasquezBeggsOilFvf(input: VasquezBeggsFluid & { readonly solutio
 }
 
 /** 10⁻⁵ (−1433 + 5 Rsb + 17.2 T − 1180 γgs + 12.61 API): co·p, and the exponent of the undersaturated Bo. */
-function compressibilityNumerator(rsb: number, t: number, ggs: number, api: number): number {
+function compressibilityNumerator(
+  rsb: number,
+  t: number,
+  ggs: number,
+  api: number,
+): number {
   return 1e-5 * (-1433 + 5 * rsb + 17.2 * t - 1180 * ggs + 12.61 * api);
 }
 
@@ -195,18 +275,27 @@ function negativeCo(method: string, value: number): PropertyWarning {
     method,
     input: "result",
     value,
-    message: "Undersaturated compressibility is not positive for this fluid: outside the correlation's domain.",
+    message:
+      "Undersaturated compressibility is not positive for this fluid: outside the correlation's domain.",
   };
 }
 
 /** Undersaturated oil isothermal compressibility (1/psi) at `pressure` (psia, above pb). */
 export function vasquezBeggsUndersaturatedCompressibility(
-  input: VasquezBeggsFluid & { readonly pressure: number; readonly solutionGorAtBubblePoint: number },
+  input: VasquezBeggsFluid & {
+    readonly pressure: number;
+    readonly solutionGorAtBubblePoint: number;
+  },
 ): Estimate {
   const { ggs, warnings } = resolve(input);
   requirePressure("pressure", input.pressure);
   requirePositive("solutionGorAtBubblePoint", input.solutionGorAtBubblePoint);
-  const a = compressibilityNumerator(input.solutionGorAtBubblePoint, input.temperature, ggs, input.apiGravity);
+  const a = compressibilityNumerator(
+    input.solutionGorAtBubblePoint,
+    input.temperature,
+    ggs,
+    input.apiGravity,
+  );
   const co = a / input.pressure;
   const method = "vasquez-beggs-1980-undersaturated-compressibility";
   const all = mergeWarnings(
@@ -249,8 +338,14 @@ export function vasquezBeggsUndersaturatedOilFvf(
   requirePositive("oilFvfAtBubblePoint", input.oilFvfAtBubblePoint);
   requirePositive("solutionGorAtBubblePoint", input.solutionGorAtBubblePoint);
   requireAboveBubblePoint(input.pressure, input.bubblePoint);
-  const a = compressibilityNumerator(input.solutionGorAtBubblePoint, input.temperature, ggs, input.apiGravity);
-  const bo = input.oilFvfAtBubblePoint * (input.bubblePoint / input.pressure) ** a;
+  const a = compressibilityNumerator(
+    input.solutionGorAtBubblePoint,
+    input.temperature,
+    ggs,
+    input.apiGravity,
+  );
+  const bo =
+    input.oilFvfAtBubblePoint * (input.bubblePoint / input.pressure) ** a;
   const method = "vasquez-beggs-1980-undersaturated-oil-fvf";
   const all = mergeWarnings(
     warnings,
@@ -284,9 +379,13 @@ export function vasquezBeggsUndersaturatedViscosity(input: {
   const p = input.pressure;
   const m = 2.6 * p ** 1.187 * Math.exp(-11.513 - 8.98e-5 * p);
   const mu = input.viscosityAtBubblePoint * (p / input.bubblePoint) ** m;
-  const warnings = rangeWarnings("vasquez-beggs-1980-undersaturated-viscosity", VASQUEZ_BEGGS_VISCOSITY_RANGES, {
-    pressure: p,
-    viscosityAtBubblePoint: input.viscosityAtBubblePoint,
-  });
+  const warnings = rangeWarnings(
+    "vasquez-beggs-1980-undersaturated-viscosity",
+    VASQUEZ_BEGGS_VISCOSITY_RANGES,
+    {
+      pressure: p,
+      viscosityAtBubblePoint: input.viscosityAtBubblePoint,
+    },
+  );
   return { value: mu, warnings, exponent: m };
 }

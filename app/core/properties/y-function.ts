@@ -15,7 +15,11 @@
  * so that it can be shown and stored with the smoothed table.
  */
 import { PropertyInputError } from "./errors";
-import { requirePositive, requirePressure, type PropertyWarning } from "./estimate";
+import {
+  requirePositive,
+  requirePressure,
+  type PropertyWarning,
+} from "./estimate";
 
 export interface CcePoint {
   /** psia */
@@ -52,12 +56,19 @@ export interface YFunctionFit {
 const METHOD = "standing-y-function";
 
 /** Y at one point (p < psat, Vt/Vsat > 1). */
-export function yFunction(input: { readonly saturationPressure: number } & CcePoint): number {
+export function yFunction(
+  input: { readonly saturationPressure: number } & CcePoint,
+): number {
   const psat = requirePressure("saturationPressure", input.saturationPressure);
   const p = requirePressure("pressure", input.pressure);
   requirePositive("relativeVolume", input.relativeVolume);
   if (p >= psat) {
-    throw new PropertyInputError("OUT_OF_DOMAIN", "pressure", p, `Y is defined below psat only (p = ${p} ≥ ${psat} psia).`);
+    throw new PropertyInputError(
+      "OUT_OF_DOMAIN",
+      "pressure",
+      p,
+      `Y is defined below psat only (p = ${p} ≥ ${psat} psia).`,
+    );
   }
   if (input.relativeVolume <= 1) {
     throw new PropertyInputError(
@@ -70,7 +81,10 @@ export function yFunction(input: { readonly saturationPressure: number } & CcePo
   return (psat - p) / (p * (input.relativeVolume - 1));
 }
 
-function fitLine(xs: readonly number[], ys: readonly number[]): { intercept: number; slope: number } {
+function fitLine(
+  xs: readonly number[],
+  ys: readonly number[],
+): { intercept: number; slope: number } {
   const n = xs.length;
   let sx = 0;
   let sy = 0;
@@ -96,7 +110,9 @@ export function smoothedRelativeVolume(
   pressure: number,
 ): number {
   const p = requirePressure("pressure", pressure);
-  return 1 + (fit.saturationPressure - p) / (p * (fit.intercept + fit.slope * p));
+  return (
+    1 + (fit.saturationPressure - p) / (p * (fit.intercept + fit.slope * p))
+  );
 }
 
 export function fitYFunction(input: {
@@ -125,7 +141,10 @@ export function fitYFunction(input: {
       ignored.push(point);
       continue;
     }
-    const y = point.relativeVolume > 1 ? yFunction({ saturationPressure: psat, ...point }) : null;
+    const y =
+      point.relativeVolume > 1
+        ? yFunction({ saturationPressure: psat, ...point })
+        : null;
     if (y === null) {
       warnings.push({
         code: "DATA_FLAG",
@@ -192,7 +211,9 @@ export function fitYFunction(input: {
     const yFitted = intercept + slope * pt.pressure;
     const residual = pt.y === null ? null : pt.y - yFitted;
     const relativeResidual = residual === null ? null : residual / yFitted;
-    const offLine = !used.has(i) || (relativeResidual !== null && Math.abs(relativeResidual) > tolerance);
+    const offLine =
+      !used.has(i) ||
+      (relativeResidual !== null && Math.abs(relativeResidual) > tolerance);
     return {
       pressure: pt.pressure,
       relativeVolume: pt.relativeVolume,
@@ -200,7 +221,8 @@ export function fitYFunction(input: {
       yFitted,
       residual,
       relativeResidual,
-      smoothedRelativeVolume: 1 + (psat - pt.pressure) / (pt.pressure * yFitted),
+      smoothedRelativeVolume:
+        1 + (psat - pt.pressure) / (pt.pressure * yFitted),
       usedInFit: used.has(i),
       offLine,
     };
@@ -216,7 +238,9 @@ export function fitYFunction(input: {
       message:
         `Point at ${pt.pressure} psia lies ${pt.residual >= 0 ? "+" : ""}${pt.residual.toFixed(3)} off the Y line ` +
         `(${((pt.relativeResidual ?? 0) * 100).toFixed(1)} %) and was left out of the fit` +
-        (psat - pt.pressure < 0.05 * psat ? "; it is close to psat — check the saturation pressure." : "."),
+        (psat - pt.pressure < 0.05 * psat
+          ? "; it is close to psat — check the saturation pressure."
+          : "."),
     });
   }
   if (slope < 0) {
@@ -225,8 +249,16 @@ export function fitYFunction(input: {
       method: METHOD,
       input: "slope",
       value: slope,
-      message: "The Y line falls with pressure: unusual for a black oil — check psat and the readings.",
+      message:
+        "The Y line falls with pressure: unusual for a black oil — check psat and the readings.",
     });
   }
-  return { saturationPressure: psat, intercept, slope, points, ignored, warnings };
+  return {
+    saturationPressure: psat,
+    intercept,
+    slope,
+    points,
+    ignored,
+    warnings,
+  };
 }

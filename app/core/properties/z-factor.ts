@@ -30,7 +30,12 @@ import {
   type PropertyWarning,
   type ValidityRanges,
 } from "./estimate";
-import { pseudoCritical, reducedConditions, type PseudoCritical, type PseudoCriticalMethod } from "./pseudo-critical";
+import {
+  pseudoCritical,
+  reducedConditions,
+  type PseudoCritical,
+  type PseudoCriticalMethod,
+} from "./pseudo-critical";
 import { solveFirstRoot } from "./solve-bracketed";
 
 export interface ZFactorEstimate extends Estimate {
@@ -47,7 +52,8 @@ export const HALL_YARBOROUGH_RANGES: ValidityRanges = {
     unit: "–",
     min: 1.0,
     max: 3.0,
-    source: "not recommended below Tpr = 1 (domain brief §3.5); upper bound of the Standing–Katz chart it fits (from memory)",
+    source:
+      "not recommended below Tpr = 1 (domain brief §3.5); upper bound of the Standing–Katz chart it fits (from memory)",
   },
   ppr: {
     input: "reduced pressure",
@@ -75,18 +81,35 @@ function validateReduced(tpr: number, ppr: number): void {
   }
 }
 
-export function hallYarboroughZ(input: { readonly tpr: number; readonly ppr: number }): ZFactorEstimate {
+export function hallYarboroughZ(input: {
+  readonly tpr: number;
+  readonly ppr: number;
+}): ZFactorEstimate {
   const { tpr, ppr } = input;
   validateReduced(tpr, ppr);
-  const warnings = rangeWarnings("hall-yarborough-1973-z-factor", HALL_YARBOROUGH_RANGES, { tpr, ppr });
-  if (ppr < IDEAL_GAS_PPR) return { value: 1, warnings, reducedDensity: 0, residual: 0, iterations: 0 };
+  const warnings = rangeWarnings(
+    "hall-yarborough-1973-z-factor",
+    HALL_YARBOROUGH_RANGES,
+    { tpr, ppr },
+  );
+  if (ppr < IDEAL_GAS_PPR)
+    return {
+      value: 1,
+      warnings,
+      reducedDensity: 0,
+      residual: 0,
+      iterations: 0,
+    };
   const t = 1 / tpr;
   const a = 0.06125 * t * Math.exp(-1.2 * (1 - t) ** 2);
   const b = t * (14.76 - 9.76 * t + 4.58 * t * t);
   const c = t * (90.7 - 242.2 * t + 42.4 * t * t);
   const d = 2.18 + 2.82 * t;
   const f = (y: number): number =>
-    -a * ppr + (y + y * y + y ** 3 - y ** 4) / (1 - y) ** 3 - b * y * y + c * y ** d;
+    -a * ppr +
+    (y + y * y + y ** 3 - y ** 4) / (1 - y) ** 3 -
+    b * y * y +
+    c * y ** d;
   const root = solveFirstRoot(f, 0, 1 - 1e-9, 400);
   return {
     value: (a * ppr) / root.root,
@@ -97,7 +120,10 @@ export function hallYarboroughZ(input: { readonly tpr: number; readonly ppr: num
   };
 }
 
-const DAK = [0.3265, -1.07, -0.5339, 0.01569, -0.05165, 0.5475, -0.7361, 0.1844, 0.1056, 0.6134, 0.721] as const;
+const DAK = [
+  0.3265, -1.07, -0.5339, 0.01569, -0.05165, 0.5475, -0.7361, 0.1844, 0.1056,
+  0.6134, 0.721,
+] as const;
 
 function dakWarnings(tpr: number, ppr: number): PropertyWarning[] {
   const inMain = tpr > 1.0 && tpr <= 3.0 && ppr >= 0.2 && ppr < 30;
@@ -116,25 +142,44 @@ function dakWarnings(tpr: number, ppr: number): PropertyWarning[] {
   ];
 }
 
-export function dranchukAbouKassemZ(input: { readonly tpr: number; readonly ppr: number }): ZFactorEstimate {
+export function dranchukAbouKassemZ(input: {
+  readonly tpr: number;
+  readonly ppr: number;
+}): ZFactorEstimate {
   const { tpr, ppr } = input;
   validateReduced(tpr, ppr);
   const warnings = dakWarnings(tpr, ppr);
-  if (ppr < IDEAL_GAS_PPR) return { value: 1, warnings, reducedDensity: 0, residual: 0, iterations: 0 };
+  if (ppr < IDEAL_GAS_PPR)
+    return {
+      value: 1,
+      warnings,
+      reducedDensity: 0,
+      residual: 0,
+      iterations: 0,
+    };
   const [a1, a2, a3, a4, a5, a6, a7, a8, a9, a10, a11] = DAK;
   const c1 = a1 + a2 / tpr + a3 / tpr ** 3 + a4 / tpr ** 4 + a5 / tpr ** 5;
   const c2 = a6 + a7 / tpr + a8 / tpr ** 2;
   const c3 = a9 * (a7 / tpr + a8 / tpr ** 2);
   const c4 = a10 / tpr ** 3;
   const zOf = (r: number): number =>
-    1 + c1 * r + c2 * r * r - c3 * r ** 5 + c4 * (1 + a11 * r * r) * r * r * Math.exp(-a11 * r * r);
+    1 +
+    c1 * r +
+    c2 * r * r -
+    c3 * r ** 5 +
+    c4 * (1 + a11 * r * r) * r * r * Math.exp(-a11 * r * r);
   const target = (0.27 * ppr) / tpr;
   const g = (r: number): number => r * zOf(r) - target;
   let upper = 1;
   while (g(upper) <= 0) {
     upper *= 2;
     if (upper > 1e6) {
-      throw new PropertyInputError("OUT_OF_DOMAIN", "ppr", ppr, `No Dranchuk–Abou-Kassem root found for ppr = ${ppr}.`);
+      throw new PropertyInputError(
+        "OUT_OF_DOMAIN",
+        "ppr",
+        ppr,
+        `No Dranchuk–Abou-Kassem root found for ppr = ${ppr}.`,
+      );
     }
   }
   const root = solveFirstRoot(g, 0, upper, 400);
@@ -159,10 +204,29 @@ export function gasZFactor(input: {
   readonly gasGravity: number;
   readonly method?: ZFactorMethod;
   readonly pseudoCritical?: PseudoCriticalMethod;
-}): ZFactorEstimate & { readonly pseudoCritical: PseudoCritical; readonly tpr: number; readonly ppr: number } {
-  const critical = pseudoCritical(input.gasGravity, input.pseudoCritical ?? "sutton");
-  const { tpr, ppr } = reducedConditions(input.pressure, input.temperature, critical.value);
+}): ZFactorEstimate & {
+  readonly pseudoCritical: PseudoCritical;
+  readonly tpr: number;
+  readonly ppr: number;
+} {
+  const critical = pseudoCritical(
+    input.gasGravity,
+    input.pseudoCritical ?? "sutton",
+  );
+  const { tpr, ppr } = reducedConditions(
+    input.pressure,
+    input.temperature,
+    critical.value,
+  );
   const z =
-    (input.method ?? "dranchuk_abou_kassem") === "hall_yarborough" ? hallYarboroughZ({ tpr, ppr }) : dranchukAbouKassemZ({ tpr, ppr });
-  return { ...z, warnings: mergeWarnings(critical.warnings, z.warnings), pseudoCritical: critical.value, tpr, ppr };
+    (input.method ?? "dranchuk_abou_kassem") === "hall_yarborough"
+      ? hallYarboroughZ({ tpr, ppr })
+      : dranchukAbouKassemZ({ tpr, ppr });
+  return {
+    ...z,
+    warnings: mergeWarnings(critical.warnings, z.warnings),
+    pseudoCritical: critical.value,
+    tpr,
+    ppr,
+  };
 }

@@ -21,7 +21,12 @@ import {
   type UsedMethod,
 } from "../lookup";
 import type { PropertyKey } from "../units";
-import { COLUMN_INFO, OIL_COLUMNS, TABLE_COLUMNS, type TableColumnKey } from "./columns";
+import {
+  COLUMN_INFO,
+  OIL_COLUMNS,
+  TABLE_COLUMNS,
+  type TableColumnKey,
+} from "./columns";
 import { TableError } from "./errors";
 import { enforceDecreasing, enforceIncreasing, makePositive } from "./order";
 import { MAX_TABLE_ROWS } from "./pressure-spec";
@@ -74,20 +79,35 @@ export type TableRule =
   | "bo-decreasing-above-pb"
   | "bg-decreasing";
 
-export const TABLE_RULE_TEXT: Readonly<Record<TableRule, string>> = Object.freeze({
-  positive: "this property must be positive; the value was replaced by interpolating between the nearest positive values in pressure",
-  "rs-non-negative": "Rs cannot be negative; the value was set to 0",
-  "rs-equals-rsb": "at and above the bubble point no more gas dissolves, so Rs equals its bubble-point value Rsb",
-  "rs-increasing-below-pb": "below the bubble point Rs must rise with pressure, up to Rsb at the bubble point",
-  "bo-increasing-below-pb": "below the bubble point Bo must rise with pressure, up to its maximum at the bubble point",
-  "bo-decreasing-above-pb": "above the bubble point Bo must fall with pressure (the oil's compressibility is positive)",
-  "bg-decreasing": "Bg must fall with pressure",
-});
+export const TABLE_RULE_TEXT: Readonly<Record<TableRule, string>> =
+  Object.freeze({
+    positive:
+      "this property must be positive; the value was replaced by interpolating between the nearest positive values in pressure",
+    "rs-non-negative": "Rs cannot be negative; the value was set to 0",
+    "rs-equals-rsb":
+      "at and above the bubble point no more gas dissolves, so Rs equals its bubble-point value Rsb",
+    "rs-increasing-below-pb":
+      "below the bubble point Rs must rise with pressure, up to Rsb at the bubble point",
+    "bo-increasing-below-pb":
+      "below the bubble point Bo must rise with pressure, up to its maximum at the bubble point",
+    "bo-decreasing-above-pb":
+      "above the bubble point Bo must fall with pressure (the oil's compressibility is positive)",
+    "bg-decreasing": "Bg must fall with pressure",
+  });
 
-const ORDER_RULES: readonly TableRule[] = ["rs-increasing-below-pb", "bo-increasing-below-pb", "bo-decreasing-above-pb", "bg-decreasing"];
+const ORDER_RULES: readonly TableRule[] = [
+  "rs-increasing-below-pb",
+  "bo-increasing-below-pb",
+  "bo-decreasing-above-pb",
+  "bg-decreasing",
+];
 
 /** Plain words for one correction; `where` names the row, e.g. "3000 psia". */
-export function correctionReason(column: TableColumnKey, where: string, rules: readonly TableRule[]): string {
+export function correctionReason(
+  column: TableColumnKey,
+  where: string,
+  rules: readonly TableRule[],
+): string {
   const why = rules.map((r) => TABLE_RULE_TEXT[r]).join("; ");
   const how = rules.some((r) => ORDER_RULES.includes(r))
     ? " The nearest values in the required order were used (least squares), with a small slope where that left equal values."
@@ -145,13 +165,23 @@ function fmt(x: number): string {
   return String(Number(x.toPrecision(6)));
 }
 
-function toTableError(error: unknown, column: TableColumnKey, units: LookupUnits, rowsP: readonly number[]): unknown {
+function toTableError(
+  error: unknown,
+  column: TableColumnKey,
+  units: LookupUnits,
+  rowsP: readonly number[],
+): unknown {
   const mapped = toLookupError(error, column, unitContext(column, units));
   if (!isLookupError(mapped)) return mapped;
   const name = COLUMN_INFO[column].name;
   const d = mapped.details;
   const row = typeof d.pointIndex === "number" ? d.pointIndex : undefined;
-  const details = { ...d, column, row, pressurePsia: row === undefined ? undefined : rowsP[row] };
+  const details = {
+    ...d,
+    column,
+    row,
+    pressurePsia: row === undefined ? undefined : rowsP[row],
+  };
   switch (mapped.code) {
     case "OUT_OF_RANGE":
       return new TableError(
@@ -161,47 +191,88 @@ function toTableError(error: unknown, column: TableColumnKey, units: LookupUnits
         mapped,
       );
     case "NO_VALID_ZONE":
-      return new TableError("NO_VALID_ZONE", `${name}: ${mapped.message}`, details, mapped);
+      return new TableError(
+        "NO_VALID_ZONE",
+        `${name}: ${mapped.message}`,
+        details,
+        mapped,
+      );
     case "INVALID_OPTIONS":
       return new TableError("INVALID_OPTIONS", mapped.message, details, mapped);
     default:
-      return new TableError("INVALID_GRID", `${name}: ${mapped.message}`, details, mapped);
+      return new TableError(
+        "INVALID_GRID",
+        `${name}: ${mapped.message}`,
+        details,
+        mapped,
+      );
   }
 }
 
 function checkInput(input: BlackOilTableInput): void {
   if (typeof input !== "object" || input === null) {
-    throw new TableError("INVALID_OPTIONS", "Table input is required: { grids, temperature, pressures, method }.");
+    throw new TableError(
+      "INVALID_OPTIONS",
+      "Table input is required: { grids, temperature, pressures, method }.",
+    );
   }
   if (typeof input.grids !== "object" || input.grids === null) {
-    throw new TableError("INVALID_OPTIONS", "grids must be an object of property grids, e.g. { oil_fvf, solution_gor, oil_viscosity }.");
+    throw new TableError(
+      "INVALID_OPTIONS",
+      "grids must be an object of property grids, e.g. { oil_fvf, solution_gor, oil_viscosity }.",
+    );
   }
   const t: unknown = input.temperature;
   if (typeof t !== "number" || !Number.isFinite(t) || t <= ABSOLUTE_ZERO_F) {
-    throw new TableError("INVALID_OPTIONS", `The temperature is ${String(t)} °F; a finite temperature above absolute zero is needed.`, {
-      field: "temperature",
-    });
+    throw new TableError(
+      "INVALID_OPTIONS",
+      `The temperature is ${String(t)} °F; a finite temperature above absolute zero is needed.`,
+      {
+        field: "temperature",
+      },
+    );
   }
   const ps: unknown = input.pressures;
   if (!Array.isArray(ps) || ps.length === 0) {
-    throw new TableError("MALFORMED_PRESSURES", "At least one pressure is needed.", { field: "pressures" });
+    throw new TableError(
+      "MALFORMED_PRESSURES",
+      "At least one pressure is needed.",
+      { field: "pressures" },
+    );
   }
   if (ps.length > MAX_TABLE_ROWS) {
-    throw new TableError("TOO_MANY_ROWS", `${ps.length} pressures were asked for; a table has at most ${MAX_TABLE_ROWS} rows.`, {
-      count: ps.length,
-      max: MAX_TABLE_ROWS,
-    });
+    throw new TableError(
+      "TOO_MANY_ROWS",
+      `${ps.length} pressures were asked for; a table has at most ${MAX_TABLE_ROWS} rows.`,
+      {
+        count: ps.length,
+        max: MAX_TABLE_ROWS,
+      },
+    );
   }
   for (let i = 0; i < ps.length; i++) {
     const p: unknown = ps[i];
     if (typeof p !== "number" || !Number.isFinite(p)) {
-      throw new TableError("NOT_FINITE", `Pressure ${i + 1} is ${String(p)}; pressures must be finite numbers.`, { index: i });
+      throw new TableError(
+        "NOT_FINITE",
+        `Pressure ${i + 1} is ${String(p)}; pressures must be finite numbers.`,
+        { index: i },
+      );
     }
-    if (!(p > 0)) throw new TableError("NOT_POSITIVE", `Pressure ${i + 1} is ${p} psia; pressures are absolute and must be above zero.`, { index: i });
+    if (!(p > 0))
+      throw new TableError(
+        "NOT_POSITIVE",
+        `Pressure ${i + 1} is ${p} psia; pressures are absolute and must be above zero.`,
+        { index: i },
+      );
     if (i > 0 && !(p > (ps[i - 1] as number))) {
-      throw new TableError("NOT_INCREASING", `Pressures must be strictly increasing, but pressure ${i + 1} (${p} psia) follows ${String(ps[i - 1])} psia.`, {
-        index: i,
-      });
+      throw new TableError(
+        "NOT_INCREASING",
+        `Pressures must be strictly increasing, but pressure ${i + 1} (${p} psia) follows ${String(ps[i - 1])} psia.`,
+        {
+          index: i,
+        },
+      );
     }
   }
 }
@@ -218,7 +289,13 @@ type Work = {
 };
 
 /** Applies fn to a copy of the slice [from, to) and records `rule` on every value it changed. */
-function apply(w: Work, from: number, to: number, rule: TableRule, fn: (y: number[]) => void): void {
+function apply(
+  w: Work,
+  from: number,
+  to: number,
+  rule: TableRule,
+  fn: (y: number[]) => void,
+): void {
   if (to <= from) return;
   const y = w.values.slice(from, to);
   fn(y);
@@ -250,7 +327,8 @@ function positive(w: Work, x: readonly number[], column: TableColumnKey): void {
  */
 export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   checkInput(input);
-  const units: LookupUnits = input.messageUnits === "metric" ? "metric" : "field";
+  const units: LookupUnits =
+    input.messageUnits === "metric" ? "metric" : "field";
   let opts;
   try {
     opts = normalizeLookupOptions({
@@ -261,10 +339,19 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
       units: "field",
     });
   } catch (error) {
-    throw isLookupError(error) ? new TableError("INVALID_OPTIONS", error.message, { ...error.details }, error) : error;
+    throw isLookupError(error)
+      ? new TableError(
+          "INVALID_OPTIONS",
+          error.message,
+          { ...error.details },
+          error,
+        )
+      : error;
   }
   const grids = input.grids;
-  const columns = TABLE_COLUMNS.filter((k) => grids[k] !== undefined && grids[k] !== null);
+  const columns = TABLE_COLUMNS.filter(
+    (k) => grids[k] !== undefined && grids[k] !== null,
+  );
   if (columns.length === 0) {
     throw new TableError(
       "NO_GRIDS",
@@ -272,7 +359,8 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     );
   }
   const temperature = input.temperature;
-  const engineMethod: UsedMethod = opts.method === "auto" ? "newton" : opts.method;
+  const engineMethod: UsedMethod =
+    opts.method === "auto" ? "newton" : opts.method;
   const notes: TableNote[] = [];
 
   // the bubble point at this temperature, from the oil grids
@@ -282,7 +370,12 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     if (!OIL_COLUMNS.includes(key)) continue;
     let v: Float64Array | null;
     try {
-      v = bubblePointsAt(grids[key]!, Float64Array.of(temperature), engineMethod, opts.degree[1]);
+      v = bubblePointsAt(
+        grids[key]!,
+        Float64Array.of(temperature),
+        engineMethod,
+        opts.degree[1],
+      );
     } catch (error) {
       throw toTableError(error, key, units, []);
     }
@@ -341,7 +434,9 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     }
   }
   let n = rowsP.length;
-  let branches: (Branch | null)[] = rowsP.map((p) => (pb === null ? null : p <= pb ? "saturated" : "undersaturated"));
+  let branches: (Branch | null)[] = rowsP.map((p) =>
+    pb === null ? null : p <= pb ? "saturated" : "undersaturated",
+  );
   // last saturated row
   let k = -1;
   for (let i = 0; i < n; i++) if (branches[i] === "saturated") k = i;
@@ -349,11 +444,24 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   // interpolate every column on every row
   const ps = Float64Array.from(rowsP);
   const ts = new Float64Array(n).fill(temperature);
-  const raw = new Map<TableColumnKey, { values: number[]; errors: Float64Array; flags: Uint16Array; methods: Uint8Array }>();
+  const raw = new Map<
+    TableColumnKey,
+    {
+      values: number[];
+      errors: Float64Array;
+      flags: Uint16Array;
+      methods: Uint8Array;
+    }
+  >();
   for (const key of columns) {
     try {
       const r = lookupCanonical(grids[key]!, ps, ts, opts);
-      raw.set(key, { values: Array.from(r.values), errors: r.errorEstimates, flags: r.flags, methods: r.methods });
+      raw.set(key, {
+        values: Array.from(r.values),
+        errors: r.errorEstimates,
+        flags: r.flags,
+        methods: r.methods,
+      });
     } catch (error) {
       throw toTableError(error, key, units, rowsP);
     }
@@ -365,7 +473,9 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   const bad = new Set<number>();
   for (const key of columns) {
     const r = raw.get(key)!;
-    for (let i = 0; i < n; i++) if (!Number.isFinite(r.values[i]!) || !Number.isFinite(r.errors[i]!)) bad.add(i);
+    for (let i = 0; i < n; i++)
+      if (!Number.isFinite(r.values[i]!) || !Number.isFinite(r.errors[i]!))
+        bad.add(i);
   }
   if (bad.size === n) {
     throw new TableError(
@@ -377,14 +487,26 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   if (bad.size > 0) {
     const keep = (_: unknown, i: number) => !bad.has(i);
     const omitted = [...bad].sort((a, b) => a - b).map((i) => rowsP[i]!);
-    const shown = omitted.slice(0, 10).map((p) => fmt(p)).join(", ");
+    const shown = omitted
+      .slice(0, 10)
+      .map((p) => fmt(p))
+      .join(", ");
     notes.push({
       code: "rows-not-computable",
       message: `${bad.size} row${bad.size === 1 ? "" : "s"} (at ${shown}${omitted.length > 10 ? ", …" : ""} psia) cannot be computed: interpolation does not give a finite value there (too far outside the measured data), so ${bad.size === 1 ? "it is" : "they are"} left out of the table.`,
     });
-    for (const [key, r] of raw) raw.set(key, { values: r.values.filter(keep), errors: r.errors.filter(keep), flags: r.flags.filter(keep), methods: r.methods.filter(keep) });
+    for (const [key, r] of raw)
+      raw.set(key, {
+        values: r.values.filter(keep),
+        errors: r.errors.filter(keep),
+        flags: r.flags.filter(keep),
+        methods: r.methods.filter(keep),
+      });
     const pbIndex = pbRow;
-    pbRow = pbIndex >= 0 && !bad.has(pbIndex) ? pbIndex - [...bad].filter((b) => b < pbIndex).length : -1;
+    pbRow =
+      pbIndex >= 0 && !bad.has(pbIndex)
+        ? pbIndex - [...bad].filter((b) => b < pbIndex).length
+        : -1;
     rowsP = rowsP.filter(keep);
     requested = requested.filter(keep);
     branches = branches.filter(keep);
@@ -395,7 +517,11 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
 
   // the order simulators need
   const work = new Map<TableColumnKey, Work>();
-  for (const key of columns) work.set(key, { values: raw.get(key)!.values.slice(), rules: new Array(n) });
+  for (const key of columns)
+    work.set(key, {
+      values: raw.get(key)!.values.slice(),
+      rules: new Array(n),
+    });
   let rsb: number | null = null;
   const rs = work.get("solution_gor");
   if (rs) {
@@ -412,7 +538,9 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
       }
     }
     apply(rs, 0, k + 1, "rs-increasing-below-pb", (y) =>
-      enforceIncreasing(rowsP.slice(0, k + 1), y, { anchor: pbRow === k && k >= 0 ? k : null }),
+      enforceIncreasing(rowsP.slice(0, k + 1), y, {
+        anchor: pbRow === k && k >= 0 ? k : null,
+      }),
     );
     // a run that started at 0 may dip a hair below it: no gas dissolved is Rs = 0, repeated if need be
     apply(rs, 0, k + 1, "rs-non-negative", (y) => {
@@ -423,17 +551,25 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   if (bo) {
     positive(bo, rowsP, "oil_fvf");
     apply(bo, 0, k + 1, "bo-increasing-below-pb", (y) =>
-      enforceIncreasing(rowsP.slice(0, k + 1), y, { anchor: pbRow === k && k >= 0 ? k : null, lower: 0 }),
+      enforceIncreasing(rowsP.slice(0, k + 1), y, {
+        anchor: pbRow === k && k >= 0 ? k : null,
+        lower: 0,
+      }),
     );
     const from = pbRow >= 0 ? pbRow : k + 1;
     apply(bo, from, n, "bo-decreasing-above-pb", (y) =>
-      enforceDecreasing(rowsP.slice(from), y, { anchor: pbRow >= 0 ? 0 : null, lower: 0 }),
+      enforceDecreasing(rowsP.slice(from), y, {
+        anchor: pbRow >= 0 ? 0 : null,
+        lower: 0,
+      }),
     );
   }
   const bg = work.get("gas_fvf");
   if (bg) {
     positive(bg, rowsP, "gas_fvf");
-    apply(bg, 0, n, "bg-decreasing", (y) => enforceDecreasing(rowsP, y, { anchor: null, lower: 0 }));
+    apply(bg, 0, n, "bg-decreasing", (y) =>
+      enforceDecreasing(rowsP, y, { anchor: null, lower: 0 }),
+    );
   }
   for (const key of ["oil_viscosity", "gas_viscosity", "z_factor"] as const) {
     const w = work.get(key);
@@ -485,7 +621,11 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
       }
     }
   }
-  corrections.sort((a, b) => a.row - b.row || TABLE_COLUMNS.indexOf(a.column) - TABLE_COLUMNS.indexOf(b.column));
+  corrections.sort(
+    (a, b) =>
+      a.row - b.row ||
+      TABLE_COLUMNS.indexOf(a.column) - TABLE_COLUMNS.indexOf(b.column),
+  );
   if (extrapolated > 0) {
     notes.push({
       code: "extrapolated-values",
@@ -500,7 +640,10 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   }
   if (corrections.length > 0) {
     const per = columns
-      .map((key) => [key, corrections.filter((c) => c.column === key).length] as const)
+      .map(
+        (key) =>
+          [key, corrections.filter((c) => c.column === key).length] as const,
+      )
       .filter(([, c]) => c > 0)
       .map(([key, c]) => `${COLUMN_INFO[key].name} ${c}`)
       .join(", ");

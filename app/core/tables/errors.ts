@@ -40,7 +40,12 @@ export class TableError extends Error {
   readonly code: TableErrorCode;
   readonly details: Readonly<Record<string, unknown>>;
 
-  constructor(code: TableErrorCode, message: string, details: Record<string, unknown> = {}, cause?: unknown) {
+  constructor(
+    code: TableErrorCode,
+    message: string,
+    details: Record<string, unknown> = {},
+    cause?: unknown,
+  ) {
     super(message, cause === undefined ? undefined : { cause });
     this.name = "TableError";
     this.code = code;

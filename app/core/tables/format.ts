@@ -69,7 +69,9 @@ export function roundTo(x: number, digits: number): number {
   if (x === 0 || !Number.isFinite(x)) return x === 0 ? 0 : x;
   const k = digits - 1 - Math.floor(Math.log10(Math.abs(x)));
   if (k > 22 || k < -22) return Number(x.toPrecision(digits));
-  return k >= 0 ? Math.round(x * POW10[k]!) / POW10[k]! : Math.round(x / POW10[-k]!) * POW10[-k]!;
+  return k >= 0
+    ? Math.round(x * POW10[k]!) / POW10[k]!
+    : Math.round(x / POW10[-k]!) * POW10[-k]!;
 }
 
 /** The fewest digits (≥ BASE_DIGITS) that keep every pair of different neighbours different. */
@@ -77,7 +79,11 @@ function digitsFor(values: readonly number[]): number {
   for (let d = BASE_DIGITS; d < MAX_DIGITS; d++) {
     let ok = true;
     for (let i = 1; i < values.length && ok; i++) {
-      if (values[i] !== values[i - 1] && roundTo(values[i]!, d) === roundTo(values[i - 1]!, d)) ok = false;
+      if (
+        values[i] !== values[i - 1] &&
+        roundTo(values[i]!, d) === roundTo(values[i - 1]!, d)
+      )
+        ok = false;
     }
     if (ok) return d;
   }
@@ -127,26 +133,55 @@ function oneLine(text: string): string {
   return text.replace(/[\r\n]+/g, " ").trim();
 }
 
-function checkOptions(options: TableFormatOptions): { generatedAt: string; sample: string } {
+function checkOptions(options: TableFormatOptions): {
+  generatedAt: string;
+  sample: string;
+} {
   if (typeof options !== "object" || options === null) {
-    throw new TableError("INVALID_OPTIONS", "Format options are required: { units, sampleLabel, revision, generatedAt }.");
+    throw new TableError(
+      "INVALID_OPTIONS",
+      "Format options are required: { units, sampleLabel, revision, generatedAt }.",
+    );
   }
   if (!(LOOKUP_UNITS as readonly string[]).includes(options.units)) {
-    throw new TableError("INVALID_OPTIONS", `units must be 'field' or 'metric'; got ${String(options.units)}.`, { field: "units" });
+    throw new TableError(
+      "INVALID_OPTIONS",
+      `units must be 'field' or 'metric'; got ${String(options.units)}.`,
+      { field: "units" },
+    );
   }
-  if (typeof options.revision !== "number" || !Number.isFinite(options.revision)) {
-    throw new TableError("INVALID_OPTIONS", `revision must be a number; got ${String(options.revision)}.`, { field: "revision" });
+  if (
+    typeof options.revision !== "number" ||
+    !Number.isFinite(options.revision)
+  ) {
+    throw new TableError(
+      "INVALID_OPTIONS",
+      `revision must be a number; got ${String(options.revision)}.`,
+      { field: "revision" },
+    );
   }
   const g = options.generatedAt;
-  const date = g instanceof Date ? g : typeof g === "string" ? new Date(g) : null;
+  const date =
+    g instanceof Date ? g : typeof g === "string" ? new Date(g) : null;
   if (!date || Number.isNaN(date.getTime())) {
-    throw new TableError("INVALID_OPTIONS", `generatedAt must be a date or an ISO 8601 time; got ${String(g)}.`, { field: "generatedAt" });
+    throw new TableError(
+      "INVALID_OPTIONS",
+      `generatedAt must be a date or an ISO 8601 time; got ${String(g)}.`,
+      { field: "generatedAt" },
+    );
   }
-  return { generatedAt: date.toISOString(), sample: oneLine(String(options.sampleLabel ?? "")) };
+  return {
+    generatedAt: date.toISOString(),
+    sample: oneLine(String(options.sampleLabel ?? "")),
+  };
 }
 
 /** Canonical → output for one quantity, with the change of standard conditions for gas volumes. */
-function outputOf(quantity: Quantity, system: UnitSystem, base: StandardConditions): { a: Affine; factor: number } {
+function outputOf(
+  quantity: Quantity,
+  system: UnitSystem,
+  base: StandardConditions,
+): { a: Affine; factor: number } {
   let factor = 1;
   if (base !== system.standardConditions) {
     const f = gasVolumeRebaseFactor(system.standardConditions, base);
@@ -166,23 +201,40 @@ function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
   const n = table.rows.length;
 
   const pressures = new Array<number>(n);
-  for (let i = 0; i < n; i++) pressures[i] = fromCanonicalWith(pOut, table.rows[i]!.pressure);
+  for (let i = 0; i < n; i++)
+    pressures[i] = fromCanonicalWith(pOut, table.rows[i]!.pressure);
   const pDigits = digitsFor(pressures);
   const pUnit = asciiUnit(system.units.pressure);
   const columns: OutColumn[] = [
-    { key: "pressure", name: "pressure", word: "pressure", unit: pUnit, digits: pDigits, values: pressures.map((p) => roundTo(p, pDigits)) },
+    {
+      key: "pressure",
+      name: "pressure",
+      word: "pressure",
+      unit: pUnit,
+      digits: pDigits,
+      values: pressures.map((p) => roundTo(p, pDigits)),
+    },
   ];
   const conversions = new Map<TableColumnKey, Conversion>();
   for (const key of table.columns) {
     const quantity = PROPERTY_QUANTITIES[key];
     const { a, factor } = outputOf(quantity, system, base);
     const values = new Array<number>(n);
-    for (let i = 0; i < n; i++) values[i] = fromCanonicalWith(a, table.rows[i]!.cells[key]!.value) * factor;
+    for (let i = 0; i < n; i++)
+      values[i] =
+        fromCanonicalWith(a, table.rows[i]!.cells[key]!.value) * factor;
     const digits = digitsFor(values);
     for (let i = 0; i < n; i++) values[i] = roundTo(values[i]!, digits);
     conversions.set(key, { a, factor, digits });
     const info = COLUMN_INFO[key];
-    columns.push({ key, name: info.name, word: info.word, unit: asciiUnit(system.units[quantity]), digits, values });
+    columns.push({
+      key,
+      name: info.name,
+      word: info.word,
+      unit: asciiUnit(system.units[quantity]),
+      digits,
+      values,
+    });
   }
   const pbRow = table.rows.findIndex((r) => r.bubblePoint);
   const scP = roundTo(fromCanonicalWith(pOut, base.pressurePsia), 6);
@@ -195,19 +247,32 @@ function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
     revision: options.revision,
     generatedAt,
     units: options.units,
-    temperature: roundTo(fromCanonicalWith(tOut, table.temperature), BASE_DIGITS),
+    temperature: roundTo(
+      fromCanonicalWith(tOut, table.temperature),
+      BASE_DIGITS,
+    ),
     temperatureUnit: tUnit,
     bubblePointPressure:
       table.bubblePointPressure === null
         ? null
         : pbRow >= 0
           ? columns[0]!.values[pbRow]!
-          : roundTo(fromCanonicalWith(pOut, table.bubblePointPressure), pDigits),
+          : roundTo(
+              fromCanonicalWith(pOut, table.bubblePointPressure),
+              pDigits,
+            ),
     solutionGorAtBubblePoint:
       table.solutionGorAtBubblePoint === null || !rs
         ? null
-        : roundTo(fromCanonicalWith(rs.a, table.solutionGorAtBubblePoint) * rs.factor, rs.digits),
-    standardConditions: { label: `${scT} ${tUnit}, ${scP} ${pUnit}`, pressure: scP, temperature: scT },
+        : roundTo(
+            fromCanonicalWith(rs.a, table.solutionGorAtBubblePoint) * rs.factor,
+            rs.digits,
+          ),
+    standardConditions: {
+      label: `${scT} ${tUnit}, ${scP} ${pUnit}`,
+      pressure: scP,
+      temperature: scT,
+    },
     columns,
     conversions,
   };
@@ -258,10 +323,18 @@ export type BlackOilTableJson = {
   sample: string;
   revision: number;
   generatedAt: string;
-  method: { name: LookupMethod; degree: [number, number] | null; description: string };
+  method: {
+    name: LookupMethod;
+    degree: [number, number] | null;
+    description: string;
+  };
   extrapolate: boolean;
   /** Unit ids of every column, plus the temperature. */
-  units: { system: LookupUnits; pressure: string; temperature: string } & Partial<Record<TableColumnKey, string>>;
+  units: {
+    system: LookupUnits;
+    pressure: string;
+    temperature: string;
+  } & Partial<Record<TableColumnKey, string>>;
   standardConditions: { label: string; pressure: number; temperature: number };
   temperature: number;
   bubblePointPressure: number | null;
@@ -274,9 +347,16 @@ export type BlackOilTableJson = {
 };
 
 /** The table as a plain object, ready for JSON. */
-export function formatTableJson(table: BlackOilTable, options: TableFormatOptions): BlackOilTableJson {
+export function formatTableJson(
+  table: BlackOilTable,
+  options: TableFormatOptions,
+): BlackOilTableJson {
   const t = prepare(table, options);
-  const units: BlackOilTableJson["units"] = { system: t.units, pressure: t.columns[0]!.unit, temperature: t.temperatureUnit };
+  const units: BlackOilTableJson["units"] = {
+    system: t.units,
+    pressure: t.columns[0]!.unit,
+    temperature: t.temperatureUnit,
+  };
   for (const c of t.columns) if (c.key !== "pressure") units[c.key] = c.unit;
   const props = t.columns.slice(1) as (OutColumn & { key: TableColumnKey })[];
   const rows: BlackOilTableJsonRow[] = table.rows.map((r, i) => {
@@ -303,7 +383,11 @@ export function formatTableJson(table: BlackOilTable, options: TableFormatOption
     sample: t.sample,
     revision: t.revision,
     generatedAt: t.generatedAt,
-    method: { name: table.method, degree: table.degree, description: table.methodDescription },
+    method: {
+      name: table.method,
+      degree: table.degree,
+      description: table.methodDescription,
+    },
     extrapolate: table.extrapolate,
     units,
     standardConditions: t.standardConditions,
@@ -323,12 +407,18 @@ function csvField(text: string): string {
   return csvCell(text);
 }
 
-function rowNote(r: BlackOilTable["rows"][number], columns: readonly TableColumnKey[]): string {
+function rowNote(
+  r: BlackOilTable["rows"][number],
+  columns: readonly TableColumnKey[],
+): string {
   const corrected = columns.filter((k) => r.cells[k]!.corrected);
   if (!r.bubblePoint && corrected.length === 0) return "";
   const parts: string[] = [];
   if (r.bubblePoint) parts.push("bubble point");
-  if (corrected.length > 0) parts.push(`corrected: ${corrected.map((k) => COLUMN_INFO[k].name).join(" and ")}`);
+  if (corrected.length > 0)
+    parts.push(
+      `corrected: ${corrected.map((k) => COLUMN_INFO[k].name).join(" and ")}`,
+    );
   return parts.join("; ");
 }
 
@@ -337,16 +427,26 @@ function rowNote(r: BlackOilTable["rows"][number], columns: readonly TableColumn
  * row per pressure. Columns: pressure, the property columns present, branch, note ("bubble point",
  * "corrected: Bo").
  */
-export function formatTableCsv(table: BlackOilTable, options: TableFormatOptions): string {
+export function formatTableCsv(
+  table: BlackOilTable,
+  options: TableFormatOptions,
+): string {
   const t = prepare(table, options);
-  const header = [...t.columns.map((c) => `${c.name} (${c.unit})`), "branch", "note"];
+  const header = [
+    ...t.columns.map((c) => `${c.name} (${c.unit})`),
+    "branch",
+    "note",
+  ];
   const lines = [header.map(csvField).join(",")];
   const cols = t.columns.map((c) => c.values);
   for (let i = 0; i < table.rows.length; i++) {
     const r = table.rows[i]!;
     let line = "";
-    for (let j = 0; j < cols.length; j++) line += `${j === 0 ? "" : ","}${csvCell(cols[j]![i]!)}`;
-    lines.push(`${line},${csvField(r.branch ?? "")},${csvField(rowNote(r, table.columns))}`);
+    for (let j = 0; j < cols.length; j++)
+      line += `${j === 0 ? "" : ","}${csvCell(cols[j]![i]!)}`;
+    lines.push(
+      `${line},${csvField(r.branch ?? "")},${csvField(rowNote(r, table.columns))}`,
+    );
   }
   return `${lines.join("\r\n")}\r\n`;
 }
@@ -355,7 +455,10 @@ export function formatTableCsv(table: BlackOilTable, options: TableFormatOptions
 function columnStrings(values: readonly number[]): string[] {
   const plain = values.map((v) => String(v));
   if (plain.some((s) => /e/i.test(s))) return plain;
-  const decimals = Math.max(0, ...plain.map((s) => (s.includes(".") ? s.length - s.indexOf(".") - 1 : 0)));
+  const decimals = Math.max(
+    0,
+    ...plain.map((s) => (s.includes(".") ? s.length - s.indexOf(".") - 1 : 0)),
+  );
   return values.map((v) => v.toFixed(decimals));
 }
 
@@ -369,21 +472,35 @@ function range(from: number, to: number): string {
  * corrections, notes and the caution), then one line per pressure with whitespace-separated, right-aligned
  * columns in the units stated.
  */
-export function formatTableText(table: BlackOilTable, options: TableFormatOptions): string {
+export function formatTableText(
+  table: BlackOilTable,
+  options: TableFormatOptions,
+): string {
   const t = prepare(table, options);
   const pUnit = t.columns[0]!.unit;
   const out: string[] = [];
-  out.push("# Isopleth black-oil table, resampled at one temperature from measured data");
+  out.push(
+    "# Isopleth black-oil table, resampled at one temperature from measured data",
+  );
   out.push(`# sample: ${t.sample}`);
   out.push(`# revision: ${t.revision}`);
   out.push(`# temperature: ${t.temperature} ${t.temperatureUnit}`);
   if (t.bubblePointPressure !== null) {
     const rsUnit = t.columns.find((c) => c.key === "solution_gor")?.unit;
-    const rsb = t.solutionGorAtBubblePoint === null ? "" : `; Rs there ${t.solutionGorAtBubblePoint} ${rsUnit}`;
-    out.push(`# bubble point at this temperature: ${t.bubblePointPressure} ${pUnit}${rsb}`);
+    const rsb =
+      t.solutionGorAtBubblePoint === null
+        ? ""
+        : `; Rs there ${t.solutionGorAtBubblePoint} ${rsUnit}`;
+    out.push(
+      `# bubble point at this temperature: ${t.bubblePointPressure} ${pUnit}${rsb}`,
+    );
   }
-  out.push(`# method: ${table.methodDescription}${table.extrapolate ? "; extrapolation allowed" : ""}`);
-  out.push(`# units: ${t.columns.map((c) => `${c.word} ${c.unit === "-" ? "dimensionless" : c.unit}`).join("; ")}`);
+  out.push(
+    `# method: ${table.methodDescription}${table.extrapolate ? "; extrapolation allowed" : ""}`,
+  );
+  out.push(
+    `# units: ${t.columns.map((c) => `${c.word} ${c.unit === "-" ? "dimensionless" : c.unit}`).join("; ")}`,
+  );
   out.push(`# standard conditions: ${t.standardConditions.label}`);
   out.push(`# generated: ${t.generatedAt}`);
   const rows = table.rows;
@@ -392,29 +509,50 @@ export function formatTableText(table: BlackOilTable, options: TableFormatOption
   if (rows.some((r) => r.branch !== null)) {
     const pbIndex = rows.findIndex((r) => r.bubblePoint);
     const parts: string[] = [];
-    if (sat > 0) parts.push(`${range(1, sat)} saturated (at or below the bubble point${pbIndex >= 0 ? `; row ${pbIndex + 1} is the bubble point` : ""})`);
-    if (sat < n) parts.push(`${range(sat + 1, n)} undersaturated (above the bubble point)`);
+    if (sat > 0)
+      parts.push(
+        `${range(1, sat)} saturated (at or below the bubble point${pbIndex >= 0 ? `; row ${pbIndex + 1} is the bubble point` : ""})`,
+      );
+    if (sat < n)
+      parts.push(
+        `${range(sat + 1, n)} undersaturated (above the bubble point)`,
+      );
     out.push(`# ${parts.join(", ")}`);
   }
   const total = table.corrections.length;
   if (total > 0) {
-    out.push(`# corrected to keep the order simulators need: ${total} value${total === 1 ? "" : "s"}`);
+    out.push(
+      `# corrected to keep the order simulators need: ${total} value${total === 1 ? "" : "s"}`,
+    );
     const shown = outCorrections(t, 50);
     for (const c of shown) {
-      out.push(`#   row ${c.row + 1}, ${COLUMN_INFO[c.column].word}: ${c.original} -> ${c.corrected} (${c.rules.map((r) => TABLE_RULE_TEXT[r]).join("; ")})`);
+      out.push(
+        `#   row ${c.row + 1}, ${COLUMN_INFO[c.column].word}: ${c.original} -> ${c.corrected} (${c.rules.map((r) => TABLE_RULE_TEXT[r]).join("; ")})`,
+      );
     }
-    if (total > shown.length) out.push(`#   ... and ${total - shown.length} more (see the JSON form)`);
+    if (total > shown.length)
+      out.push(`#   ... and ${total - shown.length} more (see the JSON form)`);
   }
-  for (const note of table.notes) if (note.code !== "corrections") out.push(`# note: ${oneLine(note.message)}`);
+  for (const note of table.notes)
+    if (note.code !== "corrections")
+      out.push(`# note: ${oneLine(note.message)}`);
   out.push(`# caution: ${TABLE_CAUTION}`);
   out.push("#");
   const cols = t.columns.map((c) => columnStrings(c.values));
   // the header line starts with "# ": the first column is made wide enough to hold it
-  const widths = t.columns.map((c, j) => Math.max(c.word.length + (j === 0 ? 2 : 0), ...cols[j]!.map((x) => x.length)));
-  out.push(`# ${t.columns.map((c, j) => c.word.padStart(widths[j]! - (j === 0 ? 2 : 0))).join("  ")}`);
+  const widths = t.columns.map((c, j) =>
+    Math.max(
+      c.word.length + (j === 0 ? 2 : 0),
+      ...cols[j]!.map((x) => x.length),
+    ),
+  );
+  out.push(
+    `# ${t.columns.map((c, j) => c.word.padStart(widths[j]! - (j === 0 ? 2 : 0))).join("  ")}`,
+  );
   for (let i = 0; i < n; i++) {
     let line = "";
-    for (let j = 0; j < cols.length; j++) line += (j === 0 ? "" : "  ") + cols[j]![i]!.padStart(widths[j]!);
+    for (let j = 0; j < cols.length; j++)
+      line += (j === 0 ? "" : "  ") + cols[j]![i]!.padStart(widths[j]!);
     out.push(line);
   }
   return `${out.join("\n")}\n`;

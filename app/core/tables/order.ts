@@ -62,7 +62,12 @@ export function isotonicIncreasing(y: readonly number[]): number[] {
 }
 
 /** Least-squares fit with steps ≥ s·Δx and the anchor kept; values not pooled or clipped come back unchanged. */
-function solve(x: readonly number[], y: readonly number[], anchor: number | null, s: number): number[] {
+function solve(
+  x: readonly number[],
+  y: readonly number[],
+  anchor: number | null,
+  s: number,
+): number[] {
   const n = y.length;
   const z = y.map((v, i) => v - s * x[i]!);
   const out = y.slice();
@@ -84,7 +89,11 @@ function solve(x: readonly number[], y: readonly number[], anchor: number | null
 }
 
 /** Makes y strictly increasing in x, in place (see the file comment). x strictly increasing. */
-export function enforceIncreasing(x: readonly number[], y: number[], options: OrderOptions): void {
+export function enforceIncreasing(
+  x: readonly number[],
+  y: number[],
+  options: OrderOptions,
+): void {
   const n = y.length;
   if (n < 2) return;
   const lower = options.lower ?? -Infinity;
@@ -92,11 +101,17 @@ export function enforceIncreasing(x: readonly number[], y: number[], options: Or
   const span = x[n - 1]! - x[0]!;
   const plain = solve(x, y, options.anchor, 0);
   const trend = (plain[n - 1]! - plain[0]!) / span;
-  const floor = (1e-9 * Math.max(Math.abs(plain[0]!), Math.abs(plain[n - 1]!), 1e-300)) / span;
+  const floor =
+    (1e-9 * Math.max(Math.abs(plain[0]!), Math.abs(plain[n - 1]!), 1e-300)) /
+    span;
   let s = Math.max(MIN_SLOPE_FRACTION * trend, floor);
   let out = solve(x, y, options.anchor, s);
   // a bound crossed (only conceivable for values right at a bound): a smaller slope, then none
-  for (let attempt = 0; attempt < 12 && out.some((v) => !(v > lower && v < upper)); attempt++) {
+  for (
+    let attempt = 0;
+    attempt < 12 && out.some((v) => !(v > lower && v < upper));
+    attempt++
+  ) {
     s = attempt < 11 ? s / 10 : 0;
     out = solve(x, y, options.anchor, s);
   }
@@ -104,7 +119,11 @@ export function enforceIncreasing(x: readonly number[], y: number[], options: Or
 }
 
 /** Makes y strictly decreasing in x, in place; bounds as in OrderOptions. */
-export function enforceDecreasing(x: readonly number[], y: number[], options: OrderOptions): void {
+export function enforceDecreasing(
+  x: readonly number[],
+  y: number[],
+  options: OrderOptions,
+): void {
   for (let i = 0; i < y.length; i++) y[i] = -y[i]!;
   enforceIncreasing(x, y, {
     anchor: options.anchor,

@@ -3,14 +3,24 @@
 // environment.
 import { expect, test } from "vitest";
 
-const sources = import.meta.glob(["./*.ts", "!./*.test.ts"], { query: "?raw", import: "default", eager: true }) as Record<string, string>;
+const sources = import.meta.glob(["./*.ts", "!./*.test.ts"], {
+  query: "?raw",
+  import: "default",
+  eager: true,
+}) as Record<string, string>;
 
 test("table modules import only their own files, ../interpolation, ../lookup, ../units and ../csv", () => {
   expect(Object.keys(sources)).toContain("./index.ts");
   for (const [file, text] of Object.entries(sources)) {
-    for (const m of text.matchAll(/^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm)) {
-      expect(m[1], `${file} imports ${m[1]}`).toMatch(/^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/lookup|\.\.\/units|\.\.\/csv)$/);
+    for (const m of text.matchAll(
+      /^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm,
+    )) {
+      expect(m[1], `${file} imports ${m[1]}`).toMatch(
+        /^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/lookup|\.\.\/units|\.\.\/csv)$/,
+      );
     }
-    expect(text, file).not.toMatch(/process\.env|require\(|import\(|from "node:|from "react|drizzle|\.server/);
+    expect(text, file).not.toMatch(
+      /process\.env|require\(|import\(|from "node:|from "react|drizzle|\.server/,
+    );
   }
 });

@@ -17,7 +17,11 @@ export class UnitError extends Error {
   /** Extra machine-readable context, e.g. the label that failed or the candidate quantities. */
   readonly details: Readonly<Record<string, unknown>>;
 
-  constructor(code: UnitErrorCode, message: string, details: Record<string, unknown> = {}) {
+  constructor(
+    code: UnitErrorCode,
+    message: string,
+    details: Record<string, unknown> = {},
+  ) {
     super(message);
     this.name = "UnitError";
     this.code = code;

@@ -9,7 +9,11 @@ import { UnitError } from "./errors";
 
 function assertFinite(value: number, what: string): void {
   if (typeof value !== "number" || !Number.isFinite(value)) {
-    throw new UnitError("NOT_FINITE", `${what} must be a finite number, got ${String(value)}.`, { value });
+    throw new UnitError(
+      "NOT_FINITE",
+      `${what} must be a finite number, got ${String(value)}.`,
+      { value },
+    );
   }
 }
 
@@ -17,7 +21,11 @@ function assertFinite(value: number, what: string): void {
 export function apiToSpecificGravity(api: number): number {
   assertFinite(api, "API gravity");
   if (api <= -131.5) {
-    throw new UnitError("INVALID_GRAVITY", `API gravity must be above −131.5, got ${api}.`, { value: api });
+    throw new UnitError(
+      "INVALID_GRAVITY",
+      `API gravity must be above −131.5, got ${api}.`,
+      { value: api },
+    );
   }
   return 141.5 / (api + 131.5);
 }
@@ -26,9 +34,13 @@ export function apiToSpecificGravity(api: number): number {
 export function specificGravityToApi(specificGravity: number): number {
   assertFinite(specificGravity, "Specific gravity");
   if (specificGravity <= 0) {
-    throw new UnitError("INVALID_GRAVITY", `Specific gravity must be > 0, got ${specificGravity}.`, {
-      value: specificGravity,
-    });
+    throw new UnitError(
+      "INVALID_GRAVITY",
+      `Specific gravity must be > 0, got ${specificGravity}.`,
+      {
+        value: specificGravity,
+      },
+    );
   }
   return 141.5 / specificGravity - 131.5;
 }
@@ -37,7 +49,11 @@ export function specificGravityToApi(specificGravity: number): number {
 export function gasGravityToMolarMass(gasGravity: number): number {
   assertFinite(gasGravity, "Gas gravity");
   if (gasGravity <= 0) {
-    throw new UnitError("INVALID_GRAVITY", `Gas gravity must be > 0, got ${gasGravity}.`, { value: gasGravity });
+    throw new UnitError(
+      "INVALID_GRAVITY",
+      `Gas gravity must be > 0, got ${gasGravity}.`,
+      { value: gasGravity },
+    );
   }
   return gasGravity * MOLAR_MASS_AIR;
 }
@@ -46,7 +62,11 @@ export function gasGravityToMolarMass(gasGravity: number): number {
 export function molarMassToGasGravity(molarMass: number): number {
   assertFinite(molarMass, "Molar mass");
   if (molarMass <= 0) {
-    throw new UnitError("INVALID_GRAVITY", `Molar mass must be > 0, got ${molarMass}.`, { value: molarMass });
+    throw new UnitError(
+      "INVALID_GRAVITY",
+      `Molar mass must be > 0, got ${molarMass}.`,
+      { value: molarMass },
+    );
   }
   return molarMass / MOLAR_MASS_AIR;
 }

@@ -104,23 +104,37 @@ test('"psi" and "bar" alone are rejected by default and read as absolute with a 
   expect(e.code).toBe("AMBIGUOUS_UNIT");
   expect(e.message).toContain("psia");
   expect(e.message).toContain("psig");
-  expect(errorOf(() => parseUnitLabel("PSI", { quantity: "pressure" })).code).toBe("AMBIGUOUS_UNIT");
+  expect(
+    errorOf(() => parseUnitLabel("PSI", { quantity: "pressure" })).code,
+  ).toBe("AMBIGUOUS_UNIT");
   expect(errorOf(() => parseUnitLabel("bar")).message).toContain("barg");
   const lenient = parseUnitLabel("psi", { barePressure: "absolute" });
   expect(lenient.unit).toBe("psia");
   expect(lenient.warnings).toHaveLength(1);
   expect(lenient.warnings[0]).toMatch(/absolute/);
   expect(parseUnitLabel("bar", { barePressure: "absolute" }).unit).toBe("bara");
-  expect(errorOf(() => parseUnitLabel("psi", { quantity: "temperature" })).code).toBe("WRONG_QUANTITY");
+  expect(
+    errorOf(() => parseUnitLabel("psi", { quantity: "temperature" })).code,
+  ).toBe("WRONG_QUANTITY");
 });
 
 test("labels shared by several quantities need the quantity", () => {
   const e = errorOf(() => parseUnitLabel("m3/m3"));
   expect(e.code).toBe("AMBIGUOUS_UNIT");
-  expect(e.details["candidates"]).toEqual(["oil_fvf", "gas_fvf", "gas_oil_ratio"]);
-  expect(parseUnitLabel("m3/m3", { quantity: "gas_oil_ratio" }).unit).toBe("sm3/sm3");
-  expect(parseUnitLabel("rm3/sm3", { quantity: "oil_fvf" }).unit).toBe("rm3/sm3");
-  expect(parseUnitLabel("rm3/sm3", { quantity: "gas_fvf" }).unit).toBe("rm3/sm3");
+  expect(e.details["candidates"]).toEqual([
+    "oil_fvf",
+    "gas_fvf",
+    "gas_oil_ratio",
+  ]);
+  expect(parseUnitLabel("m3/m3", { quantity: "gas_oil_ratio" }).unit).toBe(
+    "sm3/sm3",
+  );
+  expect(parseUnitLabel("rm3/sm3", { quantity: "oil_fvf" }).unit).toBe(
+    "rm3/sm3",
+  );
+  expect(parseUnitLabel("rm3/sm3", { quantity: "gas_fvf" }).unit).toBe(
+    "rm3/sm3",
+  );
   expect(errorOf(() => parseUnitLabel("rm3/sm3")).code).toBe("AMBIGUOUS_UNIT");
 });
 
@@ -129,20 +143,43 @@ test("unknown, empty, wrong-quantity and millipascal labels → typed errors wit
   expect(unknown.code).toBe("UNKNOWN_UNIT");
   expect(unknown.message).toContain("furlongs/fortnight");
   expect(errorOf(() => parseUnitLabel("  ")).code).toBe("MISSING_UNIT");
-  const wrong = errorOf(() => parseUnitLabel("rb/stb", { quantity: "gas_fvf" }));
+  const wrong = errorOf(() =>
+    parseUnitLabel("rb/stb", { quantity: "gas_fvf" }),
+  );
   expect(wrong.code).toBe("WRONG_QUANTITY");
-  expect(wrong.message).toMatch(/oil .*formation volume factor.*not of gas formation volume factor/);
+  expect(wrong.message).toMatch(
+    /oil .*formation volume factor.*not of gas formation volume factor/,
+  );
   expect(errorOf(() => parseUnitLabel("mPa")).code).toBe("AMBIGUOUS_UNIT");
   expect(errorOf(() => parseUnitLabel("10^-6/bar")).code).toBe("UNKNOWN_UNIT");
-  expect(errorOf(() => parseUnitLabel("10^-6/psi", { quantity: "pressure" })).code).toBe("WRONG_QUANTITY");
+  expect(
+    errorOf(() => parseUnitLabel("10^-6/psi", { quantity: "pressure" })).code,
+  ).toBe("WRONG_QUANTITY");
 });
 
 test("column headers: name and unit split from brackets or a trailing comma", () => {
-  expect(parseHeaderUnit("Pressure (psia)")).toMatchObject({ name: "Pressure", unit: "psia", quantity: "pressure" });
-  expect(parseHeaderUnit("Pressure (psi(a))")).toMatchObject({ name: "Pressure", unit: "psia" });
-  expect(parseHeaderUnit("Bo [rb/stb]")).toMatchObject({ name: "Bo", unit: "rb/STB" });
-  expect(parseHeaderUnit("Viscosity, cp")).toMatchObject({ name: "Viscosity", unit: "cP" });
-  expect(parseHeaderUnit("Rs (m3/m3)", { quantity: "gas_oil_ratio" })).toMatchObject({ unit: "sm3/sm3" });
+  expect(parseHeaderUnit("Pressure (psia)")).toMatchObject({
+    name: "Pressure",
+    unit: "psia",
+    quantity: "pressure",
+  });
+  expect(parseHeaderUnit("Pressure (psi(a))")).toMatchObject({
+    name: "Pressure",
+    unit: "psia",
+  });
+  expect(parseHeaderUnit("Bo [rb/stb]")).toMatchObject({
+    name: "Bo",
+    unit: "rb/STB",
+  });
+  expect(parseHeaderUnit("Viscosity, cp")).toMatchObject({
+    name: "Viscosity",
+    unit: "cP",
+  });
+  expect(
+    parseHeaderUnit("Rs (m3/m3)", { quantity: "gas_oil_ratio" }),
+  ).toMatchObject({ unit: "sm3/sm3" });
   expect(errorOf(() => parseHeaderUnit("Pressure")).code).toBe("MISSING_UNIT");
-  expect(errorOf(() => parseHeaderUnit("Pressure (psi)")).code).toBe("AMBIGUOUS_UNIT");
+  expect(errorOf(() => parseHeaderUnit("Pressure (psi)")).code).toBe(
+    "AMBIGUOUS_UNIT",
+  );
 });

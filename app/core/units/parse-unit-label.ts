@@ -17,10 +17,17 @@
  *  - Anything else unknown throws UNKNOWN_UNIT; a unit of another quantity than the one asked for throws
  *    WRONG_QUANTITY.
  */
-import { getUnit, QUANTITY_LABELS, type Quantity, type UnitId } from "./catalogue";
+import {
+  getUnit,
+  QUANTITY_LABELS,
+  type Quantity,
+  type UnitId,
+} from "./catalogue";
 import { UnitError } from "./errors";
 
-type Candidate = { [Q in Quantity]: { quantity: Q; unit: UnitId<Q> } }[Quantity];
+type Candidate = {
+  [Q in Quantity]: { quantity: Q; unit: UnitId<Q> };
+}[Quantity];
 
 export type ParsedUnitLabel<Q extends Quantity = Quantity> = {
   [K in Q]: {
@@ -42,44 +49,133 @@ export interface ParseUnitOptions {
 }
 
 const ALIASES: ReadonlyArray<readonly [Candidate, readonly string[]]> = [
-  [{ quantity: "pressure", unit: "psia" }, ["psia", "psi(a)", "psi a", "psi abs", "psi absolute", "lb/in2 abs"]],
-  [{ quantity: "pressure", unit: "psig" }, ["psig", "psi(g)", "psi g", "psi gauge", "psi gage", "lb/in2 gauge"]],
-  [{ quantity: "pressure", unit: "bara" }, ["bara", "bar(a)", "bar a", "bar abs", "bar absolute"]],
-  [{ quantity: "pressure", unit: "barg" }, ["barg", "bar(g)", "bar g", "bar gauge", "bar gage"]],
-  [{ quantity: "pressure", unit: "kPa" }, ["kPa", "kPaa", "kPa(a)", "kPa abs", "kPa absolute"]],
-  [{ quantity: "pressure", unit: "kPag" }, ["kPag", "kPa(g)", "kPa gauge", "kPa gage"]],
-  [{ quantity: "pressure", unit: "MPa" }, ["MPa", "MPaa", "MPa(a)", "MPa abs", "MPa absolute"]],
-  [{ quantity: "pressure", unit: "MPag" }, ["MPag", "MPa(g)", "MPa gauge", "MPa gage"]],
+  [
+    { quantity: "pressure", unit: "psia" },
+    ["psia", "psi(a)", "psi a", "psi abs", "psi absolute", "lb/in2 abs"],
+  ],
+  [
+    { quantity: "pressure", unit: "psig" },
+    ["psig", "psi(g)", "psi g", "psi gauge", "psi gage", "lb/in2 gauge"],
+  ],
+  [
+    { quantity: "pressure", unit: "bara" },
+    ["bara", "bar(a)", "bar a", "bar abs", "bar absolute"],
+  ],
+  [
+    { quantity: "pressure", unit: "barg" },
+    ["barg", "bar(g)", "bar g", "bar gauge", "bar gage"],
+  ],
+  [
+    { quantity: "pressure", unit: "kPa" },
+    ["kPa", "kPaa", "kPa(a)", "kPa abs", "kPa absolute"],
+  ],
+  [
+    { quantity: "pressure", unit: "kPag" },
+    ["kPag", "kPa(g)", "kPa gauge", "kPa gage"],
+  ],
+  [
+    { quantity: "pressure", unit: "MPa" },
+    ["MPa", "MPaa", "MPa(a)", "MPa abs", "MPa absolute"],
+  ],
+  [
+    { quantity: "pressure", unit: "MPag" },
+    ["MPag", "MPa(g)", "MPa gauge", "MPa gage"],
+  ],
   [{ quantity: "pressure", unit: "atm" }, ["atm", "atma"]],
-  [{ quantity: "temperature", unit: "degF" }, ["°F", "degF", "deg F", "F", "fahrenheit", "degrees F"]],
-  [{ quantity: "temperature", unit: "degC" }, ["°C", "degC", "deg C", "C", "celsius", "degrees C"]],
+  [
+    { quantity: "temperature", unit: "degF" },
+    ["°F", "degF", "deg F", "F", "fahrenheit", "degrees F"],
+  ],
+  [
+    { quantity: "temperature", unit: "degC" },
+    ["°C", "degC", "deg C", "C", "celsius", "degrees C"],
+  ],
   [{ quantity: "temperature", unit: "K" }, ["K", "kelvin", "°K"]],
-  [{ quantity: "temperature", unit: "degR" }, ["°R", "degR", "deg R", "R", "rankine"]],
-  [{ quantity: "oil_fvf", unit: "rb/STB" }, ["rb/stb", "bbl/stb", "rbbl/stb", "res bbl/stb", "rb/bbl", "bbl/bbl", "rbbl/stbbl"]],
-  [{ quantity: "oil_fvf", unit: "rm3/sm3" }, ["rm3/sm3", "m3/sm3", "rm3/stm3", "m3/m3", "v/v", "vol/vol"]],
-  [{ quantity: "gas_fvf", unit: "rb/scf" }, ["rb/scf", "bbl/scf", "rbbl/scf", "res bbl/scf"]],
-  [{ quantity: "gas_fvf", unit: "rb/Mscf" }, ["rb/Mscf", "bbl/Mscf", "rb/Mcf", "bbl/Mcf", "rbbl/Mscf"]],
-  [{ quantity: "gas_fvf", unit: "ft3/scf" }, ["ft3/scf", "cf/scf", "rcf/scf", "rft3/scf", "cu ft/scf", "res ft3/scf"]],
-  [{ quantity: "gas_fvf", unit: "rm3/sm3" }, ["rm3/sm3", "m3/sm3", "m3/m3", "v/v", "vol/vol"]],
-  [{ quantity: "gas_oil_ratio", unit: "scf/STB" }, ["scf/stb", "scf/bbl", "scf/stbbl", "scf/stbo"]],
-  [{ quantity: "gas_oil_ratio", unit: "Mscf/STB" }, ["Mscf/stb", "Mcf/stb", "Mscf/bbl", "Mcf/bbl"]],
-  [{ quantity: "gas_oil_ratio", unit: "sm3/sm3" }, ["sm3/sm3", "sm3/stm3", "m3/m3", "v/v", "vol/vol"]],
+  [
+    { quantity: "temperature", unit: "degR" },
+    ["°R", "degR", "deg R", "R", "rankine"],
+  ],
+  [
+    { quantity: "oil_fvf", unit: "rb/STB" },
+    [
+      "rb/stb",
+      "bbl/stb",
+      "rbbl/stb",
+      "res bbl/stb",
+      "rb/bbl",
+      "bbl/bbl",
+      "rbbl/stbbl",
+    ],
+  ],
+  [
+    { quantity: "oil_fvf", unit: "rm3/sm3" },
+    ["rm3/sm3", "m3/sm3", "rm3/stm3", "m3/m3", "v/v", "vol/vol"],
+  ],
+  [
+    { quantity: "gas_fvf", unit: "rb/scf" },
+    ["rb/scf", "bbl/scf", "rbbl/scf", "res bbl/scf"],
+  ],
+  [
+    { quantity: "gas_fvf", unit: "rb/Mscf" },
+    ["rb/Mscf", "bbl/Mscf", "rb/Mcf", "bbl/Mcf", "rbbl/Mscf"],
+  ],
+  [
+    { quantity: "gas_fvf", unit: "ft3/scf" },
+    ["ft3/scf", "cf/scf", "rcf/scf", "rft3/scf", "cu ft/scf", "res ft3/scf"],
+  ],
+  [
+    { quantity: "gas_fvf", unit: "rm3/sm3" },
+    ["rm3/sm3", "m3/sm3", "m3/m3", "v/v", "vol/vol"],
+  ],
+  [
+    { quantity: "gas_oil_ratio", unit: "scf/STB" },
+    ["scf/stb", "scf/bbl", "scf/stbbl", "scf/stbo"],
+  ],
+  [
+    { quantity: "gas_oil_ratio", unit: "Mscf/STB" },
+    ["Mscf/stb", "Mcf/stb", "Mscf/bbl", "Mcf/bbl"],
+  ],
+  [
+    { quantity: "gas_oil_ratio", unit: "sm3/sm3" },
+    ["sm3/sm3", "sm3/stm3", "m3/m3", "v/v", "vol/vol"],
+  ],
   [{ quantity: "viscosity", unit: "cP" }, ["cP", "cps", "centipoise"]],
-  [{ quantity: "viscosity", unit: "mPa.s" }, ["mPa.s", "mPa·s", "mPa s", "mPas", "mPa*s"]],
+  [
+    { quantity: "viscosity", unit: "mPa.s" },
+    ["mPa.s", "mPa·s", "mPa s", "mPas", "mPa*s"],
+  ],
   [{ quantity: "viscosity", unit: "Pa.s" }, ["Pa.s", "Pa·s", "Pa s", "Pa*s"]],
-  [{ quantity: "density", unit: "lb/ft3" }, ["lb/ft3", "lbm/ft3", "lb/cu ft", "lb/cuft", "pcf"]],
-  [{ quantity: "density", unit: "g/cm3" }, ["g/cc", "g/cm3", "gm/cc", "gm/cm3", "g/ml", "g/mL"]],
+  [
+    { quantity: "density", unit: "lb/ft3" },
+    ["lb/ft3", "lbm/ft3", "lb/cu ft", "lb/cuft", "pcf"],
+  ],
+  [
+    { quantity: "density", unit: "g/cm3" },
+    ["g/cc", "g/cm3", "gm/cc", "gm/cm3", "g/ml", "g/mL"],
+  ],
   [{ quantity: "density", unit: "kg/m3" }, ["kg/m3", "kg/sm3"]],
-  [{ quantity: "compressibility", unit: "1/psi" }, ["1/psi", "psi-1", "/psi", "1/psia", "psia-1"]],
-  [{ quantity: "compressibility", unit: "1e-6/psi" }, ["1e-6/psi", "microsip", "microsips"]],
+  [
+    { quantity: "compressibility", unit: "1/psi" },
+    ["1/psi", "psi-1", "/psi", "1/psia", "psia-1"],
+  ],
+  [
+    { quantity: "compressibility", unit: "1e-6/psi" },
+    ["1e-6/psi", "microsip", "microsips"],
+  ],
   [{ quantity: "compressibility", unit: "1/bar" }, ["1/bar", "bar-1", "/bar"]],
   [{ quantity: "compressibility", unit: "1/kPa" }, ["1/kPa", "kPa-1", "/kPa"]],
   [{ quantity: "compressibility", unit: "1/MPa" }, ["1/MPa", "MPa-1", "/MPa"]],
-  [{ quantity: "dimensionless", unit: "-" }, ["-", "–", "dimensionless", "fraction", "frac", "ratio", "1"]],
+  [
+    { quantity: "dimensionless", unit: "-" },
+    ["-", "–", "dimensionless", "fraction", "frac", "ratio", "1"],
+  ],
 ];
 
 /** Labels that name a pressure unit but not whether it is absolute or gauge. */
-const BARE_PRESSURE: ReadonlyMap<string, { absolute: UnitId<"pressure">; gauge: UnitId<"pressure"> }> = new Map([
+const BARE_PRESSURE: ReadonlyMap<
+  string,
+  { absolute: UnitId<"pressure">; gauge: UnitId<"pressure"> }
+> = new Map([
   [normalizeUnitLabel("psi"), { absolute: "psia", gauge: "psig" }],
   [normalizeUnitLabel("lb/in2"), { absolute: "psia", gauge: "psig" }],
   [normalizeUnitLabel("lbf/in2"), { absolute: "psia", gauge: "psig" }],
@@ -87,8 +183,14 @@ const BARE_PRESSURE: ReadonlyMap<string, { absolute: UnitId<"pressure">; gauge: 
 ]);
 
 const MULTIPLIER = String.raw`(?:10\s*\^?\s*\(?\s*-\s*6\s*\)?|1e-6)`;
-const LEADING_MULTIPLIER = new RegExp(String.raw`^(?:[x×*]\s*)?${MULTIPLIER}\s*(?:[x×*]\s*)?(.*)$`, "i");
-const TRAILING_MULTIPLIER = new RegExp(String.raw`^(.*?)\s*[x×*]\s*${MULTIPLIER}$`, "i");
+const LEADING_MULTIPLIER = new RegExp(
+  String.raw`^(?:[x×*]\s*)?${MULTIPLIER}\s*(?:[x×*]\s*)?(.*)$`,
+  "i",
+);
+const TRAILING_MULTIPLIER = new RegExp(
+  String.raw`^(.*?)\s*[x×*]\s*${MULTIPLIER}$`,
+  "i",
+);
 
 /**
  * The matching key of a label: NFKC-folded, lower case, without spaces, brackets, "^", dots or middle
@@ -112,16 +214,30 @@ const LOOKUP: ReadonlyMap<string, readonly Candidate[]> = (() => {
     for (const alias of aliases) {
       const key = alias === "–" ? "-" : normalizeUnitLabel(alias);
       const list = map.get(key) ?? [];
-      if (!list.some((c) => c.quantity === candidate.quantity && c.unit === candidate.unit)) list.push(candidate);
+      if (
+        !list.some(
+          (c) => c.quantity === candidate.quantity && c.unit === candidate.unit,
+        )
+      )
+        list.push(candidate);
       map.set(key, list);
     }
   }
   return map;
 })();
 
-function result(candidate: Candidate, label: string, warnings: string[]): ParsedUnitLabel {
+function result(
+  candidate: Candidate,
+  label: string,
+  warnings: string[],
+): ParsedUnitLabel {
   const def = getUnit(candidate.quantity, candidate.unit);
-  return { ...candidate, symbol: def.symbol, label, warnings } as ParsedUnitLabel;
+  return {
+    ...candidate,
+    symbol: def.symbol,
+    label,
+    warnings,
+  } as ParsedUnitLabel;
 }
 
 function stripOuterBrackets(text: string): string {
@@ -137,12 +253,22 @@ export function parseUnitLabel<Q extends Quantity>(
   label: string,
   options: ParseUnitOptions & { readonly quantity: Q },
 ): ParsedUnitLabel<Q>;
-export function parseUnitLabel(label: string, options?: ParseUnitOptions): ParsedUnitLabel;
-export function parseUnitLabel(label: string, options: ParseUnitOptions = {}): ParsedUnitLabel {
+export function parseUnitLabel(
+  label: string,
+  options?: ParseUnitOptions,
+): ParsedUnitLabel;
+export function parseUnitLabel(
+  label: string,
+  options: ParseUnitOptions = {},
+): ParsedUnitLabel {
   if (typeof label !== "string" || label.trim() === "") {
-    throw new UnitError("MISSING_UNIT", "No unit given: write the unit, e.g. \"psia\", \"°F\", \"rb/STB\".", {
-      label,
-    });
+    throw new UnitError(
+      "MISSING_UNIT",
+      'No unit given: write the unit, e.g. "psia", "°F", "rb/STB".',
+      {
+        label,
+      },
+    );
   }
   const wanted = options.quantity;
   const text = stripOuterBrackets(label);
@@ -156,13 +282,21 @@ export function parseUnitLabel(label: string, options: ParseUnitOptions = {}): P
   }
 
   // "10^-6/psi", "1/psi x 10^-6", "x10-6 psi-1": compressibility printed with a 10⁻⁶ multiplier.
-  const folded = text.normalize("NFKC").replace(/[\u2212\u2012\u2013\u2014\u207b\u208b]/g, "-");
-  const multiplied = LEADING_MULTIPLIER.exec(folded)?.[1] ?? TRAILING_MULTIPLIER.exec(folded)?.[1];
+  const folded = text
+    .normalize("NFKC")
+    .replace(/[\u2212\u2012\u2013\u2014\u207b\u208b]/g, "-");
+  const multiplied =
+    LEADING_MULTIPLIER.exec(folded)?.[1] ??
+    TRAILING_MULTIPLIER.exec(folded)?.[1];
   if (multiplied !== undefined && multiplied.trim() !== "") {
     const key = normalizeUnitLabel(multiplied);
     const base = LOOKUP.get(key)?.find((c) => c.quantity === "compressibility");
     if (base?.unit === "1/psi") {
-      return checkQuantity(result({ quantity: "compressibility", unit: "1e-6/psi" }, label, []), wanted, label);
+      return checkQuantity(
+        result({ quantity: "compressibility", unit: "1e-6/psi" }, label, []),
+        wanted,
+        label,
+      );
     }
     throw new UnitError(
       "UNKNOWN_UNIT",
@@ -202,7 +336,12 @@ export function parseUnitLabel(label: string, options: ParseUnitOptions = {}): P
   }
   if (wanted !== undefined) {
     const match = candidates.find((c) => c.quantity === wanted);
-    if (!match) throw wrongQuantity(label, candidates.map((c) => c.quantity), wanted);
+    if (!match)
+      throw wrongQuantity(
+        label,
+        candidates.map((c) => c.quantity),
+        wanted,
+      );
     return result(match, label, []);
   }
   const [first, ...rest] = candidates;
@@ -215,7 +354,11 @@ export function parseUnitLabel(label: string, options: ParseUnitOptions = {}): P
   );
 }
 
-function wrongQuantity(label: string, found: readonly Quantity[], wanted: Quantity): UnitError {
+function wrongQuantity(
+  label: string,
+  found: readonly Quantity[],
+  wanted: Quantity,
+): UnitError {
   return new UnitError(
     "WRONG_QUANTITY",
     `"${label}" is a unit of ${[...new Set(found)].map((q) => QUANTITY_LABELS[q]).join(" or ")}, not of ${QUANTITY_LABELS[wanted]}.`,
@@ -223,8 +366,13 @@ function wrongQuantity(label: string, found: readonly Quantity[], wanted: Quanti
   );
 }
 
-function checkQuantity(parsed: ParsedUnitLabel, wanted: Quantity | undefined, label: string): ParsedUnitLabel {
-  if (wanted !== undefined && parsed.quantity !== wanted) throw wrongQuantity(label, [parsed.quantity], wanted);
+function checkQuantity(
+  parsed: ParsedUnitLabel,
+  wanted: Quantity | undefined,
+  label: string,
+): ParsedUnitLabel {
+  if (wanted !== undefined && parsed.quantity !== wanted)
+    throw wrongQuantity(label, [parsed.quantity], wanted);
   return parsed;
 }
 
@@ -237,8 +385,14 @@ export function parseHeaderUnit<Q extends Quantity>(
   header: string,
   options: ParseUnitOptions & { readonly quantity: Q },
 ): ParsedUnitLabel<Q> & { readonly name: string };
-export function parseHeaderUnit(header: string, options?: ParseUnitOptions): ParsedUnitLabel & { readonly name: string };
-export function parseHeaderUnit(header: string, options: ParseUnitOptions = {}): ParsedUnitLabel & { name: string } {
+export function parseHeaderUnit(
+  header: string,
+  options?: ParseUnitOptions,
+): ParsedUnitLabel & { readonly name: string };
+export function parseHeaderUnit(
+  header: string,
+  options: ParseUnitOptions = {},
+): ParsedUnitLabel & { name: string } {
   const text = typeof header === "string" ? header.trim() : "";
   const split = splitHeader(text);
   if (!split) {

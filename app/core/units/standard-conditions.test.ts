@@ -9,18 +9,36 @@ import {
   rebaseStandardVolume,
 } from "./standard-conditions";
 import { convert } from "./catalogue";
-import { CANONICAL_UNIT_SYSTEM, FIELD_UNIT_SYSTEM, METRIC_UNIT_SYSTEM, convertBetweenSystems, propertyUnit } from "./unit-systems";
+import {
+  CANONICAL_UNIT_SYSTEM,
+  FIELD_UNIT_SYSTEM,
+  METRIC_UNIT_SYSTEM,
+  convertBetweenSystems,
+  propertyUnit,
+} from "./unit-systems";
 
 test("default standard conditions are data: 60 °F/14.696 psia (field) and 15 °C/101.325 kPa (metric, ISO 13443)", () => {
-  expect(FIELD_STANDARD_CONDITIONS).toMatchObject({ pressurePsia: 14.696, temperatureF: 60 });
+  expect(FIELD_STANDARD_CONDITIONS).toMatchObject({
+    pressurePsia: 14.696,
+    temperatureF: 60,
+  });
   expect(METRIC_STANDARD_CONDITIONS.temperatureF).toBeCloseTo(59, 12);
-  expect(convert(METRIC_STANDARD_CONDITIONS.pressurePsia, "pressure", "psia", "kPa")).toBeCloseTo(101.325, 10);
-  expect(new Set(STANDARD_CONDITIONS_PRESETS.map((s) => s.id)).size).toBe(STANDARD_CONDITIONS_PRESETS.length);
+  expect(
+    convert(METRIC_STANDARD_CONDITIONS.pressurePsia, "pressure", "psia", "kPa"),
+  ).toBeCloseTo(101.325, 10);
+  expect(new Set(STANDARD_CONDITIONS_PRESETS.map((s) => s.id)).size).toBe(
+    STANDARD_CONDITIONS_PRESETS.length,
+  );
 });
 
 test("1 scf/STB (60 °F, 14.696 psia) = 0.177765 sm³/sm³ at 15 °C/101.325 kPa (domain §5 [C], ideal gas; 1e-6 relative)", () => {
   const m3 = convert(1, "gas_oil_ratio", "scf/STB", "sm3/sm3");
-  const rebased = rebaseStandardVolume(m3, "gas_oil_ratio", FIELD_STANDARD_CONDITIONS, METRIC_STANDARD_CONDITIONS);
+  const rebased = rebaseStandardVolume(
+    m3,
+    "gas_oil_ratio",
+    FIELD_STANDARD_CONDITIONS,
+    METRIC_STANDARD_CONDITIONS,
+  );
   expect(Math.abs(rebased / 0.177765 - 1)).toBeLessThan(3e-6);
 });
 
@@ -33,23 +51,52 @@ test("rebasing is the ideal-gas ratio and round-trips; Bg moves opposite to GOR 
   const f = gasVolumeRebaseFactor(FIELD_STANDARD_CONDITIONS, base1465);
   expect(f).toBeCloseTo(14.696 / 14.65, 14);
   const gor = 768;
-  const there = rebaseStandardVolume(gor, "gas_oil_ratio", FIELD_STANDARD_CONDITIONS, base1465);
+  const there = rebaseStandardVolume(
+    gor,
+    "gas_oil_ratio",
+    FIELD_STANDARD_CONDITIONS,
+    base1465,
+  );
   expect(there).toBeGreaterThan(gor); // more scf at the lower base pressure
-  expect(rebaseStandardVolume(there, "gas_oil_ratio", base1465, FIELD_STANDARD_CONDITIONS)).toBeCloseTo(gor, 10);
-  const bg = rebaseStandardVolume(0.00122, "gas_fvf", FIELD_STANDARD_CONDITIONS, base1465);
+  expect(
+    rebaseStandardVolume(
+      there,
+      "gas_oil_ratio",
+      base1465,
+      FIELD_STANDARD_CONDITIONS,
+    ),
+  ).toBeCloseTo(gor, 10);
+  const bg = rebaseStandardVolume(
+    0.00122,
+    "gas_fvf",
+    FIELD_STANDARD_CONDITIONS,
+    base1465,
+  );
   expect(bg).toBeLessThan(0.00122);
   expect(bg * there).toBeCloseTo(0.00122 * gor, 14); // reservoir volume of the dissolved gas is unchanged
 });
 
 test("bad standard conditions → UnitError", () => {
   expect(() =>
-    defineStandardConditions({ id: "x", pressure: { value: 0, unit: "psig" }, temperature: { value: 60, unit: "degF" } }),
+    defineStandardConditions({
+      id: "x",
+      pressure: { value: 0, unit: "psig" },
+      temperature: { value: 60, unit: "degF" },
+    }),
   ).toThrow(UnitError);
   expect(() =>
-    defineStandardConditions({ id: "x", pressure: { value: 0, unit: "psia" }, temperature: { value: 60, unit: "degF" } }),
+    defineStandardConditions({
+      id: "x",
+      pressure: { value: 0, unit: "psia" },
+      temperature: { value: 60, unit: "degF" },
+    }),
   ).toThrow(/> 0 psia/);
   expect(() =>
-    defineStandardConditions({ id: "x", pressure: { value: 1, unit: "atm" }, temperature: { value: -300, unit: "degC" } }),
+    defineStandardConditions({
+      id: "x",
+      pressure: { value: 1, unit: "atm" },
+      temperature: { value: -300, unit: "degC" },
+    }),
   ).toThrow(/absolute zero/);
 });
 
@@ -59,14 +106,42 @@ test("unit systems: canonical, field and metric presets map every property; conv
   expect(propertyUnit(METRIC_UNIT_SYSTEM, "solution_gor")).toBe("sm3/sm3");
   expect(propertyUnit(METRIC_UNIT_SYSTEM, "oil_viscosity")).toBe("mPa.s");
   // 2634.7 psia × 6894.757293168 Pa/psi = 181.65617 bara
-  expect(convertBetweenSystems(2634.7, "pressure", CANONICAL_UNIT_SYSTEM, METRIC_UNIT_SYSTEM)).toBeCloseTo(181.65617, 5);
+  expect(
+    convertBetweenSystems(
+      2634.7,
+      "pressure",
+      CANONICAL_UNIT_SYSTEM,
+      METRIC_UNIT_SYSTEM,
+    ),
+  ).toBeCloseTo(181.65617, 5);
   // GOR field → metric includes the change of standard conditions (0.177765 per scf/STB)
-  expect(convertBetweenSystems(768, "gas_oil_ratio", FIELD_UNIT_SYSTEM, METRIC_UNIT_SYSTEM) / 768).toBeCloseTo(0.177765, 6);
+  expect(
+    convertBetweenSystems(
+      768,
+      "gas_oil_ratio",
+      FIELD_UNIT_SYSTEM,
+      METRIC_UNIT_SYSTEM,
+    ) / 768,
+  ).toBeCloseTo(0.177765, 6);
   // Bg in rb/scf → rm³/sm³: ×5.614583 then ÷ the rebase factor
-  const f = gasVolumeRebaseFactor(FIELD_STANDARD_CONDITIONS, METRIC_STANDARD_CONDITIONS);
-  expect(convertBetweenSystems(0.001, "gas_fvf", CANONICAL_UNIT_SYSTEM, METRIC_UNIT_SYSTEM)).toBeCloseTo(
-    (0.001 * 5.614583333333333) / f,
-    14,
+  const f = gasVolumeRebaseFactor(
+    FIELD_STANDARD_CONDITIONS,
+    METRIC_STANDARD_CONDITIONS,
   );
-  expect(convertBetweenSystems(1.474, "oil_fvf", FIELD_UNIT_SYSTEM, METRIC_UNIT_SYSTEM)).toBe(1.474);
+  expect(
+    convertBetweenSystems(
+      0.001,
+      "gas_fvf",
+      CANONICAL_UNIT_SYSTEM,
+      METRIC_UNIT_SYSTEM,
+    ),
+  ).toBeCloseTo((0.001 * 5.614583333333333) / f, 14);
+  expect(
+    convertBetweenSystems(
+      1.474,
+      "oil_fvf",
+      FIELD_UNIT_SYSTEM,
+      METRIC_UNIT_SYSTEM,
+    ),
+  ).toBe(1.474);
 });

@@ -39,18 +39,29 @@ export const METRIC_STANDARD_CONDITIONS: StandardConditions = Object.freeze({
   temperatureF: toCanonical(15, "temperature", "degC"),
 });
 
-export const STANDARD_CONDITIONS_PRESETS: readonly StandardConditions[] = Object.freeze([
-  FIELD_STANDARD_CONDITIONS,
-  METRIC_STANDARD_CONDITIONS,
-  Object.freeze({ id: "us_gas_60f_14.65psia", label: "60 °F, 14.65 psia", pressurePsia: 14.65, temperatureF: 60 }),
-  Object.freeze({ id: "us_gas_60f_14.73psia", label: "60 °F, 14.73 psia", pressurePsia: 14.73, temperatureF: 60 }),
-  Object.freeze({
-    id: "normal_0c_101.325kpa",
-    label: "0 °C, 101.325 kPa",
-    pressurePsia: toCanonical(101.325, "pressure", "kPa"),
-    temperatureF: 32,
-  }),
-]);
+export const STANDARD_CONDITIONS_PRESETS: readonly StandardConditions[] =
+  Object.freeze([
+    FIELD_STANDARD_CONDITIONS,
+    METRIC_STANDARD_CONDITIONS,
+    Object.freeze({
+      id: "us_gas_60f_14.65psia",
+      label: "60 °F, 14.65 psia",
+      pressurePsia: 14.65,
+      temperatureF: 60,
+    }),
+    Object.freeze({
+      id: "us_gas_60f_14.73psia",
+      label: "60 °F, 14.73 psia",
+      pressurePsia: 14.73,
+      temperatureF: 60,
+    }),
+    Object.freeze({
+      id: "normal_0c_101.325kpa",
+      label: "0 °C, 101.325 kPa",
+      pressurePsia: toCanonical(101.325, "pressure", "kPa"),
+      temperatureF: 32,
+    }),
+  ]);
 
 /** Build a dataset's standard conditions from values in any catalogue units (validated). */
 export function defineStandardConditions(input: {
@@ -66,12 +77,27 @@ export function defineStandardConditions(input: {
       { unit: input.pressure.unit },
     );
   }
-  const pressurePsia = toCanonical(input.pressure.value, "pressure", input.pressure.unit);
-  const temperatureF = toCanonical(input.temperature.value, "temperature", input.temperature.unit);
-  assertStandardConditions({ id: input.id, label: "", pressurePsia, temperatureF });
+  const pressurePsia = toCanonical(
+    input.pressure.value,
+    "pressure",
+    input.pressure.unit,
+  );
+  const temperatureF = toCanonical(
+    input.temperature.value,
+    "temperature",
+    input.temperature.unit,
+  );
+  assertStandardConditions({
+    id: input.id,
+    label: "",
+    pressurePsia,
+    temperatureF,
+  });
   return Object.freeze({
     id: input.id,
-    label: input.label ?? `${input.temperature.value} ${input.temperature.unit}, ${input.pressure.value} ${input.pressure.unit}`,
+    label:
+      input.label ??
+      `${input.temperature.value} ${input.temperature.unit}, ${input.pressure.value} ${input.pressure.unit}`,
     pressurePsia,
     temperatureF,
   });
@@ -79,9 +105,13 @@ export function defineStandardConditions(input: {
 
 export function assertStandardConditions(sc: StandardConditions): void {
   if (!Number.isFinite(sc.pressurePsia) || sc.pressurePsia <= 0) {
-    throw new UnitError("INVALID_STANDARD_CONDITIONS", `Standard pressure must be > 0 psia, got ${sc.pressurePsia}.`, {
-      id: sc.id,
-    });
+    throw new UnitError(
+      "INVALID_STANDARD_CONDITIONS",
+      `Standard pressure must be > 0 psia, got ${sc.pressurePsia}.`,
+      {
+        id: sc.id,
+      },
+    );
   }
   if (!Number.isFinite(sc.temperatureF) || sc.temperatureF <= -RANKINE_OFFSET) {
     throw new UnitError(
@@ -96,10 +126,17 @@ export function assertStandardConditions(sc: StandardConditions): void {
  * Factor converting a gas volume measured at `from` standard conditions into the same gas at `to`
  * conditions (ideal gas): V_to = V_from × factor.
  */
-export function gasVolumeRebaseFactor(from: StandardConditions, to: StandardConditions): number {
+export function gasVolumeRebaseFactor(
+  from: StandardConditions,
+  to: StandardConditions,
+): number {
   assertStandardConditions(from);
   assertStandardConditions(to);
-  return ((from.pressurePsia / to.pressurePsia) * (to.temperatureF + RANKINE_OFFSET)) / (from.temperatureF + RANKINE_OFFSET);
+  return (
+    ((from.pressurePsia / to.pressurePsia) *
+      (to.temperatureF + RANKINE_OFFSET)) /
+    (from.temperatureF + RANKINE_OFFSET)
+  );
 }
 
 /**
@@ -114,7 +151,11 @@ export function rebaseStandardVolume(
   to: StandardConditions,
 ): number {
   if (!Number.isFinite(value)) {
-    throw new UnitError("NOT_FINITE", `Value must be a finite number, got ${String(value)}.`, { value });
+    throw new UnitError(
+      "NOT_FINITE",
+      `Value must be a finite number, got ${String(value)}.`,
+      { value },
+    );
   }
   const f = gasVolumeRebaseFactor(from, to);
   return quantity === "gas_oil_ratio" ? value * f : value / f;

@@ -4,7 +4,13 @@
  *
  * Property keys used across the app (grids, API, database) and the quantity each one is measured in.
  */
-import { CANONICAL_UNITS, convert, type ConversionOptions, type Quantity, type UnitId } from "./catalogue";
+import {
+  CANONICAL_UNITS,
+  convert,
+  type ConversionOptions,
+  type Quantity,
+  type UnitId,
+} from "./catalogue";
 import {
   FIELD_STANDARD_CONDITIONS,
   METRIC_STANDARD_CONDITIONS,
@@ -23,7 +29,8 @@ export interface UnitSystem {
 
 export const CANONICAL_UNIT_SYSTEM: UnitSystem = Object.freeze({
   id: "canonical",
-  label: "Canonical (internal): psia, °F, rb/STB, rb/scf, scf/STB, cP, lb/ft³, 1/psi",
+  label:
+    "Canonical (internal): psia, °F, rb/STB, rb/scf, scf/STB, cP, lb/ft³, 1/psi",
   units: CANONICAL_UNITS,
   standardConditions: FIELD_STANDARD_CONDITIONS,
 });
@@ -37,7 +44,8 @@ export const FIELD_UNIT_SYSTEM: UnitSystem = Object.freeze({
 
 export const METRIC_UNIT_SYSTEM: UnitSystem = Object.freeze({
   id: "metric",
-  label: "Metric: bara, °C, rm³/sm³, sm³/sm³, mPa·s, kg/m³, 1/bar (15 °C, 101.325 kPa)",
+  label:
+    "Metric: bara, °C, rm³/sm³, sm³/sm³, mPa·s, kg/m³, 1/bar (15 °C, 101.325 kPa)",
   units: Object.freeze({
     pressure: "bara",
     temperature: "degC",
@@ -110,7 +118,12 @@ export function convertBetweenSystems<Q extends Quantity>(
   const toUnit = to.units[quantity] as UnitId<Q>;
   const converted = convert(value, quantity, fromUnit, toUnit, options);
   if (quantity === "gas_oil_ratio" || quantity === "gas_fvf") {
-    return rebaseStandardVolume(converted, quantity, from.standardConditions, to.standardConditions);
+    return rebaseStandardVolume(
+      converted,
+      quantity,
+      from.standardConditions,
+      to.standardConditions,
+    );
   }
   return converted;
 }

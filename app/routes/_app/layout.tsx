@@ -12,7 +12,9 @@ export async function loader(args: Route.LoaderArgs) {
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
   `rounded px-3 py-1.5 text-sm font-semibold ${
-    isActive ? "bg-accent-soft text-accent-strong" : "text-ink-muted hover:bg-surface hover:text-ink"
+    isActive
+      ? "bg-accent-soft text-accent-strong"
+      : "text-ink-muted hover:bg-surface hover:text-ink"
   }`;
 
 export default function AppLayout({ loaderData }: Route.ComponentProps) {
@@ -21,21 +23,30 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
     { to: href("/samples"), label: "Samples" },
     { to: href("/lookup"), label: "Lookup" },
     { to: href("/compare"), label: "Compare" },
-    ...(can(user, "manage:own-tokens") ? [{ to: href("/tokens"), label: "API tokens" }] : []),
+    ...(can(user, "manage:own-tokens")
+      ? [{ to: href("/tokens"), label: "API tokens" }]
+      : []),
   ];
   const admin = can(user, "manage:people")
     ? [
         { to: href("/admin/people"), label: "People" },
         { to: href("/admin/audit"), label: "Audit log" },
-        ...(can(user, "manage:settings") ? [{ to: href("/admin/settings"), label: "Lab policy" }] : []),
-        ...(mailCapture ? [{ to: href("/admin/mail"), label: "Captured e-mail" }] : []),
+        ...(can(user, "manage:settings")
+          ? [{ to: href("/admin/settings"), label: "Lab policy" }]
+          : []),
+        ...(mailCapture
+          ? [{ to: href("/admin/mail"), label: "Captured e-mail" }]
+          : []),
       ]
     : [];
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-line bg-panel">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-8 gap-y-2 px-6 py-3">
-          <NavLink to="/" className="flex items-center gap-2 text-lg font-bold tracking-tight text-accent-strong">
+          <NavLink
+            to="/"
+            className="flex items-center gap-2 text-lg font-bold tracking-tight text-accent-strong"
+          >
             <img src="/favicon.svg" alt="" className="h-6 w-6" />
             Isopleth
           </NavLink>
@@ -47,7 +58,10 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
             ))}
           </nav>
           {admin.length > 0 ? (
-            <nav aria-label="Administration" className="flex flex-wrap gap-1 border-l border-line pl-4">
+            <nav
+              aria-label="Administration"
+              className="flex flex-wrap gap-1 border-l border-line pl-4"
+            >
               {admin.map((item) => (
                 <NavLink key={item.to} to={item.to} className={linkClass}>
                   {item.label}
@@ -56,12 +70,20 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
             </nav>
           ) : null}
           <div className="ml-auto flex items-center gap-3 text-sm">
-            <NavLink to={href("/account")} className="text-right leading-tight hover:underline">
+            <NavLink
+              to={href("/account")}
+              className="text-right leading-tight hover:underline"
+            >
               <span className="block font-semibold">{user.name}</span>
-              <span className="block text-xs text-ink-muted">{ROLE_LABELS[user.role]}</span>
+              <span className="block text-xs text-ink-muted">
+                {ROLE_LABELS[user.role]}
+              </span>
             </NavLink>
             <Form method="post" action={href("/sign-out")}>
-              <button type="submit" className="rounded border border-line px-3 py-1.5 font-semibold text-ink-muted hover:border-accent hover:text-ink">
+              <button
+                type="submit"
+                className="rounded border border-line px-3 py-1.5 font-semibold text-ink-muted hover:border-accent hover:text-ink"
+              >
                 Sign out
               </button>
             </Form>

@@ -10,6 +10,15 @@ export const LOOKUP_RULES: Record<string, Rule> = {
     post: { allowed: ENGINEER_UP, form: { intent: "save-set", name: "" } },
   },
   // No set 999999 exists: allowed roles get 404 from the page, the others 403 first.
-  "routes/_app/lookup/sets/$setId.tsx": { kind: "page", path: "/lookup/sets/999999", allowed: ENGINEER_UP, okStatus: 404 },
-  "routes/_app/compare/index.tsx": { kind: "page", path: "/compare", allowed: ALL },
+  "routes/_app/lookup/sets/$setId.tsx": {
+    kind: "page",
+    path: "/lookup/sets/999999",
+    allowed: ENGINEER_UP,
+    okStatus: 404,
+  },
+  "routes/_app/compare/index.tsx": {
+    kind: "page",
+    path: "/compare",
+    allowed: ALL,
+  },
 };

@@ -5,7 +5,11 @@ import { ADMIN, ALL, LAB_LEAD_UP, type Rule } from "./types";
  * Each POST sends a deliberately invalid form: allowed roles get 400 and nothing changes; others get 403.
  */
 export const SAMPLE_RULES: Record<string, Rule> = {
-  "routes/_app/samples/index.tsx": { kind: "page", path: "/samples", allowed: ALL },
+  "routes/_app/samples/index.tsx": {
+    kind: "page",
+    path: "/samples",
+    allowed: ALL,
+  },
   "routes/_app/samples/new.tsx": {
     kind: "page",
     path: "/samples/new",
@@ -38,7 +42,11 @@ export const SAMPLE_RULES: Record<string, Rule> = {
     allowed: ALL,
     post: { allowed: LAB_LEAD_UP, form: { intent: "not-an-intent" } },
   },
-  "routes/_app/samples/$sampleId/diff.tsx": { kind: "page", path: "/samples/1/diff?from=1&to=1", allowed: ALL },
+  "routes/_app/samples/$sampleId/diff.tsx": {
+    kind: "page",
+    path: "/samples/1/diff?from=1&to=1",
+    allowed: ALL,
+  },
   // The lab policy page (four-eyes approval); an invalid choice changes nothing.
   "routes/_app/admin/settings/index.tsx": {
     kind: "page",
@@ -46,5 +54,9 @@ export const SAMPLE_RULES: Record<string, Rule> = {
     allowed: ADMIN,
     post: { allowed: ADMIN, form: { fourEyes: "not-a-mode" } },
   },
-  "routes/templates/$file.ts": { kind: "page", path: "/templates/isopleth-template-long.csv", allowed: ALL },
+  "routes/templates/$file.ts": {
+    kind: "page",
+    path: "/templates/isopleth-template-long.csv",
+    allowed: ALL,
+  },
 };

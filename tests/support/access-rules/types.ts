@@ -4,8 +4,21 @@ export type Rule =
   | { kind: "layout" }
   | { kind: "public"; path: string }
   | { kind: "signed-out-only"; path: string }
-  | { kind: "page"; path: string; allowed: DemoRoleName[]; okStatus?: number; post?: { allowed: DemoRoleName[]; form: Record<string, string> } }
-  | { kind: "api"; path: string; allowed: DemoRoleName[] | "public"; method?: "GET" | "POST"; body?: unknown; okStatus?: number }
+  | {
+      kind: "page";
+      path: string;
+      allowed: DemoRoleName[];
+      okStatus?: number;
+      post?: { allowed: DemoRoleName[]; form: Record<string, string> };
+    }
+  | {
+      kind: "api";
+      path: string;
+      allowed: DemoRoleName[] | "public";
+      method?: "GET" | "POST";
+      body?: unknown;
+      okStatus?: number;
+    }
   | { kind: "post-only"; path: string };
 
 export const ALL: DemoRoleName[] = ["viewer", "engineer", "lab_lead", "admin"];

@@ -2,10 +2,20 @@ import { and, desc, eq, isNull } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { apiTokens, users, type ApiScope } from "../schema";
 
-export type TokenRestriction = { fieldIds?: number[]; sampleIds?: number[] } | null;
+export type TokenRestriction = {
+  fieldIds?: number[];
+  sampleIds?: number[];
+} | null;
 
 export async function insertApiToken(
-  row: { id: string; userId: number; name: string; scopes: ApiScope[]; restriction: TokenRestriction; expiresAt: Date },
+  row: {
+    id: string;
+    userId: number;
+    name: string;
+    scopes: ApiScope[];
+    restriction: TokenRestriction;
+    expiresAt: Date;
+  },
   db: Executor = getDb(),
 ) {
   await db.insert(apiTokens).values(row);
@@ -21,7 +31,14 @@ export async function getApiTokenForUse(id: string, db: Executor = getDb()) {
       restriction: apiTokens.restriction,
       expiresAt: apiTokens.expiresAt,
       revokedAt: apiTokens.revokedAt,
-      user: { id: users.id, email: users.email, name: users.name, role: users.role, unitSystem: users.unitSystem, disabledAt: users.disabledAt },
+      user: {
+        id: users.id,
+        email: users.email,
+        name: users.name,
+        role: users.role,
+        unitSystem: users.unitSystem,
+        disabledAt: users.disabledAt,
+      },
     })
     .from(apiTokens)
     .innerJoin(users, eq(users.id, apiTokens.userId))
@@ -29,11 +46,21 @@ export async function getApiTokenForUse(id: string, db: Executor = getDb()) {
   return row ?? null;
 }
 
-export async function touchApiToken(id: string, at = new Date(), db: Executor = getDb()) {
-  await db.update(apiTokens).set({ lastUsedAt: at }).where(eq(apiTokens.id, id));
+export async function touchApiToken(
+  id: string,
+  at = new Date(),
+  db: Executor = getDb(),
+) {
+  await db
+    .update(apiTokens)
+    .set({ lastUsedAt: at })
+    .where(eq(apiTokens.id, id));
 }
 
-export async function listApiTokens(filter: { userId?: number }, db: Executor = getDb()) {
+export async function listApiTokens(
+  filter: { userId?: number },
+  db: Executor = getDb(),
+) {
   return db
     .select({
       id: apiTokens.id,
@@ -50,16 +77,31 @@ export async function listApiTokens(filter: { userId?: number }, db: Executor = 
     })
     .from(apiTokens)
     .innerJoin(users, eq(users.id, apiTokens.userId))
-    .where(filter.userId === undefined ? undefined : eq(apiTokens.userId, filter.userId))
+    .where(
+      filter.userId === undefined
+        ? undefined
+        : eq(apiTokens.userId, filter.userId),
+    )
     .orderBy(desc(apiTokens.createdAt));
 }
 
 export async function getApiTokenOwner(id: string, db: Executor = getDb()) {
-  const [row] = await db.select({ userId: apiTokens.userId, revokedAt: apiTokens.revokedAt, name: apiTokens.name }).from(apiTokens).where(eq(apiTokens.id, id));
+  const [row] = await db
+    .select({
+      userId: apiTokens.userId,
+      revokedAt: apiTokens.revokedAt,
+      name: apiTokens.name,
+    })
+    .from(apiTokens)
+    .where(eq(apiTokens.id, id));
   return row ?? null;
 }
 
-export async function revokeApiToken(id: string, revokedBy: number, db: Executor = getDb()): Promise<boolean> {
+export async function revokeApiToken(
+  id: string,
+  revokedBy: number,
+  db: Executor = getDb(),
+): Promise<boolean> {
   const [result] = await db
     .update(apiTokens)
     .set({ revokedAt: new Date(), revokedBy })

@@ -15,19 +15,30 @@ export type AuditEvent = {
   ipAddress?: string | null;
 };
 
-export async function recordAudit(event: AuditEvent, db: Executor = getDb()): Promise<void> {
+export async function recordAudit(
+  event: AuditEvent,
+  db: Executor = getDb(),
+): Promise<void> {
   await db.insert(auditLog).values({
     action: event.action,
     userId: event.userId ?? null,
     apiTokenId: event.apiTokenId ?? null,
     entityType: event.entityType ?? null,
-    entityId: event.entityId === undefined || event.entityId === null ? null : String(event.entityId),
+    entityId:
+      event.entityId === undefined || event.entityId === null
+        ? null
+        : String(event.entityId),
     details: event.details ?? null,
     ipAddress: event.ipAddress ?? null,
   });
 }
 
-export type AuditFilter = { userId?: number; action?: AuditAction; from?: Date; to?: Date };
+export type AuditFilter = {
+  userId?: number;
+  action?: AuditAction;
+  from?: Date;
+  to?: Date;
+};
 
 export async function listAuditEntries(
   filter: AuditFilter,
@@ -35,7 +46,8 @@ export async function listAuditEntries(
   db: Executor = getDb(),
 ) {
   const conditions: SQL[] = [];
-  if (filter.userId !== undefined) conditions.push(eq(auditLog.userId, filter.userId));
+  if (filter.userId !== undefined)
+    conditions.push(eq(auditLog.userId, filter.userId));
   if (filter.action) conditions.push(eq(auditLog.action, filter.action));
   if (filter.from) conditions.push(gte(auditLog.createdAt, filter.from));
   if (filter.to) conditions.push(lte(auditLog.createdAt, filter.to));

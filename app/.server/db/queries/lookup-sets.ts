@@ -22,7 +22,11 @@ export async function listLookupSets(userId: number, db: Executor = getDb()) {
     .orderBy(desc(lookupSets.updatedAt));
 }
 
-export async function getLookupSet(id: number, userId: number, db: Executor = getDb()) {
+export async function getLookupSet(
+  id: number,
+  userId: number,
+  db: Executor = getDb(),
+) {
   const [row] = await db
     .select()
     .from(lookupSets)
@@ -47,8 +51,14 @@ export async function createLookupSet(
   return row.id;
 }
 
-export async function deleteLookupSet(id: number, userId: number, db: Executor = getDb()) {
-  await db.delete(lookupSets).where(and(eq(lookupSets.id, id), eq(lookupSets.userId, userId)));
+export async function deleteLookupSet(
+  id: number,
+  userId: number,
+  db: Executor = getDb(),
+) {
+  await db
+    .delete(lookupSets)
+    .where(and(eq(lookupSets.id, id), eq(lookupSets.userId, userId)));
 }
 
 export async function createLookupRun(
@@ -57,7 +67,10 @@ export async function createLookupRun(
     revisionId: number;
     revisionNumber: number;
     method: string;
-    results: Record<string, { value: number; errorEstimate: number; warnings: string[] }[]>;
+    results: Record<
+      string,
+      { value: number; errorEstimate: number; warnings: string[] }[]
+    >;
     createdBy: number;
   },
   db: Executor = getDb(),
@@ -65,7 +78,11 @@ export async function createLookupRun(
   await db.insert(lookupRuns).values(input);
 }
 
-export async function listLookupRuns(setId: number, limit = 10, db: Executor = getDb()) {
+export async function listLookupRuns(
+  setId: number,
+  limit = 10,
+  db: Executor = getDb(),
+) {
   return db
     .select()
     .from(lookupRuns)

@@ -46,10 +46,15 @@ const POINT_BATCH = 1_000;
  * Stores a new revision with its bubble points and grids. Runs in one transaction (its own, or the caller's),
  * takes the next number for the sample under a row lock, so concurrent uploads get unique, gapless numbers.
  */
-export async function createRevision(input: NewRevision, db: Executor = getDb()): Promise<{ id: number; number: number }> {
+export async function createRevision(
+  input: NewRevision,
+  db: Executor = getDb(),
+): Promise<{ id: number; number: number }> {
   const run = async (tx: Transaction) => {
     const [row] = await tx
-      .select({ next: sql<number>`COALESCE(MAX(${sampleRevisions.number}), 0) + 1` })
+      .select({
+        next: sql<number>`COALESCE(MAX(${sampleRevisions.number}), 0) + 1`,
+      })
       .from(sampleRevisions)
       .where(eq(sampleRevisions.sampleId, input.sampleId))
       .for("update");
@@ -76,19 +81,36 @@ export async function createRevision(input: NewRevision, db: Executor = getDb())
     if (input.bubblePoints.length > 0) {
       await tx
         .insert(revisionBubblePoints)
-        .values(input.bubblePoints.map((b) => ({ revisionId, temperatureF: b.temperatureF, bubblePointPsia: b.bubblePointPsia })));
+        .values(
+          input.bubblePoints.map((b) => ({
+            revisionId,
+            temperatureF: b.temperatureF,
+            bubblePointPsia: b.bubblePointPsia,
+          })),
+        );
     }
     for (const grid of input.grids) {
       const [g] = await tx
         .insert(propertyGrids)
-        .values({ revisionId, property: grid.property, unit: grid.unit, sourceUnit: grid.sourceUnit ?? null })
+        .values({
+          revisionId,
+          property: grid.property,
+          unit: grid.unit,
+          sourceUnit: grid.sourceUnit ?? null,
+        })
         .$returningId();
       if (!g) throw new Error("grid insert returned no id");
-      const points: { gridId: number; pressurePsia: number; temperatureF: number; value: number }[] = [];
+      const points: {
+        gridId: number;
+        pressurePsia: number;
+        temperatureF: number;
+        value: number;
+      }[] = [];
       grid.pressures.forEach((pressurePsia, i) => {
         grid.temperatures.forEach((temperatureF, j) => {
           const value = grid.values[i]?.[j];
-          if (value !== null && value !== undefined) points.push({ gridId: g.id, pressurePsia, temperatureF, value });
+          if (value !== null && value !== undefined)
+            points.push({ gridId: g.id, pressurePsia, temperatureF, value });
         });
       });
       for (let k = 0; k < points.length; k += POINT_BATCH) {
@@ -102,52 +124,102 @@ export async function createRevision(input: NewRevision, db: Executor = getDb())
 }
 
 /** Grids of one revision, rebuilt from their points (pressures and temperatures sorted ascending). */
-export async function getRevisionGrids(revisionId: number, db: Executor = getDb()): Promise<StoredGrid[]> {
+export async function getRevisionGrids(
+  revisionId: number,
+  db: Executor = getDb(),
+): Promise<StoredGrid[]> {
   const grids = await db
-    .select({ id: propertyGrids.id, property: propertyGrids.property, unit: propertyGrids.unit, sourceUnit: propertyGrids.sourceUnit })
+    .select({
+      id: propertyGrids.id,
+      property: propertyGrids.property,
+      unit: propertyGrids.unit,
+      sourceUnit: propertyGrids.sourceUnit,
+    })
     .from(propertyGrids)
     .where(eq(propertyGrids.revisionId, revisionId))
     .orderBy(asc(propertyGrids.property));
   if (grids.length === 0) return [];
   const points = await db
-    .select({ gridId: gridPoints.gridId, p: gridPoints.pressurePsia, t: gridPoints.temperatureF, v: gridPoints.value })
+    .select({
+      gridId: gridPoints.gridId,
+      p: gridPoints.pressurePsia,
+      t: gridPoints.temperatureF,
+      v: gridPoints.value,
+    })
     .from(gridPoints)
-    .where(inArray(gridPoints.gridId, grids.map((g) => g.id)));
+    .where(
+      inArray(
+        gridPoints.gridId,
+        grids.map((g) => g.id),
+      ),
+    );
   return grids.map((g) => {
     const own = points.filter((pt) => pt.gridId === g.id);
     const pressures = [...new Set(own.map((pt) => pt.p))].sort((a, b) => a - b);
-    const temperatures = [...new Set(own.map((pt) => pt.t))].sort((a, b) => a - b);
+    const temperatures = [...new Set(own.map((pt) => pt.t))].sort(
+      (a, b) => a - b,
+    );
     const pi = new Map(pressures.map((p, i) => [p, i]));
     const ti = new Map(temperatures.map((t, j) => [t, j]));
-    const values: (number | null)[][] = pressures.map(() => temperatures.map(() => null));
+    const values: (number | null)[][] = pressures.map(() =>
+      temperatures.map(() => null),
+    );
     for (const pt of own) {
       const row = values[pi.get(pt.p)!];
       if (row) row[ti.get(pt.t)!] = pt.v;
     }
-    return { property: g.property, unit: g.unit, sourceUnit: g.sourceUnit, pressures, temperatures, values };
+    return {
+      property: g.property,
+      unit: g.unit,
+      sourceUnit: g.sourceUnit,
+      pressures,
+      temperatures,
+      values,
+    };
   });
 }
 
-export async function listRevisionBubblePoints(revisionId: number, db: Executor = getDb()) {
+export async function listRevisionBubblePoints(
+  revisionId: number,
+  db: Executor = getDb(),
+) {
   return db
-    .select({ temperatureF: revisionBubblePoints.temperatureF, bubblePointPsia: revisionBubblePoints.bubblePointPsia })
+    .select({
+      temperatureF: revisionBubblePoints.temperatureF,
+      bubblePointPsia: revisionBubblePoints.bubblePointPsia,
+    })
     .from(revisionBubblePoints)
     .where(eq(revisionBubblePoints.revisionId, revisionId))
     .orderBy(asc(revisionBubblePoints.temperatureF));
 }
 
 /** The sample's current revision: its latest approved one, or null. */
-export async function getCurrentApprovedRevision(sampleId: number, db: Executor = getDb()) {
+export async function getCurrentApprovedRevision(
+  sampleId: number,
+  db: Executor = getDb(),
+) {
   const [row] = await db
-    .select({ id: sampleRevisions.id, number: sampleRevisions.number, reviewedAt: sampleRevisions.reviewedAt })
+    .select({
+      id: sampleRevisions.id,
+      number: sampleRevisions.number,
+      reviewedAt: sampleRevisions.reviewedAt,
+    })
     .from(sampleRevisions)
-    .where(and(eq(sampleRevisions.sampleId, sampleId), eq(sampleRevisions.status, "approved")))
+    .where(
+      and(
+        eq(sampleRevisions.sampleId, sampleId),
+        eq(sampleRevisions.status, "approved"),
+      ),
+    )
     .orderBy(desc(sampleRevisions.number))
     .limit(1);
   return row ?? null;
 }
 
-export async function countRevisions(sampleId: number, db: Executor = getDb()): Promise<number> {
+export async function countRevisions(
+  sampleId: number,
+  db: Executor = getDb(),
+): Promise<number> {
   const [row] = await db
     .select({ n: sql<number>`COUNT(*)` })
     .from(sampleRevisions)
@@ -155,27 +227,55 @@ export async function countRevisions(sampleId: number, db: Executor = getDb()): 
   return Number(row?.n ?? 0);
 }
 
-export async function getRevisionByNumber(sampleId: number, number: number, db: Executor = getDb()) {
+export async function getRevisionByNumber(
+  sampleId: number,
+  number: number,
+  db: Executor = getDb(),
+) {
   const [row] = await db
-    .select({ id: sampleRevisions.id, number: sampleRevisions.number, status: sampleRevisions.status, reviewedAt: sampleRevisions.reviewedAt, createdAt: sampleRevisions.createdAt })
+    .select({
+      id: sampleRevisions.id,
+      number: sampleRevisions.number,
+      status: sampleRevisions.status,
+      reviewedAt: sampleRevisions.reviewedAt,
+      createdAt: sampleRevisions.createdAt,
+    })
     .from(sampleRevisions)
-    .where(and(eq(sampleRevisions.sampleId, sampleId), eq(sampleRevisions.number, number)));
+    .where(
+      and(
+        eq(sampleRevisions.sampleId, sampleId),
+        eq(sampleRevisions.number, number),
+      ),
+    );
   return row ?? null;
 }
 
 /** Grid ids and properties of many revisions at once (for listings). */
-export async function listRevisionProperties(revisionIds: number[], db: Executor = getDb()) {
+export async function listRevisionProperties(
+  revisionIds: number[],
+  db: Executor = getDb(),
+) {
   if (revisionIds.length === 0) return [];
   return db
-    .select({ revisionId: propertyGrids.revisionId, property: propertyGrids.property })
+    .select({
+      revisionId: propertyGrids.revisionId,
+      property: propertyGrids.property,
+    })
     .from(propertyGrids)
     .where(inArray(propertyGrids.revisionId, revisionIds));
 }
 
-export async function listBubblePointsOfRevisions(revisionIds: number[], db: Executor = getDb()) {
+export async function listBubblePointsOfRevisions(
+  revisionIds: number[],
+  db: Executor = getDb(),
+) {
   if (revisionIds.length === 0) return [];
   return db
-    .select({ revisionId: revisionBubblePoints.revisionId, temperatureF: revisionBubblePoints.temperatureF, bubblePointPsia: revisionBubblePoints.bubblePointPsia })
+    .select({
+      revisionId: revisionBubblePoints.revisionId,
+      temperatureF: revisionBubblePoints.temperatureF,
+      bubblePointPsia: revisionBubblePoints.bubblePointPsia,
+    })
     .from(revisionBubblePoints)
     .where(inArray(revisionBubblePoints.revisionId, revisionIds))
     .orderBy(asc(revisionBubblePoints.temperatureF));

@@ -1,8 +1,30 @@
-import { and, asc, count, desc, eq, like, or, sql, TransactionRollbackError, type SQL } from "drizzle-orm";
+import {
+  and,
+  asc,
+  count,
+  desc,
+  eq,
+  like,
+  or,
+  sql,
+  TransactionRollbackError,
+  type SQL,
+} from "drizzle-orm";
 import { getDb, type Executor } from "../client";
-import { fields, sampleRevisions, samples, wells, type SampleType } from "../schema";
+import {
+  fields,
+  sampleRevisions,
+  samples,
+  wells,
+  type SampleType,
+} from "../schema";
 import { recordAudit } from "./audit";
-import { SAMPLE_SORTS, SAMPLE_STATUS_FILTERS, type SampleSort, type SampleStatusFilter } from "~/components/samples/labels";
+import {
+  SAMPLE_SORTS,
+  SAMPLE_STATUS_FILTERS,
+  type SampleSort,
+  type SampleStatusFilter,
+} from "~/components/samples/labels";
 
 /*
  * Field → well → sample records: create, edit, and the searchable, sortable, paged list of samples.
@@ -41,9 +63,17 @@ export type SampleRecordResult =
 
 /** Names of fields and wells for the pickers of the sample form. */
 export async function listFieldsAndWells(db: Executor = getDb()) {
-  const fieldRows = await db.select({ id: fields.id, name: fields.name, region: fields.region }).from(fields).orderBy(asc(fields.name));
+  const fieldRows = await db
+    .select({ id: fields.id, name: fields.name, region: fields.region })
+    .from(fields)
+    .orderBy(asc(fields.name));
   const wellRows = await db
-    .select({ id: wells.id, name: wells.name, fieldId: wells.fieldId, fieldName: fields.name })
+    .select({
+      id: wells.id,
+      name: wells.name,
+      fieldId: wells.fieldId,
+      fieldName: fields.name,
+    })
     .from(wells)
     .innerJoin(fields, eq(fields.id, wells.fieldId))
     .orderBy(asc(fields.name), asc(wells.name));
@@ -51,12 +81,22 @@ export async function listFieldsAndWells(db: Executor = getDb()) {
 }
 
 /** The field of that name (created if new) and the well of that name in it (created if new). */
-async function findOrCreatePlace(input: Pick<SampleRecordInput, "fieldName" | "fieldRegion" | "wellName">, db: Executor) {
+async function findOrCreatePlace(
+  input: Pick<SampleRecordInput, "fieldName" | "fieldRegion" | "wellName">,
+  db: Executor,
+) {
   let createdField = false;
   let createdWell = false;
-  let [field] = await db.select({ id: fields.id }).from(fields).where(eq(fields.name, input.fieldName)).for("update");
+  let [field] = await db
+    .select({ id: fields.id })
+    .from(fields)
+    .where(eq(fields.name, input.fieldName))
+    .for("update");
   if (!field) {
-    const [inserted] = await db.insert(fields).values({ name: input.fieldName, region: input.fieldRegion ?? null }).$returningId();
+    const [inserted] = await db
+      .insert(fields)
+      .values({ name: input.fieldName, region: input.fieldRegion ?? null })
+      .$returningId();
     if (!inserted) throw new Error("field insert returned no id");
     field = inserted;
     createdField = true;
@@ -67,7 +107,10 @@ async function findOrCreatePlace(input: Pick<SampleRecordInput, "fieldName" | "f
     .where(and(eq(wells.fieldId, field.id), eq(wells.name, input.wellName)))
     .for("update");
   if (!well) {
-    const [inserted] = await db.insert(wells).values({ fieldId: field.id, name: input.wellName }).$returningId();
+    const [inserted] = await db
+      .insert(wells)
+      .values({ fieldId: field.id, name: input.wellName })
+      .$returningId();
     if (!inserted) throw new Error("well insert returned no id");
     well = inserted;
     createdWell = true;
@@ -93,7 +136,12 @@ function sampleColumns(input: SampleRecordInput) {
   };
 }
 
-async function labelTaken(wellId: number, label: string, exceptId: number | null, db: Executor) {
+async function labelTaken(
+  wellId: number,
+  label: string,
+  exceptId: number | null,
+  db: Executor,
+) {
   const rows = await db
     .select({ id: samples.id })
     .from(samples)
@@ -102,14 +150,22 @@ async function labelTaken(wellId: number, label: string, exceptId: number | null
 }
 
 /** Creates the sample, with its field and well when they are new, and its audit record, in one transaction. */
-export async function createSampleRecord(input: SampleRecordInput, actor: Actor, db: Executor = getDb()): Promise<SampleRecordResult> {
+export async function createSampleRecord(
+  input: SampleRecordInput,
+  actor: Actor,
+  db: Executor = getDb(),
+): Promise<SampleRecordResult> {
   return db
     .transaction(async (tx) => {
       const place = await findOrCreatePlace(input, tx);
       if (await labelTaken(place.wellId, input.label, null, tx)) tx.rollback();
       const [inserted] = await tx
         .insert(samples)
-        .values({ ...sampleColumns(input), wellId: place.wellId, createdBy: actor.userId })
+        .values({
+          ...sampleColumns(input),
+          wellId: place.wellId,
+          createdBy: actor.userId,
+        })
         .$returningId();
       if (!inserted) throw new Error("sample insert returned no id");
       await recordAudit(
@@ -118,15 +174,27 @@ export async function createSampleRecord(input: SampleRecordInput, actor: Actor,
           userId: actor.userId,
           entityType: "sample",
           entityId: inserted.id,
-          details: { label: input.label, well: input.wellName, field: input.fieldName, newField: place.createdField, newWell: place.createdWell },
+          details: {
+            label: input.label,
+            well: input.wellName,
+            field: input.fieldName,
+            newField: place.createdField,
+            newWell: place.createdWell,
+          },
           ipAddress: actor.ipAddress ?? null,
         },
         tx,
       );
-      return { ok: true as const, id: inserted.id, createdField: place.createdField, createdWell: place.createdWell };
+      return {
+        ok: true as const,
+        id: inserted.id,
+        createdField: place.createdField,
+        createdWell: place.createdWell,
+      };
     }, WRITE_TX)
     .catch((error: unknown) => {
-      if (isRollback(error)) return { ok: false as const, conflict: "label" as const };
+      if (isRollback(error))
+        return { ok: false as const, conflict: "label" as const };
       throw error;
     });
 }
@@ -147,20 +215,45 @@ export async function updateSampleRecord(
       if (!before) throw new Error(`sample ${id} does not exist`);
       const place = await findOrCreatePlace(input, tx);
       if (await labelTaken(place.wellId, input.label, id, tx)) tx.rollback();
-      const changed: string[] = (Object.keys(sampleColumns(input)) as (keyof ReturnType<typeof sampleColumns>)[])
-        .filter((k) => before[k] !== input[k]);
-      changed.push(...(before.wellName !== input.wellName || before.fieldName !== input.fieldName ? ["well"] : []));
+      const changed: string[] = (
+        Object.keys(sampleColumns(input)) as (keyof ReturnType<
+          typeof sampleColumns
+        >)[]
+      ).filter((k) => before[k] !== input[k]);
+      changed.push(
+        ...(before.wellName !== input.wellName ||
+        before.fieldName !== input.fieldName
+          ? ["well"]
+          : []),
+      );
       if (changed.length > 0) {
-        await tx.update(samples).set({ ...sampleColumns(input), wellId: place.wellId }).where(eq(samples.id, id));
+        await tx
+          .update(samples)
+          .set({ ...sampleColumns(input), wellId: place.wellId })
+          .where(eq(samples.id, id));
         await recordAudit(
-          { action: "sample_updated", userId: actor.userId, entityType: "sample", entityId: id, details: { changed }, ipAddress: actor.ipAddress ?? null },
+          {
+            action: "sample_updated",
+            userId: actor.userId,
+            entityType: "sample",
+            entityId: id,
+            details: { changed },
+            ipAddress: actor.ipAddress ?? null,
+          },
           tx,
         );
       }
-      return { ok: true as const, id, createdField: place.createdField, createdWell: place.createdWell, changed };
+      return {
+        ok: true as const,
+        id,
+        createdField: place.createdField,
+        createdWell: place.createdWell,
+        changed,
+      };
     }, WRITE_TX)
     .catch((error: unknown) => {
-      if (isRollback(error)) return { ok: false as const, conflict: "label" as const };
+      if (isRollback(error))
+        return { ok: false as const, conflict: "label" as const };
       throw error;
     });
 }
@@ -168,8 +261,14 @@ export async function updateSampleRecord(
 /** Our own rollback for a taken label, or the unique index catching two saves of the same label at once. */
 function isRollback(error: unknown): boolean {
   if (error instanceof TransactionRollbackError) return true;
-  const cause = error instanceof Error ? (error.cause as { code?: string; message?: string } | undefined) : undefined;
-  return cause?.code === "ER_DUP_ENTRY" && /samples_well_id_label_unique/.test(cause.message ?? "");
+  const cause =
+    error instanceof Error
+      ? (error.cause as { code?: string; message?: string } | undefined)
+      : undefined;
+  return (
+    cause?.code === "ER_DUP_ENTRY" &&
+    /samples_well_id_label_unique/.test(cause.message ?? "")
+  );
 }
 
 /** The editable record of a sample, with its field and well names, or null. */
@@ -201,7 +300,12 @@ export async function getSampleRecord(id: number, db: Executor = getDb()) {
   return row ?? null;
 }
 
-export { SAMPLE_SORTS, SAMPLE_STATUS_FILTERS, type SampleSort, type SampleStatusFilter };
+export {
+  SAMPLE_SORTS,
+  SAMPLE_STATUS_FILTERS,
+  type SampleSort,
+  type SampleStatusFilter,
+};
 
 export type SampleSearch = {
   q?: string;
@@ -219,12 +323,22 @@ function containsPattern(text: string): string {
 }
 
 /** One page of samples matching the search, with the total count, latest approved revision and open drafts. */
-export async function searchSamples(search: SampleSearch, db: Executor = getDb()) {
+export async function searchSamples(
+  search: SampleSearch,
+  db: Executor = getDb(),
+) {
   const approved = db
     .select({
       sampleId: sampleRevisions.sampleId,
-      number: sql<number | null>`max(case when ${sampleRevisions.status} = 'approved' then ${sampleRevisions.number} end)`.as("approved_number"),
-      drafts: sql<number>`sum(case when ${sampleRevisions.status} = 'draft' then 1 else 0 end)`.as("draft_count"),
+      number: sql<
+        number | null
+      >`max(case when ${sampleRevisions.status} = 'approved' then ${sampleRevisions.number} end)`.as(
+        "approved_number",
+      ),
+      drafts:
+        sql<number>`sum(case when ${sampleRevisions.status} = 'draft' then 1 else 0 end)`.as(
+          "draft_count",
+        ),
     })
     .from(sampleRevisions)
     .groupBy(sampleRevisions.sampleId)
@@ -245,9 +359,12 @@ export async function searchSamples(search: SampleSearch, db: Executor = getDb()
     );
   }
   if (search.type) conditions.push(eq(samples.sampleType, search.type));
-  if (search.status === "approved") conditions.push(sql`${approved.number} is not null`);
-  if (search.status === "none") conditions.push(sql`${approved.number} is null`);
-  if (search.status === "draft") conditions.push(sql`coalesce(${approved.drafts}, 0) > 0`);
+  if (search.status === "approved")
+    conditions.push(sql`${approved.number} is not null`);
+  if (search.status === "none")
+    conditions.push(sql`${approved.number} is null`);
+  if (search.status === "draft")
+    conditions.push(sql`coalesce(${approved.drafts}, 0) > 0`);
   const where = conditions.length > 0 ? and(...conditions) : undefined;
 
   const key = {
@@ -263,7 +380,14 @@ export async function searchSamples(search: SampleSearch, db: Executor = getDb()
   }[search.sort];
   const direction = search.dir === "desc" ? desc : asc;
   // Empty values last in either direction, then a stable order by place and label.
-  const order = [sql`${key} is null`, direction(key), asc(fields.name), asc(wells.name), asc(samples.label), asc(samples.id)];
+  const order = [
+    sql`${key} is null`,
+    direction(key),
+    asc(fields.name),
+    asc(wells.name),
+    asc(samples.label),
+    asc(samples.id),
+  ];
 
   const [total] = await db
     .select({ n: count() })
@@ -299,7 +423,8 @@ export async function searchSamples(search: SampleSearch, db: Executor = getDb()
     total: total?.n ?? 0,
     rows: rows.map((r) => ({
       ...r,
-      approvedRevision: r.approvedRevision === null ? null : Number(r.approvedRevision),
+      approvedRevision:
+        r.approvedRevision === null ? null : Number(r.approvedRevision),
       drafts: Number(r.drafts ?? 0),
     })),
   };

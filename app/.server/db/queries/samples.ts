@@ -31,8 +31,12 @@ export async function getSampleWithPlace(id: number, db: Executor = getDb()) {
       fieldId: fields.id,
       fieldName: fields.name,
       updatedAt: samples.updatedAt,
-      approvedRevisionId: sql<number | null>`(SELECT r.id FROM sample_revisions r WHERE r.sample_id = ${samples.id} AND r.status = 'approved' ORDER BY r.number DESC LIMIT 1)`,
-      approvedRevisionNumber: sql<number | null>`(SELECT r.number FROM sample_revisions r WHERE r.sample_id = ${samples.id} AND r.status = 'approved' ORDER BY r.number DESC LIMIT 1)`,
+      approvedRevisionId: sql<
+        number | null
+      >`(SELECT r.id FROM sample_revisions r WHERE r.sample_id = ${samples.id} AND r.status = 'approved' ORDER BY r.number DESC LIMIT 1)`,
+      approvedRevisionNumber: sql<
+        number | null
+      >`(SELECT r.number FROM sample_revisions r WHERE r.sample_id = ${samples.id} AND r.status = 'approved' ORDER BY r.number DESC LIMIT 1)`,
     })
     .from(samples)
     .innerJoin(wells, eq(wells.id, samples.wellId))
@@ -63,7 +67,9 @@ export async function listSamplesWithApproved(db: Executor = getDb()) {
       reservoirPressurePsia: samples.reservoirPressurePsia,
       reservoirTemperatureF: samples.reservoirTemperatureF,
       approvedRevision: approved.number,
-      approvedRevisionId: sql<number | null>`(SELECT r.id FROM sample_revisions r WHERE r.sample_id = ${samples.id} AND r.status = 'approved' ORDER BY r.number DESC LIMIT 1)`,
+      approvedRevisionId: sql<
+        number | null
+      >`(SELECT r.id FROM sample_revisions r WHERE r.sample_id = ${samples.id} AND r.status = 'approved' ORDER BY r.number DESC LIMIT 1)`,
     })
     .from(samples)
     .innerJoin(wells, eq(wells.id, samples.wellId))

@@ -3,7 +3,13 @@ import { getDb, type Executor } from "../client";
 import { sessions, users } from "../schema";
 
 export async function insertSession(
-  row: { id: string; userId: number; expiresAt: Date; ipAddress: string | null; userAgent: string | null },
+  row: {
+    id: string;
+    userId: number;
+    expiresAt: Date;
+    ipAddress: string | null;
+    userAgent: string | null;
+  },
   db: Executor = getDb(),
 ) {
   await db.insert(sessions).values(row);
@@ -29,7 +35,11 @@ export async function getSessionWithUser(id: string, db: Executor = getDb()) {
   return row ?? null;
 }
 
-export async function extendSession(id: string, expiresAt: Date, db: Executor = getDb()) {
+export async function extendSession(
+  id: string,
+  expiresAt: Date,
+  db: Executor = getDb(),
+) {
   await db.update(sessions).set({ expiresAt }).where(eq(sessions.id, id));
 }
 
@@ -37,6 +47,9 @@ export async function deleteSession(id: string, db: Executor = getDb()) {
   await db.delete(sessions).where(eq(sessions.id, id));
 }
 
-export async function deleteExpiredSessions(now = new Date(), db: Executor = getDb()) {
+export async function deleteExpiredSessions(
+  now = new Date(),
+  db: Executor = getDb(),
+) {
   await db.delete(sessions).where(lt(sessions.expiresAt, now));
 }

@@ -18,12 +18,18 @@ export function normaliseEmail(email: string): string {
 }
 
 export async function getUserById(id: number, db: Executor = getDb()) {
-  const [row] = await db.select(PUBLIC_COLUMNS).from(users).where(eq(users.id, id));
+  const [row] = await db
+    .select(PUBLIC_COLUMNS)
+    .from(users)
+    .where(eq(users.id, id));
   return row ?? null;
 }
 
 /** For sign-in only: includes the password hash. */
-export async function getUserCredentialsByEmail(email: string, db: Executor = getDb()) {
+export async function getUserCredentialsByEmail(
+  email: string,
+  db: Executor = getDb(),
+) {
   const [row] = await db
     .select({ ...PUBLIC_COLUMNS, passwordHash: users.passwordHash })
     .from(users)
@@ -32,7 +38,10 @@ export async function getUserCredentialsByEmail(email: string, db: Executor = ge
 }
 
 export async function getUserPasswordHash(id: number, db: Executor = getDb()) {
-  const [row] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, id));
+  const [row] = await db
+    .select({ passwordHash: users.passwordHash })
+    .from(users)
+    .where(eq(users.id, id));
   return row?.passwordHash ?? null;
 }
 
@@ -60,14 +69,25 @@ export async function updateUserProfile(
   await db.update(users).set(patch).where(eq(users.id, id));
 }
 
-export async function updateUserRole(id: number, role: Role, db: Executor = getDb()) {
+export async function updateUserRole(
+  id: number,
+  role: Role,
+  db: Executor = getDb(),
+) {
   await db.update(users).set({ role }).where(eq(users.id, id));
 }
 
 /** Disabling ends every session of the account at once. */
-export async function setUserDisabled(id: number, disabled: boolean, db: Executor = getDb()) {
+export async function setUserDisabled(
+  id: number,
+  disabled: boolean,
+  db: Executor = getDb(),
+) {
   await db.transaction(async (tx) => {
-    await tx.update(users).set({ disabledAt: disabled ? new Date() : null }).where(eq(users.id, id));
+    await tx
+      .update(users)
+      .set({ disabledAt: disabled ? new Date() : null })
+      .where(eq(users.id, id));
     if (disabled) await tx.delete(sessions).where(eq(sessions.userId, id));
   });
 }
@@ -86,7 +106,11 @@ export async function updateUserPassword(
     await tx.update(users).set({ passwordHash }).where(eq(users.id, id));
     await tx
       .delete(sessions)
-      .where(keepSessionId ? and(eq(sessions.userId, id), ne(sessions.id, keepSessionId)) : eq(sessions.userId, id));
+      .where(
+        keepSessionId
+          ? and(eq(sessions.userId, id), ne(sessions.id, keepSessionId))
+          : eq(sessions.userId, id),
+      );
     await voidPasswordResetLinks(id, new Date(), tx);
   });
 }
@@ -95,10 +119,23 @@ export async function updateUserPassword(
  * Claims the right to warn the owner that their account is under attack: true for the one caller (in any
  * process) that finds no warning sent within the last `windowMs`, false for everyone else.
  */
-export async function claimSignInAlert(id: number, now: Date, windowMs: number, db: Executor = getDb()): Promise<boolean> {
+export async function claimSignInAlert(
+  id: number,
+  now: Date,
+  windowMs: number,
+  db: Executor = getDb(),
+): Promise<boolean> {
   const [result] = await db
     .update(users)
     .set({ signInAlertAt: now, updatedAt: sql`${users.updatedAt}` })
-    .where(and(eq(users.id, id), or(isNull(users.signInAlertAt), lt(users.signInAlertAt, new Date(now.getTime() - windowMs)))));
+    .where(
+      and(
+        eq(users.id, id),
+        or(
+          isNull(users.signInAlertAt),
+          lt(users.signInAlertAt, new Date(now.getTime() - windowMs)),
+        ),
+      ),
+    );
   return result.affectedRows === 1;
 }

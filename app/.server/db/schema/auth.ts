@@ -1,4 +1,14 @@
-import { boolean, char, index, json, mysqlEnum, mysqlTable, timestamp, uniqueIndex, varchar } from "drizzle-orm/mysql-core";
+import {
+  boolean,
+  char,
+  index,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  timestamp,
+  uniqueIndex,
+  varchar,
+} from "drizzle-orm/mysql-core";
 import { createdAt, id, ref, updatedAt } from "./columns";
 
 // Kept in step with app/utils/permissions.ts (schema files import only drizzle-orm and relative paths).
@@ -15,7 +25,9 @@ export const users = mysqlTable(
     name: varchar("name", { length: 120 }).notNull(),
     role: mysqlEnum("role", ROLES).notNull().default("viewer"),
     passwordHash: varchar("password_hash", { length: 255 }),
-    unitSystem: mysqlEnum("unit_system", UNIT_SYSTEMS).notNull().default("field"),
+    unitSystem: mysqlEnum("unit_system", UNIT_SYSTEMS)
+      .notNull()
+      .default("field"),
     disabledAt: timestamp("disabled_at", { fsp: 3, mode: "date" }),
     /** When the owner was last told that their account is under attack (at most one message per window). */
     signInAlertAt: timestamp("sign_in_alert_at", { fsp: 3, mode: "date" }),
@@ -38,7 +50,10 @@ export const sessions = mysqlTable(
     ipAddress: varchar("ip_address", { length: 64 }),
     userAgent: varchar("user_agent", { length: 255 }),
   },
-  (t) => [index("sessions_user_id_idx").on(t.userId), index("sessions_expires_at_idx").on(t.expiresAt)],
+  (t) => [
+    index("sessions_user_id_idx").on(t.userId),
+    index("sessions_expires_at_idx").on(t.expiresAt),
+  ],
 );
 
 export const API_SCOPES = ["tables:read", "lookup"] as const;
@@ -55,11 +70,16 @@ export const apiTokens = mysqlTable(
     name: varchar("name", { length: 120 }).notNull(),
     scopes: json("scopes").$type<ApiScope[]>().notNull(),
     /** Optional restriction: only these fields and/or samples; null = everything the owner may read. */
-    restriction: json("restriction").$type<{ fieldIds?: number[]; sampleIds?: number[] } | null>(),
+    restriction: json("restriction").$type<{
+      fieldIds?: number[];
+      sampleIds?: number[];
+    } | null>(),
     expiresAt: timestamp("expires_at", { fsp: 3, mode: "date" }).notNull(),
     lastUsedAt: timestamp("last_used_at", { fsp: 3, mode: "date" }),
     revokedAt: timestamp("revoked_at", { fsp: 3, mode: "date" }),
-    revokedBy: ref("revoked_by").references(() => users.id, { onDelete: "set null" }),
+    revokedBy: ref("revoked_by").references(() => users.id, {
+      onDelete: "set null",
+    }),
     createdAt: createdAt(),
   },
   (t) => [index("api_tokens_user_id_idx").on(t.userId)],
@@ -79,7 +99,10 @@ export const auditLog = mysqlTable(
     details: json("details").$type<Record<string, unknown>>(),
     ipAddress: varchar("ip_address", { length: 64 }),
   },
-  (t) => [index("audit_log_created_at_idx").on(t.createdAt), index("audit_log_user_id_idx").on(t.userId)],
+  (t) => [
+    index("audit_log_created_at_idx").on(t.createdAt),
+    index("audit_log_user_id_idx").on(t.userId),
+  ],
 );
 
 export type User = typeof users.$inferSelect;
@@ -103,12 +126,17 @@ export const linkTokens = mysqlTable(
     role: mysqlEnum("role", ROLES),
     /** Account whose password a reset link changes. */
     userId: ref("user_id").references(() => users.id, { onDelete: "cascade" }),
-    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdBy: ref("created_by").references(() => users.id, {
+      onDelete: "set null",
+    }),
     expiresAt: timestamp("expires_at", { fsp: 3, mode: "date" }).notNull(),
     usedAt: timestamp("used_at", { fsp: 3, mode: "date" }),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("link_tokens_token_hash_unique").on(t.tokenHash), index("link_tokens_email_idx").on(t.email)],
+  (t) => [
+    uniqueIndex("link_tokens_token_hash_unique").on(t.tokenHash),
+    index("link_tokens_email_idx").on(t.email),
+  ],
 );
 
 /**
@@ -126,8 +154,15 @@ export const signInAttempts = mysqlTable(
   },
   (t) => [
     index("sign_in_attempts_email_created_at_idx").on(t.email, t.createdAt),
-    index("sign_in_attempts_ip_address_created_at_idx").on(t.ipAddress, t.createdAt),
-    index("sign_in_attempts_email_ip_address_created_at_idx").on(t.email, t.ipAddress, t.createdAt),
+    index("sign_in_attempts_ip_address_created_at_idx").on(
+      t.ipAddress,
+      t.createdAt,
+    ),
+    index("sign_in_attempts_email_ip_address_created_at_idx").on(
+      t.email,
+      t.ipAddress,
+      t.createdAt,
+    ),
   ],
 );
 
@@ -143,8 +178,14 @@ export const passwordResetRequests = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [
-    index("password_reset_requests_email_created_at_idx").on(t.email, t.createdAt),
-    index("password_reset_requests_ip_address_created_at_idx").on(t.ipAddress, t.createdAt),
+    index("password_reset_requests_email_created_at_idx").on(
+      t.email,
+      t.createdAt,
+    ),
+    index("password_reset_requests_ip_address_created_at_idx").on(
+      t.ipAddress,
+      t.createdAt,
+    ),
   ],
 );
 

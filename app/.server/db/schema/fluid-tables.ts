@@ -47,7 +47,12 @@ export const wells = mysqlTable(
   (t) => [uniqueIndex("wells_field_id_name_unique").on(t.fieldId, t.name)],
 );
 
-export const SAMPLE_TYPES = ["bottomhole", "separator_recombined", "wellhead", "formation_tester"] as const;
+export const SAMPLE_TYPES = [
+  "bottomhole",
+  "separator_recombined",
+  "wellhead",
+  "formation_tester",
+] as const;
 export type SampleType = (typeof SAMPLE_TYPES)[number];
 
 export const samples = mysqlTable(
@@ -65,19 +70,30 @@ export const samples = mysqlTable(
     reservoirTemperatureF: double("reservoir_temperature_f"),
     stockTankApi: double("stock_tank_api"),
     gasSpecificGravity: double("gas_specific_gravity"),
-    standardPressurePsia: double("standard_pressure_psia").notNull().default(14.696),
-    standardTemperatureF: double("standard_temperature_f").notNull().default(60),
+    standardPressurePsia: double("standard_pressure_psia")
+      .notNull()
+      .default(14.696),
+    standardTemperatureF: double("standard_temperature_f")
+      .notNull()
+      .default(60),
     laboratory: varchar("laboratory", { length: 160 }),
     reportReference: varchar("report_reference", { length: 160 }),
     notes: text("notes"),
-    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdBy: ref("created_by").references(() => users.id, {
+      onDelete: "set null",
+    }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
   (t) => [uniqueIndex("samples_well_id_label_unique").on(t.wellId, t.label)],
 );
 
-export const REVISION_STATUSES = ["draft", "approved", "rejected", "superseded"] as const;
+export const REVISION_STATUSES = [
+  "draft",
+  "approved",
+  "rejected",
+  "superseded",
+] as const;
 export type RevisionStatus = (typeof REVISION_STATUSES)[number];
 
 /** An immutable set of measured grids for one sample. Numbered 1, 2, 3… per sample. */
@@ -94,14 +110,21 @@ export const sampleRevisions = mysqlTable(
     sourceFilename: varchar("source_filename", { length: 255 }),
     sourceSha256: char("source_sha256", { length: 64 }),
     qcReport: json("qc_report").$type<unknown>(),
-    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdBy: ref("created_by").references(() => users.id, {
+      onDelete: "set null",
+    }),
     createdAt: createdAt(),
-    reviewedBy: ref("reviewed_by").references(() => users.id, { onDelete: "set null" }),
+    reviewedBy: ref("reviewed_by").references(() => users.id, {
+      onDelete: "set null",
+    }),
     reviewedAt: timestamp("reviewed_at", { fsp: 3, mode: "date" }),
     reviewComment: text("review_comment"),
   },
   (t) => [
-    uniqueIndex("sample_revisions_sample_id_number_unique").on(t.sampleId, t.number),
+    uniqueIndex("sample_revisions_sample_id_number_unique").on(
+      t.sampleId,
+      t.number,
+    ),
     index("sample_revisions_status_idx").on(t.status),
   ],
 );
@@ -117,7 +140,12 @@ export const revisionBubblePoints = mysqlTable(
     temperatureF: double("temperature_f").notNull(),
     bubblePointPsia: double("bubble_point_psia").notNull(),
   },
-  (t) => [uniqueIndex("revision_bubble_points_revision_id_temperature_f_unique").on(t.revisionId, t.temperatureF)],
+  (t) => [
+    uniqueIndex("revision_bubble_points_revision_id_temperature_f_unique").on(
+      t.revisionId,
+      t.temperatureF,
+    ),
+  ],
 );
 
 export const PROPERTY_KEYS = [
@@ -146,7 +174,12 @@ export const propertyGrids = mysqlTable(
     sourceUnit: varchar("source_unit", { length: 32 }),
     meta: json("meta").$type<Record<string, unknown>>(),
   },
-  (t) => [uniqueIndex("property_grids_revision_id_property_unique").on(t.revisionId, t.property)],
+  (t) => [
+    uniqueIndex("property_grids_revision_id_property_unique").on(
+      t.revisionId,
+      t.property,
+    ),
+  ],
 );
 
 export const gridPoints = mysqlTable(
@@ -160,7 +193,13 @@ export const gridPoints = mysqlTable(
     temperatureF: double("temperature_f").notNull(),
     value: double("value").notNull(),
   },
-  (t) => [uniqueIndex("grid_points_grid_id_pressure_psia_temperature_f_unique").on(t.gridId, t.pressurePsia, t.temperatureF)],
+  (t) => [
+    uniqueIndex("grid_points_grid_id_pressure_psia_temperature_f_unique").on(
+      t.gridId,
+      t.pressurePsia,
+      t.temperatureF,
+    ),
+  ],
 );
 
 export type Field = typeof fields.$inferSelect;
@@ -184,7 +223,12 @@ export const sampleFollows = mysqlTable(
       .references(() => users.id, { onDelete: "cascade" }),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("sample_follows_sample_id_user_id_unique").on(t.sampleId, t.userId)],
+  (t) => [
+    uniqueIndex("sample_follows_sample_id_user_id_unique").on(
+      t.sampleId,
+      t.userId,
+    ),
+  ],
 );
 
 /** A named set of conditions (e.g. a well's depletion path) that an engineer re-runs against a sample. */
@@ -201,7 +245,9 @@ export const lookupSets = mysqlTable(
     name: varchar("name", { length: 120 }).notNull(),
     properties: json("properties").$type<PropertyKey[]>().notNull(),
     /** Conditions in canonical units (psia, °F). */
-    conditions: json("conditions").$type<{ pressurePsia: number; temperatureF: number }[]>().notNull(),
+    conditions: json("conditions")
+      .$type<{ pressurePsia: number; temperatureF: number }[]>()
+      .notNull(),
     method: varchar("method", { length: 16 }).notNull(),
     degree: json("degree").$type<number | [number, number] | null>(),
     createdAt: createdAt(),
@@ -218,11 +264,22 @@ export const lookupRuns = mysqlTable(
     setId: ref("set_id")
       .notNull()
       .references(() => lookupSets.id, { onDelete: "cascade" }),
-    revisionId: ref("revision_id").references(() => sampleRevisions.id, { onDelete: "set null" }),
+    revisionId: ref("revision_id").references(() => sampleRevisions.id, {
+      onDelete: "set null",
+    }),
     revisionNumber: int("revision_number", { unsigned: true }).notNull(),
     method: varchar("method", { length: 16 }).notNull(),
-    results: json("results").$type<Record<string, { value: number; errorEstimate: number; warnings: string[] }[]>>().notNull(),
-    createdBy: ref("created_by").references(() => users.id, { onDelete: "set null" }),
+    results: json("results")
+      .$type<
+        Record<
+          string,
+          { value: number; errorEstimate: number; warnings: string[] }[]
+        >
+      >()
+      .notNull(),
+    createdBy: ref("created_by").references(() => users.id, {
+      onDelete: "set null",
+    }),
     createdAt: createdAt(),
   },
   (t) => [index("lookup_runs_set_id_idx").on(t.setId)],

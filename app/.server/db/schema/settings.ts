@@ -9,7 +9,9 @@ import { ref, updatedAt } from "./columns";
 export const labSettings = mysqlTable("lab_settings", {
   key: varchar("key", { length: 64 }).primaryKey(),
   value: varchar("value", { length: 255 }).notNull(),
-  updatedBy: ref("updated_by").references(() => users.id, { onDelete: "set null" }),
+  updatedBy: ref("updated_by").references(() => users.id, {
+    onDelete: "set null",
+  }),
   updatedAt: updatedAt(),
 });
 

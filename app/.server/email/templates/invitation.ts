@@ -1,7 +1,12 @@
 import { ROLE_LABELS, type Role } from "~/utils/permissions";
 import { renderMessage } from "./layout";
 
-export function invitationEmail(input: { inviterName: string; role: Role; url: string; expiresInHours: number }) {
+export function invitationEmail(input: {
+  inviterName: string;
+  role: Role;
+  url: string;
+  expiresInHours: number;
+}) {
   return {
     subject: "You are invited to Isopleth",
     ...renderMessage(

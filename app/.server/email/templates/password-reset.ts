@@ -1,6 +1,9 @@
 import { renderMessage } from "./layout";
 
-export function passwordResetEmail(input: { url: string; expiresInMinutes: number }) {
+export function passwordResetEmail(input: {
+  url: string;
+  expiresInMinutes: number;
+}) {
   return {
     subject: "Reset your Isopleth password",
     ...renderMessage(

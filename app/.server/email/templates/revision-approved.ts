@@ -18,8 +18,19 @@ export function revisionApprovedEmail(input: {
   return {
     subject: `New approved tables for ${input.sampleLabel}: revision ${input.number}`,
     ...renderMessage(
-      [what, input.previousNumber === null ? "Open the revision to see its grids and quality checks." : "Open the comparison to see which measured values changed, were added or were removed."],
-      { label: input.previousNumber === null ? "See the revision" : `Compare revision ${input.previousNumber} with revision ${input.number}`, url: input.url },
+      [
+        what,
+        input.previousNumber === null
+          ? "Open the revision to see its grids and quality checks."
+          : "Open the comparison to see which measured values changed, were added or were removed.",
+      ],
+      {
+        label:
+          input.previousNumber === null
+            ? "See the revision"
+            : `Compare revision ${input.previousNumber} with revision ${input.number}`,
+        url: input.url,
+      },
       "You receive this because you follow this sample in Isopleth. Unfollow it on the sample's page to stop these messages.",
     ),
   };

@@ -1,6 +1,10 @@
 import { renderMessage } from "./layout";
 
-export function signInAlertEmail(input: { failures: number; windowMinutes: number; accountUrl: string }) {
+export function signInAlertEmail(input: {
+  failures: number;
+  windowMinutes: number;
+  accountUrl: string;
+}) {
   return {
     subject: "Failed sign-in attempts on your Isopleth account",
     ...renderMessage(

@@ -2,7 +2,11 @@
  * Cross-property rules: saturated-consistency (dBo/dp < Bg·dRs/dp), bg-z-consistency, bg-implied-z and
  * density-mass-balance.
  */
-import { CUBIC_FOOT_PER_BARREL, FIELD_STANDARD_CONDITIONS, type StandardConditions } from "../../units";
+import {
+  CUBIC_FOOT_PER_BARREL,
+  FIELD_STANDARD_CONDITIONS,
+  type StandardConditions,
+} from "../../units";
 import { gasFvf } from "../../properties/gas-properties";
 import { massBalanceOilDensity } from "../../properties/oil-density";
 import { saturatedConsistencyTest } from "../../properties/saturated-branch";
@@ -14,22 +18,40 @@ import { branchOf } from "./trends";
 function standardConditions(ctx: QcContext): StandardConditions {
   const sc = ctx.meta.standardConditions;
   if (sc && sc.pressurePsia > 0 && Number.isFinite(sc.temperatureF)) {
-    return { id: "report", label: "report", pressurePsia: sc.pressurePsia, temperatureF: sc.temperatureF };
+    return {
+      id: "report",
+      label: "report",
+      pressurePsia: sc.pressurePsia,
+      temperatureF: sc.temperatureF,
+    };
   }
   return FIELD_STANDARD_CONDITIONS;
 }
 
 /** Bg (rb/scf) for Z = 1 at (p, T): multiply by Z to get Bg. */
-function idealBg(ctx: QcContext, pressure: number, temperature: number): number | undefined {
+function idealBg(
+  ctx: QcContext,
+  pressure: number,
+  temperature: number,
+): number | undefined {
   try {
-    return gasFvf({ pressure, temperature, z: 1, standardConditions: standardConditions(ctx) }).value;
+    return gasFvf({
+      pressure,
+      temperature,
+      z: 1,
+      standardConditions: standardConditions(ctx),
+    }).value;
   } catch {
     return undefined;
   }
 }
 
 /** Bg at (p, T): measured, or from the measured Z. */
-function bgAt(ctx: QcContext, pressure: number, temperature: number): number | null {
+function bgAt(
+  ctx: QcContext,
+  pressure: number,
+  temperature: number,
+): number | null {
   const bg = ctx.valueAt("gas_fvf", pressure, temperature);
   if (bg !== undefined) return bg;
   const z = ctx.valueAt("z_factor", pressure, temperature);
@@ -46,8 +68,16 @@ export function checkSaturatedConsistency(ctx: QcContext): void {
     const bo = branchOf(ctx.series("oil_fvf", t), bubble, "saturated");
     const rs = ctx.series("solution_gor", t);
     const points = bo
-      .map((b) => ({ pressure: b.pressure, oilFvf: b.value, solutionGor: rs.find((r) => samePressure(r.pressure, b.pressure))?.value }))
-      .filter((p): p is { pressure: number; oilFvf: number; solutionGor: number } => p.solutionGor !== undefined)
+      .map((b) => ({
+        pressure: b.pressure,
+        oilFvf: b.value,
+        solutionGor: rs.find((r) => samePressure(r.pressure, b.pressure))
+          ?.value,
+      }))
+      .filter(
+        (p): p is { pressure: number; oilFvf: number; solutionGor: number } =>
+          p.solutionGor !== undefined,
+      )
       .map((p) => ({ ...p, gasFvf: bgAt(ctx, p.pressure, t) }));
     for (let i = 1; i < points.length; i++) {
       const lo = points[i - 1];
@@ -57,7 +87,13 @@ export function checkSaturatedConsistency(ctx: QcContext): void {
         skipped = true;
         continue;
       }
-      if (!(lo.oilFvf > 0 && hi.oilFvf > 0 && lo.solutionGor >= 0 && hi.solutionGor >= 0)) continue; // plausible-range reports these
+      if (!(
+        lo.oilFvf > 0 &&
+        hi.oilFvf > 0 &&
+        lo.solutionGor >= 0 &&
+        hi.solutionGor >= 0
+      ))
+        continue; // plausible-range reports these
       let interval;
       try {
         interval = saturatedConsistencyTest([lo, hi]).intervals[0];
@@ -94,22 +130,36 @@ export function checkSaturatedConsistency(ctx: QcContext): void {
   }
 }
 
-const UNIT_SLIPS: readonly { readonly ratio: number; readonly hint: string }[] = [
-  { ratio: CUBIC_FOOT_PER_BARREL, hint: "the values look like ft³/scf (or rm³/sm³) labelled as rb/scf" },
-  { ratio: 1 / CUBIC_FOOT_PER_BARREL, hint: "the values look like rb/scf labelled as ft³/scf" },
-  { ratio: 1000, hint: "the values look like rb/Mscf labelled as rb/scf" },
-  { ratio: 1 / 1000, hint: "the values look like rb/scf labelled as rb/Mscf" },
-];
+const UNIT_SLIPS: readonly { readonly ratio: number; readonly hint: string }[] =
+  [
+    {
+      ratio: CUBIC_FOOT_PER_BARREL,
+      hint: "the values look like ft³/scf (or rm³/sm³) labelled as rb/scf",
+    },
+    {
+      ratio: 1 / CUBIC_FOOT_PER_BARREL,
+      hint: "the values look like rb/scf labelled as ft³/scf",
+    },
+    { ratio: 1000, hint: "the values look like rb/Mscf labelled as rb/scf" },
+    {
+      ratio: 1 / 1000,
+      hint: "the values look like rb/scf labelled as rb/Mscf",
+    },
+  ];
 
 /** For a Bg that implies an impossible Z: the unit slip that would make Z plausible. */
 function impliedSlipHint(z: number): string {
   const slip = UNIT_SLIPS.find((s) => z / s.ratio >= 0.3 && z / s.ratio <= 2.0);
-  return slip ? `${slip.hint}; check the unit in the header` : "check the unit in the header and the standard conditions";
+  return slip
+    ? `${slip.hint}; check the unit in the header`
+    : "check the unit in the header and the standard conditions";
 }
 
 function slipHint(ratio: number): string {
   const slip = UNIT_SLIPS.find((s) => Math.abs(ratio / s.ratio - 1) < 0.05);
-  return slip ? `${slip.hint}; check the unit in the header` : "check the unit, the standard conditions and the Z values";
+  return slip
+    ? `${slip.hint}; check the unit in the header`
+    : "check the unit, the standard conditions and the Z values";
 }
 
 /** bg-z-consistency (Bg and Z both given) and bg-implied-z (Bg alone). */
@@ -117,8 +167,14 @@ export function checkGasConsistency(ctx: QcContext): void {
   const grid = ctx.grid("gas_fvf");
   if (!grid) return;
   grid.temperatures.forEach((t, j) => {
-    const mismatch: { cells: QcCell[]; worst: number; ratio: number; p: number } = { cells: [], worst: 0, ratio: 1, p: 0 };
-    const implied: { cells: QcCell[]; z: number; p: number; extreme: number } = { cells: [], z: 1, p: 0, extreme: 0 };
+    const mismatch: {
+      cells: QcCell[];
+      worst: number;
+      ratio: number;
+      p: number;
+    } = { cells: [], worst: 0, ratio: 1, p: 0 };
+    const implied: { cells: QcCell[]; z: number; p: number; extreme: number } =
+      { cells: [], z: 1, p: 0, extreme: 0 };
     grid.pressures.forEach((p, i) => {
       const bg = grid.values[i]?.[j];
       if (typeof bg !== "number" || !(bg > 0)) return;
@@ -130,14 +186,16 @@ export function checkGasConsistency(ctx: QcContext): void {
         const dev = Math.abs(ratio - 1);
         if (dev > 0.01) {
           mismatch.cells.push(cell("gas_fvf", p, t), cell("z_factor", p, t));
-          if (dev > mismatch.worst) Object.assign(mismatch, { worst: dev, ratio, p });
+          if (dev > mismatch.worst)
+            Object.assign(mismatch, { worst: dev, ratio, p });
         }
       } else {
         const zi = bg / ideal;
         if (zi < 0.3 || zi > 2.0) {
           implied.cells.push(cell("gas_fvf", p, t));
           const extreme = Math.abs(Math.log(zi));
-          if (extreme > implied.extreme) Object.assign(implied, { z: zi, p, extreme });
+          if (extreme > implied.extreme)
+            Object.assign(implied, { z: zi, p, extreme });
         }
       }
     });
@@ -174,17 +232,25 @@ export function checkDensityMassBalance(ctx: QcContext): void {
       const rho = grid.values[i]?.[j];
       const rs = ctx.valueAt("solution_gor", p, t);
       const bo = ctx.valueAt("oil_fvf", p, t);
-      if (typeof rho !== "number" || rs === undefined || bo === undefined) return;
+      if (typeof rho !== "number" || rs === undefined || bo === undefined)
+        return;
       let computed: number;
       try {
-        computed = massBalanceOilDensity({ apiGravity, gasGravity, solutionGor: rs, oilFvf: bo, standardConditions: standardConditions(ctx) }).value;
+        computed = massBalanceOilDensity({
+          apiGravity,
+          gasGravity,
+          solutionGor: rs,
+          oilFvf: bo,
+          standardConditions: standardConditions(ctx),
+        }).value;
       } catch {
         return;
       }
       const dev = rho / computed - 1;
       if (Math.abs(dev) <= 0.05) return;
       cells.push(cell("oil_density", p, t));
-      if (Math.abs(dev) > Math.abs(worst.dev)) worst = { dev, p, measured: rho, computed };
+      if (Math.abs(dev) > Math.abs(worst.dev))
+        worst = { dev, p, measured: rho, computed };
     });
     if (cells.length === 0) return;
     ctx.add(

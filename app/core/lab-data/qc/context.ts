@@ -3,7 +3,15 @@
  * from the sample record, or inferred), series of one property at one temperature, and message helpers.
  */
 import { PROPERTY_KEYS, type PropertyKey } from "../../units";
-import type { BubblePoint, Finding, ParsedDataset, PropertyGrid, QcCell, QcFindingCode, Severity } from "../types";
+import type {
+  BubblePoint,
+  Finding,
+  ParsedDataset,
+  PropertyGrid,
+  QcCell,
+  QcFindingCode,
+  Severity,
+} from "../types";
 import { CANONICAL_REFS, withUnit } from "./format";
 import { RULES, type RuleId } from "./rules";
 
@@ -20,12 +28,18 @@ export interface QcMeta {
   /** Gas specific gravity (air = 1): enables the correlation and density checks. */
   readonly gasGravity?: number;
   /** Standard conditions of the report (default 60 °F, 14.696 psia), for the Bg–Z check. */
-  readonly standardConditions?: { readonly pressurePsia: number; readonly temperatureF: number };
+  readonly standardConditions?: {
+    readonly pressurePsia: number;
+    readonly temperatureF: number;
+  };
   /**
    * Bubble points from the sample record (psia at °F): used at temperatures where the file states none,
    * and compared with the file where both do.
    */
-  readonly bubblePoints?: readonly { readonly temperature: number; readonly pressure: number }[];
+  readonly bubblePoints?: readonly {
+    readonly temperature: number;
+    readonly pressure: number;
+  }[];
   /** Barometric pressure (psia) for showing gauge pressures in messages. */
   readonly barometricPsia?: number;
 }
@@ -64,7 +78,9 @@ export class QcContext {
   series(property: PropertyKey, temperature: number): Point[] {
     const grid = this.grids.get(property);
     if (!grid) return [];
-    const j = grid.temperatures.findIndex((t) => Math.abs(t - temperature) <= TEMPERATURE_TOLERANCE);
+    const j = grid.temperatures.findIndex(
+      (t) => Math.abs(t - temperature) <= TEMPERATURE_TOLERANCE,
+    );
     if (j < 0) return [];
     const out: Point[] = [];
     grid.pressures.forEach((p, i) => {
@@ -75,30 +91,47 @@ export class QcContext {
   }
 
   /** The value of a property at (p, T), or undefined. */
-  valueAt(property: PropertyKey, pressure: number, temperature: number): number | undefined {
-    return this.series(property, temperature).find((pt) => samePressure(pt.pressure, pressure))?.value;
+  valueAt(
+    property: PropertyKey,
+    pressure: number,
+    temperature: number,
+  ): number | undefined {
+    return this.series(property, temperature).find((pt) =>
+      samePressure(pt.pressure, pressure),
+    )?.value;
   }
 
   bubbleAt(temperature: number): BubbleAt | undefined {
-    for (const [t, b] of this.bubble) if (Math.abs(t - temperature) <= TEMPERATURE_TOLERANCE) return b;
+    for (const [t, b] of this.bubble)
+      if (Math.abs(t - temperature) <= TEMPERATURE_TOLERANCE) return b;
     return undefined;
   }
 
   /** "at 220 °F" in the file's temperature unit. */
   t(temperature: number, property?: PropertyKey): string {
-    const ref = (property && this.grids.get(property)?.temperatureUnit) ?? this.firstGrid()?.temperatureUnit ?? CANONICAL_REFS.temperature;
+    const ref =
+      (property && this.grids.get(property)?.temperatureUnit) ??
+      this.firstGrid()?.temperatureUnit ??
+      CANONICAL_REFS.temperature;
     return withUnit(temperature, ref);
   }
 
   /** A pressure in the file's pressure unit. */
   p(pressure: number, property?: PropertyKey): string {
-    const ref = (property && this.grids.get(property)?.pressureUnit) ?? this.firstGrid()?.pressureUnit ?? CANONICAL_REFS.pressure;
+    const ref =
+      (property && this.grids.get(property)?.pressureUnit) ??
+      this.firstGrid()?.pressureUnit ??
+      CANONICAL_REFS.pressure;
     return withUnit(pressure, ref, this.meta.barometricPsia, 5);
   }
 
   /** A property value in the file's unit for it. */
   v(property: PropertyKey, value: number): string {
-    return withUnit(value, this.grids.get(property)?.unit, this.meta.barometricPsia);
+    return withUnit(
+      value,
+      this.grids.get(property)?.unit,
+      this.meta.barometricPsia,
+    );
   }
 
   firstGrid(): PropertyGrid | undefined {
@@ -109,9 +142,18 @@ export class QcContext {
     return undefined;
   }
 
-  private readonly perRule = new Map<RuleId, { count: number; dropped: number; cells: number }>();
+  private readonly perRule = new Map<
+    RuleId,
+    { count: number; dropped: number; cells: number }
+  >();
 
-  add(rule: RuleId, code: QcFindingCode, severity: Severity, cells: readonly QcCell[], message: string): void {
+  add(
+    rule: RuleId,
+    code: QcFindingCode,
+    severity: Severity,
+    cells: readonly QcCell[],
+    message: string,
+  ): void {
     const tally = this.perRule.get(rule) ?? { count: 0, dropped: 0, cells: 0 };
     this.perRule.set(rule, tally);
     if (tally.count >= MAX_FINDINGS_PER_RULE) {
@@ -120,7 +162,14 @@ export class QcContext {
       return;
     }
     tally.count++;
-    this.findings.push({ code, severity, message, cells, rule, source: RULES[rule].source });
+    this.findings.push({
+      code,
+      severity,
+      message,
+      cells,
+      rule,
+      source: RULES[rule].source,
+    });
   }
 
   /** One closing note per rule whose findings were cut short. */
@@ -140,15 +189,26 @@ export class QcContext {
 }
 
 export function samePressure(a: number, b: number): boolean {
-  return Math.abs(a - b) <= PRESSURE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b), 1);
+  return (
+    Math.abs(a - b) <=
+    PRESSURE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b), 1)
+  );
 }
 
-export function cell(property: PropertyKey | "bubble_point", pressure: number, temperature: number): QcCell {
+export function cell(
+  property: PropertyKey | "bubble_point",
+  pressure: number,
+  temperature: number,
+): QcCell {
   return { property, pressure, temperature };
 }
 
 export function bubbleOriginText(b: BubbleAt): string {
-  return b.origin === "file" ? "stated in the file" : b.origin === "sample" ? "from the sample record" : "inferred from the data";
+  return b.origin === "file"
+    ? "stated in the file"
+    : b.origin === "sample"
+      ? "from the sample record"
+      : "inferred from the data";
 }
 
 export type { BubblePoint };

@@ -10,9 +10,15 @@
  * A departure beyond the band is an info note; beyond twice the band a warning.
  */
 import { beggsRobinsonOilViscosity } from "../../properties/beggs-robinson";
-import { gasDensity, leeGonzalezEakinViscosity } from "../../properties/gas-properties";
+import {
+  gasDensity,
+  leeGonzalezEakinViscosity,
+} from "../../properties/gas-properties";
 import { standingBubblePoint, standingOilFvf } from "../../properties/standing";
-import { vasquezBeggsBubblePoint, vasquezBeggsOilFvf } from "../../properties/vasquez-beggs";
+import {
+  vasquezBeggsBubblePoint,
+  vasquezBeggsOilFvf,
+} from "../../properties/vasquez-beggs";
 import { gasZFactor } from "../../properties/z-factor";
 import type { PropertyKey } from "../../units";
 import { HEADER_LABELS } from "../header-names";
@@ -45,19 +51,28 @@ function tryValue(f: () => { value: number }): number | undefined {
 }
 
 /** The departure from the closest of several estimates (measured/estimate − 1). */
-function closest(measured: number, estimates: readonly (number | undefined)[]): { departure: number; estimate: number } | null {
+function closest(
+  measured: number,
+  estimates: readonly (number | undefined)[],
+): { departure: number; estimate: number } | null {
   let best: { departure: number; estimate: number } | null = null;
   for (const e of estimates) {
     if (e === undefined) continue;
     const departure = measured / e - 1;
-    if (!best || Math.abs(departure) < Math.abs(best.departure)) best = { departure, estimate: e };
+    if (!best || Math.abs(departure) < Math.abs(best.departure))
+      best = { departure, estimate: e };
   }
   return best;
 }
 
 export function checkCorrelations(ctx: QcContext): void {
   const { apiGravity, gasGravity } = ctx.meta;
-  if (apiGravity === undefined || gasGravity === undefined || !(apiGravity > 0) || !(gasGravity > 0)) {
+  if (
+    apiGravity === undefined ||
+    gasGravity === undefined ||
+    !(apiGravity > 0) ||
+    !(gasGravity > 0)
+  ) {
     if (ctx.grids.size > 0) {
       ctx.add(
         "correlation-departure",
@@ -75,64 +90,122 @@ export function checkCorrelations(ctx: QcContext): void {
     const bubble = ctx.bubbleAt(t);
     if (!bubble || bubble.lowerBound) continue;
     const pb = bubble.pressure;
-    const under = ctx.series("solution_gor", t).filter((p) => p.pressure >= pb || samePressure(p.pressure, pb));
+    const under = ctx
+      .series("solution_gor", t)
+      .filter((p) => p.pressure >= pb || samePressure(p.pressure, pb));
     const rsb = ctx.valueAt("solution_gor", pb, t) ?? under[0]?.value;
     if (rsb === undefined || !(rsb > 0)) continue;
     const at = { ...fluid, temperature: t, solutionGor: rsb };
 
     if (bubble.origin !== "inferred") {
-      const c = closest(pb, [tryValue(() => standingBubblePoint(at)), tryValue(() => vasquezBeggsBubblePoint(at))]);
-      report(ctx, c, CORRELATION_BANDS.bubblePoint, [cell("bubble_point", pb, t)], (d, e) =>
-        `At ${ctx.t(t)} the bubble point ${ctx.p(pb)} departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.p(e)}, Standing or Vasquez–Beggs at Rsb); worth a look, not necessarily wrong.`,
+      const c = closest(pb, [
+        tryValue(() => standingBubblePoint(at)),
+        tryValue(() => vasquezBeggsBubblePoint(at)),
+      ]);
+      report(
+        ctx,
+        c,
+        CORRELATION_BANDS.bubblePoint,
+        [cell("bubble_point", pb, t)],
+        (d, e) =>
+          `At ${ctx.t(t)} the bubble point ${ctx.p(pb)} departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.p(e)}, Standing or Vasquez–Beggs at Rsb); worth a look, not necessarily wrong.`,
       );
     }
     const bob = ctx.valueAt("oil_fvf", pb, t);
     if (bob !== undefined) {
-      const c = closest(bob, [tryValue(() => standingOilFvf(at)), tryValue(() => vasquezBeggsOilFvf(at))]);
-      report(ctx, c, CORRELATION_BANDS.oilFvf, [cell("oil_fvf", pb, t)], (d, e) =>
-        `At ${ctx.t(t, "oil_fvf")} Bo at the bubble point (${ctx.v("oil_fvf", bob)}) departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.v("oil_fvf", e)}, Standing or Vasquez–Beggs); worth a look, not necessarily wrong.`,
+      const c = closest(bob, [
+        tryValue(() => standingOilFvf(at)),
+        tryValue(() => vasquezBeggsOilFvf(at)),
+      ]);
+      report(
+        ctx,
+        c,
+        CORRELATION_BANDS.oilFvf,
+        [cell("oil_fvf", pb, t)],
+        (d, e) =>
+          `At ${ctx.t(t, "oil_fvf")} Bo at the bubble point (${ctx.v("oil_fvf", bob)}) departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.v("oil_fvf", e)}, Standing or Vasquez–Beggs); worth a look, not necessarily wrong.`,
       );
     }
     const mub = ctx.valueAt("oil_viscosity", pb, t);
     if (mub !== undefined) {
       const c = closest(mub, [tryValue(() => beggsRobinsonOilViscosity(at))]);
-      report(ctx, c, CORRELATION_BANDS.oilViscosity, [cell("oil_viscosity", pb, t)], (d, e) =>
-        `At ${ctx.t(t, "oil_viscosity")} the oil viscosity at the bubble point (${ctx.v("oil_viscosity", mub)}) departs by ${signedPercent(d)} from the Beggs–Robinson estimate (${ctx.v("oil_viscosity", e)}); correlation errors this large are common, so this is worth a look only.`,
+      report(
+        ctx,
+        c,
+        CORRELATION_BANDS.oilViscosity,
+        [cell("oil_viscosity", pb, t)],
+        (d, e) =>
+          `At ${ctx.t(t, "oil_viscosity")} the oil viscosity at the bubble point (${ctx.v("oil_viscosity", mub)}) departs by ${signedPercent(d)} from the Beggs–Robinson estimate (${ctx.v("oil_viscosity", e)}); correlation errors this large are common, so this is worth a look only.`,
       );
     }
   }
 
   // Gas: Z and μg at every measured point, one note per property and temperature.
-  for (const key of ["z_factor", "gas_viscosity"] as const satisfies readonly PropertyKey[]) {
+  for (const key of [
+    "z_factor",
+    "gas_viscosity",
+  ] as const satisfies readonly PropertyKey[]) {
     const grid = ctx.grid(key);
     if (!grid) continue;
-    const band = key === "z_factor" ? CORRELATION_BANDS.zFactor : CORRELATION_BANDS.gasViscosity;
+    const band =
+      key === "z_factor"
+        ? CORRELATION_BANDS.zFactor
+        : CORRELATION_BANDS.gasViscosity;
     grid.temperatures.forEach((t, j) => {
-      const groups = new Map<Severity, { cells: QcCell[]; worst: number; p: number; measured: number; estimate: number }>();
+      const groups = new Map<
+        Severity,
+        {
+          cells: QcCell[];
+          worst: number;
+          p: number;
+          measured: number;
+          estimate: number;
+        }
+      >();
       grid.pressures.forEach((p, i) => {
         const measured = grid.values[i]?.[j];
         if (typeof measured !== "number" || !(measured > 0)) return;
-        const zCorr = tryValue(() => gasZFactor({ pressure: p, temperature: t, gasGravity }));
+        const zCorr = tryValue(() =>
+          gasZFactor({ pressure: p, temperature: t, gasGravity }),
+        );
         let estimate: number | undefined;
         if (key === "z_factor") estimate = zCorr;
         else {
           const z = ctx.valueAt("z_factor", p, t) ?? zCorr;
           if (z === undefined) return;
-          const rho = tryValue(() => gasDensity({ pressure: p, temperature: t, z, gasGravity }));
+          const rho = tryValue(() =>
+            gasDensity({ pressure: p, temperature: t, z, gasGravity }),
+          );
           if (rho === undefined) return;
-          estimate = tryValue(() => leeGonzalezEakinViscosity({ temperature: t, gasDensity: rho, gasGravity }));
+          estimate = tryValue(() =>
+            leeGonzalezEakinViscosity({
+              temperature: t,
+              gasDensity: rho,
+              gasGravity,
+            }),
+          );
         }
         if (estimate === undefined) return;
         const d = measured / estimate - 1;
         const severity = severityFor(d, band);
         if (!severity) return;
-        const g = groups.get(severity) ?? { cells: [], worst: 0, p, measured, estimate };
+        const g = groups.get(severity) ?? {
+          cells: [],
+          worst: 0,
+          p,
+          measured,
+          estimate,
+        };
         g.cells.push(cell(key, p, t));
-        if (Math.abs(d) > Math.abs(g.worst)) Object.assign(g, { worst: d, p, measured, estimate });
+        if (Math.abs(d) > Math.abs(g.worst))
+          Object.assign(g, { worst: d, p, measured, estimate });
         groups.set(severity, g);
       });
       for (const [severity, g] of groups) {
-        const method = key === "z_factor" ? "the Dranchuk–Abou-Kassem estimate (Sutton pseudo-criticals)" : "the Lee–Gonzalez–Eakin estimate";
+        const method =
+          key === "z_factor"
+            ? "the Dranchuk–Abou-Kassem estimate (Sutton pseudo-criticals)"
+            : "the Lee–Gonzalez–Eakin estimate";
         ctx.add(
           "correlation-departure",
           "CORRELATION_DEPARTURE",
@@ -155,5 +228,11 @@ function report(
   if (!c) return;
   const severity = severityFor(c.departure, band);
   if (!severity) return;
-  ctx.add("correlation-departure", "CORRELATION_DEPARTURE", severity, cells, sentence(c.departure, c.estimate));
+  ctx.add(
+    "correlation-departure",
+    "CORRELATION_DEPARTURE",
+    severity,
+    cells,
+    sentence(c.departure, c.estimate),
+  );
 }

@@ -18,14 +18,25 @@ test("a single spike is flagged; a smooth curve, even a steep one, is not (commo
   expect(found[0]?.deviation).toBeGreaterThan(0.04);
   // Steep, coarse end like the last step of a differential liberation (Bod 1.075 at 0 psig): not a spike.
   const dl = [1.075, 1.244, 1.283, 1.32, 1.351, 1.382, 1.412];
-  expect(findOutliers([14.7, 173.7, 364.7, 614.7, 864.7, 1114.7, 1364.7], dl, IDENTITY, (e) => 0.01 * e)).toEqual([]);
+  expect(
+    findOutliers(
+      [14.7, 173.7, 364.7, 614.7, 864.7, 1114.7, 1364.7],
+      dl,
+      IDENTITY,
+      (e) => 0.01 * e,
+    ),
+  ).toEqual([]);
 });
 
 test("outliers are found in the transformed coordinate (ln μ) and at most a third of the points are flagged", () => {
   const xs = [500, 1000, 1500, 2000, 2500, 3000];
   const mu = xs.map((x) => 2 * Math.exp(-x / 1500));
   const bad = mu.map((v, i) => (i === 2 ? v * 1.3 : v));
-  expect(findOutliers(xs, bad, LOG, (e) => 0.05 * e).map((o) => o.index)).toEqual([2]);
+  expect(
+    findOutliers(xs, bad, LOG, (e) => 0.05 * e).map((o) => o.index),
+  ).toEqual([2]);
   const zigzag = xs.map((_, i) => (i % 2 === 0 ? 1 : 2));
-  expect(findOutliers(xs, zigzag, IDENTITY, () => 0.01).length).toBeLessThanOrEqual(2);
+  expect(
+    findOutliers(xs, zigzag, IDENTITY, () => 0.01).length,
+  ).toBeLessThanOrEqual(2);
 });

@@ -16,7 +16,10 @@ export interface FitPoint {
 }
 
 /** Least-squares quadratic through the points, evaluated at x0 (x scaled about x0); null if degenerate. */
-export function quadraticAt(points: readonly FitPoint[], x0: number): number | null {
+export function quadraticAt(
+  points: readonly FitPoint[],
+  x0: number,
+): number | null {
   if (points.length < 3) return null;
   const scale = Math.max(...points.map((p) => Math.abs(p.x - x0))) || 1;
   // Normal equations for a + b u + c u², u = (x − x0)/scale; the prediction is a.
@@ -40,7 +43,8 @@ export function quadraticAt(points: readonly FitPoint[], x0: number): number | n
   for (let col = 0; col < 3; col++) {
     let pivot = col;
     for (let row = col + 1; row < 3; row++) {
-      if (Math.abs(m[row]?.[col] ?? 0) > Math.abs(m[pivot]?.[col] ?? 0)) pivot = row;
+      if (Math.abs(m[row]?.[col] ?? 0) > Math.abs(m[pivot]?.[col] ?? 0))
+        pivot = row;
     }
     const pr = m[pivot];
     const cr = m[col];
@@ -52,7 +56,8 @@ export function quadraticAt(points: readonly FitPoint[], x0: number): number | n
       const target = m[row];
       if (!target) continue;
       const f = (target[col] ?? 0) / (pr[col] ?? 1);
-      for (let k = col; k < 4; k++) target[k] = (target[k] ?? 0) - f * (pr[k] ?? 0);
+      for (let k = col; k < 4; k++)
+        target[k] = (target[k] ?? 0) - f * (pr[k] ?? 0);
     }
   }
   const a = (m[0]?.[3] ?? 0) / (m[0]?.[0] ?? 1);
@@ -65,8 +70,14 @@ export interface Transform {
 }
 
 export const IDENTITY: Transform = { forward: (v) => v, inverse: (y) => y };
-export const LOG: Transform = { forward: (v) => Math.log(v), inverse: (y) => Math.exp(y) };
-export const RECIPROCAL: Transform = { forward: (v) => 1 / v, inverse: (y) => 1 / y };
+export const LOG: Transform = {
+  forward: (v) => Math.log(v),
+  inverse: (y) => Math.exp(y),
+};
+export const RECIPROCAL: Transform = {
+  forward: (v) => 1 / v,
+  inverse: (y) => 1 / y,
+};
 
 /** At most this many points are flagged per series; the rest would only repeat the message. */
 export const MAX_FLAGS = 10;
@@ -85,7 +96,10 @@ function neighbours(kept: readonly number[], position: number): number[] {
   const right = kept.slice(position + 1, position + 4);
   let l = left.slice(-2);
   let r = right.slice(0, 2);
-  while (l.length + r.length < 4 && (left.length > l.length || right.length > r.length)) {
+  while (
+    l.length + r.length < 4 &&
+    (left.length > l.length || right.length > r.length)
+  ) {
     if (right.length > r.length) r = right.slice(0, r.length + 1);
     else l = left.slice(-(l.length + 1));
   }
@@ -93,7 +107,12 @@ function neighbours(kept: readonly number[], position: number): number[] {
 }
 
 /** Second divided difference of y at kept position pos (needs a neighbour each side). */
-function curvature(kept: readonly number[], pos: number, xs: readonly number[], ys: readonly number[]): number | null {
+function curvature(
+  kept: readonly number[],
+  pos: number,
+  xs: readonly number[],
+  ys: readonly number[],
+): number | null {
   const a = kept[pos - 1];
   const b = kept[pos];
   const c = kept[pos + 1];
@@ -109,11 +128,20 @@ function curvature(kept: readonly number[], pos: number, xs: readonly number[], 
  * A spike of sign s (+1 above the curve, −1 below): curvature at the point of sign −s, and at every
  * neighbouring point that has a curvature, of sign s.
  */
-function isSpike(kept: readonly number[], pos: number, xs: readonly number[], ys: readonly number[], s: number): boolean {
+function isSpike(
+  kept: readonly number[],
+  pos: number,
+  xs: readonly number[],
+  ys: readonly number[],
+  s: number,
+): boolean {
   if (s === 0) return false;
   const here = curvature(kept, pos, xs, ys);
   if (here === null || Math.sign(here) !== -s) return false;
-  const around = [curvature(kept, pos - 1, xs, ys), curvature(kept, pos + 1, xs, ys)].filter((c): c is number => c !== null);
+  const around = [
+    curvature(kept, pos - 1, xs, ys),
+    curvature(kept, pos + 1, xs, ys),
+  ].filter((c): c is number => c !== null);
   return around.length > 0 && around.every((c) => Math.sign(c) === s);
 }
 
@@ -141,21 +169,38 @@ export function findOutliers(
       const around = neighbours(kept, pos);
       if (around.length < 3) continue;
       const x0 = xs[i] ?? 0;
-      const fit = quadraticAt(around.map((k) => ({ x: xs[k] ?? 0, y: ys[k] ?? 0 })), x0);
+      const fit = quadraticAt(
+        around.map((k) => ({ x: xs[k] ?? 0, y: ys[k] ?? 0 })),
+        x0,
+      );
       if (fit === null) continue;
       const expected = transform.inverse(fit);
       const value = values[i] ?? 0;
       const off = Math.abs(value - expected);
       const allowed = tolerance(expected);
       if (!(off > allowed)) continue;
-      if (!isSpike(kept, pos, xs, ys, Math.sign(transform.forward(value) - fit))) continue;
+      if (
+        !isSpike(kept, pos, xs, ys, Math.sign(transform.forward(value) - fit))
+      )
+        continue;
       const score = off / allowed;
       if (!worst || score > worst.score) {
-        worst = { index: i, expected, deviation: expected !== 0 ? (value - expected) / Math.abs(expected) : 0, score, position: pos };
+        worst = {
+          index: i,
+          expected,
+          deviation:
+            expected !== 0 ? (value - expected) / Math.abs(expected) : 0,
+          score,
+          position: pos,
+        };
       }
     }
     if (!worst) break;
-    flagged.push({ index: worst.index, expected: worst.expected, deviation: worst.deviation });
+    flagged.push({
+      index: worst.index,
+      expected: worst.expected,
+      deviation: worst.deviation,
+    });
     const drop = worst.position;
     kept = kept.filter((_, pos) => pos !== drop);
   }

@@ -5,7 +5,13 @@ import { PROPERTY_KEYS, type PropertyKey } from "../../units";
 import { HEADER_LABELS } from "../header-names";
 import type { QcContext, Point } from "./context";
 import { cell } from "./context";
-import { findOutliers, IDENTITY, LOG, RECIPROCAL, type Transform } from "./local-fit";
+import {
+  findOutliers,
+  IDENTITY,
+  LOG,
+  RECIPROCAL,
+  type Transform,
+} from "./local-fit";
 import { percent } from "./format";
 import { branchOf } from "./trends";
 
@@ -22,13 +28,55 @@ interface OutlierSpec {
 
 /** Tolerances sit above usual laboratory repeatability for each property (common practice). */
 export const OUTLIER_SPECS: Readonly<Record<PropertyKey, OutlierSpec>> = {
-  oil_fvf: { saturated: IDENTITY, undersaturated: LOG, split: true, relative: 0.01, absolute: 0 },
-  solution_gor: { saturated: IDENTITY, undersaturated: null, split: true, relative: 0.03, absolute: 5 },
-  oil_viscosity: { saturated: LOG, undersaturated: LOG, split: true, relative: 0.05, absolute: 0 },
-  oil_density: { saturated: IDENTITY, undersaturated: IDENTITY, split: true, relative: 0.01, absolute: 0 },
-  gas_fvf: { saturated: RECIPROCAL, undersaturated: null, split: false, relative: 0.03, absolute: 0 },
-  gas_viscosity: { saturated: LOG, undersaturated: null, split: false, relative: 0.05, absolute: 0 },
-  z_factor: { saturated: IDENTITY, undersaturated: null, split: false, relative: 0.02, absolute: 0 },
+  oil_fvf: {
+    saturated: IDENTITY,
+    undersaturated: LOG,
+    split: true,
+    relative: 0.01,
+    absolute: 0,
+  },
+  solution_gor: {
+    saturated: IDENTITY,
+    undersaturated: null,
+    split: true,
+    relative: 0.03,
+    absolute: 5,
+  },
+  oil_viscosity: {
+    saturated: LOG,
+    undersaturated: LOG,
+    split: true,
+    relative: 0.05,
+    absolute: 0,
+  },
+  oil_density: {
+    saturated: IDENTITY,
+    undersaturated: IDENTITY,
+    split: true,
+    relative: 0.01,
+    absolute: 0,
+  },
+  gas_fvf: {
+    saturated: RECIPROCAL,
+    undersaturated: null,
+    split: false,
+    relative: 0.03,
+    absolute: 0,
+  },
+  gas_viscosity: {
+    saturated: LOG,
+    undersaturated: null,
+    split: false,
+    relative: 0.05,
+    absolute: 0,
+  },
+  z_factor: {
+    saturated: IDENTITY,
+    undersaturated: null,
+    split: false,
+    relative: 0.02,
+    absolute: 0,
+  },
 };
 
 export function checkOutliers(ctx: QcContext): void {
@@ -43,16 +91,21 @@ export function checkOutliers(ctx: QcContext): void {
       if (!spec.split) branches.push([all, spec.saturated]);
       else if (bubble) {
         branches.push([branchOf(all, bubble, "saturated"), spec.saturated]);
-        branches.push([branchOf(all, bubble, "undersaturated"), spec.undersaturated]);
+        branches.push([
+          branchOf(all, bubble, "undersaturated"),
+          spec.undersaturated,
+        ]);
       } else continue; // Without a bubble point a kink could look like an outlier.
       for (const [points, transform] of branches) {
         if (!transform || points.length < 4) continue;
-        if (transform !== IDENTITY && !points.every((p) => p.value > 0)) continue;
+        if (transform !== IDENTITY && !points.every((p) => p.value > 0))
+          continue;
         const found = findOutliers(
           points.map((p) => p.pressure),
           points.map((p) => p.value),
           transform,
-          (expected) => Math.max(spec.relative * Math.abs(expected), spec.absolute),
+          (expected) =>
+            Math.max(spec.relative * Math.abs(expected), spec.absolute),
         );
         for (const o of found) {
           const pt = points[o.index];

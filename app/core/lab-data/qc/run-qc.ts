@@ -4,14 +4,22 @@
  */
 import type { Finding, ParsedDataset, Severity } from "../types";
 import { QcContext, type QcMeta } from "./context";
-import { checkDensityMassBalance, checkGasConsistency, checkSaturatedConsistency } from "./consistency";
+import {
+  checkDensityMassBalance,
+  checkGasConsistency,
+  checkSaturatedConsistency,
+} from "./consistency";
 import { checkCorrelations } from "./correlations";
 import { checkOutliers } from "./outliers";
 import { checkRanges } from "./ranges";
 import { checkGridShapes, resolveBubblePoints } from "./shape-and-bubble";
 import { checkPressureTrends } from "./trends";
 
-const ORDER: Readonly<Record<Severity, number>> = { error: 0, warning: 1, info: 2 };
+const ORDER: Readonly<Record<Severity, number>> = {
+  error: 0,
+  warning: 1,
+  info: 2,
+};
 
 export function runQc(dataset: ParsedDataset, meta: QcMeta = {}): Finding[] {
   const ctx = new QcContext(dataset, meta ?? {});
@@ -34,7 +42,8 @@ export function runQc(dataset: ParsedDataset, meta: QcMeta = {}): Finding[] {
         code: "INVALID_GRID",
         severity: "error",
         rule: "grid-shape",
-        message: "The checks could not finish on this dataset because of an error in Isopleth itself; please report it with the file.",
+        message:
+          "The checks could not finish on this dataset because of an error in Isopleth itself; please report it with the file.",
         cells: [],
       });
       break;
@@ -48,7 +57,9 @@ export function runQc(dataset: ParsedDataset, meta: QcMeta = {}): Finding[] {
 }
 
 /** Summary for a revision: "fail" if any error, "warn" if any warning, else "pass". */
-export function qcStatus(findings: readonly Finding[]): "fail" | "warn" | "pass" {
+export function qcStatus(
+  findings: readonly Finding[],
+): "fail" | "warn" | "pass" {
   if (findings.some((f) => f.severity === "error")) return "fail";
   if (findings.some((f) => f.severity === "warning")) return "warn";
   return "pass";

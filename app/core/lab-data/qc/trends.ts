@@ -7,15 +7,28 @@
  */
 import type { PropertyKey } from "../../units";
 import type { QcCell, QcFindingCode, Severity } from "../types";
-import { cell, samePressure, TEMPERATURE_TOLERANCE, type BubbleAt, type Point, type QcContext } from "./context";
+import {
+  cell,
+  samePressure,
+  TEMPERATURE_TOLERANCE,
+  type BubbleAt,
+  type Point,
+  type QcContext,
+} from "./context";
 import { formatNumber, pairWithUnit } from "./format";
 import type { RuleId } from "./rules";
 
 /** Points at or below pb (saturated) or at or above pb (undersaturated). */
-export function branchOf(points: readonly Point[], bubble: BubbleAt, branch: "saturated" | "undersaturated"): Point[] {
+export function branchOf(
+  points: readonly Point[],
+  bubble: BubbleAt,
+  branch: "saturated" | "undersaturated",
+): Point[] {
   const pb = bubble.pressure;
   return points.filter((pt) =>
-    branch === "saturated" ? pt.pressure <= pb || samePressure(pt.pressure, pb) : pt.pressure >= pb || samePressure(pt.pressure, pb),
+    branch === "saturated"
+      ? pt.pressure <= pb || samePressure(pt.pressure, pb)
+      : pt.pressure >= pb || samePressure(pt.pressure, pb),
   );
 }
 
@@ -38,7 +51,8 @@ const TREND_RULES: readonly TrendRule[] = [
     property: "solution_gor",
     branch: "saturated",
     direction: "rising",
-    expectation: "below the bubble point Rs must rise with pressure as more gas dissolves",
+    expectation:
+      "below the bubble point Rs must rise with pressure as more gas dissolves",
   },
   {
     rule: "bo-saturated-rising",
@@ -47,7 +61,8 @@ const TREND_RULES: readonly TrendRule[] = [
     property: "oil_fvf",
     branch: "saturated",
     direction: "rising",
-    expectation: "below the bubble point Bo must rise with pressure as the oil swells with dissolved gas",
+    expectation:
+      "below the bubble point Bo must rise with pressure as the oil swells with dissolved gas",
   },
   {
     rule: "bo-undersaturated-falling",
@@ -56,7 +71,8 @@ const TREND_RULES: readonly TrendRule[] = [
     property: "oil_fvf",
     branch: "undersaturated",
     direction: "falling",
-    expectation: "above the bubble point Bo must fall with pressure as the liquid is compressed",
+    expectation:
+      "above the bubble point Bo must fall with pressure as the liquid is compressed",
   },
   {
     rule: "bg-falling",
@@ -74,7 +90,8 @@ const TREND_RULES: readonly TrendRule[] = [
     property: "oil_viscosity",
     branch: "saturated",
     direction: "falling",
-    expectation: "below the bubble point oil viscosity should fall as pressure rises and more gas dissolves",
+    expectation:
+      "below the bubble point oil viscosity should fall as pressure rises and more gas dissolves",
   },
   {
     rule: "oil-viscosity-undersaturated-rising",
@@ -83,7 +100,8 @@ const TREND_RULES: readonly TrendRule[] = [
     property: "oil_viscosity",
     branch: "undersaturated",
     direction: "rising",
-    expectation: "above the bubble point oil viscosity should rise with pressure",
+    expectation:
+      "above the bubble point oil viscosity should rise with pressure",
   },
   {
     rule: "oil-density-undersaturated-rising",
@@ -92,7 +110,8 @@ const TREND_RULES: readonly TrendRule[] = [
     property: "oil_density",
     branch: "undersaturated",
     direction: "rising",
-    expectation: "above the bubble point the oil is only compressed, so its density should rise with pressure",
+    expectation:
+      "above the bubble point the oil is only compressed, so its density should rise with pressure",
   },
   {
     rule: "gas-viscosity-rising",
@@ -132,8 +151,16 @@ export function checkPressureTrends(ctx: QcContext): void {
         const delta = b.value - a.value;
         const wrong = r.direction === "rising" ? delta < 0 : delta > 0;
         if (!wrong) continue;
-        const [va, vb] = pairWithUnit(a.value, b.value, ctx.grid(r.property)?.unit, ctx.meta.barometricPsia);
-        const where = r.branch === "all" || !bubble ? "" : ` (bubble point ${ctx.p(bubble.pressure, r.property)})`;
+        const [va, vb] = pairWithUnit(
+          a.value,
+          b.value,
+          ctx.grid(r.property)?.unit,
+          ctx.meta.barometricPsia,
+        );
+        const where =
+          r.branch === "all" || !bubble
+            ? ""
+            : ` (bubble point ${ctx.p(bubble.pressure, r.property)})`;
         ctx.add(
           r.rule,
           r.code,
@@ -155,20 +182,34 @@ export function checkPressureTrends(ctx: QcContext): void {
 /** rs-undersaturated-flat: above pb every Rs equals Rsb. */
 function checkRsFlat(ctx: QcContext, t: number, bubble: BubbleAt): void {
   if (bubble.lowerBound) return;
-  const under = branchOf(ctx.series("solution_gor", t), bubble, "undersaturated");
-  const reference = under.find((pt) => samePressure(pt.pressure, bubble.pressure)) ?? under[0];
+  const under = branchOf(
+    ctx.series("solution_gor", t),
+    bubble,
+    "undersaturated",
+  );
+  const reference =
+    under.find((pt) => samePressure(pt.pressure, bubble.pressure)) ?? under[0];
   if (!reference || under.length < 2) return;
   const rsb = reference.value;
   const tol = Math.max(0.005 * Math.abs(rsb), 1);
-  const off = under.filter((pt) => pt !== reference && Math.abs(pt.value - rsb) > tol);
+  const off = under.filter(
+    (pt) => pt !== reference && Math.abs(pt.value - rsb) > tol,
+  );
   const first = off[0];
   if (!first) return;
-  const [v1, v0] = pairWithUnit(first.value, rsb, ctx.grid("solution_gor")?.unit);
+  const [v1, v0] = pairWithUnit(
+    first.value,
+    rsb,
+    ctx.grid("solution_gor")?.unit,
+  );
   ctx.add(
     "rs-undersaturated-flat",
     "RS_NOT_FLAT_ABOVE_PB",
     "warning",
-    [cell("solution_gor", reference.pressure, t), ...off.map((pt) => cell("solution_gor", pt.pressure, t))],
+    [
+      cell("solution_gor", reference.pressure, t),
+      ...off.map((pt) => cell("solution_gor", pt.pressure, t)),
+    ],
     `At ${ctx.t(t, "solution_gor")}, Rs is ${v1} at ${ctx.p(first.pressure, "solution_gor")} but ${v0} at ${ctx.p(reference.pressure, "solution_gor")}${off.length > 1 ? ` (${off.length} values differ)` : ""}; above the bubble point (${ctx.p(bubble.pressure, "solution_gor")}) Rs should stay equal to Rsb, so check the bubble point or these values.`,
   );
 }
@@ -177,14 +218,22 @@ function checkRsFlat(ctx: QcContext, t: number, bubble: BubbleAt): void {
 export const MIN_COMPRESSIBILITY_STEP = 250;
 
 /** undersaturated-compressibility: co from Bo above pb, over steps of at least 250 psi, within 2–60 × 10⁻⁶ 1/psi. */
-function checkUndersaturatedCompressibility(ctx: QcContext, t: number, bubble: BubbleAt): void {
+function checkUndersaturatedCompressibility(
+  ctx: QcContext,
+  t: number,
+  bubble: BubbleAt,
+): void {
   if (bubble.lowerBound) return;
   const under = branchOf(ctx.series("oil_fvf", t), bubble, "undersaturated");
   let i = 0;
   while (i < under.length - 1) {
     const a = under[i];
     let k = i + 1;
-    while (k < under.length - 1 && (under[k]?.pressure ?? 0) - (a?.pressure ?? 0) < MIN_COMPRESSIBILITY_STEP) k++;
+    while (
+      k < under.length - 1 &&
+      (under[k]?.pressure ?? 0) - (a?.pressure ?? 0) < MIN_COMPRESSIBILITY_STEP
+    )
+      k++;
     const b = under[k];
     i = k;
     if (!a || !b || !(a.value > 0) || !(b.value > 0)) continue;
@@ -220,7 +269,10 @@ function checkViscosityWithTemperature(ctx: QcContext): void {
     });
     if (!example) continue;
     const [va, vb] = pairWithUnit(example.a, example.b, grid.unit);
-    const more = cells.length > 2 ? ` (and at ${cells.length / 2 - 1} other pressure${cells.length > 4 ? "s" : ""})` : "";
+    const more =
+      cells.length > 2
+        ? ` (and at ${cells.length / 2 - 1} other pressure${cells.length > 4 ? "s" : ""})`
+        : "";
     ctx.add(
       "oil-viscosity-temperature",
       "OIL_VISCOSITY_NOT_FALLING_WITH_T",
@@ -233,19 +285,24 @@ function checkViscosityWithTemperature(ctx: QcContext): void {
 
 /** bubble-point-temperature: stated bubble points rise with temperature. */
 function checkBubblePointWithTemperature(ctx: QcContext): void {
-  const stated = [...ctx.bubble.values()].filter((b) => b.origin !== "inferred").sort((a, b) => a.temperature - b.temperature);
+  const stated = [...ctx.bubble.values()]
+    .filter((b) => b.origin !== "inferred")
+    .sort((a, b) => a.temperature - b.temperature);
   for (let i = 1; i < stated.length; i++) {
     const a = stated[i - 1];
     const b = stated[i];
-    if (!a || !b || b.temperature - a.temperature <= TEMPERATURE_TOLERANCE) continue;
+    if (!a || !b || b.temperature - a.temperature <= TEMPERATURE_TOLERANCE)
+      continue;
     if (b.pressure >= a.pressure) continue;
     ctx.add(
       "bubble-point-temperature",
       "BUBBLE_POINT_NOT_RISING_WITH_T",
       "warning",
-      [cell("bubble_point", a.pressure, a.temperature), cell("bubble_point", b.pressure, b.temperature)],
+      [
+        cell("bubble_point", a.pressure, a.temperature),
+        cell("bubble_point", b.pressure, b.temperature),
+      ],
       `The bubble point falls from ${ctx.p(a.pressure)} at ${ctx.t(a.temperature)} to ${ctx.p(b.pressure)} at ${ctx.t(b.temperature)}; for a black oil it should rise with temperature.`,
     );
   }
 }
-

@@ -9,7 +9,9 @@ import { ChangePasswordSchema, ProfileSchema } from "~/utils/auth-schemas";
 import { ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
-export const meta: Route.MetaFunction = () => [{ title: "Your account · Isopleth" }];
+export const meta: Route.MetaFunction = () => [
+  { title: "Your account · Isopleth" },
+];
 
 export async function loader(args: Route.LoaderArgs) {
   return { user: requireUser(args) };
@@ -22,7 +24,10 @@ export async function action(args: Route.ActionArgs) {
   if (intent === "profile") {
     const form = await parseForm(args.request, ProfileSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
-    await updateUserProfile(user.id, { name: form.data.name, unitSystem: form.data.unitSystem });
+    await updateUserProfile(user.id, {
+      name: form.data.name,
+      unitSystem: form.data.unitSystem,
+    });
     return { errors: {}, intent, saved: "Your details are saved." };
   }
   const form = await parseForm(args.request, ChangePasswordSchema);
@@ -34,15 +39,32 @@ export async function action(args: Route.ActionArgs) {
     newPassword: form.data.password,
     ipAddress: caller.ipAddress,
   });
-  if (!result.ok) return badRequest({ errors: { [result.field]: [result.message] }, intent: "password" });
-  return { errors: {}, intent: "password", saved: "Your password is changed; your other sessions were signed out." };
+  if (!result.ok)
+    return badRequest({
+      errors: { [result.field]: [result.message] },
+      intent: "password",
+    });
+  return {
+    errors: {},
+    intent: "password",
+    saved: "Your password is changed; your other sessions were signed out.",
+  };
 }
 
-export default function Account({ loaderData, actionData }: Route.ComponentProps) {
+export default function Account({
+  loaderData,
+  actionData,
+}: Route.ComponentProps) {
   const { user } = loaderData;
   const navigation = useNavigation();
-  const profile = useZodForm(ProfileSchema, actionData?.intent === "profile" ? actionData.errors : null);
-  const password = useZodForm(ChangePasswordSchema, actionData?.intent === "password" ? actionData.errors : null);
+  const profile = useZodForm(
+    ProfileSchema,
+    actionData?.intent === "profile" ? actionData.errors : null,
+  );
+  const password = useZodForm(
+    ChangePasswordSchema,
+    actionData?.intent === "password" ? actionData.errors : null,
+  );
   const saved = actionData && "saved" in actionData ? actionData.saved : null;
   return (
     <>
@@ -52,17 +74,40 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
       <div className="grid gap-6 md:grid-cols-2">
         <section className="rounded-lg border border-line bg-panel p-5">
           <h2 className="font-semibold">Details</h2>
-          <Form method="post" className="mt-3 space-y-4" onSubmit={profile.onSubmit} noValidate>
+          <Form
+            method="post"
+            className="mt-3 space-y-4"
+            onSubmit={profile.onSubmit}
+            noValidate
+          >
             <input type="hidden" name="intent" value="profile" />
-            {actionData?.intent === "profile" ? <FormAlert message={saved} tone="ok" /> : null}
-            <TextField label="Name" name="name" defaultValue={user.name} autoComplete="name" required errors={profile.errors.name} />
+            {actionData?.intent === "profile" ? (
+              <FormAlert message={saved} tone="ok" />
+            ) : null}
+            <TextField
+              label="Name"
+              name="name"
+              defaultValue={user.name}
+              autoComplete="name"
+              required
+              errors={profile.errors.name}
+            />
             <fieldset>
-              <legend className="text-sm font-semibold">Units for lookups and tables</legend>
+              <legend className="text-sm font-semibold">
+                Units for lookups and tables
+              </legend>
               <div className="mt-1 flex gap-4 text-sm">
                 {(["field", "metric"] as const).map((system) => (
                   <label key={system} className="flex items-center gap-2">
-                    <input type="radio" name="unitSystem" value={system} defaultChecked={user.unitSystem === system} />
-                    {system === "field" ? "Field (psia, °F, rb/STB, scf/STB)" : "Metric (bara, °C, rm³/sm³, sm³/sm³)"}
+                    <input
+                      type="radio"
+                      name="unitSystem"
+                      value={system}
+                      defaultChecked={user.unitSystem === system}
+                    />
+                    {system === "field"
+                      ? "Field (psia, °F, rb/STB, scf/STB)"
+                      : "Metric (bara, °C, rm³/sm³, sm³/sm³)"}
                   </label>
                 ))}
               </div>
@@ -74,12 +119,41 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         </section>
         <section className="rounded-lg border border-line bg-panel p-5">
           <h2 className="font-semibold">Password</h2>
-          <Form method="post" className="mt-3 space-y-4" onSubmit={password.onSubmit} noValidate>
+          <Form
+            method="post"
+            className="mt-3 space-y-4"
+            onSubmit={password.onSubmit}
+            noValidate
+          >
             <input type="hidden" name="intent" value="password" />
-            {actionData?.intent === "password" ? <FormAlert message={saved} tone="ok" /> : null}
-            <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" required errors={password.errors.currentPassword} />
-            <TextField label="New password" name="password" type="password" autoComplete="new-password" required errors={password.errors.password} hint="At least 10 characters." />
-            <TextField label="New password again" name="confirm" type="password" autoComplete="new-password" required errors={password.errors.confirm} />
+            {actionData?.intent === "password" ? (
+              <FormAlert message={saved} tone="ok" />
+            ) : null}
+            <TextField
+              label="Current password"
+              name="currentPassword"
+              type="password"
+              autoComplete="current-password"
+              required
+              errors={password.errors.currentPassword}
+            />
+            <TextField
+              label="New password"
+              name="password"
+              type="password"
+              autoComplete="new-password"
+              required
+              errors={password.errors.password}
+              hint="At least 10 characters."
+            />
+            <TextField
+              label="New password again"
+              name="confirm"
+              type="password"
+              autoComplete="new-password"
+              required
+              errors={password.errors.confirm}
+            />
             <Button type="submit" disabled={navigation.state === "submitting"}>
               Change password
             </Button>

@@ -4,21 +4,36 @@ import { getEnv } from "~/.server/env";
 import { PageHeader } from "~/components/page-header";
 import type { Route } from "./+types/index";
 
-export const meta: Route.MetaFunction = () => [{ title: "API documentation · Isopleth" }];
+export const meta: Route.MetaFunction = () => [
+  { title: "API documentation · Isopleth" },
+];
 
 type Operation = {
   summary?: string;
   description?: string;
-  parameters?: { name: string; in: string; required?: boolean; description?: string; schema?: { type?: string; enum?: string[]; default?: unknown } }[];
+  parameters?: {
+    name: string;
+    in: string;
+    required?: boolean;
+    description?: string;
+    schema?: { type?: string; enum?: string[]; default?: unknown };
+  }[];
   requestBody?: { content: Record<string, { schema: unknown }> };
   responses: Record<string, { description: string }>;
 };
-type Document = { paths: Record<string, Record<string, Operation>>; components?: { schemas?: Record<string, unknown> } };
+type Document = {
+  paths: Record<string, Record<string, Operation>>;
+  components?: { schemas?: Record<string, unknown> };
+};
 
 export async function loader(args: Route.LoaderArgs) {
   requireUser(args);
   const base = getEnv().APP_BASE_URL;
-  return { doc: openApiDocument(base) as Document, problems: PROBLEM_CODES, base };
+  return {
+    doc: openApiDocument(base) as Document,
+    problems: PROBLEM_CODES,
+    base,
+  };
 }
 
 export default function ApiDocs({ loaderData }: Route.ComponentProps) {
@@ -26,11 +41,13 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
   return (
     <>
       <PageHeader title="API documentation">
-        Version 1 of the Isopleth API, generated from the same schemas the server validates with. Machine-readable:{" "}
+        Version 1 of the Isopleth API, generated from the same schemas the
+        server validates with. Machine-readable:{" "}
         <a className="text-accent underline" href="/api/v1/openapi.json">
           /api/v1/openapi.json
         </a>{" "}
-        (OpenAPI 3.1). Create a token on the API tokens page and send it as <code>Authorization: Bearer &lt;token&gt;</code>.
+        (OpenAPI 3.1). Create a token on the API tokens page and send it as{" "}
+        <code>Authorization: Bearer &lt;token&gt;</code>.
       </PageHeader>
       <section className="rounded-lg border border-line bg-panel p-5 text-sm">
         <h2 className="font-semibold">Example</h2>
@@ -41,13 +58,20 @@ curl -H "Authorization: Bearer $TOKEN" -H "Content-Type: application/json" \\
       </section>
       {Object.entries(doc.paths).map(([path, methods]) =>
         Object.entries(methods).map(([method, op]) => (
-          <section key={`${method} ${path}`} className="mt-6 rounded-lg border border-line bg-panel p-5 text-sm">
+          <section
+            key={`${method} ${path}`}
+            className="mt-6 rounded-lg border border-line bg-panel p-5 text-sm"
+          >
             <h2 className="font-mono text-base font-semibold">
-              <span className="mr-2 rounded bg-accent-soft px-2 py-0.5 text-accent-strong uppercase">{method}</span>
+              <span className="mr-2 rounded bg-accent-soft px-2 py-0.5 text-accent-strong uppercase">
+                {method}
+              </span>
               {path}
             </h2>
             <p className="mt-1 font-semibold">{op.summary}</p>
-            {op.description ? <p className="mt-1 text-ink-muted">{op.description}</p> : null}
+            {op.description ? (
+              <p className="mt-1 text-ink-muted">{op.description}</p>
+            ) : null}
             {op.parameters?.length ? (
               <table className="mt-3 w-full">
                 <thead className="text-left text-ink-muted">
@@ -60,13 +84,20 @@ curl -H "Authorization: Bearer $TOKEN" -H "Content-Type: application/json" \\
                 </thead>
                 <tbody>
                   {op.parameters.map((p) => (
-                    <tr key={`${p.in}-${p.name}`} className="border-t border-line align-top">
+                    <tr
+                      key={`${p.in}-${p.name}`}
+                      className="border-t border-line align-top"
+                    >
                       <td className="py-1 pr-3 font-mono">
                         {p.name}
                         {p.required ? " *" : ""}
                       </td>
                       <td className="py-1 pr-3">{p.in}</td>
-                      <td className="py-1 pr-3 font-mono text-xs">{p.schema?.enum ? p.schema.enum.join(" | ") : (p.schema?.type ?? "")}</td>
+                      <td className="py-1 pr-3 font-mono text-xs">
+                        {p.schema?.enum
+                          ? p.schema.enum.join(" | ")
+                          : (p.schema?.type ?? "")}
+                      </td>
                       <td className="py-1">{p.description ?? ""}</td>
                     </tr>
                   ))}
@@ -75,9 +106,15 @@ curl -H "Authorization: Bearer $TOKEN" -H "Content-Type: application/json" \\
             ) : null}
             {op.requestBody ? (
               <details className="mt-3">
-                <summary className="cursor-pointer font-semibold">Request body (JSON schema)</summary>
+                <summary className="cursor-pointer font-semibold">
+                  Request body (JSON schema)
+                </summary>
                 <pre className="mt-2 max-h-96 overflow-auto rounded bg-surface p-3 text-xs">
-                  {JSON.stringify(op.requestBody.content["application/json"]?.schema, null, 2)}
+                  {JSON.stringify(
+                    op.requestBody.content["application/json"]?.schema,
+                    null,
+                    2,
+                  )}
                 </pre>
               </details>
             ) : null}
@@ -93,8 +130,11 @@ curl -H "Authorization: Bearer $TOKEN" -H "Content-Type: application/json" \\
       <section className="mt-6 rounded-lg border border-line bg-panel p-5 text-sm">
         <h2 className="font-semibold">Errors</h2>
         <p className="mt-1 text-ink-muted">
-          Every error is a problem-details object (RFC 9457, <code>application/problem+json</code>) with <code>type</code>, <code>title</code>,{" "}
-          <code>status</code>, <code>detail</code>, our <code>code</code>, and for invalid input the <code>issues</code> with field paths.
+          Every error is a problem-details object (RFC 9457,{" "}
+          <code>application/problem+json</code>) with <code>type</code>,{" "}
+          <code>title</code>, <code>status</code>, <code>detail</code>, our{" "}
+          <code>code</code>, and for invalid input the <code>issues</code> with
+          field paths.
         </p>
         <dl className="mt-3 space-y-2">
           {Object.entries(problems).map(([code, text]) => (
@@ -108,7 +148,9 @@ curl -H "Authorization: Bearer $TOKEN" -H "Content-Type: application/json" \\
       {doc.components?.schemas ? (
         <details className="mt-6 rounded-lg border border-line bg-panel p-5 text-sm">
           <summary className="cursor-pointer font-semibold">Schemas</summary>
-          <pre className="mt-2 max-h-[40rem] overflow-auto rounded bg-surface p-3 text-xs">{JSON.stringify(doc.components.schemas, null, 2)}</pre>
+          <pre className="mt-2 max-h-[40rem] overflow-auto rounded bg-surface p-3 text-xs">
+            {JSON.stringify(doc.components.schemas, null, 2)}
+          </pre>
         </details>
       ) : null}
     </>

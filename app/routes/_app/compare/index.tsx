@@ -3,14 +3,34 @@ import { Form, useNavigation, useSubmit } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
 import { gridsForOutput, listSamplesForCaller } from "~/.server/api/samples";
-import { getRevisionData, resolveRevision } from "~/.server/samples/revision-data";
+import {
+  getRevisionData,
+  resolveRevision,
+} from "~/.server/samples/revision-data";
 import { unitLabel } from "~/.server/api/units";
 import { PageHeader } from "~/components/page-header";
 import { EstimateCaution } from "~/components/estimate-caution";
 import { Button } from "~/components/form";
-import { PlotPlaceholder, PropertySlices, PropertySurface, preloadPlots, type PlotSeries, type QueryPoint } from "~/components/plots";
-import { describeWarningCode, isLookupWarning, PROPERTY_NAMES } from "~/core/lookup";
-import { convertBetweenSystems, FIELD_UNIT_SYSTEM, METRIC_UNIT_SYSTEM, PROPERTY_KEYS, type PropertyKey } from "~/core/units";
+import {
+  PlotPlaceholder,
+  PropertySlices,
+  PropertySurface,
+  preloadPlots,
+  type PlotSeries,
+  type QueryPoint,
+} from "~/components/plots";
+import {
+  describeWarningCode,
+  isLookupWarning,
+  PROPERTY_NAMES,
+} from "~/core/lookup";
+import {
+  convertBetweenSystems,
+  FIELD_UNIT_SYSTEM,
+  METRIC_UNIT_SYSTEM,
+  PROPERTY_KEYS,
+  type PropertyKey,
+} from "~/core/units";
 import { parseConditionList, type Condition } from "~/utils/conditions";
 import { SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
 import type { Route } from "./+types/index";
@@ -38,7 +58,13 @@ const CompareQuery = z.object({
   samples: z
     .array(z.string())
     .transform((list) =>
-      [...new Set(list.flatMap((v) => v.split(",")).map((v) => Number(v.trim())))].filter((n) => Number.isInteger(n) && n > 0).slice(0, MAX_SAMPLES),
+      [
+        ...new Set(
+          list.flatMap((v) => v.split(",")).map((v) => Number(v.trim())),
+        ),
+      ]
+        .filter((n) => Number.isInteger(n) && n > 0)
+        .slice(0, MAX_SAMPLES),
     ),
   property: z.enum(PROPERTY_KEYS).catch("oil_fvf"),
   units: z.enum(["field", "metric"]).optional().catch(undefined),
@@ -58,13 +84,20 @@ export async function loader(args: Route.LoaderArgs) {
   });
   const system = query.units ?? user.unitSystem;
   const samples = await listSamplesForCaller({ user, token: null }, system);
-  const chosen = query.samples.map((id) => samples.find((s) => s.id === id)).filter((s) => s !== undefined);
+  const chosen = query.samples
+    .map((id) => samples.find((s) => s.id === id))
+    .filter((s) => s !== undefined);
   const selected = await Promise.all(
     chosen.map(async (s) => {
-      const revision = s.approvedRevision === null ? null : await resolveRevision(s.id);
-      if (!revision) return { id: s.id, label: s.label, revision: null, grid: null };
+      const revision =
+        s.approvedRevision === null ? null : await resolveRevision(s.id);
+      if (!revision)
+        return { id: s.id, label: s.label, revision: null, grid: null };
       const data = await getRevisionData(revision);
-      const grid = gridsForOutput(data, system).find((g) => g.property === query.property) ?? null;
+      const grid =
+        gridsForOutput(data, system).find(
+          (g) => g.property === query.property,
+        ) ?? null;
       return { id: s.id, label: s.label, revision: data.number, grid };
     }),
   );
@@ -99,7 +132,14 @@ type Units = LoaderData["units"];
 
 /** One cell of the table: a value from the lookup API, or why there is none. */
 type Cell =
-  | { kind: "value"; value: number; errorEstimate: number; warnings: string[]; method: string; outsideRange: boolean }
+  | {
+      kind: "value";
+      value: number;
+      errorEstimate: number;
+      warnings: string[];
+      method: string;
+      outsideRange: boolean;
+    }
   | { kind: "none"; reason: string };
 
 type LookupState = {
@@ -113,7 +153,12 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
   const { samples, selected, property, units } = loaderData;
   const navigation = useNavigation();
   const withGrid = selected.filter(
-    (s): s is Selected & { grid: NonNullable<Selected["grid"]>; revision: number } => s.grid !== null && s.revision !== null,
+    (
+      s,
+    ): s is Selected & {
+      grid: NonNullable<Selected["grid"]>;
+      revision: number;
+    } => s.grid !== null && s.revision !== null,
   );
 
   // start fetching the plot code at once, in parallel with everything else on the page
@@ -121,11 +166,15 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
     if (withGrid.length > 0) void preloadPlots().catch(() => {});
   }, [withGrid.length]);
 
-  const [conditionsText, setConditionsText] = useState(() => defaultConditionsText(loaderData));
+  const [conditionsText, setConditionsText] = useState(() =>
+    defaultConditionsText(loaderData),
+  );
   const [threshold, setThreshold] = useState(String(DEFAULT_THRESHOLD_PERCENT));
   const [referenceId, setReferenceId] = useState<number | null>(null);
   const [extrapolate, setExtrapolate] = useState(false);
-  const [arrangement, setArrangement] = useState<"side-by-side" | "overlaid">(loaderData.view);
+  const [arrangement, setArrangement] = useState<"side-by-side" | "overlaid">(
+    loaderData.view,
+  );
   const [sliceText, setSliceText] = useState<string | null>(null);
   // the slices wait for the surface's first draw, so that the two do not share the main thread while Plotly
   // starts (the 3D scene is the slow one); a timer draws them anyway if the surface never reports
@@ -141,26 +190,48 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
     if (shownSystem.current === units.system) return;
     const from = shownSystem.current;
     shownSystem.current = units.system;
-    setConditionsText((text) => convertConditionsText(text, from, units.system));
+    setConditionsText((text) =>
+      convertConditionsText(text, from, units.system),
+    );
     setSliceText(null);
   }, [units.system]);
 
-  const parsed = useMemo(() => parseConditionList(conditionsText), [conditionsText]);
-  const conditions = useMemo(() => (parsed.ok ? parsed.conditions.slice(0, MAX_TABLE_CONDITIONS) : []), [parsed]);
+  const parsed = useMemo(
+    () => parseConditionList(conditionsText),
+    [conditionsText],
+  );
+  const conditions = useMemo(
+    () => (parsed.ok ? parsed.conditions.slice(0, MAX_TABLE_CONDITIONS) : []),
+    [parsed],
+  );
   const conditionsKey = JSON.stringify(conditions);
-  const queryPoints: QueryPoint[] = useMemo(() => conditions.map((c, k) => ({ ...c, label: `Q${k + 1}` })), [conditionsKey]);
+  const queryPoints: QueryPoint[] = useMemo(
+    () => conditions.map((c, k) => ({ ...c, label: `Q${k + 1}` })),
+    [conditionsKey],
+  );
 
-  const series: PlotSeries[] = useMemo(() => withGrid.map((s) => ({ id: s.id, label: s.label, grid: s.grid })), [loaderData]);
+  const series: PlotSeries[] = useMemo(
+    () => withGrid.map((s) => ({ id: s.id, label: s.label, grid: s.grid })),
+    [loaderData],
+  );
   const plotUnits = useMemo(
-    () => ({ pressure: units.pressure, temperature: units.temperature, value: units.value }),
+    () => ({
+      pressure: units.pressure,
+      temperature: units.temperature,
+      value: units.value,
+    }),
     [units.pressure, units.temperature, units.value],
   );
 
   const defaultSlices = useMemo(() => {
     // a handful of curves stays readable: up to six in all
     const limit = Math.max(1, Math.floor(6 / Math.max(withGrid.length, 1)));
-    const fromConditions = [...new Set(conditions.map((c) => c.temperature))].sort((a, b) => a - b).slice(0, limit);
-    return fromConditions.length > 0 ? fromConditions : (withGrid[0]?.grid.temperatures.slice(0, limit) ?? []);
+    const fromConditions = [...new Set(conditions.map((c) => c.temperature))]
+      .sort((a, b) => a - b)
+      .slice(0, limit);
+    return fromConditions.length > 0
+      ? fromConditions
+      : (withGrid[0]?.grid.temperatures.slice(0, limit) ?? []);
   }, [conditionsKey, loaderData]);
   const sliceInput = sliceText ?? defaultSlices.map(formatPlain).join(", ");
   const sliceTemperatures = useMemo(() => {
@@ -172,9 +243,18 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
     return [...new Set(list)].slice(0, 6);
   }, [sliceInput]);
 
-  const lookups = useCompareLookups(withGrid, property, units.system, conditions, extrapolate);
+  const lookups = useCompareLookups(
+    withGrid,
+    property,
+    units.system,
+    conditions,
+    extrapolate,
+  );
   const thresholdValue = Number(threshold);
-  const thresholdOk = threshold.trim() !== "" && Number.isFinite(thresholdValue) && thresholdValue >= 0;
+  const thresholdOk =
+    threshold.trim() !== "" &&
+    Number.isFinite(thresholdValue) &&
+    thresholdValue >= 0;
   const reference = withGrid.find((s) => s.id === referenceId) ?? withGrid[0];
   const others = withGrid.filter((s) => s !== reference);
 
@@ -188,7 +268,8 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
     if (searchRef.current?.value) setSearch(searchRef.current.value);
   }, []);
   const needle = search.trim().toLowerCase();
-  const matches = (s: (typeof samples)[number]) => !needle || `${s.label} ${s.field} ${s.well}`.toLowerCase().includes(needle);
+  const matches = (s: (typeof samples)[number]) =>
+    !needle || `${s.label} ${s.field} ${s.well}`.toLowerCase().includes(needle);
   const matchCount = samples.filter(matches).length;
   const propertyName = SHORT_NAMES[property];
   const missing = selected.filter((s) => s.grid === null);
@@ -196,7 +277,8 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
   return (
     <>
       <PageHeader title="Compare">
-        Two to four samples side by side: one property on overlaid pressure slices and 3D surfaces, and a table of values at the conditions you
+        Two to four samples side by side: one property on overlaid pressure
+        slices and 3D surfaces, and a table of values at the conditions you
         choose, with their relative differences.
       </PageHeader>
 
@@ -205,12 +287,21 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         className="mb-8 grid gap-6 rounded-lg border border-line bg-panel p-5 md:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]"
         onChange={(event) => {
           const target = event.target;
-          if ((target instanceof HTMLInputElement || target instanceof HTMLSelectElement) && ["samples", "property", "units"].includes(target.name))
-            submit(event.currentTarget, { preventScrollReset: true, replace: true });
+          if (
+            (target instanceof HTMLInputElement ||
+              target instanceof HTMLSelectElement) &&
+            ["samples", "property", "units"].includes(target.name)
+          )
+            submit(event.currentTarget, {
+              preventScrollReset: true,
+              replace: true,
+            });
         }}
       >
         <fieldset>
-          <legend className="text-sm font-semibold">Samples (choose two to four)</legend>
+          <legend className="text-sm font-semibold">
+            Samples (choose two to four)
+          </legend>
           <label className="mt-2 block">
             <span className="sr-only">Find samples</span>
             <input
@@ -223,14 +314,21 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
               className="block w-full rounded border border-line bg-panel px-3 py-2 text-sm focus:border-accent focus:outline-2 focus:outline-accent/30"
             />
           </label>
-          <ul className="mt-2 max-h-56 divide-y divide-line overflow-y-auto rounded border border-line" aria-label="Samples">
+          <ul
+            className="mt-2 max-h-56 divide-y divide-line overflow-y-auto rounded border border-line"
+            aria-label="Samples"
+          >
             {samples.map((s) => {
               const checked = chosenIds.includes(s.id);
-              const disabled = s.approvedRevision === null || (!checked && chosenIds.length >= MAX_SAMPLES);
+              const disabled =
+                s.approvedRevision === null ||
+                (!checked && chosenIds.length >= MAX_SAMPLES);
               // samples filtered out by the search stay in the form (hidden), so a choice survives a search
               return (
                 <li key={s.id} hidden={!matches(s)}>
-                  <label className={`flex items-center gap-3 px-3 py-2 text-sm ${disabled ? "text-ink-muted" : "cursor-pointer hover:bg-surface"}`}>
+                  <label
+                    className={`flex items-center gap-3 px-3 py-2 text-sm ${disabled ? "text-ink-muted" : "cursor-pointer hover:bg-surface"}`}
+                  >
                     <input
                       type="checkbox"
                       name="samples"
@@ -255,10 +353,18 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                 </li>
               );
             })}
-            {matchCount === 0 ? <li className="px-3 py-3 text-sm text-ink-muted">No sample matches “{search}”.</li> : null}
+            {matchCount === 0 ? (
+              <li className="px-3 py-3 text-sm text-ink-muted">
+                No sample matches “{search}”.
+              </li>
+            ) : null}
           </ul>
           <p className="mt-1 text-xs text-ink-muted" aria-live="polite">
-            {chosenIds.length} of at most {MAX_SAMPLES} chosen{chosenIds.length >= MAX_SAMPLES ? "; clear one to choose another" : ""}.
+            {chosenIds.length} of at most {MAX_SAMPLES} chosen
+            {chosenIds.length >= MAX_SAMPLES
+              ? "; clear one to choose another"
+              : ""}
+            .
           </p>
         </fieldset>
         <div className="flex flex-col gap-4">
@@ -290,7 +396,9 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                     key={`${system}-${units.system}`}
                     className="accent-accent"
                   />
-                  {system === "field" ? "Field (psia, °F)" : "Metric (bara, °C)"}
+                  {system === "field"
+                    ? "Field (psia, °F)"
+                    : "Metric (bara, °C)"}
                 </label>
               ))}
             </div>
@@ -310,14 +418,18 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
 
       {missing.length > 0 ? (
         <p className="mb-4 rounded border border-caution/30 bg-caution-soft px-3 py-2 text-sm text-caution">
-          {missing.map((s) => s.label).join(", ")}: {missing.length === 1 ? "has" : "have"} no approved {PROPERTY_NAMES[property]} grid, so{" "}
+          {missing.map((s) => s.label).join(", ")}:{" "}
+          {missing.length === 1 ? "has" : "have"} no approved{" "}
+          {PROPERTY_NAMES[property]} grid, so{" "}
           {missing.length === 1 ? "it is" : "they are"} left out below.
         </p>
       ) : null}
 
       {withGrid.length < 2 ? (
         <div className="rounded-lg border border-dashed border-line bg-panel px-6 py-10 text-center text-ink-muted">
-          {withGrid.length === 0 ? "Choose two to four samples to compare." : "Choose at least one more sample with this property to compare."}
+          {withGrid.length === 0
+            ? "Choose two to four samples to compare."
+            : "Choose at least one more sample with this property to compare."}
         </div>
       ) : null}
 
@@ -329,7 +441,10 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
             </h2>
             <div className="mt-3 grid gap-6 rounded-lg border border-line bg-panel p-5 md:grid-cols-[minmax(0,24rem)_minmax(0,1fr)]">
               <div>
-                <label htmlFor="compare-conditions" className="block text-sm font-semibold">
+                <label
+                  htmlFor="compare-conditions"
+                  className="block text-sm font-semibold"
+                >
                   Conditions
                 </label>
                 <textarea
@@ -339,25 +454,43 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                   rows={4}
                   spellCheck={false}
                   aria-describedby="conditions-hint conditions-error"
-                  aria-invalid={!parsed.ok && conditionsText.trim() !== "" ? true : undefined}
+                  aria-invalid={
+                    !parsed.ok && conditionsText.trim() !== ""
+                      ? true
+                      : undefined
+                  }
                   className="mt-1 block w-full rounded border border-line bg-panel px-3 py-2 font-mono text-sm tabular-nums focus:border-accent focus:outline-2 focus:outline-accent/30 aria-invalid:border-danger"
                 />
-                <span id="conditions-hint" className="mt-1 block text-xs text-ink-muted">
-                  One per line: pressure ({units.pressure}) and temperature ({units.temperature}), separated by a comma, tab or space. Pasting from a
-                  spreadsheet works.
+                <span
+                  id="conditions-hint"
+                  className="mt-1 block text-xs text-ink-muted"
+                >
+                  One per line: pressure ({units.pressure}) and temperature (
+                  {units.temperature}), separated by a comma, tab or space.
+                  Pasting from a spreadsheet works.
                 </span>
                 {!parsed.ok && conditionsText.trim() !== "" ? (
-                  <span id="conditions-error" role="alert" className="mt-1 block text-sm text-danger">
+                  <span
+                    id="conditions-error"
+                    role="alert"
+                    className="mt-1 block text-sm text-danger"
+                  >
                     {parsed.error}
                   </span>
                 ) : null}
-                {parsed.ok && parsed.conditions.length > MAX_TABLE_CONDITIONS ? (
-                  <span className="mt-1 block text-sm text-caution">Only the first {MAX_TABLE_CONDITIONS} conditions are compared.</span>
+                {parsed.ok &&
+                parsed.conditions.length > MAX_TABLE_CONDITIONS ? (
+                  <span className="mt-1 block text-sm text-caution">
+                    Only the first {MAX_TABLE_CONDITIONS} conditions are
+                    compared.
+                  </span>
                 ) : null}
               </div>
               <div className="flex flex-col gap-4">
                 <label className="block">
-                  <span className="block text-sm font-semibold">Highlight differences beyond (%)</span>
+                  <span className="block text-sm font-semibold">
+                    Highlight differences beyond (%)
+                  </span>
                   <input
                     type="number"
                     min={0}
@@ -371,7 +504,9 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                 </label>
                 {withGrid.length > 1 ? (
                   <label className="block">
-                    <span className="block text-sm font-semibold">Differences relative to</span>
+                    <span className="block text-sm font-semibold">
+                      Differences relative to
+                    </span>
                     <select
                       value={reference?.id ?? ""}
                       onChange={(e) => setReferenceId(Number(e.target.value))}
@@ -392,7 +527,10 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                     onChange={(e) => setExtrapolate(e.target.checked)}
                     className="mt-0.5 h-4 w-4 accent-accent"
                   />
-                  <span>Extrapolate outside a sample&apos;s measured range (values are flagged)</span>
+                  <span>
+                    Extrapolate outside a sample&apos;s measured range (values
+                    are flagged)
+                  </span>
                 </label>
               </div>
             </div>
@@ -418,12 +556,17 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                   {propertyName} over pressure and temperature
                 </h2>
                 <p className="text-sm text-ink-muted">
-                  Interpolated (automatic method) over each sample&apos;s measured range; dots are measured values, diamonds your conditions
+                  Interpolated (automatic method) over each sample&apos;s
+                  measured range; dots are measured values, diamonds your
+                  conditions
                   {series.length > 1 ? "; drag to turn, scroll to zoom" : ""}.
                 </p>
               </div>
               {series.length > 1 ? (
-                <fieldset className="flex rounded border border-line bg-panel p-0.5 text-sm" aria-label="Surface arrangement">
+                <fieldset
+                  className="flex rounded border border-line bg-panel p-0.5 text-sm"
+                  aria-label="Surface arrangement"
+                >
                   {(["overlaid", "side-by-side"] as const).map((a) => (
                     <label
                       key={a}
@@ -462,11 +605,14 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                   {propertyName} against pressure
                 </h2>
                 <p className="text-sm text-ink-muted">
-                  Curves interpolated at fixed temperatures; markers are measured values where the temperature was measured.
+                  Curves interpolated at fixed temperatures; markers are
+                  measured values where the temperature was measured.
                 </p>
               </div>
               <label className="block">
-                <span className="block text-sm font-semibold">Slice temperatures ({units.temperature})</span>
+                <span className="block text-sm font-semibold">
+                  Slice temperatures ({units.temperature})
+                </span>
                 <input
                   value={sliceInput}
                   onChange={(e) => setSliceText(e.target.value)}
@@ -485,7 +631,11 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
                 temperatures={sliceTemperatures}
               />
             ) : (
-              <PlotPlaceholder className="mt-3" text="Loading the pressure slices…" height={420} />
+              <PlotPlaceholder
+                className="mt-3"
+                text="Loading the pressure slices…"
+                height={420}
+              />
             )}
           </section>
         </>
@@ -524,15 +674,27 @@ function ValuesTable({
   return (
     <div>
       <div className="relative w-fit max-w-full overflow-x-auto rounded-lg border border-line bg-panel">
-        <table className="text-sm" aria-label={`${propertyName} by sample`} aria-busy={lookups.status === "loading"}>
+        <table
+          className="text-sm"
+          aria-label={`${propertyName} by sample`}
+          aria-busy={lookups.status === "loading"}
+        >
           <thead className="bg-surface text-ink-muted">
             <tr className="text-xs">
               <td colSpan={3} />
-              <th scope="colgroup" colSpan={samples.length} className="border-l border-line px-3 pt-2 text-center font-semibold">
+              <th
+                scope="colgroup"
+                colSpan={samples.length}
+                className="border-l border-line px-3 pt-2 text-center font-semibold"
+              >
                 {propertyName}
               </th>
               {reference && others.length > 0 ? (
-                <th scope="colgroup" colSpan={others.length} className="border-l border-line px-3 pt-2 text-center font-semibold">
+                <th
+                  scope="colgroup"
+                  colSpan={others.length}
+                  className="border-l border-line px-3 pt-2 text-center font-semibold"
+                >
                   Difference
                 </th>
               ) : null}
@@ -548,18 +710,29 @@ function ValuesTable({
                 Temperature ({units.temperature})
               </th>
               {samples.map((s) => (
-                <th key={s.id} scope="col" className="px-3 py-2 text-right font-semibold whitespace-nowrap">
+                <th
+                  key={s.id}
+                  scope="col"
+                  className="px-3 py-2 text-right font-semibold whitespace-nowrap"
+                >
                   <span className="block text-ink">{s.label}</span>
                   <span className="block text-xs font-normal">
-                    {units.value ? `${units.value} · ` : ""}rev. {lookups.revision[s.id] ?? s.revision}
+                    {units.value ? `${units.value} · ` : ""}rev.{" "}
+                    {lookups.revision[s.id] ?? s.revision}
                   </span>
                 </th>
               ))}
               {reference
                 ? others.map((s) => (
-                    <th key={`d${s.id}`} scope="col" className="px-3 py-2 text-right font-semibold whitespace-nowrap">
+                    <th
+                      key={`d${s.id}`}
+                      scope="col"
+                      className="px-3 py-2 text-right font-semibold whitespace-nowrap"
+                    >
                       <span className="block text-ink">{s.label}</span>
-                      <span className="block text-xs font-normal">vs {reference.label}, %</span>
+                      <span className="block text-xs font-normal">
+                        vs {reference.label}, %
+                      </span>
                     </th>
                   ))
                 : null}
@@ -573,10 +746,18 @@ function ValuesTable({
                   <th scope="row" className="px-3 py-2 text-left font-semibold">
                     Q{k + 1}
                   </th>
-                  <td className="px-3 py-2 text-right tabular-nums">{formatPlain(c.pressure)}</td>
-                  <td className="px-3 py-2 text-right tabular-nums">{formatPlain(c.temperature)}</td>
+                  <td className="px-3 py-2 text-right tabular-nums">
+                    {formatPlain(c.pressure)}
+                  </td>
+                  <td className="px-3 py-2 text-right tabular-nums">
+                    {formatPlain(c.temperature)}
+                  </td>
                   {samples.map((s) => (
-                    <ValueCell key={s.id} cell={cellOf(s.id, k)} loading={lookups.status === "loading"} />
+                    <ValueCell
+                      key={s.id}
+                      cell={cellOf(s.id, k)}
+                      loading={lookups.status === "loading"}
+                    />
                   ))}
                   {reference
                     ? others.map((s) => (
@@ -601,8 +782,10 @@ function ValuesTable({
         </p>
       ) : null}
       <p className="mt-2 text-xs text-ink-muted">
-        Values from the lookup service with the automatic method (Newton, cubic in each direction, with the shape-preserving pchip value where Newton
-        overshoots); ± is the estimated interpolation error. Differences are (sample − reference) / reference.
+        Values from the lookup service with the automatic method (Newton, cubic
+        in each direction, with the shape-preserving pchip value where Newton
+        overshoots); ± is the estimated interpolation error. Differences are
+        (sample − reference) / reference.
         {threshold !== null
           ? ` Differences beyond ${formatPlain(threshold)} % are highlighted and marked ▲.`
           : " Enter a threshold of 0 % or more to highlight differences."}
@@ -611,20 +794,44 @@ function ValuesTable({
   );
 }
 
-function ValueCell({ cell, loading }: { cell: Cell | undefined; loading: boolean }) {
-  if (!cell) return <td className="px-3 py-2 text-right text-ink-muted">{loading ? "…" : "—"}</td>;
+function ValueCell({
+  cell,
+  loading,
+}: {
+  cell: Cell | undefined;
+  loading: boolean;
+}) {
+  if (!cell)
+    return (
+      <td className="px-3 py-2 text-right text-ink-muted">
+        {loading ? "…" : "—"}
+      </td>
+    );
   if (cell.kind === "none") {
     return (
-      <td className="px-3 py-2 text-right align-top text-ink-muted" title={`No value: ${cell.reason}.`}>
-        —<span className="block text-xs whitespace-nowrap">{cell.reason === "outside the measured range" ? "outside the range" : "no value"}</span>
+      <td
+        className="px-3 py-2 text-right align-top text-ink-muted"
+        title={`No value: ${cell.reason}.`}
+      >
+        —
+        <span className="block text-xs whitespace-nowrap">
+          {cell.reason === "outside the measured range"
+            ? "outside the range"
+            : "no value"}
+        </span>
       </td>
     );
   }
   const flags = cell.warnings.filter((w) => w !== "degree-reduced");
   return (
-    <td className="px-3 py-2 text-right align-top tabular-nums" data-testid="compare-value">
+    <td
+      className="px-3 py-2 text-right align-top tabular-nums"
+      data-testid="compare-value"
+    >
       <span className="font-semibold">{formatValue(cell.value)}</span>
-      <span className="block text-xs whitespace-nowrap text-ink-muted">± {formatError(cell.errorEstimate)}</span>
+      <span className="block text-xs whitespace-nowrap text-ink-muted">
+        ± {formatError(cell.errorEstimate)}
+      </span>
       {cell.outsideRange || flags.length > 0 ? (
         <span className="mt-0.5 flex flex-wrap justify-end gap-1">
           {cell.outsideRange ? (
@@ -643,7 +850,9 @@ function ValueCell({ cell, loading }: { cell: Cell | undefined; loading: boolean
                 className={`rounded px-1.5 text-xs ${SERIOUS_WARNINGS.has(w) ? "bg-caution-soft font-semibold text-caution" : "bg-surface text-ink-muted"}`}
                 title={isLookupWarning(w) ? describeWarningCode(w) : w}
               >
-                {w === "extrapolated" ? "beyond the measured envelope" : warningLabel(w)}
+                {w === "extrapolated"
+                  ? "beyond the measured envelope"
+                  : warningLabel(w)}
               </span>
             ))}
         </span>
@@ -663,19 +872,34 @@ function DifferenceCell({
   threshold: number | null;
   loading: boolean;
 }) {
-  if (!reference || !other) return <td className="px-3 py-2 text-right text-ink-muted">{loading ? "…" : "—"}</td>;
-  if (reference.kind !== "value" || other.kind !== "value" || reference.value === 0)
+  if (!reference || !other)
+    return (
+      <td className="px-3 py-2 text-right text-ink-muted">
+        {loading ? "…" : "—"}
+      </td>
+    );
+  if (
+    reference.kind !== "value" ||
+    other.kind !== "value" ||
+    reference.value === 0
+  )
     return <td className="px-3 py-2 text-right text-ink-muted">—</td>;
-  const pct = ((other.value - reference.value) / Math.abs(reference.value)) * 100;
+  const pct =
+    ((other.value - reference.value) / Math.abs(reference.value)) * 100;
   const exceeds = threshold !== null && Math.abs(pct) > threshold;
   const flagged =
-    reference.outsideRange || other.outsideRange || reference.warnings.includes("extrapolated") || other.warnings.includes("extrapolated");
+    reference.outsideRange ||
+    other.outsideRange ||
+    reference.warnings.includes("extrapolated") ||
+    other.warnings.includes("extrapolated");
   return (
     <td
       className={`px-3 py-2 text-right align-top tabular-nums ${exceeds ? "bg-caution-soft font-bold text-caution" : ""}`}
       data-testid="compare-difference"
       data-exceeds={exceeds ? "true" : "false"}
-      title={flagged ? "At least one of the two values is extrapolated." : undefined}
+      title={
+        flagged ? "At least one of the two values is extrapolated." : undefined
+      }
     >
       {exceeds ? (
         <span aria-hidden="true" className="mr-1">
@@ -683,22 +907,42 @@ function DifferenceCell({
         </span>
       ) : null}
       {formatPercent(pct)}
-      {exceeds ? <span className="sr-only"> (beyond the threshold)</span> : null}
-      {flagged ? <span className="block text-xs font-normal text-caution">from an extrapolated value</span> : null}
+      {exceeds ? (
+        <span className="sr-only"> (beyond the threshold)</span>
+      ) : null}
+      {flagged ? (
+        <span className="block text-xs font-normal text-caution">
+          from an extrapolated value
+        </span>
+      ) : null}
     </td>
   );
 }
 
 /** POSTs the conditions to the lookup API for each sample (debounced; stale answers are dropped). */
 function useCompareLookups(
-  samples: (Selected & { grid: NonNullable<Selected["grid"]>; revision: number })[],
+  samples: (Selected & {
+    grid: NonNullable<Selected["grid"]>;
+    revision: number;
+  })[],
   property: PropertyKey,
   system: "field" | "metric",
   conditions: Condition[],
   extrapolate: boolean,
 ): LookupState {
-  const [state, setState] = useState<LookupState>({ status: "idle", cells: {}, error: null, revision: {} });
-  const key = JSON.stringify([samples.map((s) => s.id), property, system, conditions, extrapolate]);
+  const [state, setState] = useState<LookupState>({
+    status: "idle",
+    cells: {},
+    error: null,
+    revision: {},
+  });
+  const key = JSON.stringify([
+    samples.map((s) => s.id),
+    property,
+    system,
+    conditions,
+    extrapolate,
+  ]);
   const first = useRef(true);
   useEffect(() => {
     if (samples.length === 0 || conditions.length === 0) {
@@ -710,7 +954,18 @@ function useCompareLookups(
     first.current = false;
     setState((s) => ({ ...s, status: "loading" }));
     const timer = setTimeout(() => {
-      Promise.all(samples.map((s) => lookupSample(s, property, system, conditions, extrapolate, controller.signal)))
+      Promise.all(
+        samples.map((s) =>
+          lookupSample(
+            s,
+            property,
+            system,
+            conditions,
+            extrapolate,
+            controller.signal,
+          ),
+        ),
+      )
         .then((answers) => {
           const cells: Record<number, Cell[]> = {};
           const revision: Record<number, number> = {};
@@ -722,7 +977,12 @@ function useCompareLookups(
         })
         .catch((error: unknown) => {
           if (controller.signal.aborted) return;
-          setState({ status: "error", cells: {}, error: error instanceof Error ? error.message : String(error), revision: {} });
+          setState({
+            status: "error",
+            cells: {},
+            error: error instanceof Error ? error.message : String(error),
+            revision: {},
+          });
         });
     }, delay);
     return () => {
@@ -733,8 +993,19 @@ function useCompareLookups(
   return state;
 }
 
-type LookupAnswer = { results: { value: number; errorEstimate: number; warnings: string[]; method: string }[]; revision: number };
-type Problem = { detail?: string; issues?: { path?: (string | number)[]; message?: string }[] };
+type LookupAnswer = {
+  results: {
+    value: number;
+    errorEstimate: number;
+    warnings: string[];
+    method: string;
+  }[];
+  revision: number;
+};
+type Problem = {
+  detail?: string;
+  issues?: { path?: (string | number)[]; message?: string }[];
+};
 
 /**
  * One sample's values. A point the service refuses (422: outside the range without extrapolation, or no
@@ -750,18 +1021,36 @@ async function lookupSample(
 ): Promise<{ cells: Cell[]; revision: number | null }> {
   const P = sample.grid.pressures;
   const T = sample.grid.temperatures;
-  const outside = (c: Condition) => c.pressure < P[0]! || c.pressure > P[P.length - 1]! || c.temperature < T[0]! || c.temperature > T[T.length - 1]!;
-  const cells: Cell[] = conditions.map((c) => ({ kind: "none", reason: outside(c) ? "outside the measured range" : "not looked up" }));
+  const outside = (c: Condition) =>
+    c.pressure < P[0]! ||
+    c.pressure > P[P.length - 1]! ||
+    c.temperature < T[0]! ||
+    c.temperature > T[T.length - 1]!;
+  const cells: Cell[] = conditions.map((c) => ({
+    kind: "none",
+    reason: outside(c) ? "outside the measured range" : "not looked up",
+  }));
   // without extrapolation, points outside the measured range are not even asked for
-  let remaining = conditions.map((_, k) => k).filter((k) => extrapolate || !outside(conditions[k]!));
+  let remaining = conditions
+    .map((_, k) => k)
+    .filter((k) => extrapolate || !outside(conditions[k]!));
   let revision: number | null = sample.revision;
   while (remaining.length > 0) {
     const response = await fetch(`/api/v1/samples/${sample.id}/lookup`, {
       method: "POST",
-      headers: { "Content-Type": "application/json", Accept: "application/json" },
+      headers: {
+        "Content-Type": "application/json",
+        Accept: "application/json",
+      },
       credentials: "same-origin",
       signal,
-      body: JSON.stringify({ property, points: remaining.map((k) => conditions[k]), method: "auto", units: system, extrapolate }),
+      body: JSON.stringify({
+        property,
+        points: remaining.map((k) => conditions[k]),
+        method: "auto",
+        units: system,
+        extrapolate,
+      }),
     });
     if (response.ok) {
       const answer = (await response.json()) as LookupAnswer;
@@ -781,16 +1070,26 @@ async function lookupSample(
     }
     const problem = (await response.json().catch(() => ({}))) as Problem;
     const index = problem.issues?.[0]?.path?.[1];
-    if (response.status === 422 && typeof index === "number" && index >= 0 && index < remaining.length) {
+    if (
+      response.status === 422 &&
+      typeof index === "number" &&
+      index >= 0 &&
+      index < remaining.length
+    ) {
       const k = remaining[index]!;
       cells[k] = {
         kind: "none",
-        reason: outside(conditions[k]!) && !extrapolate ? "outside the measured range" : "no measured values around this point",
+        reason:
+          outside(conditions[k]!) && !extrapolate
+            ? "outside the measured range"
+            : "no measured values around this point",
       };
       remaining = remaining.filter((_, i) => i !== index);
       continue;
     }
-    throw new Error(problem.detail ?? `the service answered ${response.status}`);
+    throw new Error(
+      problem.detail ?? `the service answered ${response.status}`,
+    );
   }
   return { cells, revision };
 }
@@ -799,21 +1098,40 @@ function defaultConditionsText(data: LoaderData): string {
   const pairs: string[] = [];
   for (const s of data.selected) {
     const info = data.samples.find((x) => x.id === s.id);
-    if (!info || info.reservoirPressure === null || info.reservoirTemperature === null) continue;
+    if (
+      !info ||
+      info.reservoirPressure === null ||
+      info.reservoirTemperature === null
+    )
+      continue;
     const line = `${Number(info.reservoirPressure.toPrecision(4))}, ${Number(info.reservoirTemperature.toPrecision(4))}`;
     if (!pairs.includes(line)) pairs.push(line);
   }
   return pairs.join("\n");
 }
 
-function convertConditionsText(text: string, from: "field" | "metric", to: "field" | "metric"): string {
+function convertConditionsText(
+  text: string,
+  from: "field" | "metric",
+  to: "field" | "metric",
+): string {
   const parsed = parseConditionList(text);
   if (!parsed.ok || from === to) return text;
   const systems = { field: FIELD_UNIT_SYSTEM, metric: METRIC_UNIT_SYSTEM };
   return parsed.conditions
     .map((c) => {
-      const p = convertBetweenSystems(c.pressure, "pressure", systems[from], systems[to]);
-      const t = convertBetweenSystems(c.temperature, "temperature", systems[from], systems[to]);
+      const p = convertBetweenSystems(
+        c.pressure,
+        "pressure",
+        systems[from],
+        systems[to],
+      );
+      const t = convertBetweenSystems(
+        c.temperature,
+        "temperature",
+        systems[from],
+        systems[to],
+      );
       return `${formatPlain(Number(p.toPrecision(5)))}, ${formatPlain(Number(t.toPrecision(4)))}`;
     })
     .join("\n");
@@ -828,19 +1146,24 @@ function formatValue(v: number): string {
   if (v === 0) return "0";
   const abs = Math.abs(v);
   if (abs < 1e-4 || abs >= 1e7) return v.toExponential(3);
-  return Number(v.toPrecision(5)).toLocaleString("en-US", { maximumFractionDigits: 8 });
+  return Number(v.toPrecision(5)).toLocaleString("en-US", {
+    maximumFractionDigits: 8,
+  });
 }
 
 /** An error estimate: two significant digits are all it carries. */
 function formatError(v: number): string {
   if (!Number.isFinite(v)) return "—";
   if (v === 0) return "0";
-  return Math.abs(v) < 1e-4 || Math.abs(v) >= 1e7 ? v.toExponential(1) : String(Number(v.toPrecision(2)));
+  return Math.abs(v) < 1e-4 || Math.abs(v) >= 1e7
+    ? v.toExponential(1)
+    : String(Number(v.toPrecision(2)));
 }
 
 function formatPercent(pct: number): string {
   const abs = Math.abs(pct);
-  const text = abs >= 100 ? pct.toFixed(0) : abs >= 10 ? pct.toFixed(1) : pct.toFixed(2);
+  const text =
+    abs >= 100 ? pct.toFixed(0) : abs >= 10 ? pct.toFixed(1) : pct.toFixed(2);
   return `${pct > 0 ? "+" : pct < 0 ? "−" : ""}${text.replace("-", "")} %`;
 }
 

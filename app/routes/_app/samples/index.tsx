@@ -1,12 +1,21 @@
 import { Form, href, Link } from "react-router";
 import { z } from "zod";
-import { toOutputPressure, toOutputTemperature, unitLabel } from "~/.server/api/units";
+import {
+  toOutputPressure,
+  toOutputTemperature,
+  unitLabel,
+} from "~/.server/api/units";
 import { requirePermission } from "~/.server/auth/guards";
 import { searchSamples } from "~/.server/db/queries/sample-records";
 import { Button } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { formatValue } from "~/components/samples/format";
-import { SAMPLE_SORTS, SAMPLE_STATUS_FILTERS, SAMPLE_TYPE_LABELS, type SampleSort } from "~/components/samples/labels";
+import {
+  SAMPLE_SORTS,
+  SAMPLE_STATUS_FILTERS,
+  SAMPLE_TYPE_LABELS,
+  type SampleSort,
+} from "~/components/samples/labels";
 import { SAMPLE_TYPES } from "~/components/samples/sample-form";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
@@ -27,14 +36,20 @@ export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "read:samples");
   const url = new URL(args.request.url);
   const query = ListSchema.parse(Object.fromEntries(url.searchParams));
-  const { total, rows } = await searchSamples({ ...query, pageSize: PAGE_SIZE });
+  const { total, rows } = await searchSamples({
+    ...query,
+    pageSize: PAGE_SIZE,
+  });
   const system = user.unitSystem;
   return {
     query,
     total,
     pageCount: Math.max(1, Math.ceil(total / PAGE_SIZE)),
     canCreate: can(user, "edit:samples"),
-    units: { pressure: unitLabel(system, "pressure"), temperature: unitLabel(system, "temperature") },
+    units: {
+      pressure: unitLabel(system, "pressure"),
+      temperature: unitLabel(system, "temperature"),
+    },
     rows: rows.map((r) => ({
       id: r.id,
       label: r.label,
@@ -43,8 +58,14 @@ export async function loader(args: Route.LoaderArgs) {
       fieldName: r.fieldName,
       wellName: r.wellName,
       laboratory: r.laboratory,
-      reservoirPressure: r.reservoirPressurePsia === null ? null : toOutputPressure(r.reservoirPressurePsia, system),
-      reservoirTemperature: r.reservoirTemperatureF === null ? null : toOutputTemperature(r.reservoirTemperatureF, system),
+      reservoirPressure:
+        r.reservoirPressurePsia === null
+          ? null
+          : toOutputPressure(r.reservoirPressurePsia, system),
+      reservoirTemperature:
+        r.reservoirTemperatureF === null
+          ? null
+          : toOutputTemperature(r.reservoirTemperatureF, system),
       approvedRevision: r.approvedRevision,
       drafts: r.drafts,
     })),
@@ -72,21 +93,43 @@ const STATUS_LABELS: Record<(typeof SAMPLE_STATUS_FILTERS)[number], string> = {
   draft: "With drafts awaiting review",
 };
 
-function SortHeader({ query, sort, children, numeric = false }: { query: Query; sort: SampleSort; children: React.ReactNode; numeric?: boolean }) {
+function SortHeader({
+  query,
+  sort,
+  children,
+  numeric = false,
+}: {
+  query: Query;
+  sort: SampleSort;
+  children: React.ReactNode;
+  numeric?: boolean;
+}) {
   const active = query.sort === sort;
   const nextDir = active && query.dir === "asc" ? "desc" : "asc";
   return (
     <th
       scope="col"
-      aria-sort={active ? (query.dir === "asc" ? "ascending" : "descending") : undefined}
+      aria-sort={
+        active ? (query.dir === "asc" ? "ascending" : "descending") : undefined
+      }
       className={`px-3 py-2 font-semibold ${numeric ? "text-right" : ""}`}
     >
-      <Link to={listUrl(query, { sort, dir: nextDir, page: 1 })} className="inline-flex items-center gap-1 hover:text-ink hover:underline">
+      <Link
+        to={listUrl(query, { sort, dir: nextDir, page: 1 })}
+        className="inline-flex items-center gap-1 hover:text-ink hover:underline"
+      >
         {children}
-        <span aria-hidden="true" className={active ? "text-accent-strong" : "text-line"}>
+        <span
+          aria-hidden="true"
+          className={active ? "text-accent-strong" : "text-line"}
+        >
           {active && query.dir === "desc" ? "▼" : "▲"}
         </span>
-        <span className="sr-only">{active ? `, sorted ${query.dir === "asc" ? "ascending" : "descending"}` : ", sort"}</span>
+        <span className="sr-only">
+          {active
+            ? `, sorted ${query.dir === "asc" ? "ascending" : "descending"}`
+            : ", sort"}
+        </span>
       </Link>
     </th>
   );
@@ -99,14 +142,23 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
   return (
     <>
       <div className="flex flex-wrap items-start justify-between gap-4">
-        <PageHeader title="Samples">Fluid samples with laboratory results, by field and well.</PageHeader>
+        <PageHeader title="Samples">
+          Fluid samples with laboratory results, by field and well.
+        </PageHeader>
         {canCreate ? (
-          <Link to={href("/samples/new")} className="rounded bg-accent px-4 py-2 text-sm font-semibold text-white hover:bg-accent-strong">
+          <Link
+            to={href("/samples/new")}
+            className="rounded bg-accent px-4 py-2 text-sm font-semibold text-white hover:bg-accent-strong"
+          >
             New sample
           </Link>
         ) : null}
       </div>
-      <Form method="get" role="search" className="flex flex-wrap items-end gap-3 rounded-lg border border-line bg-panel p-4 text-sm">
+      <Form
+        method="get"
+        role="search"
+        className="flex flex-wrap items-end gap-3 rounded-lg border border-line bg-panel p-4 text-sm"
+      >
         <label className="flex min-w-56 flex-1 flex-col gap-1">
           <span className="font-semibold">Search</span>
           <input
@@ -119,7 +171,11 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
         </label>
         <label className="flex flex-col gap-1">
           <span className="font-semibold">Type</span>
-          <select name="type" defaultValue={query.type ?? ""} className="rounded border border-line px-2 py-1.5">
+          <select
+            name="type"
+            defaultValue={query.type ?? ""}
+            className="rounded border border-line px-2 py-1.5"
+          >
             <option value="">Any</option>
             {SAMPLE_TYPES.map((t) => (
               <option key={t} value={t}>
@@ -130,7 +186,11 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
         </label>
         <label className="flex flex-col gap-1">
           <span className="font-semibold">Tables</span>
-          <select name="status" defaultValue={query.status ?? ""} className="rounded border border-line px-2 py-1.5">
+          <select
+            name="status"
+            defaultValue={query.status ?? ""}
+            className="rounded border border-line px-2 py-1.5"
+          >
             <option value="">Any</option>
             {SAMPLE_STATUS_FILTERS.map((s) => (
               <option key={s} value={s}>
@@ -143,17 +203,24 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
         <input type="hidden" name="dir" value={query.dir} />
         <Button type="submit">Search</Button>
         {query.q || query.type || query.status ? (
-          <Link to={href("/samples")} className="self-center text-accent underline">
+          <Link
+            to={href("/samples")}
+            className="self-center text-accent underline"
+          >
             Clear
           </Link>
         ) : null}
       </Form>
       <p className="mt-4 text-sm text-ink-muted" aria-live="polite">
-        {total === 0 ? "No samples match." : `Samples ${first}–${last} of ${total}`}
+        {total === 0
+          ? "No samples match."
+          : `Samples ${first}–${last} of ${total}`}
       </p>
       <div className="mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
         <table className="w-full text-sm">
-          <caption className="sr-only">Samples, sortable by each column</caption>
+          <caption className="sr-only">
+            Samples, sortable by each column
+          </caption>
           <thead className="bg-surface text-left text-ink-muted">
             <tr>
               <SortHeader query={query} sort="field">
@@ -188,18 +255,35 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
                 <td className="px-3 py-2">{s.fieldName}</td>
                 <td className="px-3 py-2">{s.wellName}</td>
                 <td className="px-3 py-2 font-semibold">
-                  <Link to={href("/samples/:sampleId", { sampleId: String(s.id) })} className="text-accent-strong hover:underline">
+                  <Link
+                    to={href("/samples/:sampleId", { sampleId: String(s.id) })}
+                    className="text-accent-strong hover:underline"
+                  >
                     {s.label}
                   </Link>
                 </td>
-                <td className="px-3 py-2">{SAMPLE_TYPE_LABELS[s.sampleType] ?? s.sampleType}</td>
-                <td className="px-3 py-2 tabular-nums">{s.samplingDate ?? "—"}</td>
-                <td className="px-3 py-2 text-right tabular-nums">{s.reservoirPressure === null ? "—" : formatValue(Number(s.reservoirPressure.toPrecision(5)))}</td>
-                <td className="px-3 py-2 text-right tabular-nums">
-                  {s.reservoirTemperature === null ? "—" : formatValue(Number(s.reservoirTemperature.toPrecision(5)))}
+                <td className="px-3 py-2">
+                  {SAMPLE_TYPE_LABELS[s.sampleType] ?? s.sampleType}
+                </td>
+                <td className="px-3 py-2 tabular-nums">
+                  {s.samplingDate ?? "—"}
                 </td>
                 <td className="px-3 py-2 text-right tabular-nums">
-                  {s.approvedRevision ?? <span className="text-ink-muted">none</span>}
+                  {s.reservoirPressure === null
+                    ? "—"
+                    : formatValue(Number(s.reservoirPressure.toPrecision(5)))}
+                </td>
+                <td className="px-3 py-2 text-right tabular-nums">
+                  {s.reservoirTemperature === null
+                    ? "—"
+                    : formatValue(
+                        Number(s.reservoirTemperature.toPrecision(5)),
+                      )}
+                </td>
+                <td className="px-3 py-2 text-right tabular-nums">
+                  {s.approvedRevision ?? (
+                    <span className="text-ink-muted">none</span>
+                  )}
                   {s.drafts > 0 ? (
                     <span className="ml-2 rounded border border-caution/40 bg-caution-soft px-1.5 py-0.5 text-xs font-semibold text-caution">
                       {s.drafts} draft{s.drafts === 1 ? "" : "s"}
@@ -210,8 +294,13 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
             ))}
             {rows.length === 0 ? (
               <tr>
-                <td colSpan={8} className="px-3 py-6 text-center text-ink-muted">
-                  {query.q || query.type || query.status ? "No samples match the search." : "No samples yet."}
+                <td
+                  colSpan={8}
+                  className="px-3 py-6 text-center text-ink-muted"
+                >
+                  {query.q || query.type || query.status
+                    ? "No samples match the search."
+                    : "No samples yet."}
                 </td>
               </tr>
             ) : null}
@@ -220,7 +309,10 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
       </div>
       <nav aria-label="Pages" className="mt-4 flex items-center gap-3 text-sm">
         {query.page > 1 ? (
-          <Link to={listUrl(query, { page: query.page - 1 })} className="text-accent underline">
+          <Link
+            to={listUrl(query, { page: query.page - 1 })}
+            className="text-accent underline"
+          >
             Previous page
           </Link>
         ) : null}
@@ -228,7 +320,10 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
           Page {Math.min(query.page, pageCount)} of {pageCount}
         </span>
         {query.page < pageCount ? (
-          <Link to={listUrl(query, { page: query.page + 1 })} className="text-accent underline">
+          <Link
+            to={listUrl(query, { page: query.page + 1 })}
+            className="text-accent underline"
+          >
             Next page
           </Link>
         ) : null}

@@ -3,7 +3,11 @@ import { Form, useNavigation } from "react-router";
 import { z } from "zod";
 import { issueApiToken, MAX_TOKEN_LIFETIME_DAYS } from "~/.server/api/tokens";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import { getApiTokenOwner, listApiTokens, revokeApiToken } from "~/.server/db/queries/api-tokens";
+import {
+  getApiTokenOwner,
+  listApiTokens,
+  revokeApiToken,
+} from "~/.server/db/queries/api-tokens";
 import { recordAudit } from "~/.server/db/queries/audit";
 import { listFieldsAndSamples } from "~/.server/db/queries/catalogue";
 import { badRequest, readFormData } from "~/.server/forms";
@@ -14,17 +18,34 @@ import { labelSchema } from "~/utils/labels";
 import { can, ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
-export const meta: Route.MetaFunction = () => [{ title: "API tokens · Isopleth" }];
+export const meta: Route.MetaFunction = () => [
+  { title: "API tokens · Isopleth" },
+];
 
 const CreateSchema = z.object({
   intent: z.literal("create"),
-  name: labelSchema("token name", 120, true, "Give the token a name, e.g. the model or script that uses it."),
+  name: labelSchema(
+    "token name",
+    120,
+    true,
+    "Give the token a name, e.g. the model or script that uses it.",
+  ),
   scopes: z.array(z.enum(API_SCOPES)).min(1, "Choose at least one scope."),
   fieldIds: z.array(z.coerce.number().int().positive()),
   sampleIds: z.array(z.coerce.number().int().positive()),
-  expiresInDays: z.coerce.number().int().min(1, "At least one day.").max(MAX_TOKEN_LIFETIME_DAYS, `At most ${MAX_TOKEN_LIFETIME_DAYS} days (one year).`),
+  expiresInDays: z.coerce
+    .number()
+    .int()
+    .min(1, "At least one day.")
+    .max(
+      MAX_TOKEN_LIFETIME_DAYS,
+      `At most ${MAX_TOKEN_LIFETIME_DAYS} days (one year).`,
+    ),
 });
-const RevokeSchema = z.object({ intent: z.literal("revoke"), tokenId: z.uuid() });
+const RevokeSchema = z.object({
+  intent: z.literal("revoke"),
+  tokenId: z.uuid(),
+});
 
 /*
  * Everyone signed in may list and revoke their own tokens (a person demoted to viewer keeps control of the
@@ -35,8 +56,18 @@ export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "read:samples");
   const seeAll = can(user, "revoke:any-token");
   const canCreate = can(user, "manage:own-tokens");
-  const [tokens, catalogue] = await Promise.all([listApiTokens(seeAll ? {} : { userId: user.id }), canCreate ? listFieldsAndSamples() : { fields: [], samples: [] }]);
-  return { user, seeAll, canCreate, tokens, ...catalogue, maxDays: MAX_TOKEN_LIFETIME_DAYS };
+  const [tokens, catalogue] = await Promise.all([
+    listApiTokens(seeAll ? {} : { userId: user.id }),
+    canCreate ? listFieldsAndSamples() : { fields: [], samples: [] },
+  ]);
+  return {
+    user,
+    seeAll,
+    canCreate,
+    tokens,
+    ...catalogue,
+    maxDays: MAX_TOKEN_LIFETIME_DAYS,
+  };
 }
 
 export async function action(args: Route.ActionArgs) {
@@ -45,16 +76,37 @@ export async function action(args: Route.ActionArgs) {
   const form = await readFormData(args.request);
   if (form.get("intent") === "revoke") {
     const parsed = RevokeSchema.safeParse(Object.fromEntries(form));
-    if (!parsed.success) return badRequest({ errors: {}, formError: "That token cannot be found." });
+    if (!parsed.success)
+      return badRequest({
+        errors: {},
+        formError: "That token cannot be found.",
+      });
     const owner = await getApiTokenOwner(parsed.data.tokenId);
-    if (!owner) return badRequest({ errors: {}, formError: "That token cannot be found." });
+    if (!owner)
+      return badRequest({
+        errors: {},
+        formError: "That token cannot be found.",
+      });
     if (owner.userId !== user.id && !can(user, "revoke:any-token")) {
-      throw new Response("You may revoke only your own tokens.", { status: 403 });
+      throw new Response("You may revoke only your own tokens.", {
+        status: 403,
+      });
     }
     if (await revokeApiToken(parsed.data.tokenId, user.id)) {
-      await recordAudit({ action: "api_token_revoked", userId: user.id, apiTokenId: parsed.data.tokenId, entityType: "api_token", entityId: parsed.data.tokenId, details: { owner: owner.userId, name: owner.name }, ipAddress });
+      await recordAudit({
+        action: "api_token_revoked",
+        userId: user.id,
+        apiTokenId: parsed.data.tokenId,
+        entityType: "api_token",
+        entityId: parsed.data.tokenId,
+        details: { owner: owner.userId, name: owner.name },
+        ipAddress,
+      });
     }
-    return { errors: {}, done: `Token “${owner.name}” is revoked; it stops working on its next request.` };
+    return {
+      errors: {},
+      done: `Token “${owner.name}” is revoked; it stops working on its next request.`,
+    };
   }
   requirePermission(args, "manage:own-tokens");
   const parsed = CreateSchema.safeParse({
@@ -67,107 +119,200 @@ export async function action(args: Route.ActionArgs) {
   });
   if (!parsed.success) {
     const errors: Record<string, string[]> = {};
-    for (const issue of parsed.error.issues) (errors[String(issue.path[0])] ??= []).push(issue.message);
+    for (const issue of parsed.error.issues)
+      (errors[String(issue.path[0])] ??= []).push(issue.message);
     return badRequest({ errors });
   }
   const { name, scopes, fieldIds, sampleIds, expiresInDays } = parsed.data;
-  const restriction = fieldIds.length || sampleIds.length ? { fieldIds, sampleIds } : null;
-  const issued = await issueApiToken({ userId: user.id, name, scopes, restriction, expiresInDays, ipAddress });
-  return { errors: {}, created: { name, token: issued.token, expiresAt: issued.expiresAt.toISOString() } };
+  const restriction =
+    fieldIds.length || sampleIds.length ? { fieldIds, sampleIds } : null;
+  const issued = await issueApiToken({
+    userId: user.id,
+    name,
+    scopes,
+    restriction,
+    expiresInDays,
+    ipAddress,
+  });
+  return {
+    errors: {},
+    created: {
+      name,
+      token: issued.token,
+      expiresAt: issued.expiresAt.toISOString(),
+    },
+  };
 }
 
-export default function Tokens({ loaderData, actionData }: Route.ComponentProps) {
-  const { tokens, fields, samples, seeAll, canCreate, user, maxDays } = loaderData;
+export default function Tokens({
+  loaderData,
+  actionData,
+}: Route.ComponentProps) {
+  const { tokens, fields, samples, seeAll, canCreate, user, maxDays } =
+    loaderData;
   const navigation = useNavigation();
   const errors: Record<string, string[] | undefined> = actionData?.errors ?? {};
-  const created = actionData && "created" in actionData ? actionData.created : null;
+  const created =
+    actionData && "created" in actionData ? actionData.created : null;
   const done = actionData && "done" in actionData ? actionData.done : null;
   const [copied, setCopied] = useState(false);
   return (
     <>
       <PageHeader title="API tokens">
-        A token lets a reservoir simulator or a script read approved tables and run lookups through the API without a
-        person signing in. It is shown once; keep it like a password. See the <a className="text-accent underline" href="/api-docs">API documentation</a>.
+        A token lets a reservoir simulator or a script read approved tables and
+        run lookups through the API without a person signing in. It is shown
+        once; keep it like a password. See the{" "}
+        <a className="text-accent underline" href="/api-docs">
+          API documentation
+        </a>
+        .
       </PageHeader>
       <FormAlert message={done} tone="ok" />
       {created ? (
-        <section className="mb-6 rounded-lg border border-accent bg-accent-soft p-5" aria-labelledby="new-token">
+        <section
+          className="mb-6 rounded-lg border border-accent bg-accent-soft p-5"
+          aria-labelledby="new-token"
+        >
           <h2 id="new-token" className="font-semibold text-accent-strong">
-            Token “{created.name}” created — copy it now, it will not be shown again
+            Token “{created.name}” created — copy it now, it will not be shown
+            again
           </h2>
-          <textarea readOnly aria-label="New token" className="mt-2 h-24 w-full rounded border border-line bg-panel p-2 font-mono text-xs break-all" value={created.token} />
+          <textarea
+            readOnly
+            aria-label="New token"
+            className="mt-2 h-24 w-full rounded border border-line bg-panel p-2 font-mono text-xs break-all"
+            value={created.token}
+          />
           <div className="mt-2 flex items-center gap-3 text-sm">
-            <Button type="button" variant="secondary" onClick={() => void navigator.clipboard.writeText(created.token).then(() => setCopied(true))}>
+            <Button
+              type="button"
+              variant="secondary"
+              onClick={() =>
+                void navigator.clipboard
+                  .writeText(created.token)
+                  .then(() => setCopied(true))
+              }
+            >
               {copied ? "Copied" : "Copy token"}
             </Button>
-            <span className="text-ink-muted">Expires {created.expiresAt.slice(0, 10)}. Send it as <code>Authorization: Bearer …</code>.</span>
+            <span className="text-ink-muted">
+              Expires {created.expiresAt.slice(0, 10)}. Send it as{" "}
+              <code>Authorization: Bearer …</code>.
+            </span>
           </div>
         </section>
       ) : null}
       {canCreate ? (
-      <section className="rounded-lg border border-line bg-panel p-5">
-        <h2 className="font-semibold">New token</h2>
-        <Form method="post" className="mt-3 grid gap-4 md:grid-cols-2">
-          <input type="hidden" name="intent" value="create" />
-          <TextField label="Name" name="name" required errors={errors.name} hint="What will use it, e.g. “Calder full-field model”." />
-          <TextField label="Expires after (days)" name="expiresInDays" type="number" min={1} max={maxDays} defaultValue={90} required errors={errors.expiresInDays} hint={`At most ${maxDays} days.`} />
-          <fieldset>
-            <legend className="text-sm font-semibold">Scopes</legend>
-            {API_SCOPES.map((scope) => (
-              <label key={scope} className="mt-1 flex items-center gap-2 text-sm">
-                <input type="checkbox" name="scopes" value={scope} defaultChecked /> {SCOPE_LABELS[scope]} (<code>{scope}</code>)
-              </label>
-            ))}
-            <p className="mt-1 text-xs text-ink-muted">What each scope allows is listed below.</p>
-            <FieldError errors={errors.scopes} />
-          </fieldset>
-          <fieldset>
-            <legend className="text-sm font-semibold">Restrict to (optional)</legend>
-            <p className="text-xs text-ink-muted">Leave both empty for every sample you may read.</p>
-            <div className="mt-1 grid grid-cols-2 gap-2">
-              <label className="text-sm">
-                Fields
-                <select name="fieldIds" multiple className="mt-1 block h-24 w-full rounded border border-line text-sm">
-                  {fields.map((f) => (
-                    <option key={f.id} value={f.id}>
-                      {f.name}
-                    </option>
-                  ))}
-                </select>
-              </label>
-              <label className="text-sm">
-                Samples
-                <select name="sampleIds" multiple className="mt-1 block h-24 w-full rounded border border-line text-sm">
-                  {samples.map((s) => (
-                    <option key={s.id} value={s.id}>
-                      {s.label}
-                    </option>
-                  ))}
-                </select>
-              </label>
+        <section className="rounded-lg border border-line bg-panel p-5">
+          <h2 className="font-semibold">New token</h2>
+          <Form method="post" className="mt-3 grid gap-4 md:grid-cols-2">
+            <input type="hidden" name="intent" value="create" />
+            <TextField
+              label="Name"
+              name="name"
+              required
+              errors={errors.name}
+              hint="What will use it, e.g. “Calder full-field model”."
+            />
+            <TextField
+              label="Expires after (days)"
+              name="expiresInDays"
+              type="number"
+              min={1}
+              max={maxDays}
+              defaultValue={90}
+              required
+              errors={errors.expiresInDays}
+              hint={`At most ${maxDays} days.`}
+            />
+            <fieldset>
+              <legend className="text-sm font-semibold">Scopes</legend>
+              {API_SCOPES.map((scope) => (
+                <label
+                  key={scope}
+                  className="mt-1 flex items-center gap-2 text-sm"
+                >
+                  <input
+                    type="checkbox"
+                    name="scopes"
+                    value={scope}
+                    defaultChecked
+                  />{" "}
+                  {SCOPE_LABELS[scope]} (<code>{scope}</code>)
+                </label>
+              ))}
+              <p className="mt-1 text-xs text-ink-muted">
+                What each scope allows is listed below.
+              </p>
+              <FieldError errors={errors.scopes} />
+            </fieldset>
+            <fieldset>
+              <legend className="text-sm font-semibold">
+                Restrict to (optional)
+              </legend>
+              <p className="text-xs text-ink-muted">
+                Leave both empty for every sample you may read.
+              </p>
+              <div className="mt-1 grid grid-cols-2 gap-2">
+                <label className="text-sm">
+                  Fields
+                  <select
+                    name="fieldIds"
+                    multiple
+                    className="mt-1 block h-24 w-full rounded border border-line text-sm"
+                  >
+                    {fields.map((f) => (
+                      <option key={f.id} value={f.id}>
+                        {f.name}
+                      </option>
+                    ))}
+                  </select>
+                </label>
+                <label className="text-sm">
+                  Samples
+                  <select
+                    name="sampleIds"
+                    multiple
+                    className="mt-1 block h-24 w-full rounded border border-line text-sm"
+                  >
+                    {samples.map((s) => (
+                      <option key={s.id} value={s.id}>
+                        {s.label}
+                      </option>
+                    ))}
+                  </select>
+                </label>
+              </div>
+            </fieldset>
+            <div className="md:col-span-2">
+              <Button
+                type="submit"
+                disabled={navigation.state === "submitting"}
+              >
+                Create token
+              </Button>
             </div>
-          </fieldset>
-          <div className="md:col-span-2">
-            <Button type="submit" disabled={navigation.state === "submitting"}>
-              Create token
-            </Button>
-          </div>
-        </Form>
-      </section>
+          </Form>
+        </section>
       ) : (
         <p className="rounded-lg border border-line bg-panel p-5 text-sm">
-          Your role ({ROLE_LABELS[user.role]}) cannot create tokens. You can still see and revoke the tokens you have; they can do no more than your
-          role allows.
+          Your role ({ROLE_LABELS[user.role]}) cannot create tokens. You can
+          still see and revoke the tokens you have; they can do no more than
+          your role allows.
         </p>
       )}
       <ScopeTable />
       <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
         <table className="w-full text-sm">
-          <caption className="sr-only">{seeAll ? "All API tokens" : "Your API tokens"}</caption>
+          <caption className="sr-only">
+            {seeAll ? "All API tokens" : "Your API tokens"}
+          </caption>
           <thead className="bg-surface text-left text-ink-muted">
             <tr>
               <th className="px-3 py-2 font-semibold">Name</th>
-              {seeAll ? <th className="px-3 py-2 font-semibold">Owner</th> : null}
+              {seeAll ? (
+                <th className="px-3 py-2 font-semibold">Owner</th>
+              ) : null}
               <th className="px-3 py-2 font-semibold">Scopes</th>
               <th className="px-3 py-2 font-semibold">Restricted to</th>
               <th className="px-3 py-2 font-semibold">Expires</th>
@@ -182,23 +327,61 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
             {tokens.map((t) => {
               const expired = new Date(t.expiresAt).getTime() < Date.now();
               const restricted = [
-                ...(t.restriction?.fieldIds ?? []).map((id) => fields.find((f) => f.id === id)?.name ?? `field ${id}`),
-                ...(t.restriction?.sampleIds ?? []).map((id) => samples.find((s) => s.id === id)?.label ?? `sample ${id}`),
+                ...(t.restriction?.fieldIds ?? []).map(
+                  (id) =>
+                    fields.find((f) => f.id === id)?.name ?? `field ${id}`,
+                ),
+                ...(t.restriction?.sampleIds ?? []).map(
+                  (id) =>
+                    samples.find((s) => s.id === id)?.label ?? `sample ${id}`,
+                ),
               ];
               return (
                 <tr key={t.id} className="border-t border-line">
                   <td className="px-3 py-2 font-semibold">{t.name}</td>
-                  {seeAll ? <td className="px-3 py-2">{t.ownerEmail}</td> : null}
-                  <td className="px-3 py-2 font-mono text-xs">{t.scopes.join(" ")}</td>
-                  <td className="px-3 py-2">{restricted.length ? restricted.join(", ") : "everything readable"}</td>
-                  <td className="px-3 py-2 tabular-nums">{new Date(t.expiresAt).toISOString().slice(0, 10)}</td>
-                  <td className="px-3 py-2 tabular-nums">{t.lastUsedAt ? new Date(t.lastUsedAt).toISOString().replace("T", " ").slice(0, 16) : "never"}</td>
-                  <td className="px-3 py-2">{t.revokedAt ? <span className="text-danger">Revoked</span> : expired ? "Expired" : "Active"}</td>
+                  {seeAll ? (
+                    <td className="px-3 py-2">{t.ownerEmail}</td>
+                  ) : null}
+                  <td className="px-3 py-2 font-mono text-xs">
+                    {t.scopes.join(" ")}
+                  </td>
+                  <td className="px-3 py-2">
+                    {restricted.length
+                      ? restricted.join(", ")
+                      : "everything readable"}
+                  </td>
+                  <td className="px-3 py-2 tabular-nums">
+                    {new Date(t.expiresAt).toISOString().slice(0, 10)}
+                  </td>
+                  <td className="px-3 py-2 tabular-nums">
+                    {t.lastUsedAt
+                      ? new Date(t.lastUsedAt)
+                          .toISOString()
+                          .replace("T", " ")
+                          .slice(0, 16)
+                      : "never"}
+                  </td>
+                  <td className="px-3 py-2">
+                    {t.revokedAt ? (
+                      <span className="text-danger">Revoked</span>
+                    ) : expired ? (
+                      "Expired"
+                    ) : (
+                      "Active"
+                    )}
+                  </td>
                   <td className="px-3 py-2 text-right">
                     {!t.revokedAt && (t.userId === user.id || seeAll) ? (
                       <Form method="post">
                         <input type="hidden" name="tokenId" value={t.id} />
-                        <Button type="submit" name="intent" value="revoke" variant="danger" className="px-2 py-1" aria-label={`Revoke ${t.name}`}>
+                        <Button
+                          type="submit"
+                          name="intent"
+                          value="revoke"
+                          variant="danger"
+                          className="px-2 py-1"
+                          aria-label={`Revoke ${t.name}`}
+                        >
                           Revoke
                         </Button>
                       </Form>
@@ -209,7 +392,10 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
             })}
             {tokens.length === 0 ? (
               <tr>
-                <td colSpan={8} className="px-3 py-6 text-center text-ink-muted">
+                <td
+                  colSpan={8}
+                  className="px-3 py-6 text-center text-ink-muted"
+                >
                   No tokens yet.
                 </td>
               </tr>
@@ -226,7 +412,9 @@ function ScopeTable() {
   return (
     <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
       <table className="w-full text-sm">
-        <caption className="px-3 pt-3 text-left font-semibold">What each scope allows</caption>
+        <caption className="px-3 pt-3 text-left font-semibold">
+          What each scope allows
+        </caption>
         <thead className="text-left text-ink-muted">
           <tr>
             <th className="px-3 py-2 font-semibold">Request</th>
@@ -241,7 +429,9 @@ function ScopeTable() {
               <td className="px-3 py-2 font-mono text-xs">
                 {rule.method} {rule.path}
               </td>
-              <td className="px-3 py-2 font-mono text-xs">{rule.scopes.join(" or ")}</td>
+              <td className="px-3 py-2 font-mono text-xs">
+                {rule.scopes.join(" or ")}
+              </td>
               <td className="px-3 py-2 font-mono text-xs">{rule.permission}</td>
               <td className="px-3 py-2">{rule.description}</td>
             </tr>
@@ -249,7 +439,8 @@ function ScopeTable() {
         </tbody>
       </table>
       <p className="px-3 pb-3 text-xs text-ink-muted">
-        The role is checked on every request: if the owner&apos;s role changes, existing tokens follow at once. Tokens read approved revisions only.
+        The role is checked on every request: if the owner&apos;s role changes,
+        existing tokens follow at once. Tokens read approved revisions only.
       </p>
     </div>
   );

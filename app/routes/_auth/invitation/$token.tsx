@@ -7,11 +7,15 @@ import { AcceptInvitationSchema } from "~/utils/auth-schemas";
 import { ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/$token";
 
-export const meta: Route.MetaFunction = () => [{ title: "Accept your invitation · Isopleth" }];
+export const meta: Route.MetaFunction = () => [
+  { title: "Accept your invitation · Isopleth" },
+];
 
 export async function loader({ params }: Route.LoaderArgs) {
   const invitation = await getInvitation(params.token);
-  return invitation?.role ? { valid: true as const, email: invitation.email, role: invitation.role } : { valid: false as const };
+  return invitation?.role
+    ? { valid: true as const, email: invitation.email, role: invitation.role }
+    : { valid: false as const };
 }
 
 export async function action(args: Route.ActionArgs) {
@@ -28,17 +32,27 @@ export async function action(args: Route.ActionArgs) {
   return redirect("/", { headers: { "Set-Cookie": result.setCookie } });
 }
 
-export default function AcceptInvitation({ loaderData, actionData }: Route.ComponentProps) {
+export default function AcceptInvitation({
+  loaderData,
+  actionData,
+}: Route.ComponentProps) {
   const navigation = useNavigation();
-  const { errors, onSubmit } = useZodForm(AcceptInvitationSchema, actionData?.errors);
+  const { errors, onSubmit } = useZodForm(
+    AcceptInvitationSchema,
+    actionData?.errors,
+  );
   if (!loaderData.valid) {
     return (
       <>
         <h1 className="text-xl font-bold">This invitation no longer works</h1>
         <p className="mt-2 text-sm text-ink-muted">
-          Invitations work once and expire after 72 hours. Ask an administrator to invite you again.
+          Invitations work once and expire after 72 hours. Ask an administrator
+          to invite you again.
         </p>
-        <Link to={href("/sign-in")} className="mt-4 inline-block text-accent underline">
+        <Link
+          to={href("/sign-in")}
+          className="mt-4 inline-block text-accent underline"
+        >
           Go to sign-in
         </Link>
       </>
@@ -48,14 +62,45 @@ export default function AcceptInvitation({ loaderData, actionData }: Route.Compo
     <>
       <h1 className="text-xl font-bold">Welcome to Isopleth</h1>
       <p className="mt-1 text-sm text-ink-muted">
-        Your account will be {loaderData.email}, as {ROLE_LABELS[loaderData.role]}.
+        Your account will be {loaderData.email}, as{" "}
+        {ROLE_LABELS[loaderData.role]}.
       </p>
-      <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate>
+      <Form
+        method="post"
+        className="mt-4 space-y-4"
+        onSubmit={onSubmit}
+        noValidate
+      >
         <FormAlert message={actionData?.formError} />
-        <TextField label="Your name" name="name" autoComplete="name" required errors={errors.name} />
-        <TextField label="Password" name="password" type="password" autoComplete="new-password" required errors={errors.password} hint="At least 10 characters." />
-        <TextField label="Password again" name="confirm" type="password" autoComplete="new-password" required errors={errors.confirm} />
-        <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
+        <TextField
+          label="Your name"
+          name="name"
+          autoComplete="name"
+          required
+          errors={errors.name}
+        />
+        <TextField
+          label="Password"
+          name="password"
+          type="password"
+          autoComplete="new-password"
+          required
+          errors={errors.password}
+          hint="At least 10 characters."
+        />
+        <TextField
+          label="Password again"
+          name="confirm"
+          type="password"
+          autoComplete="new-password"
+          required
+          errors={errors.confirm}
+        />
+        <Button
+          type="submit"
+          className="w-full"
+          disabled={navigation.state === "submitting"}
+        >
           Create my account
         </Button>
       </Form>

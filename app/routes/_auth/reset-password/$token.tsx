@@ -6,7 +6,9 @@ import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
 import { NewPasswordSchema } from "~/utils/auth-schemas";
 import type { Route } from "./+types/$token";
 
-export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Isopleth" }];
+export const meta: Route.MetaFunction = () => [
+  { title: "Choose a new password · Isopleth" },
+];
 
 export async function loader({ params }: Route.LoaderArgs) {
   const reset = await getPasswordReset(params.token);
@@ -26,15 +28,26 @@ export async function action(args: Route.ActionArgs) {
   return redirect("/", { headers: { "Set-Cookie": result.setCookie } });
 }
 
-export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {
+export default function ResetPassword({
+  loaderData,
+  actionData,
+}: Route.ComponentProps) {
   const navigation = useNavigation();
-  const { errors, onSubmit } = useZodForm(NewPasswordSchema, actionData?.errors);
+  const { errors, onSubmit } = useZodForm(
+    NewPasswordSchema,
+    actionData?.errors,
+  );
   if (!loaderData.valid) {
     return (
       <>
         <h1 className="text-xl font-bold">This link no longer works</h1>
-        <p className="mt-2 text-sm text-ink-muted">Reset links work once and expire after one hour.</p>
-        <Link to={href("/forgot-password")} className="mt-4 inline-block text-accent underline">
+        <p className="mt-2 text-sm text-ink-muted">
+          Reset links work once and expire after one hour.
+        </p>
+        <Link
+          to={href("/forgot-password")}
+          className="mt-4 inline-block text-accent underline"
+        >
           Ask for a new link
         </Link>
       </>
@@ -43,12 +56,38 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
   return (
     <>
       <h1 className="text-xl font-bold">Choose a new password</h1>
-      <p className="mt-1 text-sm text-ink-muted">For {loaderData.email}. Your other sessions will be signed out.</p>
-      <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate>
+      <p className="mt-1 text-sm text-ink-muted">
+        For {loaderData.email}. Your other sessions will be signed out.
+      </p>
+      <Form
+        method="post"
+        className="mt-4 space-y-4"
+        onSubmit={onSubmit}
+        noValidate
+      >
         <FormAlert message={actionData?.formError} />
-        <TextField label="New password" name="password" type="password" autoComplete="new-password" required errors={errors.password} hint="At least 10 characters." />
-        <TextField label="New password again" name="confirm" type="password" autoComplete="new-password" required errors={errors.confirm} />
-        <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
+        <TextField
+          label="New password"
+          name="password"
+          type="password"
+          autoComplete="new-password"
+          required
+          errors={errors.password}
+          hint="At least 10 characters."
+        />
+        <TextField
+          label="New password again"
+          name="confirm"
+          type="password"
+          autoComplete="new-password"
+          required
+          errors={errors.confirm}
+        />
+        <Button
+          type="submit"
+          className="w-full"
+          disabled={navigation.state === "submitting"}
+        >
           Save and sign in
         </Button>
       </Form>

@@ -1,4 +1,12 @@
-import { data, Form, href, Link, redirect, useNavigation, useSearchParams } from "react-router";
+import {
+  data,
+  Form,
+  href,
+  Link,
+  redirect,
+  useNavigation,
+  useSearchParams,
+} from "react-router";
 import { signIn } from "~/.server/auth/accounts";
 import { getCaller, requireAnonymous } from "~/.server/auth/guards";
 import { badRequest, parseForm } from "~/.server/forms";
@@ -31,10 +39,19 @@ export async function action(args: Route.ActionArgs) {
     userAgent: args.request.headers.get("User-Agent"),
   });
   if (!result.ok && result.reason === "throttled") {
-    return data({ errors: {}, formError: result.message }, { status: 429, headers: { "Retry-After": String(result.retryAfterSeconds) } });
+    return data(
+      { errors: {}, formError: result.message },
+      {
+        status: 429,
+        headers: { "Retry-After": String(result.retryAfterSeconds) },
+      },
+    );
   }
-  if (!result.ok) return data({ errors: {}, formError: result.message }, { status: 401 });
-  return redirect(safeRedirect(form.data.redirectTo), { headers: { "Set-Cookie": result.setCookie } });
+  if (!result.ok)
+    return data({ errors: {}, formError: result.message }, { status: 401 });
+  return redirect(safeRedirect(form.data.redirectTo), {
+    headers: { "Set-Cookie": result.setCookie },
+  });
 }
 
 export default function SignIn({ actionData }: Route.ComponentProps) {
@@ -44,12 +61,40 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
   return (
     <>
       <h1 className="text-xl font-bold">Sign in</h1>
-      <Form method="post" className="mt-4 space-y-4" onSubmit={onSubmit} noValidate>
+      <Form
+        method="post"
+        className="mt-4 space-y-4"
+        onSubmit={onSubmit}
+        noValidate
+      >
         <FormAlert message={actionData?.formError} />
-        <input type="hidden" name="redirectTo" value={safeRedirect(params.get("redirectTo"))} />
-        <TextField label="E-mail address" name="email" type="email" autoComplete="username" required errors={errors.email} autoFocus />
-        <TextField label="Password" name="password" type="password" autoComplete="current-password" required errors={errors.password} />
-        <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
+        <input
+          type="hidden"
+          name="redirectTo"
+          value={safeRedirect(params.get("redirectTo"))}
+        />
+        <TextField
+          label="E-mail address"
+          name="email"
+          type="email"
+          autoComplete="username"
+          required
+          errors={errors.email}
+          autoFocus
+        />
+        <TextField
+          label="Password"
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          required
+          errors={errors.password}
+        />
+        <Button
+          type="submit"
+          className="w-full"
+          disabled={navigation.state === "submitting"}
+        >
           Sign in
         </Button>
       </Form>

@@ -2,11 +2,27 @@ import { Form, useNavigation } from "react-router";
 import { inviteUser } from "~/.server/auth/accounts";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
 import { recordAudit } from "~/.server/db/queries/audit";
-import { getUserById, getUserCredentialsByEmail, listUsers, setUserDisabled, updateUserRole } from "~/.server/db/queries/users";
+import {
+  getUserById,
+  getUserCredentialsByEmail,
+  listUsers,
+  setUserDisabled,
+  updateUserRole,
+} from "~/.server/db/queries/users";
 import { badRequest, parseForm, readFormData } from "~/.server/forms";
-import { Button, FieldError, FormAlert, TextField, useZodForm } from "~/components/form";
+import {
+  Button,
+  FieldError,
+  FormAlert,
+  TextField,
+  useZodForm,
+} from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { ChangeRoleSchema, InviteSchema, SetDisabledSchema } from "~/utils/auth-schemas";
+import {
+  ChangeRoleSchema,
+  InviteSchema,
+  SetDisabledSchema,
+} from "~/utils/auth-schemas";
 import { ROLE_LABELS, ROLES } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -20,65 +36,153 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const me = requirePermission(args, "manage:people");
   const { ipAddress } = getCaller(args);
-  const intent = String((await readFormData(args.request.clone())).get("intent") ?? "");
+  const intent = String(
+    (await readFormData(args.request.clone())).get("intent") ?? "",
+  );
 
   if (intent === "invite") {
     const form = await parseForm(args.request, InviteSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
     if (await getUserCredentialsByEmail(form.data.email)) {
-      return badRequest({ errors: { email: ["Someone already has an account with this address."] }, intent });
+      return badRequest({
+        errors: {
+          email: ["Someone already has an account with this address."],
+        },
+        intent,
+      });
     }
-    await inviteUser({ inviterId: me.id, inviterName: me.name, email: form.data.email, role: form.data.role, ipAddress });
-    return { errors: {}, intent, done: `Invitation sent to ${form.data.email}.` };
+    await inviteUser({
+      inviterId: me.id,
+      inviterName: me.name,
+      email: form.data.email,
+      role: form.data.role,
+      ipAddress,
+    });
+    return {
+      errors: {},
+      intent,
+      done: `Invitation sent to ${form.data.email}.`,
+    };
   }
 
   if (intent === "role") {
     const form = await parseForm(args.request, ChangeRoleSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
     const person = await getUserById(form.data.userId);
-    if (!person) return badRequest({ errors: {}, intent, formError: "That person no longer exists." });
+    if (!person)
+      return badRequest({
+        errors: {},
+        intent,
+        formError: "That person no longer exists.",
+      });
     if (person.id === me.id && form.data.role !== "admin") {
-      return badRequest({ errors: {}, intent, formError: "You cannot remove your own administrator role; ask another administrator." });
+      return badRequest({
+        errors: {},
+        intent,
+        formError:
+          "You cannot remove your own administrator role; ask another administrator.",
+      });
     }
     await updateUserRole(person.id, form.data.role);
-    await recordAudit({ action: "role_changed", userId: me.id, entityType: "user", entityId: person.id, details: { from: person.role, to: form.data.role }, ipAddress });
-    return { errors: {}, intent, done: `${person.name} is now ${ROLE_LABELS[form.data.role]}.` };
+    await recordAudit({
+      action: "role_changed",
+      userId: me.id,
+      entityType: "user",
+      entityId: person.id,
+      details: { from: person.role, to: form.data.role },
+      ipAddress,
+    });
+    return {
+      errors: {},
+      intent,
+      done: `${person.name} is now ${ROLE_LABELS[form.data.role]}.`,
+    };
   }
 
   const form = await parseForm(args.request, SetDisabledSchema);
   if (!form.ok) return badRequest({ errors: form.errors, intent });
   const person = await getUserById(form.data.userId);
-  if (!person) return badRequest({ errors: {}, intent, formError: "That person no longer exists." });
-  if (person.id === me.id) return badRequest({ errors: {}, intent, formError: "You cannot disable your own account." });
+  if (!person)
+    return badRequest({
+      errors: {},
+      intent,
+      formError: "That person no longer exists.",
+    });
+  if (person.id === me.id)
+    return badRequest({
+      errors: {},
+      intent,
+      formError: "You cannot disable your own account.",
+    });
   const disable = form.data.intent === "disable";
   await setUserDisabled(person.id, disable);
-  await recordAudit({ action: disable ? "account_disabled" : "account_enabled", userId: me.id, entityType: "user", entityId: person.id, ipAddress });
-  return { errors: {}, intent, done: `${person.name} is ${disable ? "disabled and signed out everywhere" : "enabled again"}.` };
+  await recordAudit({
+    action: disable ? "account_disabled" : "account_enabled",
+    userId: me.id,
+    entityType: "user",
+    entityId: person.id,
+    ipAddress,
+  });
+  return {
+    errors: {},
+    intent,
+    done: `${person.name} is ${disable ? "disabled and signed out everywhere" : "enabled again"}.`,
+  };
 }
 
-export default function People({ loaderData, actionData }: Route.ComponentProps) {
+export default function People({
+  loaderData,
+  actionData,
+}: Route.ComponentProps) {
   const { me, people } = loaderData;
   const navigation = useNavigation();
-  const invite = useZodForm(InviteSchema, actionData?.intent === "invite" ? actionData.errors : null);
+  const invite = useZodForm(
+    InviteSchema,
+    actionData?.intent === "invite" ? actionData.errors : null,
+  );
   const done = actionData && "done" in actionData ? actionData.done : null;
-  const formError = actionData && "formError" in actionData ? actionData.formError : null;
+  const formError =
+    actionData && "formError" in actionData ? actionData.formError : null;
   return (
     <>
-      <PageHeader title="People">Invite people, choose what each may do, and disable accounts that should no longer sign in.</PageHeader>
+      <PageHeader title="People">
+        Invite people, choose what each may do, and disable accounts that should
+        no longer sign in.
+      </PageHeader>
       <div className="space-y-3">
         <FormAlert message={done} tone="ok" />
         <FormAlert message={formError} />
       </div>
       <section className="mt-4 rounded-lg border border-line bg-panel p-5">
         <h2 className="font-semibold">Invite someone</h2>
-        <Form method="post" className="mt-3 flex flex-wrap items-start gap-4" onSubmit={invite.onSubmit} noValidate>
+        <Form
+          method="post"
+          className="mt-3 flex flex-wrap items-start gap-4"
+          onSubmit={invite.onSubmit}
+          noValidate
+        >
           <input type="hidden" name="intent" value="invite" />
-          <TextField label="E-mail address" name="email" type="email" required errors={invite.errors.email} className="min-w-64 flex-1" />
+          <TextField
+            label="E-mail address"
+            name="email"
+            type="email"
+            required
+            errors={invite.errors.email}
+            className="min-w-64 flex-1"
+          />
           <div>
-            <label htmlFor="invite-role" className="block text-sm font-semibold">
+            <label
+              htmlFor="invite-role"
+              className="block text-sm font-semibold"
+            >
               Role
             </label>
-            <select id="invite-role" name="role" defaultValue="engineer" className="mt-1 rounded border border-line bg-panel px-3 py-2 text-sm">
+            <select
+              id="invite-role"
+              name="role"
+              defaultValue="engineer"
+              className="mt-1 rounded border border-line bg-panel px-3 py-2 text-sm"
+            >
               {ROLES.map((r) => (
                 <option key={r} value={r}>
                   {ROLE_LABELS[r]}
@@ -87,7 +191,11 @@ export default function People({ loaderData, actionData }: Route.ComponentProps)
             </select>
             <FieldError errors={invite.errors.role} />
           </div>
-          <Button type="submit" className="mt-6" disabled={navigation.state === "submitting"}>
+          <Button
+            type="submit"
+            className="mt-6"
+            disabled={navigation.state === "submitting"}
+          >
             Send invitation
           </Button>
         </Form>
@@ -118,19 +226,35 @@ export default function People({ loaderData, actionData }: Route.ComponentProps)
                     <label className="sr-only" htmlFor={`role-${p.id}`}>
                       Role of {p.name}
                     </label>
-                    <select id={`role-${p.id}`} name="role" defaultValue={p.role} className="rounded border border-line bg-panel px-2 py-1">
+                    <select
+                      id={`role-${p.id}`}
+                      name="role"
+                      defaultValue={p.role}
+                      className="rounded border border-line bg-panel px-2 py-1"
+                    >
                       {ROLES.map((r) => (
                         <option key={r} value={r}>
                           {ROLE_LABELS[r]}
                         </option>
                       ))}
                     </select>
-                    <Button type="submit" variant="secondary" className="px-2 py-1" aria-label={`Save role of ${p.name}`}>
+                    <Button
+                      type="submit"
+                      variant="secondary"
+                      className="px-2 py-1"
+                      aria-label={`Save role of ${p.name}`}
+                    >
                       Save
                     </Button>
                   </Form>
                 </td>
-                <td className="px-3 py-2">{p.disabledAt ? <span className="text-danger">Disabled</span> : "Active"}</td>
+                <td className="px-3 py-2">
+                  {p.disabledAt ? (
+                    <span className="text-danger">Disabled</span>
+                  ) : (
+                    "Active"
+                  )}
+                </td>
                 <td className="px-3 py-2 text-right">
                   {p.id !== me.id ? (
                     <Form method="post">

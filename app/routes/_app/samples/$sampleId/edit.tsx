@@ -1,15 +1,29 @@
 import { data, Form, href, Link, redirect, useNavigation } from "react-router";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import { getSampleRecord, listFieldsAndWells, updateSampleRecord } from "~/.server/db/queries/sample-records";
+import {
+  getSampleRecord,
+  listFieldsAndWells,
+  updateSampleRecord,
+} from "~/.server/db/queries/sample-records";
 import { badRequest, parseForm } from "~/.server/forms";
 import { sampleIdFrom } from "~/.server/samples/params";
-import { formDefaultsFromRecord, recordInputFromForm, standardLabel, standardPresetOf } from "~/.server/samples/sample-input";
+import {
+  formDefaultsFromRecord,
+  recordInputFromForm,
+  standardLabel,
+  standardPresetOf,
+} from "~/.server/samples/sample-input";
 import { Button, FormAlert, useZodForm } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { SampleFormFields, sampleFormSchema } from "~/components/samples/sample-form";
+import {
+  SampleFormFields,
+  sampleFormSchema,
+} from "~/components/samples/sample-form";
 import type { Route } from "./+types/edit";
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `Edit ${data?.label ?? "sample"} · Isopleth` }];
+export const meta: Route.MetaFunction = ({ data }) => [
+  { title: `Edit ${data?.label ?? "sample"} · Isopleth` },
+];
 
 async function requireRecord(params: { sampleId?: string }) {
   const id = sampleIdFrom(params);
@@ -27,7 +41,9 @@ export async function loader(args: Route.LoaderArgs) {
     label: record.label,
     system: user.unitSystem,
     defaults: formDefaultsFromRecord(record, user.unitSystem),
-    currentStandard: standardPresetOf(record) ? null : { label: standardLabel(record) },
+    currentStandard: standardPresetOf(record)
+      ? null
+      : { label: standardLabel(record) },
     fieldNames: places.fields.map((f) => f.name),
     wellNames: [...new Set(places.wells.map((w) => w.name))],
   };
@@ -38,30 +54,64 @@ export async function action(args: Route.ActionArgs) {
   const { ipAddress } = getCaller(args);
   const record = await requireRecord(args.params);
   const form = await parseForm(args.request, sampleFormSchema(user.unitSystem));
-  if (!form.ok) return badRequest({ errors: form.errors, formError: "Some fields need attention; nothing was saved." });
+  if (!form.ok)
+    return badRequest({
+      errors: form.errors,
+      formError: "Some fields need attention; nothing was saved.",
+    });
   const converted = recordInputFromForm(form.data, user.unitSystem, record);
-  if (!converted.ok) return badRequest({ errors: converted.errors, formError: "Some fields need attention; nothing was saved." });
-  const result = await updateSampleRecord(record.id, converted.input, { userId: user.id, ipAddress });
+  if (!converted.ok)
+    return badRequest({
+      errors: converted.errors,
+      formError: "Some fields need attention; nothing was saved.",
+    });
+  const result = await updateSampleRecord(record.id, converted.input, {
+    userId: user.id,
+    ipAddress,
+  });
   if (!result.ok) {
     return badRequest({
-      errors: { label: [`Well ${converted.input.wellName} already has a sample labelled "${converted.input.label}"; choose another label.`] },
+      errors: {
+        label: [
+          `Well ${converted.input.wellName} already has a sample labelled "${converted.input.label}"; choose another label.`,
+        ],
+      },
       formError: "Some fields need attention; nothing was saved.",
     });
   }
-  throw redirect(`${href("/samples/:sampleId", { sampleId: String(record.id) })}?saved=1`);
+  throw redirect(
+    `${href("/samples/:sampleId", { sampleId: String(record.id) })}?saved=1`,
+  );
 }
 
-export default function EditSample({ loaderData, actionData }: Route.ComponentProps) {
-  const { id, label, system, defaults, currentStandard, fieldNames, wellNames } = loaderData;
+export default function EditSample({
+  loaderData,
+  actionData,
+}: Route.ComponentProps) {
+  const {
+    id,
+    label,
+    system,
+    defaults,
+    currentStandard,
+    fieldNames,
+    wellNames,
+  } = loaderData;
   const navigation = useNavigation();
   const form = useZodForm(sampleFormSchema(system), actionData?.errors);
   const back = href("/samples/:sampleId", { sampleId: String(id) });
   return (
     <>
       <PageHeader title={`Edit ${label}`}>
-        Change the sample&apos;s record. Uploaded revisions are never changed: upload a new revision to correct measured values.
+        Change the sample&apos;s record. Uploaded revisions are never changed:
+        upload a new revision to correct measured values.
       </PageHeader>
-      <Form method="post" noValidate onSubmit={form.onSubmit} className="space-y-6">
+      <Form
+        method="post"
+        noValidate
+        onSubmit={form.onSubmit}
+        className="space-y-6"
+      >
         <FormAlert message={actionData?.formError} />
         <SampleFormFields
           system={system}

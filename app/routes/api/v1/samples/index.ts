@@ -12,7 +12,11 @@ export async function loader(args: Route.LoaderArgs) {
   const { units } = parseApiQuery(args.request, SampleListQuery);
   const samples = await listSamplesForCaller(caller, units);
   return json(args.request, {
-    units: { system: units, pressure: unitLabel(units, "pressure"), temperature: unitLabel(units, "temperature") },
+    units: {
+      system: units,
+      pressure: unitLabel(units, "pressure"),
+      temperature: unitLabel(units, "temperature"),
+    },
     samples,
   });
 }

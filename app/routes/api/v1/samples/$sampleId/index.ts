@@ -1,9 +1,18 @@
 import { requireApiCaller } from "~/.server/api/caller";
 import { parseApiPath, parseApiQuery } from "~/.server/api/request";
 import { json } from "~/.server/api/respond";
-import { gridsForOutput, isApprovedStatus, requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
+import {
+  gridsForOutput,
+  isApprovedStatus,
+  requireRevisionData,
+  requireSampleForCaller,
+} from "~/.server/api/samples";
 import { SampleIdParams, SampleQuery } from "~/.server/api/schemas";
-import { toOutputPressure, toOutputTemperature, unitLabel } from "~/.server/api/units";
+import {
+  toOutputPressure,
+  toOutputTemperature,
+  unitLabel,
+} from "~/.server/api/units";
 import type { Route } from "./+types/index";
 
 /** GET /api/v1/samples/:sampleId — metadata and the grids of the current approved revision (or ?revision=N). */
@@ -25,17 +34,37 @@ export async function loader(args: Route.LoaderArgs) {
         sampleType: sample.sampleType,
         samplingDate: sample.samplingDate,
         samplingDepthFt: sample.samplingDepthFt,
-        reservoirPressure: sample.reservoirPressurePsia === null ? null : toOutputPressure(sample.reservoirPressurePsia, system),
-        reservoirTemperature: sample.reservoirTemperatureF === null ? null : toOutputTemperature(sample.reservoirTemperatureF, system),
+        reservoirPressure:
+          sample.reservoirPressurePsia === null
+            ? null
+            : toOutputPressure(sample.reservoirPressurePsia, system),
+        reservoirTemperature:
+          sample.reservoirTemperatureF === null
+            ? null
+            : toOutputTemperature(sample.reservoirTemperatureF, system),
         stockTankApi: sample.stockTankApi,
         gasSpecificGravity: sample.gasSpecificGravity,
-        standardConditions: { pressurePsia: sample.standardPressurePsia, temperatureF: sample.standardTemperatureF },
+        standardConditions: {
+          pressurePsia: sample.standardPressurePsia,
+          temperatureF: sample.standardTemperatureF,
+        },
         laboratory: sample.laboratory,
         reportReference: sample.reportReference,
       },
-      revision: { number: data.number, status: data.status, approved: isApprovedStatus(data.status) },
-      units: { system, pressure: unitLabel(system, "pressure"), temperature: unitLabel(system, "temperature") },
-      bubblePoints: data.bubblePoints.map((b) => ({ temperature: toOutputTemperature(b.temperatureF, system), pressure: toOutputPressure(b.bubblePointPsia, system) })),
+      revision: {
+        number: data.number,
+        status: data.status,
+        approved: isApprovedStatus(data.status),
+      },
+      units: {
+        system,
+        pressure: unitLabel(system, "pressure"),
+        temperature: unitLabel(system, "temperature"),
+      },
+      bubblePoints: data.bubblePoints.map((b) => ({
+        temperature: toOutputTemperature(b.temperatureF, system),
+        pressure: toOutputPressure(b.bubblePointPsia, system),
+      })),
       grids: gridsForOutput(data, system),
     },
     data,

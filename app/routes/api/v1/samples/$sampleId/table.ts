@@ -1,6 +1,9 @@
 import { requireApiCaller } from "~/.server/api/caller";
 import { parseApiPath, parseApiQuery } from "~/.server/api/request";
-import { requireRevisionData, requireSampleForCaller } from "~/.server/api/samples";
+import {
+  requireRevisionData,
+  requireSampleForCaller,
+} from "~/.server/api/samples";
 import { SampleIdParams, TableQuery } from "~/.server/api/schemas";
 import { tableResponse } from "~/.server/api/table";
 import type { Route } from "./+types/table";
