@@ -324,6 +324,7 @@ app.use((req, res, next) => {
       "The address has a malformed percent-escape.",
     );
   }
+  // eslint-disable-next-line no-control-regex -- control characters are what this refuses
   if (/[\u0000-\u001f\u007f]/.test(decoded)) {
     return sendProblem(
       req,

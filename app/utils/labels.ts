@@ -12,6 +12,7 @@ import { z } from "zod";
 const LABEL_FORBIDDEN = /[\p{Cc}\u2028\u2029\u202A-\u202E\u2066-\u2069]/u;
 /** In multi-line text: the same, except tab, line feed and carriage return. */
 const TEXT_FORBIDDEN =
+  // eslint-disable-next-line no-control-regex -- control characters are what this pattern finds
   /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u009F\u2028\u2029\u202A-\u202E\u2066-\u2069]/u;
 
 function describe(ch: string): string {

@@ -16,7 +16,6 @@ let app: {
   tokens: typeof import("~/.server/auth/tokens");
 };
 let engineerId: number;
-let otherId: number;
 const PASSWORD = "correct-horse-battery";
 
 beforeAll(async () => {
@@ -40,7 +39,7 @@ beforeAll(async () => {
     role: "engineer",
     passwordHash,
   });
-  otherId = await app.users.createUser({
+  await app.users.createUser({
     email: "other@example.test",
     name: "Other",
     role: "viewer",

@@ -26,7 +26,7 @@ const cases: unknown[] = [
     points: [{ pressure: 3000, temperature: 212 }],
     extra: 1,
   },
-  { property: "oil_fvf", points: [{ pressure: 1e400, temperature: 212 }] },
+  { property: "oil_fvf", points: [{ pressure: Infinity, temperature: 212 }] },
 ];
 
 test.each(cases.map((c, i) => [i, c] as const))(

@@ -7,8 +7,7 @@ import {
   Component,
   lazy,
   Suspense,
-  useEffect,
-  useState,
+  useSyncExternalStore,
   type ReactNode,
 } from "react";
 import { SLICES_HEIGHT, surfaceHeight } from "./size";
@@ -32,10 +31,15 @@ const LazySlices = lazy(() =>
   preloadPlots().then((m) => ({ default: m.SlicesFigure })),
 );
 
+const noSubscription = () => () => {};
+
+/** False while rendering on the server and hydrating, true once mounted in the browser. */
 function useMounted() {
-  const [mounted, setMounted] = useState(false);
-  useEffect(() => setMounted(true), []);
-  return mounted;
+  return useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
 }
 
 export function PlotPlaceholder({

@@ -75,11 +75,14 @@ function FigureView({
         error: error instanceof Error ? error.message : String(error),
       };
     }
-    // `key` stands for the inputs
+    // `key` stands for the inputs, which `build` closes over
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [key]);
   const failed = result.figure === null;
   useEffect(() => {
     if (failed) onReady?.();
+    // Once per failure: a parent's new callback identity must not report it again.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [failed]);
   if (!result.figure) {
     return (

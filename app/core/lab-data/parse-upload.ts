@@ -46,7 +46,7 @@ export const ACCEPTED_EXTENSIONS: readonly string[] = [
 export function displayFileName(filename: unknown): string {
   const raw = typeof filename === "string" ? filename : "";
   const base = (raw.split(/[\\/]/).pop() ?? "")
-    .replace(/[\u0000-\u001f\u007f-\u009f]/g, "")
+    .replace(/\p{Cc}/gu, "")
     .trim();
   if (base === "") return "the uploaded file";
   return base.length > 120 ? `${base.slice(0, 117)}…` : base;

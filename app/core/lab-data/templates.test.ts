@@ -60,6 +60,7 @@ for (const layout of ["long", "grid"] as const) {
     const csv = buildTemplateCsv(layout);
     expect(csv).toMatch(/^# Isopleth upload template/);
     expect(csv).toContain("INVENTED");
+    // eslint-disable-next-line no-control-regex -- the allowed set names tab, LF and CR on purpose
     expect(/^[\x09\x0a\x0d\x20-\x7e]*$/.test(csv)).toBe(true); // ASCII: opens cleanly in any spreadsheet program
     const outcome = await parseUpload({
       filename: templateFileName(layout, "csv"),

@@ -1,4 +1,4 @@
-import { ADMIN, ALL, ENGINEER_UP, type Rule } from "./types";
+import { ADMIN, ALL, type Rule } from "./types";
 
 /** Shell, account, administration and sign-in routes. */
 export const CORE_RULES: Record<string, Rule> = {

@@ -80,6 +80,8 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
           autoComplete="username"
           required
           errors={errors.email}
+          // The page has one purpose, so the cursor starts in its first field.
+          // eslint-disable-next-line jsx-a11y/no-autofocus
           autoFocus
         />
         <TextField
