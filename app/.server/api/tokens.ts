@@ -1,7 +1,7 @@
 import { createSecretKey, randomUUID, type KeyObject } from "node:crypto";
 import jwt from "jsonwebtoken";
 import type { SessionUser } from "~/.server/auth/session";
-import { getDb } from "~/.server/db/client";
+import { getDb, type Executor } from "~/.server/db/client";
 import {
   getApiTokenForUse,
   getApiTokenOwner,
@@ -44,15 +44,18 @@ function tokenKey(): KeyObject {
  * Issues a token to its owner: at most MAX_TOKEN_LIFETIME_DAYS, restricted to the fields and samples given (none:
  * everything the owner may read). The record and its audit row are one transaction.
  */
-export async function issueApiToken(input: {
-  userId: number;
-  name: string;
-  scopes: ApiScope[];
-  fieldIds?: number[];
-  sampleIds?: number[];
-  expiresInDays: number;
-  ipAddress: string;
-}): Promise<{ id: string; token: string; expiresAt: Date }> {
+export async function issueApiToken(
+  input: {
+    userId: number;
+    name: string;
+    scopes: ApiScope[];
+    fieldIds?: number[];
+    sampleIds?: number[];
+    expiresInDays: number;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<{ id: string; token: string; expiresAt: Date }> {
   const days = Math.min(
     Math.max(1, Math.floor(input.expiresInDays)),
     MAX_TOKEN_LIFETIME_DAYS,
@@ -63,7 +66,7 @@ export async function issueApiToken(input: {
     fieldIds.length || sampleIds.length ? { fieldIds, sampleIds } : null;
   const id = randomUUID();
   const expiresAt = new Date(Date.now() + days * 86_400_000);
-  await getDb().transaction(async (tx) => {
+  await db.transaction(async (tx) => {
     await insertApiToken(
       {
         id,
@@ -125,12 +128,15 @@ export type RevokeOutcome =
  * Revokes a token of the user's own, or anyone's with revoke:any-token. Revoking a revoked token changes nothing
  * and records nothing; the first revocation and its audit row are one transaction.
  */
-export async function revokeToken(input: {
-  user: SessionUser;
-  tokenId: string;
-  ipAddress: string;
-}): Promise<RevokeOutcome> {
-  return getDb().transaction(async (tx): Promise<RevokeOutcome> => {
+export async function revokeToken(
+  input: {
+    user: SessionUser;
+    tokenId: string;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<RevokeOutcome> {
+  return db.transaction(async (tx): Promise<RevokeOutcome> => {
     const owner = await getApiTokenOwner(input.tokenId, tx);
     if (!owner) return { ok: false, reason: "not_found" };
     if (owner.userId !== input.user.id && !can(input.user, "revoke:any-token"))

@@ -1,4 +1,4 @@
-import { getDb } from "~/.server/db/client";
+import { getDb, type Executor } from "~/.server/db/client";
 import { recordAudit } from "~/.server/db/queries/audit";
 import {
   consumeLinkToken,
@@ -396,16 +396,19 @@ export async function resetPassword(
   });
 }
 
-export async function changePassword(input: {
-  userId: number;
-  sessionId: string;
-  currentPassword: string;
-  newPassword: string;
-  ipAddress: string;
-}): Promise<
+export async function changePassword(
+  input: {
+    userId: number;
+    sessionId: string;
+    currentPassword: string;
+    newPassword: string;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<
   { ok: true } | { ok: false; field: "currentPassword"; message: string }
 > {
-  const hash = await getUserPasswordHash(input.userId);
+  const hash = await getUserPasswordHash(input.userId, db);
   if (!hash || !(await verifyPassword(hash, input.currentPassword))) {
     return {
       ok: false,
@@ -414,7 +417,7 @@ export async function changePassword(input: {
     };
   }
   const passwordHash = await hashPassword(input.newPassword);
-  await getDb().transaction(async (tx) => {
+  await db.transaction(async (tx) => {
     await updateUserPassword(input.userId, passwordHash, input.sessionId, tx);
     await recordAudit(
       {

@@ -1,4 +1,4 @@
-import { getDb, type Database } from "~/.server/db/client";
+import { getDb, type Executor } from "~/.server/db/client";
 import { recordAudit } from "~/.server/db/queries/audit";
 import {
   getUserById,
@@ -23,7 +23,7 @@ const GONE = "That person no longer exists.";
 
 export async function changeRole(
   input: Change & { role: Role },
-  db: Database = getDb(),
+  db: Executor = getDb(),
 ): Promise<PeopleOutcome> {
   return db.transaction(async (tx): Promise<PeopleOutcome> => {
     const person = await getUserById(input.userId, tx);
@@ -56,7 +56,7 @@ export async function changeRole(
 /** Disabling also ends every session of the account (setUserDisabled). */
 export async function setAccountDisabled(
   input: Change & { disabled: boolean },
-  db: Database = getDb(),
+  db: Executor = getDb(),
 ): Promise<PeopleOutcome> {
   return db.transaction(async (tx): Promise<PeopleOutcome> => {
     const person = await getUserById(input.userId, tx);

@@ -103,12 +103,15 @@ export async function validateSessionToken(
 }
 
 /** Signing out: ends the session and records it, in one transaction; gives the cookie that clears the browser's. */
-export async function signOut(input: {
-  sessionId: string;
-  userId: number;
-  ipAddress: string;
-}): Promise<string> {
-  await getDb().transaction(async (tx) => {
+export async function signOut(
+  input: {
+    sessionId: string;
+    userId: number;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<string> {
+  await db.transaction(async (tx) => {
     await deleteSession(input.sessionId, tx);
     await recordAudit(
       { action: "sign_out", userId: input.userId, ipAddress: input.ipAddress },
