@@ -34,7 +34,8 @@ export default defineConfig({
         extends: true,
         test: {
           name: "db",
-          include: ["app/**/*.db.test.ts", "tests/integration/**/*.db.test.ts"],
+          // Every database test lives in tests/integration.
+          include: ["tests/integration/**/*.db.test.ts"],
           fileParallelism: false,
           testTimeout: 30_000,
           hookTimeout: 30_000,

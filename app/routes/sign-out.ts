@@ -1,7 +1,6 @@
 import { redirect } from "react-router";
 import { getCaller } from "~/.server/auth/guards";
-import { clearSessionCookie, destroySession } from "~/.server/auth/session";
-import { recordAudit } from "~/.server/db/queries/audit";
+import { clearSessionCookie, signOut } from "~/.server/auth/session";
 import type { Route } from "./+types/sign-out";
 
 /** POST /sign-out ends this browser's session. (GET does nothing: signing out is a change.) */
@@ -12,9 +11,8 @@ export async function action(args: Route.ActionArgs) {
       headers: { "Set-Cookie": await clearSessionCookie() },
     });
   }
-  const setCookie = await destroySession(caller.sessionId);
-  await recordAudit({
-    action: "sign_out",
+  const setCookie = await signOut({
+    sessionId: caller.sessionId,
     userId: caller.user.id,
     ipAddress: caller.ipAddress,
   });

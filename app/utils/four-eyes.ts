@@ -1,6 +1,6 @@
 /*
  * Four-eyes approval: "a revision must be approved by someone other than its uploader". Client-safe, so the
- * admin page and the review panel explain the rule the server enforces (app/.server/db/queries/review.ts).
+ * admin page and the review panel explain the rule the server enforces (app/.server/samples/review.ts).
  *
  * The administrator chooses one of three modes. "auto", the default (no row in lab_settings), turns the rule on
  * exactly when the installation has two or more ACTIVE lab leads: accounts whose role is lab_lead and that are

@@ -1,6 +1,15 @@
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, beforeEach, expect, test } from "vitest";
-import { useFreshMigratedDatabase } from "../support/test-database";
+import {
+  changePassword,
+  SIGN_IN_FAILED_MESSAGE,
+  signIn,
+} from "~/.server/auth/accounts";
+import { hashPassword, verifyPassword } from "~/.server/auth/password";
+import { createSession, validateSessionToken } from "~/.server/auth/session";
+import { hashToken } from "~/.server/auth/tokens";
+import { createUser, setUserDisabled } from "~/.server/db/queries/users";
+import { useFreshMigratedDatabase } from "../support/app-database";
 
 /*
  * Sessions and disabled accounts against the real MariaDB.
@@ -8,13 +17,6 @@ import { useFreshMigratedDatabase } from "../support/test-database";
  * the database only its SHA-256, so a leaked table cannot be replayed.
  */
 let cleanup: () => Promise<void>;
-let app: {
-  session: typeof import("~/.server/auth/session");
-  accounts: typeof import("~/.server/auth/accounts");
-  users: typeof import("~/.server/db/queries/users");
-  password: typeof import("~/.server/auth/password");
-  tokens: typeof import("~/.server/auth/tokens");
-};
 let engineerId: number;
 const PASSWORD = "correct-horse-battery";
 
@@ -25,21 +27,14 @@ beforeAll(async () => {
     await pool.end();
     await fresh.cleanup();
   };
-  app = {
-    session: await import("~/.server/auth/session"),
-    accounts: await import("~/.server/auth/accounts"),
-    users: await import("~/.server/db/queries/users"),
-    password: await import("~/.server/auth/password"),
-    tokens: await import("~/.server/auth/tokens"),
-  };
-  const passwordHash = await app.password.hashPassword(PASSWORD);
-  engineerId = await app.users.createUser({
+  const passwordHash = await hashPassword(PASSWORD);
+  engineerId = await createUser({
     email: "eng@example.test",
     name: "Eng",
     role: "engineer",
     passwordHash,
   });
-  await app.users.createUser({
+  await createUser({
     email: "other@example.test",
     name: "Other",
     role: "viewer",
@@ -72,29 +67,25 @@ beforeEach(async () => {
 });
 
 test("the database stores only the SHA-256 of a session token, never the token", async () => {
-  const { sessionId, setCookie } = await app.session.createSession(engineerId, {
+  const { sessionId, setCookie } = await createSession(engineerId, {
     ipAddress: "10.0.0.1",
     userAgent: "test",
   });
   const token = tokenFromCookie(setCookie);
   expect(token).toMatch(/^[a-z2-7]{32}$/);
-  expect(sessionId).toBe(app.tokens.hashToken(token));
+  expect(sessionId).toBe(hashToken(token));
   const rows = await sql<Record<string, unknown>>("SELECT * FROM sessions");
   expect(rows).toHaveLength(1);
   expect(JSON.stringify(rows)).not.toContain(token);
   // The stored id cannot be used as a token.
-  expect(
-    await app.session.validateSessionToken(sessionId.slice(0, 32)),
-  ).toBeNull();
-  expect((await app.session.validateSessionToken(token))?.user.id).toBe(
-    engineerId,
-  );
+  expect(await validateSessionToken(sessionId.slice(0, 32))).toBeNull();
+  expect((await validateSessionToken(token))?.user.id).toBe(engineerId);
   expect(setCookie).toMatch(/HttpOnly/);
   expect(setCookie).toMatch(/SameSite=Lax/);
 });
 
 test("an expired session is refused and deleted; a session with under 15 days left slides to 30 days", async () => {
-  const { sessionId, setCookie } = await app.session.createSession(engineerId, {
+  const { sessionId, setCookie } = await createSession(engineerId, {
     ipAddress: "x",
     userAgent: null,
   });
@@ -106,16 +97,14 @@ test("an expired session is refused and deleted; a session with under 15 days le
     new Date(Date.now() + 20 * day),
     sessionId,
   ]);
-  expect(
-    (await app.session.validateSessionToken(token))?.renewedCookie,
-  ).toBeNull();
+  expect((await validateSessionToken(token))?.renewedCookie).toBeNull();
 
   // 10 days left: renewed in the database and in the cookie.
   await sql("UPDATE sessions SET expires_at = ? WHERE id = ?", [
     new Date(Date.now() + 10 * day),
     sessionId,
   ]);
-  const renewed = await app.session.validateSessionToken(token);
+  const renewed = await validateSessionToken(token);
   expect(renewed?.renewedCookie).toMatch(/Max-Age=2592000/);
   const [row] = await sql<{ expires_at: Date }>(
     "SELECT expires_at FROM sessions WHERE id = ?",
@@ -130,22 +119,22 @@ test("an expired session is refused and deleted; a session with under 15 days le
     new Date(Date.now() - 1000),
     sessionId,
   ]);
-  expect(await app.session.validateSessionToken(token)).toBeNull();
+  expect(await validateSessionToken(token)).toBeNull();
   expect(
     await sql("SELECT id FROM sessions WHERE id = ?", [sessionId]),
   ).toEqual([]);
 });
 
 test("disabling an account stops its sessions at once; a password change ends the other sessions", async () => {
-  const a = await app.session.createSession(engineerId, {
+  const a = await createSession(engineerId, {
     ipAddress: "x",
     userAgent: null,
   });
-  const b = await app.session.createSession(engineerId, {
+  const b = await createSession(engineerId, {
     ipAddress: "x",
     userAgent: null,
   });
-  const changed = await app.accounts.changePassword({
+  const changed = await changePassword({
     userId: engineerId,
     sessionId: a.sessionId,
     currentPassword: PASSWORD,
@@ -154,33 +143,29 @@ test("disabling an account stops its sessions at once; a password change ends th
   });
   expect(changed).toEqual({ ok: true });
   expect(
-    await app.session.validateSessionToken(tokenFromCookie(a.setCookie)),
+    await validateSessionToken(tokenFromCookie(a.setCookie)),
   ).not.toBeNull();
-  expect(
-    await app.session.validateSessionToken(tokenFromCookie(b.setCookie)),
-  ).toBeNull();
+  expect(await validateSessionToken(tokenFromCookie(b.setCookie))).toBeNull();
 
-  await app.users.setUserDisabled(engineerId, true);
-  expect(
-    await app.session.validateSessionToken(tokenFromCookie(a.setCookie)),
-  ).toBeNull();
-  const signIn = await app.accounts.signIn({
+  await setUserDisabled(engineerId, true);
+  expect(await validateSessionToken(tokenFromCookie(a.setCookie))).toBeNull();
+  const disabledSignIn = await signIn({
     email: "eng@example.test",
     password: PASSWORD,
     ipAddress: "10.1.1.1",
     userAgent: null,
   });
-  expect(signIn).toMatchObject({ ok: false, reason: "invalid" });
+  expect(disabledSignIn).toMatchObject({ ok: false, reason: "invalid" });
 });
 
 test("unknown address and wrong password get the same message", async () => {
-  const unknown = await app.accounts.signIn({
+  const unknown = await signIn({
     email: "nobody@example.test",
     password: "whatever-it-is",
     ipAddress: "10.2.0.1",
     userAgent: null,
   });
-  const wrong = await app.accounts.signIn({
+  const wrong = await signIn({
     email: "eng@example.test",
     password: "not-the-password",
     ipAddress: "10.2.0.2",
@@ -190,15 +175,15 @@ test("unknown address and wrong password get the same message", async () => {
   expect(unknown).toEqual({
     ok: false,
     reason: "invalid",
-    message: app.accounts.SIGN_IN_FAILED_MESSAGE,
+    message: SIGN_IN_FAILED_MESSAGE,
   });
 });
 
 // Throttling (which replaced the lockout): tests/integration/sign-in-throttle.db.test.ts.
 
 test("password hashes are argon2id with the documented parameters", async () => {
-  const hash = await app.password.hashPassword("some password");
+  const hash = await hashPassword("some password");
   expect(hash).toMatch(/^\$argon2id\$v=19\$m=65536,t=3,p=1\$/);
-  expect(await app.password.verifyPassword(hash, "some password")).toBe(true);
-  expect(await app.password.verifyPassword(hash, "some passwore")).toBe(false);
+  expect(await verifyPassword(hash, "some password")).toBe(true);
+  expect(await verifyPassword(hash, "some passwore")).toBe(false);
 });

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, expect, test } from "vitest";
-import { runMigrations } from "~/.server/db/migrate";
+import { migrationLockName, runMigrations } from "~/.server/db/migrate";
 import { createEmptyDatabase } from "../support/test-database";
 
 /*
@@ -52,7 +52,6 @@ test("a migrator that cannot get the lock in time says so and changes nothing", 
   const empty = await createEmptyDatabase();
   const holder = await mysql.createConnection({ uri: empty.url });
   try {
-    const { migrationLockName } = await import("~/.server/db/migrate");
     await holder.query("SELECT GET_LOCK(?, 1)", [
       migrationLockName(empty.name),
     ]);

@@ -1,7 +1,13 @@
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, beforeEach, expect, test } from "vitest";
 import { startSmtpCapture } from "../support/smtp-capture";
-import { useFreshMigratedDatabase } from "../support/test-database";
+import * as accounts from "~/.server/auth/accounts";
+import * as background from "~/.server/auth/background";
+import * as session from "~/.server/auth/session";
+import { hashPassword } from "~/.server/auth/password";
+import { createUser } from "~/.server/db/queries/users";
+import { hashToken, generateToken } from "~/.server/auth/tokens";
+import { useFreshMigratedDatabase } from "../support/app-database";
 
 /*
  * Password reset against the real MariaDB and a real SMTP server, after OWASP's Forgot Password Cheat Sheet
@@ -11,9 +17,6 @@ import { useFreshMigratedDatabase } from "../support/test-database";
 let cleanup: () => Promise<void>;
 let pool: mysql.Pool;
 let smtp: Awaited<ReturnType<typeof startSmtpCapture>>;
-let accounts: typeof import("~/.server/auth/accounts");
-let background: typeof import("~/.server/auth/background");
-let session: typeof import("~/.server/auth/session");
 let userId: number;
 const EMAIL = "reset@example.test";
 const PASSWORD = "correct-horse-battery";
@@ -26,11 +29,6 @@ beforeAll(async () => {
   process.env.SMTP_PORT = String(smtp.port);
   const fresh = await useFreshMigratedDatabase();
   pool = mysql.createPool({ uri: fresh.url, timezone: "Z" });
-  accounts = await import("~/.server/auth/accounts");
-  background = await import("~/.server/auth/background");
-  session = await import("~/.server/auth/session");
-  const { hashPassword } = await import("~/.server/auth/password");
-  const { createUser } = await import("~/.server/db/queries/users");
   const hash = await hashPassword(PASSWORD);
   userId = await createUser({
     email: EMAIL,
@@ -131,7 +129,6 @@ test("a new reset link kills the older one; completing a reset kills every link 
   });
 
   // A live link made before this rule existed (written directly) dies too when a reset is completed.
-  const { hashToken, generateToken } = await import("~/.server/auth/tokens");
   const legacy = generateToken();
   await pool.query(
     "INSERT INTO link_tokens (kind, token_hash, email, user_id, expires_at) VALUES ('password_reset', ?, ?, ?, ?)",

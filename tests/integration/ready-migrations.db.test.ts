@@ -9,11 +9,14 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { runMigrations } from "~/.server/db/migrate";
+import { closeDb } from "~/.server/db/client";
+import { loader } from "~/routes/api/ready";
+import { useDatabaseAt } from "../support/app-database";
 import { createEmptyDatabase } from "../support/test-database";
 
 /*
  * Readiness with a database one migration behind the build: migrated from a copy of drizzle/ whose journal
- * lacks the last entry, then made the app's DATABASE_URL before any app module reads its configuration.
+ * lacks the last entry, then made the app's database.
  */
 const journal = JSON.parse(
   readFileSync("drizzle/meta/_journal.json", "utf8"),
@@ -29,17 +32,15 @@ beforeAll(async () => {
   );
   behind = await createEmptyDatabase();
   await runMigrations(behind.url, olderFolder);
-  process.env.DATABASE_URL = behind.url;
+  useDatabaseAt(behind.url);
 });
 afterAll(async () => {
-  const { closeDb } = await import("~/.server/db/client");
   await closeDb();
   await behind.drop();
   rmSync(olderFolder, { recursive: true, force: true });
 });
 
 test("GET /api/ready is 503 on a database missing the last migration, naming the check and the migration", async () => {
-  const { loader } = await import("~/routes/api/ready");
   const response = await loader();
   expect(response.status).toBe(503);
   const body = await response.json();
@@ -56,7 +57,6 @@ test("GET /api/ready is 503 on a database missing the last migration, naming the
 
 test("once migrated, the same database is ready", async () => {
   await runMigrations(behind.url);
-  const { loader } = await import("~/routes/api/ready");
   const response = await loader();
   expect(response.status).toBe(200);
   expect((await response.json()).failing).toEqual([]);

@@ -2,12 +2,16 @@ import { readFileSync, statfsSync } from "node:fs";
 import { tmpdir } from "node:os";
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, expect, test } from "vitest";
-import { useFreshMigratedDatabase } from "../support/test-database";
+import { parseEnv } from "~/.server/env";
+import {
+  checkReadiness,
+  readinessOptions,
+  type ReadinessOptions,
+} from "~/.server/ops/readiness";
+import { loader } from "~/routes/api/ready";
+import { useFreshMigratedDatabase } from "../support/app-database";
 
-/*
- * Readiness (GET /api/ready) against a real MariaDB: a fresh migrated database for the file, made the app's
- * DATABASE_URL before any app module reads its configuration.
- */
+/* Readiness (GET /api/ready) against a real MariaDB: a fresh migrated database for the file, the app's database. */
 let fresh: Awaited<ReturnType<typeof useFreshMigratedDatabase>>;
 
 beforeAll(async () => {
@@ -17,15 +21,11 @@ afterAll(async () => {
   await fresh.cleanup();
 });
 
-async function options(
-  overrides: Partial<import("~/.server/ops/readiness").ReadinessOptions> = {},
-) {
-  const { readinessOptions } = await import("~/.server/ops/readiness");
+function options(overrides: Partial<ReadinessOptions> = {}) {
   return { ...readinessOptions(), ...overrides };
 }
 
 test("GET /api/ready is 200 with every check passing, and each call rewrites this host's heartbeat row", async () => {
-  const { loader } = await import("~/routes/api/ready");
   const response = await loader();
   expect(response.status).toBe(200);
   expect(response.headers.get("Cache-Control")).toBe("no-store");
@@ -42,10 +42,13 @@ test("GET /api/ready is 200 with every check passing, and each call rewrites thi
     expected: journal.entries.length,
     pending: [],
   });
-  // the test database runs on this machine, so its data directory is watched beside the temp folder
+  // the test database runs on this machine, so its data directory is watched beside the configured ones
+  // (temp, and data when ISOPLETH_DATA_DIR is set, as npm test does for a shared server)
   expect(
     body.checks.disk.disks.map((d: { name: string }) => d.name).sort(),
-  ).toEqual(["database", "temp"]);
+  ).toEqual(
+    [...readinessOptions().disks.map((d) => d.name), "database"].sort(),
+  );
 
   const connection = await mysql.createConnection({ uri: fresh.url });
   try {
@@ -67,15 +70,12 @@ test("GET /api/ready is 200 with every check passing, and each call rewrites thi
 });
 
 test("the disk check passes with a tiny threshold and fails, named, when a disk has less free than required", async () => {
-  const { checkReadiness } = await import("~/.server/ops/readiness");
-  const tiny = await checkReadiness(await options({ minFreeBytes: 1 }));
+  const tiny = await checkReadiness(options({ minFreeBytes: 1 }));
   expect(tiny.checks.disk.ok).toBe(true);
 
   const stats = statfsSync(tmpdir());
   const moreThanFree = stats.bavail * stats.bsize + 1024 ** 3;
-  const full = await checkReadiness(
-    await options({ minFreeBytes: moreThanFree }),
-  );
+  const full = await checkReadiness(options({ minFreeBytes: moreThanFree }));
   expect(full.status).toBe("not ready");
   expect(full.failing).toEqual(["disk"]);
   expect(full.checks.disk.disks.find((d) => d.name === "temp")).toMatchObject({
@@ -85,9 +85,8 @@ test("the disk check passes with a tiny threshold and fails, named, when a disk 
 });
 
 test("a watched folder that does not exist fails the disk check instead of passing unseen", async () => {
-  const { checkReadiness } = await import("~/.server/ops/readiness");
   const result = await checkReadiness(
-    await options({
+    options({
       disks: [{ name: "data", path: "/nonexistent/isopleth-data" }],
     }),
   );
@@ -100,8 +99,6 @@ test("a watched folder that does not exist fails the disk check instead of passi
 });
 
 test("the configured minimum and data folder reach the check (READY_MIN_FREE_BYTES, ISOPLETH_DATA_DIR)", async () => {
-  const { parseEnv } = await import("~/.server/env");
-  const { readinessOptions } = await import("~/.server/ops/readiness");
   const env = parseEnv({
     NODE_ENV: "test",
     READY_MIN_FREE_BYTES: "12345",
@@ -116,11 +113,10 @@ test("the configured minimum and data folder reach the check (READY_MIN_FREE_BYT
 });
 
 test("a database that does not take the write in time fails the database check, named", async () => {
-  const { checkReadiness } = await import("~/.server/ops/readiness");
   const locker = await mysql.createConnection({ uri: fresh.url });
   try {
     await locker.query("LOCK TABLES ops_heartbeats WRITE");
-    const result = await checkReadiness(await options({ timeoutMs: 500 }));
+    const result = await checkReadiness(options({ timeoutMs: 500 }));
     expect(result.failing).toEqual(["database"]);
     expect(result.checks.database).toEqual({
       ok: false,

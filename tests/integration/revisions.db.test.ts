@@ -1,6 +1,41 @@
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { useFreshMigratedDatabase } from "../support/test-database";
+import {
+  countFollowers,
+  followSample,
+  isFollowing,
+  listActiveFollowers,
+  unfollowSample,
+} from "~/.server/db/queries/follows";
+import {
+  getCurrentApprovedRevision,
+  getRevisionDetail,
+  getRevisionGrids,
+  getRevisionsForDiff,
+  listRevisionsOfSample,
+  storeDraftRevision,
+  storeUploadedRevision,
+} from "~/.server/db/queries/revisions";
+import {
+  createSampleRecord,
+  getSampleRecord,
+  searchSamples,
+  updateSampleRecord,
+} from "~/.server/db/queries/samples";
+import {
+  getFourEyesPolicy,
+  setFourEyesMode,
+} from "~/.server/db/queries/settings";
+import { createUser, setUserDisabled } from "~/.server/db/queries/users";
+import {
+  checkUpload,
+  revisionFromUpload,
+} from "~/.server/samples/check-upload";
+import { diffRevisions } from "~/.server/samples/diff";
+import type { StoredQcReport } from "~/.server/samples/qc-report";
+import { reviewRevision } from "~/.server/samples/review";
+import { buildTemplateCsv } from "~/core/lab-data";
+import { useFreshMigratedDatabase } from "../support/app-database";
 
 /*
  * Revisions against the real MariaDB: storing an upload is all-or-nothing, numbering stays unique and gapless
@@ -10,16 +45,6 @@ import { useFreshMigratedDatabase } from "../support/test-database";
  */
 let cleanup: () => Promise<void>;
 let pool: mysql.Pool;
-let app: {
-  records: typeof import("~/.server/db/queries/sample-records");
-  review: typeof import("~/.server/db/queries/review");
-  revisions: typeof import("~/.server/db/queries/revisions");
-  users: typeof import("~/.server/db/queries/users");
-  settings: typeof import("~/.server/db/queries/settings");
-  check: typeof import("~/.server/samples/check-upload");
-  diff: typeof import("~/.server/samples/diff");
-  labData: typeof import("~/core/lab-data");
-};
 let labLeadId: number;
 let otherLeadId: number;
 let viewerId: number;
@@ -50,7 +75,7 @@ async function newSample(
   wellName = "T-1",
   fieldName = "Test Field",
 ) {
-  const result = await app.records.createSampleRecord(
+  const result = await createSampleRecord(
     { ...SAMPLE, fieldName, wellName, label },
     { userId: labLeadId },
   );
@@ -60,8 +85,8 @@ async function newSample(
 
 /** The long-layout template, checked for a sample, as the revision an upload would store. */
 async function templateRevision(sampleId: number, comment = "test upload") {
-  const bytes = new TextEncoder().encode(app.labData.buildTemplateCsv("long"));
-  const checked = await app.check.checkUpload(
+  const bytes = new TextEncoder().encode(buildTemplateCsv("long"));
+  const checked = await checkUpload(
     { name: "template-long.csv", bytes },
     SAMPLE,
   );
@@ -71,7 +96,7 @@ async function templateRevision(sampleId: number, comment = "test upload") {
     );
   return {
     checked,
-    revision: app.check.revisionFromUpload(checked, {
+    revision: revisionFromUpload(checked, {
       sampleId,
       createdBy: labLeadId,
       comment,
@@ -119,29 +144,19 @@ beforeAll(async () => {
     await pool.end();
     await fresh.cleanup();
   };
-  app = {
-    records: await import("~/.server/db/queries/sample-records"),
-    review: await import("~/.server/db/queries/review"),
-    revisions: await import("~/.server/db/queries/revisions"),
-    users: await import("~/.server/db/queries/users"),
-    settings: await import("~/.server/db/queries/settings"),
-    check: await import("~/.server/samples/check-upload"),
-    diff: await import("~/.server/samples/diff"),
-    labData: await import("~/core/lab-data"),
-  };
-  labLeadId = await app.users.createUser({
+  labLeadId = await createUser({
     email: "lead@example.test",
     name: "Lead One",
     role: "lab_lead",
     passwordHash: "x",
   });
-  otherLeadId = await app.users.createUser({
+  otherLeadId = await createUser({
     email: "lead2@example.test",
     name: "Lead Two",
     role: "lab_lead",
     passwordHash: "x",
   });
-  viewerId = await app.users.createUser({
+  viewerId = await createUser({
     email: "viewer@example.test",
     name: "Viewer",
     role: "viewer",
@@ -153,7 +168,7 @@ afterAll(async () => cleanup?.());
 
 describe("field → well → sample records", () => {
   test("creates the field and well once, refuses a second sample of the same label in a well", async () => {
-    const first = await app.records.createSampleRecord(
+    const first = await createSampleRecord(
       { ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S1" },
       { userId: labLeadId },
     );
@@ -162,7 +177,7 @@ describe("field → well → sample records", () => {
       createdField: true,
       createdWell: true,
     });
-    const second = await app.records.createSampleRecord(
+    const second = await createSampleRecord(
       { ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S2" },
       { userId: labLeadId },
     );
@@ -171,7 +186,7 @@ describe("field → well → sample records", () => {
       createdField: false,
       createdWell: false,
     });
-    const duplicate = await app.records.createSampleRecord(
+    const duplicate = await createSampleRecord(
       { ...SAMPLE, fieldName: "Records Field", wellName: "R-1", label: "S1" },
       { userId: labLeadId },
     );
@@ -186,8 +201,8 @@ describe("field → well → sample records", () => {
   test("an edit can move the sample to a new well and refuses a label taken there", async () => {
     const id = await newSample("Move me", "M-1", "Move Field");
     await newSample("Taken", "M-2", "Move Field");
-    const record = (await app.records.getSampleRecord(id))!;
-    const moved = await app.records.updateSampleRecord(
+    const record = (await getSampleRecord(id))!;
+    const moved = await updateSampleRecord(
       id,
       { ...record, fieldRegion: null, wellName: "M-3", notes: "moved" },
       { userId: labLeadId },
@@ -202,17 +217,17 @@ describe("field → well → sample records", () => {
       [String(id)],
     );
     expect(Number(audit!.n)).toBe(1);
-    expect(await app.records.getSampleRecord(id)).toMatchObject({
+    expect(await getSampleRecord(id)).toMatchObject({
       wellName: "M-3",
       notes: "moved",
     });
-    const clash = await app.records.updateSampleRecord(
+    const clash = await updateSampleRecord(
       id,
       { ...record, fieldRegion: null, wellName: "M-2", label: "Taken" },
       { userId: labLeadId },
     );
     expect(clash).toEqual({ ok: false, conflict: "label" });
-    expect(await app.records.getSampleRecord(id)).toMatchObject({
+    expect(await getSampleRecord(id)).toMatchObject({
       wellName: "M-3",
       label: "Move me",
     });
@@ -221,7 +236,7 @@ describe("field → well → sample records", () => {
   test("search, filter, sort and pages", async () => {
     for (const label of ["Zeta 1", "Zeta 2", "Zeta 3"])
       await newSample(label, "Z-1", "Zeta Field");
-    const all = await app.records.searchSamples({
+    const all = await searchSamples({
       q: "zeta",
       sort: "label",
       dir: "desc",
@@ -230,7 +245,7 @@ describe("field → well → sample records", () => {
     });
     expect(all.total).toBe(3);
     expect(all.rows.map((r) => r.label)).toEqual(["Zeta 3", "Zeta 2"]);
-    const page2 = await app.records.searchSamples({
+    const page2 = await searchSamples({
       q: "zeta",
       sort: "label",
       dir: "desc",
@@ -241,7 +256,7 @@ describe("field → well → sample records", () => {
     // LIKE wildcards typed by the user are taken literally.
     expect(
       (
-        await app.records.searchSamples({
+        await searchSamples({
           q: "%",
           sort: "label",
           dir: "asc",
@@ -252,7 +267,7 @@ describe("field → well → sample records", () => {
     ).toBe(0);
     expect(
       (
-        await app.records.searchSamples({
+        await searchSamples({
           q: "Z-1",
           status: "approved",
           sort: "field",
@@ -264,7 +279,7 @@ describe("field → well → sample records", () => {
     ).toBe(0);
     expect(
       (
-        await app.records.searchSamples({
+        await searchSamples({
           q: "Z-1",
           status: "none",
           sort: "field",
@@ -281,9 +296,9 @@ describe("storing an upload", () => {
   test("the template round-trips: what is read back is what was parsed", async () => {
     const sampleId = await newSample("Round trip");
     const { checked, revision } = await templateRevision(sampleId);
-    const stored = await app.review.storeDraftRevision(revision);
+    const stored = await storeDraftRevision(revision);
     expect(stored.number).toBe(1);
-    const grids = await app.revisions.getRevisionGrids(stored.id);
+    const grids = await getRevisionGrids(stored.id);
     expect(grids.map((g) => g.property).sort()).toEqual(
       Object.keys(checked.dataset.properties).sort(),
     );
@@ -293,7 +308,7 @@ describe("storing an upload", () => {
     const bg = grids.find((g) => g.property === "gas_fvf")!;
     expect(bg.sourceUnit).toBe("ft3/scf");
     expect(bg.unit).toBe("rb/scf");
-    const detail = await app.review.getRevisionDetail(sampleId, 1);
+    const detail = await getRevisionDetail(sampleId, 1);
     expect(detail).toMatchObject({
       status: "draft",
       uploaderName: "Lead One",
@@ -312,7 +327,7 @@ describe("storing an upload", () => {
       ...revision,
       grids: [...revision.grids, revision.grids[0]!],
     };
-    await expect(app.review.storeDraftRevision(broken)).rejects.toThrow();
+    await expect(storeDraftRevision(broken)).rejects.toThrow();
     expect(await rowCounts(sampleId)).toEqual({
       revisions: 0,
       grids: 0,
@@ -329,7 +344,7 @@ describe("storing an upload", () => {
     const { revision } = await templateRevision(sampleId);
     // audit_log.ip_address is VARCHAR(64): MariaDB's strict mode refuses a longer value, after every grid is written.
     await expect(
-      app.review.storeDraftRevision({ ...revision, ipAddress: "x".repeat(65) }),
+      storeDraftRevision({ ...revision, ipAddress: "x".repeat(65) }),
     ).rejects.toThrow();
     expect(await rowCounts(sampleId)).toEqual({
       revisions: 0,
@@ -340,20 +355,20 @@ describe("storing an upload", () => {
     });
     expect(await allRowCounts()).toEqual(before);
     // And the next upload still gets number 1: nothing was used up.
-    expect((await app.review.storeDraftRevision(revision)).number).toBe(1);
+    expect((await storeDraftRevision(revision)).number).toBe(1);
   });
 
   test("two concurrent uploads for one sample get unique, gapless numbers", async () => {
     const sampleId = await newSample("Concurrent");
     const { revision } = await templateRevision(sampleId);
     const pair = await Promise.all([
-      app.review.storeDraftRevision(revision),
-      app.review.storeDraftRevision(revision),
+      storeDraftRevision(revision),
+      storeDraftRevision(revision),
     ]);
     expect(pair.map((r) => r.number).sort()).toEqual([1, 2]);
     // Five more at once, on a sample that now has revisions.
     const more = await Promise.all(
-      Array.from({ length: 5 }, () => app.review.storeDraftRevision(revision)),
+      Array.from({ length: 5 }, () => storeDraftRevision(revision)),
     );
     expect(more.map((r) => r.number).sort((a, b) => a - b)).toEqual([
       3, 4, 5, 6, 7,
@@ -371,13 +386,13 @@ describe("storing an upload", () => {
   test("an upload identical (SHA-256) to a stored revision is refused unless confirmed, and names that revision", async () => {
     const sampleId = await newSample("Identical");
     const { revision } = await templateRevision(sampleId);
-    const first = await app.review.storeUploadedRevision({
+    const first = await storeUploadedRevision({
       ...revision,
       storeIdentical: false,
     });
     expect(first).toMatchObject({ ok: true, number: 1 });
     const before = await rowCounts(sampleId);
-    const again = await app.review.storeUploadedRevision({
+    const again = await storeUploadedRevision({
       ...revision,
       storeIdentical: false,
     });
@@ -392,13 +407,13 @@ describe("storing an upload", () => {
     // A different file goes in without a question; the identical one with the confirmation.
     const other = { ...revision, sourceSha256: "0".repeat(64) };
     expect(
-      await app.review.storeUploadedRevision({
+      await storeUploadedRevision({
         ...other,
         storeIdentical: false,
       }),
     ).toMatchObject({ ok: true, number: 2 });
     expect(
-      await app.review.storeUploadedRevision({
+      await storeUploadedRevision({
         ...revision,
         storeIdentical: true,
       }),
@@ -422,10 +437,7 @@ describe("storing an upload", () => {
       ids.map(async (id) => (await templateRevision(id)).revision),
     );
     const stored = await Promise.all(
-      revisions.flatMap((r) => [
-        app.review.storeDraftRevision(r),
-        app.review.storeDraftRevision(r),
-      ]),
+      revisions.flatMap((r) => [storeDraftRevision(r), storeDraftRevision(r)]),
     );
     for (let k = 0; k < ids.length; k++) {
       expect([stored[2 * k]!.number, stored[2 * k + 1]!.number].sort()).toEqual(
@@ -440,8 +452,7 @@ async function draftWith(
   findings: { severity: "error" | "warning" | "info" }[],
 ) {
   const { revision } = await templateRevision(sampleId);
-  const report =
-    revision.qcReport as import("~/.server/samples/qc-report").StoredQcReport;
+  const report = revision.qcReport as StoredQcReport;
   const withFindings = {
     ...report,
     findings: findings.map((f, i) => ({
@@ -451,16 +462,16 @@ async function draftWith(
       cells: [],
     })),
   };
-  return app.review.storeDraftRevision({ ...revision, qcReport: withFindings });
+  return storeDraftRevision({ ...revision, qcReport: withFindings });
 }
 
 describe("review", () => {
   // These tests are about the QC rules; uploader and reviewer are often the same person, so four-eyes is off.
   beforeAll(async () => {
-    await app.settings.setFourEyesMode({ mode: "off", userId: labLeadId });
+    await setFourEyesMode({ mode: "off", userId: labLeadId });
   });
   afterAll(async () => {
-    await app.settings.setFourEyesMode({ mode: "auto", userId: labLeadId });
+    await setFourEyesMode({ mode: "auto", userId: labLeadId });
   });
 
   test("errors block approval, warnings need acknowledging, the previous approved revision is superseded", async () => {
@@ -473,7 +484,7 @@ describe("review", () => {
     };
     const clean = await draftWith(sampleId, []);
     expect(
-      await app.review.reviewRevision({
+      await reviewRevision({
         ...base,
         number: clean.number,
         decision: "approve",
@@ -489,7 +500,7 @@ describe("review", () => {
       { severity: "warning" },
     ]);
     expect(
-      await app.review.reviewRevision({
+      await reviewRevision({
         ...base,
         number: bad.number,
         decision: "approve",
@@ -505,7 +516,7 @@ describe("review", () => {
       { severity: "info" },
     ]);
     expect(
-      await app.review.reviewRevision({
+      await reviewRevision({
         ...base,
         number: warned.number,
         decision: "approve",
@@ -514,7 +525,7 @@ describe("review", () => {
       ok: false,
       reason: "warnings_not_acknowledged",
     });
-    const approved = await app.review.reviewRevision({
+    const approved = await reviewRevision({
       ...base,
       reviewerId: otherLeadId,
       number: warned.number,
@@ -528,7 +539,7 @@ describe("review", () => {
       ownUpload: false,
     });
 
-    const rejected = await app.review.reviewRevision({
+    const rejected = await reviewRevision({
       ...base,
       number: bad.number,
       decision: "reject",
@@ -536,7 +547,7 @@ describe("review", () => {
     });
     expect(rejected).toMatchObject({ ok: true });
     expect(
-      await app.review.reviewRevision({
+      await reviewRevision({
         ...base,
         number: bad.number,
         decision: "approve",
@@ -547,7 +558,7 @@ describe("review", () => {
       status: "rejected",
     });
 
-    const list = await app.review.listRevisionsOfSample(sampleId);
+    const list = await listRevisionsOfSample(sampleId);
     expect(
       list.map((r) => [r.number, r.status, r.uploaderName, r.reviewerName]),
     ).toEqual([
@@ -555,9 +566,7 @@ describe("review", () => {
       [2, "rejected", "Lead One", "Lead One"],
       [1, "superseded", "Lead One", "Lead One"],
     ]);
-    expect(
-      (await app.revisions.getCurrentApprovedRevision(sampleId))?.number,
-    ).toBe(3);
+    expect((await getCurrentApprovedRevision(sampleId))?.number).toBe(3);
     const audits = await sql<{ action: string; details: unknown }>(
       "SELECT action, details FROM audit_log WHERE action IN ('revision_approved','revision_rejected') AND JSON_VALUE(details, '$.sampleId') = ? ORDER BY id",
       [sampleId],
@@ -589,12 +598,12 @@ describe("review", () => {
       decision: "approve" as const,
     };
     await Promise.all([
-      app.review.reviewRevision({
+      reviewRevision({
         ...base,
         number: a.number,
         reviewerId: labLeadId,
       }),
-      app.review.reviewRevision({
+      reviewRevision({
         ...base,
         number: b.number,
         reviewerId: otherLeadId,
@@ -611,7 +620,7 @@ describe("review", () => {
 
 describe("four-eyes approval (lab policy)", () => {
   const approve = (sampleId: number, number: number, reviewerId: number) =>
-    app.review.reviewRevision({
+    reviewRevision({
       sampleId,
       number,
       reviewerId,
@@ -621,14 +630,14 @@ describe("four-eyes approval (lab policy)", () => {
     });
 
   test("by default it is on with two active lab leads and off with one; disabled accounts are not counted", async () => {
-    expect(await app.settings.getFourEyesPolicy()).toEqual({
+    expect(await getFourEyesPolicy()).toEqual({
       mode: "auto",
       activeLabLeads: 2,
       required: true,
     });
-    await app.users.setUserDisabled(otherLeadId, true);
+    await setUserDisabled(otherLeadId, true);
     try {
-      expect(await app.settings.getFourEyesPolicy()).toEqual({
+      expect(await getFourEyesPolicy()).toEqual({
         mode: "auto",
         activeLabLeads: 1,
         required: false,
@@ -641,7 +650,7 @@ describe("four-eyes approval (lab policy)", () => {
         ownUpload: true,
       });
     } finally {
-      await app.users.setUserDisabled(otherLeadId, false);
+      await setUserDisabled(otherLeadId, false);
     }
   });
 
@@ -655,9 +664,9 @@ describe("four-eyes approval (lab policy)", () => {
       ok: false,
       reason: "own_upload",
     });
-    expect(
-      (await app.review.getRevisionDetail(sampleId, own.number))?.status,
-    ).toBe("draft");
+    expect((await getRevisionDetail(sampleId, own.number))?.status).toBe(
+      "draft",
+    );
     const auditsAfter = await sql<{ n: number }>(
       "SELECT COUNT(*) AS n FROM audit_log WHERE action = 'revision_approved'",
     );
@@ -667,7 +676,7 @@ describe("four-eyes approval (lab policy)", () => {
       ok: true,
       ownUpload: false,
     });
-    const detail = await app.review.getRevisionDetail(sampleId, own.number);
+    const detail = await getRevisionDetail(sampleId, own.number);
     expect(detail).toMatchObject({
       status: "approved",
       uploaderName: "Lead One",
@@ -686,7 +695,7 @@ describe("four-eyes approval (lab policy)", () => {
 
     const second = await draftWith(sampleId, []);
     expect(
-      await app.review.reviewRevision({
+      await reviewRevision({
         sampleId,
         number: second.number,
         reviewerId: labLeadId,
@@ -709,7 +718,7 @@ describe("four-eyes approval (lab policy)", () => {
       );
     const before = await count();
     expect(
-      await app.settings.setFourEyesMode({
+      await setFourEyesMode({
         mode: "off",
         userId: viewerId,
         ipAddress: "192.0.2.7",
@@ -721,13 +730,17 @@ describe("four-eyes approval (lab policy)", () => {
       ownUpload: true,
     });
 
-    expect(
-      await app.settings.setFourEyesMode({ mode: "on", userId: viewerId }),
-    ).toEqual({ changed: true, from: "off", to: "on" });
-    expect(
-      await app.settings.setFourEyesMode({ mode: "on", userId: viewerId }),
-    ).toEqual({ changed: false, from: "on", to: "on" });
-    await app.users.setUserDisabled(otherLeadId, true);
+    expect(await setFourEyesMode({ mode: "on", userId: viewerId })).toEqual({
+      changed: true,
+      from: "off",
+      to: "on",
+    });
+    expect(await setFourEyesMode({ mode: "on", userId: viewerId })).toEqual({
+      changed: false,
+      from: "on",
+      to: "on",
+    });
+    await setUserDisabled(otherLeadId, true);
     try {
       // "on" holds with a single lab lead.
       const next = await draftWith(sampleId, []);
@@ -736,11 +749,13 @@ describe("four-eyes approval (lab policy)", () => {
         reason: "own_upload",
       });
     } finally {
-      await app.users.setUserDisabled(otherLeadId, false);
+      await setUserDisabled(otherLeadId, false);
     }
-    expect(
-      await app.settings.setFourEyesMode({ mode: "auto", userId: viewerId }),
-    ).toEqual({ changed: true, from: "on", to: "auto" });
+    expect(await setFourEyesMode({ mode: "auto", userId: viewerId })).toEqual({
+      changed: true,
+      from: "on",
+      to: "auto",
+    });
     expect(await count()).toBe(before + 3);
     const rows = await sql<{
       user_id: number;
@@ -771,22 +786,23 @@ describe("four-eyes approval (lab policy)", () => {
 describe("follows and diff", () => {
   test("follow is idempotent; followers are listed; unfollow removes", async () => {
     const sampleId = await newSample("Followed");
-    await app.review.followSample(sampleId, viewerId);
-    await app.review.followSample(sampleId, viewerId);
-    await app.review.followSample(sampleId, otherLeadId);
-    expect(await app.review.isFollowing(sampleId, viewerId)).toBe(true);
-    expect(
-      (await app.review.listActiveFollowers(sampleId)).map((f) => f.email),
-    ).toEqual(["lead2@example.test", "viewer@example.test"]);
-    await app.review.unfollowSample(sampleId, viewerId);
-    expect(await app.review.isFollowing(sampleId, viewerId)).toBe(false);
-    expect(await app.review.countFollowers(sampleId)).toBe(1);
+    await followSample(sampleId, viewerId);
+    await followSample(sampleId, viewerId);
+    await followSample(sampleId, otherLeadId);
+    expect(await isFollowing(sampleId, viewerId)).toBe(true);
+    expect((await listActiveFollowers(sampleId)).map((f) => f.email)).toEqual([
+      "lead2@example.test",
+      "viewer@example.test",
+    ]);
+    await unfollowSample(sampleId, viewerId);
+    expect(await isFollowing(sampleId, viewerId)).toBe(false);
+    expect(await countFollowers(sampleId)).toBe(1);
   });
 
   test("the diff lists changed, added and removed cells", async () => {
     const sampleId = await newSample("Diffed");
     const { revision } = await templateRevision(sampleId);
-    await app.review.storeDraftRevision(revision);
+    await storeDraftRevision(revision);
     const bo = revision.grids.find((g) => g.property === "oil_fvf")!;
     const changedBo = {
       ...bo,
@@ -803,7 +819,7 @@ describe("follows and diff", () => {
       pressures: [...gor.pressures, 6000],
       values: [...gor.values, gor.values[gor.values.length - 1]!],
     };
-    await app.review.storeDraftRevision({
+    await storeDraftRevision({
       ...revision,
       grids: [
         ...withoutZ.filter((g) => g.property !== "solution_gor"),
@@ -811,8 +827,8 @@ describe("follows and diff", () => {
         extraRow,
       ],
     });
-    const pair = await app.review.getRevisionsForDiff(sampleId, 1, 2);
-    const diff = app.diff.diffRevisions(pair.from!, pair.to!);
+    const pair = await getRevisionsForDiff(sampleId, 1, 2);
+    const diff = diffRevisions(pair.from!, pair.to!);
     expect(diff.changed).toHaveLength(1);
     expect(diff.changed[0]).toMatchObject({
       property: "oil_fvf",
@@ -831,8 +847,6 @@ describe("follows and diff", () => {
     expect(
       diff.removed.every((c) => c.property === "z_factor" && c.to === null),
     ).toBe(true);
-    expect(
-      (await app.review.getRevisionsForDiff(sampleId, 1, 9)).to,
-    ).toBeNull();
+    expect((await getRevisionsForDiff(sampleId, 1, 9)).to).toBeNull();
   });
 });

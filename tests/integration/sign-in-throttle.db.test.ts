@@ -1,7 +1,11 @@
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, beforeEach, expect, test } from "vitest";
 import { startSmtpCapture } from "../support/smtp-capture";
-import { useFreshMigratedDatabase } from "../support/test-database";
+import * as accounts from "~/.server/auth/accounts";
+import * as background from "~/.server/auth/background";
+import { hashPassword } from "~/.server/auth/password";
+import { createUser } from "~/.server/db/queries/users";
+import { useFreshMigratedDatabase } from "../support/app-database";
 
 /*
  * Sign-in throttling against the real MariaDB, with the clock injected. The policy follows OWASP's
@@ -12,8 +16,6 @@ import { useFreshMigratedDatabase } from "../support/test-database";
 let cleanup: () => Promise<void>;
 let pool: mysql.Pool;
 let smtp: Awaited<ReturnType<typeof startSmtpCapture>>;
-let accounts: typeof import("~/.server/auth/accounts");
-let background: typeof import("~/.server/auth/background");
 const PASSWORD = "correct-horse-battery";
 const OWNER = "owner@example.test";
 const T0 = Date.UTC(2026, 2, 1, 9, 0, 0);
@@ -24,10 +26,6 @@ beforeAll(async () => {
   process.env.SMTP_PORT = String(smtp.port);
   const fresh = await useFreshMigratedDatabase();
   pool = mysql.createPool({ uri: fresh.url, timezone: "Z" });
-  accounts = await import("~/.server/auth/accounts");
-  background = await import("~/.server/auth/background");
-  const { hashPassword } = await import("~/.server/auth/password");
-  const { createUser } = await import("~/.server/db/queries/users");
   await createUser({
     email: OWNER,
     name: "Owner",

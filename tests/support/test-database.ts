@@ -1,6 +1,5 @@
 import { randomBytes } from "node:crypto";
 import mysql from "mysql2/promise";
-
 /** Server connection used by integration tests; npm test sets TEST_DATABASE_URL for a private MariaDB. */
 export const TEST_DATABASE_URL =
   process.env.TEST_DATABASE_URL ??
@@ -33,28 +32,6 @@ export async function createEmptyDatabase(): Promise<{
       const c = await mysql.createConnection({ uri: serverUrl.toString() });
       await c.query(`DROP DATABASE IF EXISTS \`${name}\``);
       await c.end();
-    },
-  };
-}
-
-/**
- * For a test file that exercises app code through getDb(): a fresh, migrated database for the file,
- * made the app's DATABASE_URL before any app module reads its configuration, and dropped afterwards.
- */
-export async function useFreshMigratedDatabase(): Promise<{
-  url: string;
-  cleanup: () => Promise<void>;
-}> {
-  const database = await createEmptyDatabase();
-  const { runMigrations } = await import("../../app/.server/db/migrate");
-  await runMigrations(database.url);
-  process.env.DATABASE_URL = database.url;
-  return {
-    url: database.url,
-    cleanup: async () => {
-      const { closeDb } = await import("../../app/.server/db/client");
-      await closeDb();
-      await database.drop();
     },
   };
 }

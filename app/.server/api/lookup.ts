@@ -1,8 +1,12 @@
 import { createHash } from "node:crypto";
-import { isLookupError } from "~/core/lookup";
+import { isLookupError, type LookupError } from "~/core/lookup";
 import { problem } from "~/.server/http";
 import { lookupPointsServed } from "~/.server/ops/metrics";
-import { runHeavyTimed, type HeavyRun } from "~/.server/workers/pool";
+import {
+  runHeavyTimed,
+  type HeavyRun,
+  type HeavySurface,
+} from "~/.server/workers/pool";
 import type { RevisionData } from "~/.server/samples/revision-data";
 import { BUILD_ID, finiteJson, refuseNonFinite } from "./respond";
 import { isApprovedStatus } from "./samples";
@@ -15,23 +19,22 @@ export type LookupRequest = Omit<LookupBody, "points"> & {
 };
 
 /**
- * Runs a validated lookup against a revision (in a worker thread when large: app/.server/workers) and gives
- * the API response's parts, the results already serialised (or a problem).
+ * The one lookup computation: a validated request against a revision, in a worker thread when large
+ * (app/.server/workers), the results already serialised as the API's `results` array. Used by the API and by the
+ * runs of saved lookup sets. Gives null when the revision has no grid of the property; the engine's LookupError
+ * (a point out of range, options it refuses) is thrown.
  */
 export async function computeLookup(
   data: RevisionData,
   body: LookupRequest,
-): Promise<HeavyRun<"api-lookup"> | Response> {
+  options: { surface?: HeavySurface } = {},
+): Promise<HeavyRun<"api-lookup"> | null> {
   const grid = data.grids[body.property];
-  if (!grid)
-    return problem(
-      404,
-      "property_not_measured",
-      `Revision ${data.number} has no ${body.property} grid.`,
-    );
-  try {
-    const { pressures, temperatures } = body;
-    return await runHeavyTimed("api-lookup", {
+  if (!grid) return null;
+  const { pressures, temperatures } = body;
+  return runHeavyTimed(
+    "api-lookup",
+    {
       grid,
       pressures,
       temperatures,
@@ -43,36 +46,37 @@ export async function computeLookup(
         units: body.units,
         messages: false,
       },
-    });
-  } catch (error) {
-    if (isLookupError(error)) {
-      const status =
-        error.code === "OUT_OF_RANGE" || error.code === "NO_VALID_ZONE"
-          ? 422
-          : error.code === "INVALID_GRID"
-            ? 500
-            : 400;
-      const code =
-        status === 422
-          ? "out_of_range"
-          : status === 500
-            ? "internal_error"
-            : "invalid_body";
-      const index =
-        typeof error.details.pointIndex === "number"
-          ? error.details.pointIndex
-          : undefined;
-      return problem(
-        status,
-        code,
-        error.message,
-        index === undefined
-          ? undefined
-          : { issues: [{ path: ["points", index], message: error.message }] },
-      );
-    }
-    throw error;
-  }
+    },
+    options,
+  );
+}
+
+/** An engine refusal as the API's problem response. */
+function lookupProblem(error: LookupError): Response {
+  const status =
+    error.code === "OUT_OF_RANGE" || error.code === "NO_VALID_ZONE"
+      ? 422
+      : error.code === "INVALID_GRID"
+        ? 500
+        : 400;
+  const code =
+    status === 422
+      ? "out_of_range"
+      : status === 500
+        ? "internal_error"
+        : "invalid_body";
+  const index =
+    typeof error.details.pointIndex === "number"
+      ? error.details.pointIndex
+      : undefined;
+  return problem(
+    status,
+    code,
+    error.message,
+    index === undefined
+      ? undefined
+      : { issues: [{ path: ["points", index], message: error.message }] },
+  );
 }
 
 /**
@@ -90,9 +94,20 @@ export async function lookupResponse(
   bodyText: string,
 ): Promise<Response> {
   const computeStarted = performance.now();
-  const run = await computeLookup(data, body);
+  let run: HeavyRun<"api-lookup"> | null;
+  try {
+    run = await computeLookup(data, body);
+  } catch (error) {
+    if (isLookupError(error)) return lookupProblem(error);
+    throw error;
+  }
   const computeMs = performance.now() - computeStarted;
-  if (run instanceof Response) return run;
+  if (!run)
+    return problem(
+      404,
+      "property_not_measured",
+      `Revision ${data.number} has no ${body.property} grid.`,
+    );
   const result = run.value;
   let head: string;
   try {

@@ -1,14 +1,20 @@
 import { createSecretKey, randomUUID, type KeyObject } from "node:crypto";
 import jwt from "jsonwebtoken";
-import { recordAudit } from "~/.server/db/queries/audit";
+import type { SessionUser } from "~/.server/auth/session";
+import { getDb, type Executor } from "~/.server/db/client";
 import {
   getApiTokenForUse,
+  getApiTokenOwner,
   insertApiToken,
+  listApiTokens,
+  revokeApiToken,
   touchApiToken,
   type TokenRestriction,
 } from "~/.server/db/queries/api-tokens";
+import { recordAudit } from "~/.server/db/queries/audit";
 import type { ApiScope } from "~/.server/db/schema";
 import { getEnv } from "~/.server/env";
+import { can } from "~/utils/permissions";
 
 /*
  * API tokens are JWTs signed with HS256 and the server secret API_TOKEN_SECRET. The JWT's `jti` names a row of
@@ -27,27 +33,68 @@ function tokenKey(): KeyObject {
   return secretKey;
 }
 
-export async function issueApiToken(input: {
-  userId: number;
-  name: string;
-  scopes: ApiScope[];
-  restriction: TokenRestriction;
-  expiresInDays: number;
-  ipAddress: string;
-}): Promise<{ id: string; token: string; expiresAt: Date }> {
+/*
+ * Who may do what with tokens: everyone signed in may list and revoke their own tokens (a person demoted to
+ * viewer keeps control of the tokens made before); creating one needs manage:own-tokens; seeing and revoking
+ * everyone's needs revoke:any-token. What a token can do is bounded by its owner's current role on every request
+ * (app/utils/api-scopes.ts).
+ */
+
+/**
+ * Issues a token to its owner: at most MAX_TOKEN_LIFETIME_DAYS, restricted to the fields and samples given (none:
+ * everything the owner may read). The record and its audit row are one transaction.
+ */
+export async function issueApiToken(
+  input: {
+    userId: number;
+    name: string;
+    scopes: ApiScope[];
+    fieldIds?: number[];
+    sampleIds?: number[];
+    expiresInDays: number;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<{ id: string; token: string; expiresAt: Date }> {
   const days = Math.min(
     Math.max(1, Math.floor(input.expiresInDays)),
     MAX_TOKEN_LIFETIME_DAYS,
   );
+  const fieldIds = input.fieldIds ?? [];
+  const sampleIds = input.sampleIds ?? [];
+  const restriction: TokenRestriction =
+    fieldIds.length || sampleIds.length ? { fieldIds, sampleIds } : null;
   const id = randomUUID();
   const expiresAt = new Date(Date.now() + days * 86_400_000);
-  await insertApiToken({
-    id,
-    userId: input.userId,
-    name: input.name,
-    scopes: input.scopes,
-    restriction: input.restriction,
-    expiresAt,
+  await db.transaction(async (tx) => {
+    await insertApiToken(
+      {
+        id,
+        userId: input.userId,
+        name: input.name,
+        scopes: input.scopes,
+        restriction,
+        expiresAt,
+      },
+      tx,
+    );
+    await recordAudit(
+      {
+        action: "api_token_created",
+        userId: input.userId,
+        apiTokenId: id,
+        entityType: "api_token",
+        entityId: id,
+        details: {
+          name: input.name,
+          scopes: input.scopes,
+          restriction,
+          expiresAt: expiresAt.toISOString(),
+        },
+        ipAddress: input.ipAddress,
+      },
+      tx,
+    );
   });
   const token = jwt.sign({ scope: input.scopes.join(" ") }, tokenKey(), {
     algorithm: "HS256",
@@ -57,21 +104,58 @@ export async function issueApiToken(input: {
     audience: AUDIENCE,
     expiresIn: Math.floor((expiresAt.getTime() - Date.now()) / 1000),
   });
-  await recordAudit({
-    action: "api_token_created",
-    userId: input.userId,
-    apiTokenId: id,
-    entityType: "api_token",
-    entityId: id,
-    details: {
-      name: input.name,
-      scopes: input.scopes,
-      restriction: input.restriction,
-      expiresAt: expiresAt.toISOString(),
-    },
-    ipAddress: input.ipAddress,
-  });
   return { id, token, expiresAt };
+}
+
+/** The tokens the user may see (their own, or everyone's with revoke:any-token), each saying whether it expired. */
+export async function listTokensFor(user: SessionUser, now = new Date()) {
+  const seeAll = can(user, "revoke:any-token");
+  const tokens = await listApiTokens(seeAll ? {} : { userId: user.id });
+  return {
+    seeAll,
+    canCreate: can(user, "manage:own-tokens"),
+    tokens: tokens.map((t) => ({
+      ...t,
+      expired: t.expiresAt.getTime() < now.getTime(),
+    })),
+  };
+}
+
+export type RevokeOutcome =
+  { ok: true; name: string } | { ok: false; reason: "not_found" | "forbidden" };
+
+/**
+ * Revokes a token of the user's own, or anyone's with revoke:any-token. Revoking a revoked token changes nothing
+ * and records nothing; the first revocation and its audit row are one transaction.
+ */
+export async function revokeToken(
+  input: {
+    user: SessionUser;
+    tokenId: string;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<RevokeOutcome> {
+  return db.transaction(async (tx): Promise<RevokeOutcome> => {
+    const owner = await getApiTokenOwner(input.tokenId, tx);
+    if (!owner) return { ok: false, reason: "not_found" };
+    if (owner.userId !== input.user.id && !can(input.user, "revoke:any-token"))
+      return { ok: false, reason: "forbidden" };
+    if (await revokeApiToken(input.tokenId, input.user.id, tx))
+      await recordAudit(
+        {
+          action: "api_token_revoked",
+          userId: input.user.id,
+          apiTokenId: input.tokenId,
+          entityType: "api_token",
+          entityId: input.tokenId,
+          details: { owner: owner.userId, name: owner.name },
+          ipAddress: input.ipAddress,
+        },
+        tx,
+      );
+    return { ok: true, name: owner.name };
+  });
 }
 
 export type TokenCaller = {
@@ -171,20 +255,24 @@ function noteUse(tokenId: string, userId: number, ipAddress: string) {
     return;
   }
   minuteCounts.set(tokenId, { minute, count: 1 });
-  recordAudit({
-    action: "api_token_used",
-    userId,
-    apiTokenId: tokenId,
-    entityType: "api_token",
-    entityId: tokenId,
-    details: previous
-      ? {
-          previousMinute: new Date(previous.minute * 60_000).toISOString(),
-          requestsInPreviousMinute: previous.count,
-        }
-      : { note: "first use since this app process started" },
-    ipAddress,
-  }).catch((error: unknown) =>
+  // A use changes no row of its own (`last used` above is throttled apart), so its row is written alone.
+  recordAudit(
+    {
+      action: "api_token_used",
+      userId,
+      apiTokenId: tokenId,
+      entityType: "api_token",
+      entityId: tokenId,
+      details: previous
+        ? {
+            previousMinute: new Date(previous.minute * 60_000).toISOString(),
+            requestsInPreviousMinute: previous.count,
+          }
+        : { note: "first use since this app process started" },
+      ipAddress,
+    },
+    getDb(),
+  ).catch((error: unknown) =>
     console.warn("could not record token use", tokenId, error),
   );
 }

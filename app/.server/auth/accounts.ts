@@ -1,3 +1,4 @@
+import { getDb, type Executor } from "~/.server/db/client";
 import { recordAudit } from "~/.server/db/queries/audit";
 import {
   consumeLinkToken,
@@ -95,12 +96,18 @@ export async function signIn(
   const wait = signInWait(history, now);
   if (wait.reason && wait.waitMs > 0) {
     // A refused attempt checked no password, so it is not counted as a failure.
-    await deleteSignInAttempt(attemptId);
     const retryAfterSeconds = Math.ceil(wait.waitMs / 1000);
-    await recordAudit({
-      action: "sign_in_refused",
-      details: { email, limit: wait.reason, retryAfterSeconds },
-      ipAddress: input.ipAddress,
+    const limit = wait.reason;
+    await getDb().transaction(async (tx) => {
+      await deleteSignInAttempt(attemptId, tx);
+      await recordAudit(
+        {
+          action: "sign_in_refused",
+          details: { email, limit, retryAfterSeconds },
+          ipAddress: input.ipAddress,
+        },
+        tx,
+      );
     });
     return {
       ok: false,
@@ -118,12 +125,16 @@ export async function signIn(
     input.password,
   );
   if (!user || !user.passwordHash || !valid || user.disabledAt) {
-    await recordAudit({
-      action: "sign_in_failed",
-      userId: user?.id ?? null,
-      details: { email },
-      ipAddress: input.ipAddress,
-    });
+    // The failure itself was written before the check (insertSignInAttempt); this row only reports it.
+    await recordAudit(
+      {
+        action: "sign_in_failed",
+        userId: user?.id ?? null,
+        details: { email },
+        ipAddress: input.ipAddress,
+      },
+      getDb(),
+    );
     const accountFailures = history.account.failures + 1;
     if (
       user &&
@@ -134,14 +145,17 @@ export async function signIn(
     }
     return { ok: false, reason: "invalid", message: SIGN_IN_FAILED_MESSAGE };
   }
-  await markSignInAttemptSucceeded(attemptId);
-  const { setCookie } = await createSession(user.id, input);
-  await recordAudit({
-    action: "sign_in",
-    userId: user.id,
-    ipAddress: input.ipAddress,
+  const userId = user.id;
+  const { setCookie } = await getDb().transaction(async (tx) => {
+    await markSignInAttemptSucceeded(attemptId, tx);
+    const session = await createSession(userId, input, tx);
+    await recordAudit(
+      { action: "sign_in", userId, ipAddress: input.ipAddress },
+      tx,
+    );
+    return session;
   });
-  return { ok: true, userId: user.id, setCookie };
+  return { ok: true, userId, setCookie };
 }
 
 /** One message per alert window, whichever process gets there first; sent off the request path. */
@@ -163,40 +177,62 @@ async function warnOwnerOfAttack(
   );
 }
 
+export type InviteResult =
+  { ok: true } | { ok: false; field: "email"; message: string };
+
+/**
+ * Invites someone who has no account yet. The link, its message and the audit row go together: the link and the
+ * row are committed only once the message is handed to the mail server.
+ */
 export async function inviteUser(input: {
   inviterId: number;
   inviterName: string;
   email: string;
   role: Role;
   ipAddress: string;
-}) {
-  const token = generateToken();
+}): Promise<InviteResult> {
   const email = normaliseEmail(input.email);
-  await createLinkToken({
-    kind: "invitation",
-    tokenHash: hashToken(token),
-    email,
-    role: input.role,
-    createdBy: input.inviterId,
-    expiresAt: new Date(Date.now() + INVITATION_TTL_MS),
+  if (await getUserCredentialsByEmail(email))
+    return {
+      ok: false,
+      field: "email",
+      message: "Someone already has an account with this address.",
+    };
+  const token = generateToken();
+  await getDb().transaction(async (tx) => {
+    await createLinkToken(
+      {
+        kind: "invitation",
+        tokenHash: hashToken(token),
+        email,
+        role: input.role,
+        createdBy: input.inviterId,
+        expiresAt: new Date(Date.now() + INVITATION_TTL_MS),
+      },
+      tx,
+    );
+    await recordAudit(
+      {
+        action: "invitation_sent",
+        userId: input.inviterId,
+        entityType: "invitation",
+        details: { email, role: input.role },
+        ipAddress: input.ipAddress,
+      },
+      tx,
+    );
+    const url = `${getEnv().APP_BASE_URL}/invitation/${token}`;
+    await sendEmail({
+      to: email,
+      ...invitationEmail({
+        inviterName: input.inviterName,
+        role: input.role,
+        url,
+        expiresInHours: 72,
+      }),
+    });
   });
-  const url = `${getEnv().APP_BASE_URL}/invitation/${token}`;
-  await sendEmail({
-    to: email,
-    ...invitationEmail({
-      inviterName: input.inviterName,
-      role: input.role,
-      url,
-      expiresInHours: 72,
-    }),
-  });
-  await recordAudit({
-    action: "invitation_sent",
-    userId: input.inviterId,
-    entityType: "invitation",
-    details: { email, role: input.role },
-    ipAddress: input.ipAddress,
-  });
+  return { ok: true };
 }
 
 export async function getInvitation(token: string) {
@@ -224,30 +260,38 @@ export async function acceptInvitation(
     };
   }
   const passwordHash = await hashPassword(input.password);
-  if (!(await consumeLinkToken(invitation.id))) {
-    return {
-      ok: false,
-      message:
-        "This invitation link has expired or has already been used. Ask an administrator for a new one.",
-    };
-  }
-  const userId = await createUser({
-    email: invitation.email,
-    name: input.name,
-    role: invitation.role,
-    passwordHash,
+  const role = invitation.role;
+  // The link is used, the account made, the session opened and both audited in one transaction.
+  return getDb().transaction(async (tx): Promise<AcceptResult> => {
+    if (!(await consumeLinkToken(invitation.id, tx))) {
+      return {
+        ok: false,
+        message:
+          "This invitation link has expired or has already been used. Ask an administrator for a new one.",
+      };
+    }
+    const userId = await createUser(
+      { email: invitation.email, name: input.name, role, passwordHash },
+      tx,
+    );
+    await recordAudit(
+      {
+        action: "invitation_accepted",
+        userId,
+        entityType: "user",
+        entityId: userId,
+        details: { invitedBy: invitation.createdBy, role },
+        ipAddress: input.ipAddress,
+      },
+      tx,
+    );
+    const { setCookie } = await createSession(userId, input, tx);
+    await recordAudit(
+      { action: "sign_in", userId, ipAddress: input.ipAddress },
+      tx,
+    );
+    return { ok: true, setCookie };
   });
-  await recordAudit({
-    action: "invitation_accepted",
-    userId,
-    entityType: "user",
-    entityId: userId,
-    details: { invitedBy: invitation.createdBy, role: invitation.role },
-    ipAddress: input.ipAddress,
-  });
-  const { setCookie } = await createSession(userId, input);
-  await recordAudit({ action: "sign_in", userId, ipAddress: input.ipAddress });
-  return { ok: true, setCookie };
 }
 
 /**
@@ -285,17 +329,20 @@ export async function processPasswordResetRequest(input: {
     recent.toEmail >= PASSWORD_RESET_LIMITS.perEmail ||
     recent.fromAddress >= PASSWORD_RESET_LIMITS.perClient;
   const send = !!user && !user.disabledAt && !limited;
-  await recordPasswordResetRequest({
-    email,
-    ipAddress: input.ipAddress,
-    sent: send,
-    at: now,
-  });
-  await recordAudit({
-    action: "password_reset_requested",
-    userId: user?.id ?? null,
-    details: { email, sent: send, ...(limited ? { limited } : {}) },
-    ipAddress: input.ipAddress,
+  await getDb().transaction(async (tx) => {
+    await recordPasswordResetRequest(
+      { email, ipAddress: input.ipAddress, sent: send, at: now },
+      tx,
+    );
+    await recordAudit(
+      {
+        action: "password_reset_requested",
+        userId: user?.id ?? null,
+        details: { email, sent: send, ...(limited ? { limited } : {}) },
+        ipAddress: input.ipAddress,
+      },
+      tx,
+    );
   });
   if (!user || !send) return { sent: false };
   const token = generateToken();
@@ -331,33 +378,37 @@ export async function resetPassword(
   const user = await getUserById(reset.userId);
   if (!user || user.disabledAt) return { ok: false, message: expired };
   const passwordHash = await hashPassword(input.password);
-  if (!(await consumeLinkToken(reset.id)))
-    return { ok: false, message: expired };
-  await updateUserPassword(user.id, passwordHash, null);
-  await recordAudit({
-    action: "password_reset",
-    userId: user.id,
-    ipAddress: input.ipAddress,
+  const userId = user.id;
+  return getDb().transaction(async (tx): Promise<AcceptResult> => {
+    if (!(await consumeLinkToken(reset.id, tx)))
+      return { ok: false, message: expired };
+    await updateUserPassword(userId, passwordHash, null, tx);
+    await recordAudit(
+      { action: "password_reset", userId, ipAddress: input.ipAddress },
+      tx,
+    );
+    const { setCookie } = await createSession(userId, input, tx);
+    await recordAudit(
+      { action: "sign_in", userId, ipAddress: input.ipAddress },
+      tx,
+    );
+    return { ok: true, setCookie };
   });
-  const { setCookie } = await createSession(user.id, input);
-  await recordAudit({
-    action: "sign_in",
-    userId: user.id,
-    ipAddress: input.ipAddress,
-  });
-  return { ok: true, setCookie };
 }
 
-export async function changePassword(input: {
-  userId: number;
-  sessionId: string;
-  currentPassword: string;
-  newPassword: string;
-  ipAddress: string;
-}): Promise<
+export async function changePassword(
+  input: {
+    userId: number;
+    sessionId: string;
+    currentPassword: string;
+    newPassword: string;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<
   { ok: true } | { ok: false; field: "currentPassword"; message: string }
 > {
-  const hash = await getUserPasswordHash(input.userId);
+  const hash = await getUserPasswordHash(input.userId, db);
   if (!hash || !(await verifyPassword(hash, input.currentPassword))) {
     return {
       ok: false,
@@ -365,15 +416,17 @@ export async function changePassword(input: {
       message: "The current password is not right.",
     };
   }
-  await updateUserPassword(
-    input.userId,
-    await hashPassword(input.newPassword),
-    input.sessionId,
-  );
-  await recordAudit({
-    action: "password_changed",
-    userId: input.userId,
-    ipAddress: input.ipAddress,
+  const passwordHash = await hashPassword(input.newPassword);
+  await db.transaction(async (tx) => {
+    await updateUserPassword(input.userId, passwordHash, input.sessionId, tx);
+    await recordAudit(
+      {
+        action: "password_changed",
+        userId: input.userId,
+        ipAddress: input.ipAddress,
+      },
+      tx,
+    );
   });
   return { ok: true };
 }

@@ -5,6 +5,8 @@ import {
   getSessionWithUser,
   insertSession,
 } from "~/.server/db/queries/sessions";
+import { getDb, type Executor } from "~/.server/db/client";
+import { recordAudit } from "~/.server/db/queries/audit";
 import { getEnv } from "~/.server/env";
 import type { Role } from "~/utils/permissions";
 import { generateToken, hashToken } from "./tokens";
@@ -52,19 +54,24 @@ export async function readSessionToken(
     : null;
 }
 
+/** Opens a session; `db` is the transaction of the sign-in that opens it (and writes its audit row). */
 export async function createSession(
   userId: number,
   meta: { ipAddress: string | null; userAgent: string | null },
+  db: Executor = getDb(),
 ): Promise<{ sessionId: string; setCookie: string }> {
   const token = generateToken();
   const sessionId = hashToken(token);
-  await insertSession({
-    id: sessionId,
-    userId,
-    expiresAt: new Date(Date.now() + SESSION_TTL_MS),
-    ipAddress: meta.ipAddress,
-    userAgent: meta.userAgent?.slice(0, 255) ?? null,
-  });
+  await insertSession(
+    {
+      id: sessionId,
+      userId,
+      expiresAt: new Date(Date.now() + SESSION_TTL_MS),
+      ipAddress: meta.ipAddress,
+      userAgent: meta.userAgent?.slice(0, 255) ?? null,
+    },
+    db,
+  );
   return { sessionId, setCookie: await sessionCookie().serialize(token) };
 }
 
@@ -95,8 +102,22 @@ export async function validateSessionToken(
   return { sessionId, user, renewedCookie };
 }
 
-export async function destroySession(sessionId: string): Promise<string> {
-  await deleteSession(sessionId);
+/** Signing out: ends the session and records it, in one transaction; gives the cookie that clears the browser's. */
+export async function signOut(
+  input: {
+    sessionId: string;
+    userId: number;
+    ipAddress: string;
+  },
+  db: Executor = getDb(),
+): Promise<string> {
+  await db.transaction(async (tx) => {
+    await deleteSession(input.sessionId, tx);
+    await recordAudit(
+      { action: "sign_out", userId: input.userId, ipAddress: input.ipAddress },
+      tx,
+    );
+  });
   return clearSessionCookie();
 }
 

@@ -173,6 +173,34 @@ export function createPool(
   return created;
 }
 
+/** A database handle over a pool of its own: the drizzle instance and how to close its pool. */
+export type DatabaseHandle = { db: Database; close: () => Promise<void> };
+
+/** Opens a handle on `url` (scripts and tests; the application's own comes from getDb()). */
+export function createDatabase(
+  url: string,
+  bounds: PoolBounds | number = 5,
+): DatabaseHandle {
+  const created = createPool(url, bounds);
+  return {
+    db: drizzle({ client: created, schema, mode: "default" }),
+    close: () => created.end(),
+  };
+}
+
+let provided: DatabaseHandle | undefined;
+
+/**
+ * Makes `handle` the application's database until closeDb(), so code that reads getDb() (services, routes)
+ * works on it: an integration test hands the app its own fresh database this way, without touching the
+ * environment. Query functions also take the handle directly (`db`).
+ */
+export function provideDatabase(handle: DatabaseHandle): void {
+  if (database) throw new Error("the application's database is already open");
+  provided = handle;
+  database = handle.db;
+}
+
 /** The application's single database handle. The HTTP server closes it on shutdown (`closeDb`). */
 export function getDb(): Database {
   if (!database) {
@@ -204,7 +232,10 @@ export function getDb(): Database {
 
 export async function closeDb(): Promise<void> {
   const p = pool;
+  const handle = provided;
   pool = undefined;
+  provided = undefined;
   database = undefined;
   await p?.end();
+  await handle?.close();
 }

@@ -1,4 +1,4 @@
-import { listActiveFollowers } from "~/.server/db/queries/review";
+import { listActiveFollowers } from "~/.server/db/queries/follows";
 import { revisionApprovedEmail } from "~/.server/email/templates/revision-approved";
 import { sendEmail } from "~/.server/email/send";
 import { getEnv } from "~/.server/env";

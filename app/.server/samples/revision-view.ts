@@ -1,5 +1,5 @@
 import type { OutputSystem } from "~/.server/api/units";
-import { getRevisionDetail } from "~/.server/db/queries/review";
+import { getRevisionDetail } from "~/.server/db/queries/revisions";
 import {
   datasetFromCanonicalGrids,
   runQc,

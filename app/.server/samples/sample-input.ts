@@ -4,7 +4,7 @@ import {
   toOutputPressure,
   toOutputTemperature,
 } from "~/.server/api/units";
-import type { SampleRecordInput } from "~/.server/db/queries/sample-records";
+import type { SampleRecordInput } from "~/.server/db/queries/samples";
 import type { FieldErrors } from "~/components/form";
 import type {
   FormSystem,

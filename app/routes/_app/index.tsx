@@ -1,6 +1,6 @@
 import { href, Link } from "react-router";
 import { requireUser } from "~/.server/auth/guards";
-import { countCatalogue } from "~/.server/db/queries/samples";
+import { countCatalogue } from "~/.server/db/queries/catalogue";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [

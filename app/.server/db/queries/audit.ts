@@ -5,6 +5,17 @@ import { auditLog, users } from "../schema";
 
 export { AUDIT_ACTIONS, type AuditAction };
 
+/*
+ * THE AUDIT RULE. An audit row is written by the function that opens the transaction of the change it records,
+ * through that transaction: `recordAudit(event, tx)`, in the same `db.transaction(...)` as the change, so the
+ * change and its row commit or roll back together. That function is a service (app/.server/<area>/) or, for a
+ * change that is one query function's own transaction (creating a sample, storing a revision, a lab setting),
+ * that query function. Routes never write audit rows. An event that changes no row of its own (a failed or
+ * refused sign-in, a token's use) is written alone by its service, with `getDb()`.
+ *
+ * `db` has no default here, so every caller says which transaction its row belongs to.
+ */
+
 export type AuditEvent = {
   action: AuditAction;
   userId?: number | null;
@@ -17,7 +28,7 @@ export type AuditEvent = {
 
 export async function recordAudit(
   event: AuditEvent,
-  db: Executor = getDb(),
+  db: Executor,
 ): Promise<void> {
   await db.insert(auditLog).values({
     action: event.action,

@@ -1,7 +1,9 @@
 import { and, desc, eq } from "drizzle-orm";
+import type { PropertyKey } from "~/core/units";
 import { getDb, type Executor } from "../client";
 import { lookupRuns, lookupSets, samples } from "../schema";
-import type { PropertyKey } from "~/core/units";
+
+/* A person's saved lookup sets and the recorded runs of each. */
 
 export async function listLookupSets(userId: number, db: Executor = getDb()) {
   return db
@@ -61,16 +63,16 @@ export async function deleteLookupSet(
     .where(and(eq(lookupSets.id, id), eq(lookupSets.userId, userId)));
 }
 
+/** A run's values per property and condition (field units). */
+export type LookupRunResults = (typeof lookupRuns.$inferSelect)["results"];
+
 export async function createLookupRun(
   input: {
     setId: number;
     revisionId: number;
     revisionNumber: number;
     method: string;
-    results: Record<
-      string,
-      { value: number; errorEstimate: number; warnings: string[] }[]
-    >;
+    results: LookupRunResults;
     createdBy: number;
   },
   db: Executor = getDb(),

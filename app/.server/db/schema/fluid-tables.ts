@@ -269,11 +269,16 @@ export const lookupRuns = mysqlTable(
     }),
     revisionNumber: int("revision_number", { unsigned: true }).notNull(),
     method: varchar("method", { length: 16 }).notNull(),
+    /** Per property, per condition: null where the value could not be computed (far outside the data). */
     results: json("results")
       .$type<
         Record<
           string,
-          { value: number; errorEstimate: number; warnings: string[] }[]
+          {
+            value: number | null;
+            errorEstimate: number | null;
+            warnings: string[];
+          }[]
         >
       >()
       .notNull(),

@@ -6,7 +6,7 @@ import {
   unitLabel,
 } from "~/.server/api/units";
 import { requirePermission } from "~/.server/auth/guards";
-import { searchSamples } from "~/.server/db/queries/sample-records";
+import { searchSamples } from "~/.server/db/queries/samples";
 import { Button } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { formatValue } from "~/components/samples/format";

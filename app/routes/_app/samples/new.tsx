@@ -1,9 +1,7 @@
 import { Form, href, Link, redirect, useNavigation } from "react-router";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import {
-  createSampleRecord,
-  listFieldsAndWells,
-} from "~/.server/db/queries/sample-records";
+import { listFieldsAndWells } from "~/.server/db/queries/catalogue";
+import { createSampleRecord } from "~/.server/db/queries/samples";
 import { badRequest, parseForm } from "~/.server/forms";
 import { recordInputFromForm } from "~/.server/samples/sample-input";
 import { Button, FormAlert, useZodForm } from "~/components/form";

@@ -1,21 +1,20 @@
 import { useState } from "react";
 import { Form, useNavigation } from "react-router";
 import { z } from "zod";
-import { issueApiToken, MAX_TOKEN_LIFETIME_DAYS } from "~/.server/api/tokens";
-import { getCaller, requirePermission } from "~/.server/auth/guards";
 import {
-  getApiTokenOwner,
-  listApiTokens,
-  revokeApiToken,
-} from "~/.server/db/queries/api-tokens";
-import { recordAudit } from "~/.server/db/queries/audit";
+  issueApiToken,
+  listTokensFor,
+  MAX_TOKEN_LIFETIME_DAYS,
+  revokeToken,
+} from "~/.server/api/tokens";
+import { getCaller, requirePermission } from "~/.server/auth/guards";
 import { listFieldsAndSamples } from "~/.server/db/queries/catalogue";
 import { badRequest, readFormData } from "~/.server/forms";
 import { Button, FieldError, FormAlert, TextField } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { API_SCOPE_RULES, API_SCOPES, SCOPE_LABELS } from "~/utils/api-scopes";
 import { labelSchema } from "~/utils/labels";
-import { can, ROLE_LABELS } from "~/utils/permissions";
+import { ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [
@@ -47,24 +46,16 @@ const RevokeSchema = z.object({
   tokenId: z.uuid(),
 });
 
-/*
- * Everyone signed in may list and revoke their own tokens (a person demoted to viewer keeps control of the
- * tokens made before); creating one needs manage:own-tokens. What a token can do is bounded by its owner's
- * current role on every request (app/utils/api-scopes.ts).
- */
+/* Who may list, create and revoke which tokens: app/.server/api/tokens.ts. */
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "read:samples");
-  const seeAll = can(user, "revoke:any-token");
-  const canCreate = can(user, "manage:own-tokens");
-  const [tokens, catalogue] = await Promise.all([
-    listApiTokens(seeAll ? {} : { userId: user.id }),
-    canCreate ? listFieldsAndSamples() : { fields: [], samples: [] },
-  ]);
+  const listing = await listTokensFor(user);
+  const catalogue = listing.canCreate
+    ? await listFieldsAndSamples()
+    : { fields: [], samples: [] };
   return {
     user,
-    seeAll,
-    canCreate,
-    tokens,
+    ...listing,
     ...catalogue,
     maxDays: MAX_TOKEN_LIFETIME_DAYS,
   };
@@ -81,31 +72,23 @@ export async function action(args: Route.ActionArgs) {
         errors: {},
         formError: "That token cannot be found.",
       });
-    const owner = await getApiTokenOwner(parsed.data.tokenId);
-    if (!owner)
+    const revoked = await revokeToken({
+      user,
+      tokenId: parsed.data.tokenId,
+      ipAddress,
+    });
+    if (!revoked.ok && revoked.reason === "forbidden")
+      throw new Response("You may revoke only your own tokens.", {
+        status: 403,
+      });
+    if (!revoked.ok)
       return badRequest({
         errors: {},
         formError: "That token cannot be found.",
       });
-    if (owner.userId !== user.id && !can(user, "revoke:any-token")) {
-      throw new Response("You may revoke only your own tokens.", {
-        status: 403,
-      });
-    }
-    if (await revokeApiToken(parsed.data.tokenId, user.id)) {
-      await recordAudit({
-        action: "api_token_revoked",
-        userId: user.id,
-        apiTokenId: parsed.data.tokenId,
-        entityType: "api_token",
-        entityId: parsed.data.tokenId,
-        details: { owner: owner.userId, name: owner.name },
-        ipAddress,
-      });
-    }
     return {
       errors: {},
-      done: `Token “${owner.name}” is revoked; it stops working on its next request.`,
+      done: `Token “${revoked.name}” is revoked; it stops working on its next request.`,
     };
   }
   requirePermission(args, "manage:own-tokens");
@@ -124,13 +107,12 @@ export async function action(args: Route.ActionArgs) {
     return badRequest({ errors });
   }
   const { name, scopes, fieldIds, sampleIds, expiresInDays } = parsed.data;
-  const restriction =
-    fieldIds.length || sampleIds.length ? { fieldIds, sampleIds } : null;
   const issued = await issueApiToken({
     userId: user.id,
     name,
     scopes,
-    restriction,
+    fieldIds,
+    sampleIds,
     expiresInDays,
     ipAddress,
   });
@@ -325,7 +307,6 @@ export default function Tokens({
           </thead>
           <tbody>
             {tokens.map((t) => {
-              const expired = new Date(t.expiresAt).getTime() < Date.now();
               const restricted = [
                 ...(t.restriction?.fieldIds ?? []).map(
                   (id) =>
@@ -364,7 +345,7 @@ export default function Tokens({
                   <td className="px-3 py-2">
                     {t.revokedAt ? (
                       <span className="text-danger">Revoked</span>
-                    ) : expired ? (
+                    ) : t.expired ? (
                       "Expired"
                     ) : (
                       "Active"

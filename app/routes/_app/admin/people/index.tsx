@@ -1,14 +1,12 @@
 import { Form, useNavigation } from "react-router";
 import { inviteUser } from "~/.server/auth/accounts";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import { recordAudit } from "~/.server/db/queries/audit";
 import {
-  getUserById,
-  getUserCredentialsByEmail,
-  listUsers,
-  setUserDisabled,
-  updateUserRole,
-} from "~/.server/db/queries/users";
+  changeRole,
+  setAccountDisabled,
+  type PeopleOutcome,
+} from "~/.server/auth/people";
+import { listUsers } from "~/.server/db/queries/users";
 import { badRequest, parseForm, readFormData } from "~/.server/forms";
 import {
   Button,
@@ -43,21 +41,18 @@ export async function action(args: Route.ActionArgs) {
   if (intent === "invite") {
     const form = await parseForm(args.request, InviteSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
-    if (await getUserCredentialsByEmail(form.data.email)) {
-      return badRequest({
-        errors: {
-          email: ["Someone already has an account with this address."],
-        },
-        intent,
-      });
-    }
-    await inviteUser({
+    const invited = await inviteUser({
       inviterId: me.id,
       inviterName: me.name,
       email: form.data.email,
       role: form.data.role,
       ipAddress,
     });
+    if (!invited.ok)
+      return badRequest({
+        errors: { [invited.field]: [invited.message] },
+        intent,
+      });
     return {
       errors: {},
       intent,
@@ -68,66 +63,31 @@ export async function action(args: Route.ActionArgs) {
   if (intent === "role") {
     const form = await parseForm(args.request, ChangeRoleSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
-    const person = await getUserById(form.data.userId);
-    if (!person)
-      return badRequest({
-        errors: {},
-        intent,
-        formError: "That person no longer exists.",
-      });
-    if (person.id === me.id && form.data.role !== "admin") {
-      return badRequest({
-        errors: {},
-        intent,
-        formError:
-          "You cannot remove your own administrator role; ask another administrator.",
-      });
-    }
-    await updateUserRole(person.id, form.data.role);
-    await recordAudit({
-      action: "role_changed",
-      userId: me.id,
-      entityType: "user",
-      entityId: person.id,
-      details: { from: person.role, to: form.data.role },
-      ipAddress,
-    });
-    return {
-      errors: {},
+    const { userId, role } = form.data;
+    return answer(
       intent,
-      done: `${person.name} is now ${ROLE_LABELS[form.data.role]}.`,
-    };
+      await changeRole({ actorId: me.id, userId, role, ipAddress }),
+    );
   }
 
   const form = await parseForm(args.request, SetDisabledSchema);
   if (!form.ok) return badRequest({ errors: form.errors, intent });
-  const person = await getUserById(form.data.userId);
-  if (!person)
-    return badRequest({
-      errors: {},
-      intent,
-      formError: "That person no longer exists.",
-    });
-  if (person.id === me.id)
-    return badRequest({
-      errors: {},
-      intent,
-      formError: "You cannot disable your own account.",
-    });
-  const disable = form.data.intent === "disable";
-  await setUserDisabled(person.id, disable);
-  await recordAudit({
-    action: disable ? "account_disabled" : "account_enabled",
-    userId: me.id,
-    entityType: "user",
-    entityId: person.id,
-    ipAddress,
-  });
-  return {
-    errors: {},
+  const disabled = form.data.intent === "disable";
+  return answer(
     intent,
-    done: `${person.name} is ${disable ? "disabled and signed out everywhere" : "enabled again"}.`,
-  };
+    await setAccountDisabled({
+      actorId: me.id,
+      userId: form.data.userId,
+      disabled,
+      ipAddress,
+    }),
+  );
+}
+
+function answer(intent: string, outcome: PeopleOutcome) {
+  if (!outcome.ok)
+    return badRequest({ errors: {}, intent, formError: outcome.formError });
+  return { errors: {}, intent, done: outcome.done };
 }
 
 export default function People({

@@ -1,20 +1,10 @@
 import { Form, href, Link, useNavigation } from "react-router";
 import { requirePermission } from "~/.server/auth/guards";
-import {
-  createLookupRun,
-  getLookupSet,
-  listLookupRuns,
-} from "~/.server/db/queries/lookup-sets";
-import { getSampleWithPlace } from "~/.server/db/queries/samples";
 import { invariantResponse } from "~/.server/http";
-import {
-  getRevisionData,
-  resolveRevision,
-} from "~/.server/samples/revision-data";
-import { runHeavy } from "~/.server/workers/pool";
+import { getLookupSetPage, runLookupSet } from "~/.server/lookup/sets";
 import { Button, FormAlert } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { PROPERTY_NAMES, isLookupError } from "~/core/lookup";
+import { PROPERTY_NAMES } from "~/core/lookup";
 import type { PropertyKey } from "~/core/units";
 import type { Route } from "./+types/$setId";
 
@@ -22,82 +12,21 @@ export const meta: Route.MetaFunction = () => [
   { title: "Lookup set · Isopleth" },
 ];
 
-type RunResults = Record<
-  string,
-  { value: number; errorEstimate: number; warnings: string[] }[]
->;
+const NO_SUCH_SET = "There is no such lookup set among yours.";
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "save:lookup-sets");
-  const set = await getLookupSet(Number(args.params.setId), user.id);
-  invariantResponse(set, "There is no such lookup set among yours.");
-  const [sample, runs, current] = await Promise.all([
-    getSampleWithPlace(set.sampleId),
-    listLookupRuns(set.id),
-    resolveRevision(set.sampleId),
-  ]);
-  return {
-    set,
-    sampleLabel: sample?.label ?? "",
-    runs,
-    currentRevision: current?.number ?? null,
-  };
+  const page = await getLookupSetPage(Number(args.params.setId), user.id);
+  invariantResponse(page, NO_SUCH_SET);
+  return page;
 }
 
 /** Runs the set against the sample's current approved revision and records the run (values in field units). */
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "save:lookup-sets");
-  const set = await getLookupSet(Number(args.params.setId), user.id);
-  invariantResponse(set, "There is no such lookup set among yours.");
-  const revision = await resolveRevision(set.sampleId);
-  if (!revision)
-    return { error: "The sample has no approved revision to run against." };
-  const data = await getRevisionData(revision);
-  const points = set.conditions.map((c) => ({
-    pressure: c.pressurePsia,
-    temperature: c.temperatureF,
-  }));
-  const results: RunResults = {};
-  for (const property of set.properties) {
-    const grid = data.grids[property];
-    if (!grid) continue;
-    try {
-      const r = await runHeavy(
-        "lookup",
-        {
-          grid,
-          points,
-          options: {
-            property,
-            method: set.method as "auto",
-            degree: set.degree ?? undefined,
-            extrapolate: true,
-            units: "field",
-            messages: false,
-          },
-        },
-        { surface: "page" },
-      );
-      results[property] = r.results.map((x) => ({
-        value: x.value,
-        errorEstimate: x.errorEstimate,
-        warnings: [...x.warnings],
-      }));
-    } catch (error) {
-      if (isLookupError(error))
-        return { error: `${PROPERTY_NAMES[property]}: ${error.message}` };
-      throw error;
-    }
-  }
-  await createLookupRun({
-    setId: set.id,
-    revisionId: data.revisionId,
-    revisionNumber: data.number,
-    method: set.method,
-    results,
-    createdBy: user.id,
-  });
-  return { error: null };
+  const outcome = await runLookupSet(Number(args.params.setId), user.id);
+  invariantResponse(outcome, NO_SUCH_SET);
+  return outcome;
 }
 
 export default function LookupSetRuns({
@@ -185,14 +114,14 @@ export default function LookupSetRuns({
                       const now = values[i]?.value;
                       const before = previous?.results[p]?.[i]?.value;
                       const change =
-                        now !== undefined &&
-                        before !== undefined &&
-                        before !== 0
+                        now != null && before != null && before !== 0
                           ? ((now - before) / Math.abs(before)) * 100
                           : null;
                       return (
                         <td key={p} className="px-3 py-1 text-right">
-                          {now === undefined ? "—" : Number(now.toPrecision(6))}
+                          {now === undefined || now === null
+                            ? "—"
+                            : Number(now.toPrecision(6))}
                           {change !== null ? (
                             <span
                               className={`ml-2 text-xs ${Math.abs(change) > 1 ? "text-caution" : "text-ink-muted"}`}

@@ -9,7 +9,7 @@ import { requirePermission } from "~/.server/auth/guards";
 import {
   getRevisionsForDiff,
   listRevisionsOfSample,
-} from "~/.server/db/queries/review";
+} from "~/.server/db/queries/revisions";
 import { diffRevisions, type CellDiff } from "~/.server/samples/diff";
 import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
 import { Button } from "~/components/form";

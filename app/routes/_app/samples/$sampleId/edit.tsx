@@ -1,10 +1,10 @@
 import { data, Form, href, Link, redirect, useNavigation } from "react-router";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
+import { listFieldsAndWells } from "~/.server/db/queries/catalogue";
 import {
   getSampleRecord,
-  listFieldsAndWells,
   updateSampleRecord,
-} from "~/.server/db/queries/sample-records";
+} from "~/.server/db/queries/samples";
 import { badRequest, parseForm } from "~/.server/forms";
 import { sampleIdFrom } from "~/.server/samples/params";
 import {

@@ -10,9 +10,9 @@ import {
   countFollowers,
   followSample,
   isFollowing,
-  listRevisionsOfSample,
   unfollowSample,
-} from "~/.server/db/queries/review";
+} from "~/.server/db/queries/follows";
+import { listRevisionsOfSample } from "~/.server/db/queries/revisions";
 import { badRequest, parseForm } from "~/.server/forms";
 import { requireSample } from "~/.server/samples/params";
 import { loadRevisionView } from "~/.server/samples/revision-view";

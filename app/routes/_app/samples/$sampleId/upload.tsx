@@ -7,7 +7,7 @@ import {
   listRevisionsOfSample,
   storeUploadedRevision,
   type IdenticalRevision,
-} from "~/.server/db/queries/review";
+} from "~/.server/db/queries/revisions";
 import {
   checkUpload,
   revisionFromUpload,

@@ -10,11 +10,11 @@ import {
 } from "react-router";
 import { z } from "zod";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import { reviewRevision } from "~/.server/db/queries/review";
 import { getFourEyesPolicy } from "~/.server/db/queries/settings";
 import { badRequest, parseForm } from "~/.server/forms";
 import { notifyFollowersOfApproval } from "~/.server/samples/notify";
 import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
+import { reviewRevision } from "~/.server/samples/review";
 import { loadRevisionView } from "~/.server/samples/revision-view";
 import { Button, FieldError, FormAlert, useZodForm } from "~/components/form";
 import { formatDateTime } from "~/components/samples/format";

@@ -1,10 +1,15 @@
 import { drizzle } from "drizzle-orm/mysql2";
 import mysql from "mysql2/promise";
 import { afterAll, beforeAll, expect, test } from "vitest";
-import { createEmptyDatabase } from "../../../tests/support/test-database";
-import { runMigrations } from "./migrate";
-import * as schema from "./schema";
-import { DEMO_SAMPLES, DEMO_USERS, DEMO_WELLS, seedDemo } from "./seed";
+import { runMigrations } from "~/.server/db/migrate";
+import * as schema from "~/.server/db/schema";
+import {
+  DEMO_SAMPLES,
+  DEMO_USERS,
+  DEMO_WELLS,
+  seedDemo,
+} from "~/.server/db/seed";
+import { createEmptyDatabase } from "../support/test-database";
 
 let database: Awaited<ReturnType<typeof createEmptyDatabase>>;
 let pool: mysql.Pool;

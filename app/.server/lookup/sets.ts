@@ -1,0 +1,103 @@
+import { computeLookup, type LookupRequest } from "~/.server/api/lookup";
+import {
+  createLookupRun,
+  getLookupSet,
+  listLookupRuns,
+  type LookupRunResults,
+} from "~/.server/db/queries/lookup-sets";
+import { getSampleWithPlace } from "~/.server/db/queries/samples";
+import {
+  getRevisionData,
+  resolveRevision,
+} from "~/.server/samples/revision-data";
+import { isLookupError, PROPERTY_NAMES } from "~/core/lookup";
+
+/*
+ * Saved lookup sets: a person's list of conditions and properties for one sample, run again whenever the sample
+ * gets a new approved revision. A run is the API's lookup (computeLookup) at the set's conditions, in field
+ * units with extrapolation allowed, recorded with the revision and method it used.
+ */
+
+/** The set page: the set (only among the user's own), its sample, its last runs and the revision a run would use. */
+export async function getLookupSetPage(setId: number, userId: number) {
+  const set = await getLookupSet(setId, userId);
+  if (!set) return null;
+  const [sample, runs, current] = await Promise.all([
+    getSampleWithPlace(set.sampleId),
+    listLookupRuns(set.id),
+    resolveRevision(set.sampleId),
+  ]);
+  return {
+    set,
+    sampleLabel: sample?.label ?? "",
+    runs,
+    currentRevision: current?.number ?? null,
+  };
+}
+
+export type SetRunOutcome = { error: string | null };
+
+/**
+ * Runs the set against the sample's current approved revision and records the run (values in field units).
+ * Null when the user has no such set; a property the revision did not measure is left out of the run.
+ */
+export async function runLookupSet(
+  setId: number,
+  userId: number,
+): Promise<SetRunOutcome | null> {
+  const set = await getLookupSet(setId, userId);
+  if (!set) return null;
+  const revision = await resolveRevision(set.sampleId);
+  if (!revision)
+    return { error: "The sample has no approved revision to run against." };
+  const data = await getRevisionData(revision);
+  const pressures = Float64Array.from(set.conditions, (c) => c.pressurePsia);
+  const temperatures = Float64Array.from(set.conditions, (c) => c.temperatureF);
+  const results: LookupRunResults = {};
+  for (const property of set.properties) {
+    try {
+      const run = await computeLookup(
+        data,
+        {
+          property,
+          pressures,
+          temperatures,
+          method: set.method as LookupRequest["method"],
+          degree: set.degree ?? undefined,
+          extrapolate: true,
+          units: "field",
+        },
+        { surface: "page" },
+      );
+      if (!run) continue;
+      results[property] = readResults(run.value.resultsUtf8);
+    } catch (error) {
+      if (isLookupError(error))
+        return { error: `${PROPERTY_NAMES[property]}: ${error.message}` };
+      throw error;
+    }
+  }
+  await createLookupRun({
+    setId: set.id,
+    revisionId: data.revisionId,
+    revisionNumber: data.number,
+    method: set.method,
+    results,
+    createdBy: userId,
+  });
+  return { error: null };
+}
+
+/** What a run keeps of each point of the API's results: value, error estimate and warning codes. */
+function readResults(utf8: Uint8Array): LookupRunResults[string] {
+  const points = JSON.parse(new TextDecoder().decode(utf8)) as {
+    value: number | null;
+    errorEstimate: number | null;
+    warnings: string[];
+  }[];
+  return points.map((p) => ({
+    value: p.value,
+    errorEstimate: p.errorEstimate,
+    warnings: p.warnings,
+  }));
+}
