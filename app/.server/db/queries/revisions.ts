@@ -79,15 +79,13 @@ export async function createRevision(
     const revisionId = inserted.id;
 
     if (input.bubblePoints.length > 0) {
-      await tx
-        .insert(revisionBubblePoints)
-        .values(
-          input.bubblePoints.map((b) => ({
-            revisionId,
-            temperatureF: b.temperatureF,
-            bubblePointPsia: b.bubblePointPsia,
-          })),
-        );
+      await tx.insert(revisionBubblePoints).values(
+        input.bubblePoints.map((b) => ({
+          revisionId,
+          temperatureF: b.temperatureF,
+          bubblePointPsia: b.bubblePointPsia,
+        })),
+      );
     }
     for (const grid of input.grids) {
       const [g] = await tx
