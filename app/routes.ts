@@ -42,6 +42,8 @@ export default [
   ]),
   route("sign-out", "routes/sign-out.ts"),
   route("metrics", "routes/metrics.ts"),
+  route("upload-templates/:file", "routes/upload-templates/$file.ts"),
+  // the first address of the upload templates, a permanent redirect to the one above
   route("templates/:file", "routes/templates/$file.ts"),
   ...prefix("api", [
     route("health", "routes/api/health.ts"),

@@ -20,7 +20,7 @@ import type {
   Grid,
   Options,
 } from "../app/core/interpolation/index";
-import { seededRandom } from "../app/core/interpolation/test-helpers";
+import { seededRandom } from "../app/core/interpolation/grids.test-helpers";
 
 const POINTS = 1_000_000;
 const PCHIP_SCIPY_POINTS = 10_000;

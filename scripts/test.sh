@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # npm test: from a fresh clone, every layer of tests against real parts —
-# type-check, unit tests, integration tests on a private MariaDB (its own databases, emptied first),
-# and Playwright end-to-end tests of the production build in Debian's chromium.
+# lint and format check, type-check, unit tests, integration tests on a private MariaDB (its own databases,
+# emptied first), and Playwright end-to-end tests of the production build in Debian's chromium.
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
 cd "$ROOT_DIR"
@@ -9,6 +9,13 @@ started=$SECONDS
 
 bash scripts/system-deps.sh --test
 bash scripts/node-deps.sh
+
+# Cheapest first: a lint finding or an unformatted file fails in seconds, before the database starts.
+log "lint (eslint)"
+npm run -s lint
+
+log "format check (prettier)"
+node_modules/.bin/prettier --check --log-level warn .
 
 db_started_here=0
 if ! bash scripts/db.sh status >/dev/null 2>&1; then

@@ -1,7 +1,10 @@
 import { z } from "zod";
 
 /**
- * The one place that reads process.env. Parsed once, at start-up, with zod.
+ * The one place that reads process.env. Parsed once with zod, on first use (`getEnv`), then cached. The
+ * production server (scripts/server.mjs) asks for it through `serverHooks.configuration` before it listens, so
+ * a bad variable stops start-up there; under `react-router dev` and Vitest the first module that needs a value
+ * parses it.
  * Development and test get safe defaults; production must state its secrets, database and mail server.
  */
 const Port = z.coerce.number().int().min(1).max(65535);

@@ -66,6 +66,9 @@ for (const [file, rule] of Object.entries(RULES)) {
           expect(status, label).toBe(302);
           break;
         }
+        case "redirect":
+          expect([status, location], label).toEqual([308, rule.location]);
+          break;
         case "api": {
           const r =
             rule.method === "POST"

@@ -269,13 +269,11 @@ test("a corrected file: the follower's e-mail links to the diff, which lists cha
 }) => {
   await signIn(page, "lab_lead");
   await page.goto(`${samplePath}/upload`);
-  await page
-    .getByLabel(/Results file/)
-    .setInputFiles({
-      name: "lab-results-long-corrected.csv",
-      mimeType: "text/csv",
-      buffer: correctedExample(),
-    });
+  await page.getByLabel(/Results file/).setInputFiles({
+    name: "lab-results-long-corrected.csv",
+    mimeType: "text/csv",
+    buffer: correctedExample(),
+  });
   await page.getByRole("button", { name: "Check file" }).click();
   await expect(page.getByTestId("preview")).toBeVisible();
   await page
@@ -417,18 +415,28 @@ test("templates download in both layouts, and the audit log records upload, appr
   page,
 }) => {
   const viewer = await apiContextFor("viewer");
-  const csv = await viewer.get("/templates/isopleth-template-long.csv");
+  const csv = await viewer.get("/upload-templates/isopleth-template-long.csv");
   expect(csv.status()).toBe(200);
   expect(csv.headers()["content-disposition"]).toContain(
     "isopleth-template-long.csv",
   );
   expect(await csv.text()).toContain("INVENTED");
-  const xlsx = await viewer.get("/templates/isopleth-template-grid.xlsx");
+  const xlsx = await viewer.get(
+    "/upload-templates/isopleth-template-grid.xlsx",
+  );
   expect(xlsx.status()).toBe(200);
   expect((await xlsx.body()).subarray(0, 2).toString()).toBe("PK");
-  expect((await viewer.get("/templates/not-a-template.csv")).status()).toBe(
-    404,
-  );
+  expect(
+    (await viewer.get("/upload-templates/not-a-template.csv")).status(),
+  ).toBe(404);
+  // the first address redirects permanently to the new one
+  const old = await viewer.get("/templates/isopleth-template-grid.xlsx", {
+    maxRedirects: 0,
+  });
+  expect([old.status(), old.headers()["location"]]).toEqual([
+    308,
+    "/upload-templates/isopleth-template-grid.xlsx",
+  ]);
   await viewer.dispose();
 
   await signIn(page, "admin");

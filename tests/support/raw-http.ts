@@ -61,4 +61,4 @@ export function rawRequest(
   });
 }
 
-export { seededRandom } from "../../app/core/interpolation/test-helpers";
+export { seededRandom } from "../../app/core/interpolation/grids.test-helpers";

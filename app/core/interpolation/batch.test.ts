@@ -9,7 +9,7 @@ import {
   warningsFromFlags,
 } from "./index";
 import type { Grid } from "./index";
-import { gridFrom } from "./test-helpers";
+import { gridFrom } from "./grids.test-helpers";
 
 const f = (p: number, t: number): number =>
   1.1 + 2e-4 * p - 3e-8 * p * p + 1e-3 * t; // invented

@@ -7,7 +7,7 @@ import {
   InterpolationError,
 } from "./index";
 import type { Grid } from "./index";
-import { gridFrom } from "./test-helpers";
+import { gridFrom } from "./grids.test-helpers";
 
 // invented smooth surface
 const f = (p: number, t: number): number =>

@@ -175,6 +175,27 @@ export type Plan = {
 
 export const STRIDE = MAX_DEGREE + 2;
 
+/**
+ * Evaluation plans of each prepared grid by method and degree, built on first use. Kept here rather than on
+ * the prepared grid so that prepare.ts need not know about plans; the WeakMap lets a plan go with its grid.
+ */
+const plansByGrid = new WeakMap<PreparedGrid, (Plan | undefined)[]>();
+/** The last grid's plans, so that point after point on one grid skips the WeakMap lookup. */
+let lastPrep: PreparedGrid | null = null;
+let lastPlans: (Plan | undefined)[] = [];
+
+function plansOf(prep: PreparedGrid): (Plan | undefined)[] {
+  if (prep === lastPrep) return lastPlans;
+  let plans = plansByGrid.get(prep);
+  if (plans === undefined) {
+    plans = [];
+    plansByGrid.set(prep, plans);
+  }
+  lastPrep = prep;
+  lastPlans = plans;
+  return plans;
+}
+
 export function getPlan(
   prep: PreparedGrid,
   method: Method,
@@ -184,10 +205,11 @@ export function getPlan(
   // degrees are 1..MAX_DEGREE (validated), so this is a small dense index
   const key =
     method === "pchip" ? 0 : method === "linear" ? 1 : 2 + m * STRIDE + n;
-  let plan = prep.plans[key];
+  const plans = plansOf(prep);
+  let plan = plans[key];
   if (plan === undefined) {
     plan = buildPlan(prep, method, m, n);
-    prep.plans[key] = plan;
+    plans[key] = plan;
   }
   return plan;
 }

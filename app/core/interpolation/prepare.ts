@@ -2,7 +2,6 @@
 // Indices are in range by construction.
 import { AxisIndex } from "./axis";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
-import type { Plan } from "./plan";
 import type { Grid } from "./types";
 import { validateGrid } from "./validate";
 
@@ -59,8 +58,6 @@ export type PreparedGrid = {
     BranchNodes | null,
     BranchNodes | null,
   ];
-  /** Evaluation plans by method and degree (see plan.ts), built on first use. */
-  readonly plans: (Plan | undefined)[];
 };
 
 const cache = new WeakMap<Grid, PreparedGrid>();
@@ -141,7 +138,6 @@ function buildPrepared(grid: Grid): PreparedGrid {
     bubble,
     bubbleUnknown,
     branches,
-    plans: [],
   };
 }
 

@@ -9,7 +9,13 @@ import {
   InterpolationError,
 } from "./index";
 import type { Grid, Method, Options } from "./index";
-import { axesArb, gridFrom, lerp, seededRandom, unit } from "./test-helpers";
+import {
+  axesArb,
+  gridFrom,
+  lerp,
+  seededRandom,
+  unit,
+} from "./grids.test-helpers";
 
 const methods: Method[] = ["linear", "newton", "pchip"];
 

@@ -2,7 +2,7 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
 import { AxisIndex, cellOf, orderedZone, zoneStart } from "./axis";
-import { axisArb, lerp, unit } from "./test-helpers";
+import { axisArb, lerp, unit } from "./grids.test-helpers";
 
 const a = Float64Array.from([0, 1, 2, 3, 4, 5, 6]);
 const zone = (t: number, m: number): number[] => {

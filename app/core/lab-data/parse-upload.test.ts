@@ -6,7 +6,7 @@ import {
   errorsOf,
   findingAt,
   parseText,
-} from "./test-support";
+} from "./uploads.test-helpers";
 import type { ParsedDataset } from "./types";
 
 // The numbers in these files are invented for the tests.

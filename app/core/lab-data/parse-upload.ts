@@ -45,9 +45,7 @@ export const ACCEPTED_EXTENSIONS: readonly string[] = [
 /** A file name safe to show: no folders, no control characters, not too long. */
 export function displayFileName(filename: unknown): string {
   const raw = typeof filename === "string" ? filename : "";
-  const base = (raw.split(/[\\/]/).pop() ?? "")
-    .replace(/\p{Cc}/gu, "")
-    .trim();
+  const base = (raw.split(/[\\/]/).pop() ?? "").replace(/\p{Cc}/gu, "").trim();
   if (base === "") return "the uploaded file";
   return base.length > 120 ? `${base.slice(0, 117)}…` : base;
 }

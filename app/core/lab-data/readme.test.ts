@@ -1,7 +1,7 @@
 import { expect, test } from "vitest";
 import readme from "./README.md?raw";
 import { RULES } from "./qc/rules";
-import { parseText, datasetOf } from "./test-support";
+import { parseText, datasetOf } from "./uploads.test-helpers";
 import { runQc } from "./qc/run-qc";
 
 // README.md is shown on the upload page: it must list every QC rule with the source given in the code, and

@@ -9,7 +9,7 @@ import {
   templateDataset,
   templateFileName,
 } from "./templates";
-import { bytesOf, datasetOf } from "./test-support";
+import { bytesOf, datasetOf } from "./uploads.test-helpers";
 import type { ParsedDataset } from "./types";
 import { layoutSheets, toCsv, toXlsx } from "./write-tables";
 

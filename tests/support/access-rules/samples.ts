@@ -54,9 +54,14 @@ export const SAMPLE_RULES: Record<string, Rule> = {
     allowed: ADMIN,
     post: { allowed: ADMIN, form: { fourEyes: "not-a-mode" } },
   },
-  "routes/templates/$file.ts": {
+  "routes/upload-templates/$file.ts": {
     kind: "page",
-    path: "/templates/isopleth-template-long.csv",
+    path: "/upload-templates/isopleth-template-long.csv",
     allowed: ALL,
+  },
+  "routes/templates/$file.ts": {
+    kind: "redirect",
+    path: "/templates/isopleth-template-long.csv",
+    location: "/upload-templates/isopleth-template-long.csv",
   },
 };

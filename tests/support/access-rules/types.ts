@@ -19,7 +19,9 @@ export type Rule =
       body?: unknown;
       okStatus?: number;
     }
-  | { kind: "post-only"; path: string };
+  | { kind: "post-only"; path: string }
+  /** A permanent redirect (308) for every caller; the target has its own rule. */
+  | { kind: "redirect"; path: string; location: string };
 
 export const ALL: DemoRoleName[] = ["viewer", "engineer", "lab_lead", "admin"];
 export const ENGINEER_UP: DemoRoleName[] = ["engineer", "lab_lead", "admin"];

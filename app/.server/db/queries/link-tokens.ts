@@ -14,13 +14,11 @@ export async function createLinkToken(
   },
   db: Executor = getDb(),
 ) {
-  await db
-    .insert(linkTokens)
-    .values({
-      ...input,
-      role: input.role ?? null,
-      userId: input.userId ?? null,
-    });
+  await db.insert(linkTokens).values({
+    ...input,
+    role: input.role ?? null,
+    userId: input.userId ?? null,
+  });
 }
 
 /** Kills every live reset link of the user (marks it used), so that at most one link works at a time. */

@@ -6,14 +6,12 @@ export async function recordPasswordResetRequest(
   input: { email: string; ipAddress: string; sent: boolean; at: Date },
   db: Executor = getDb(),
 ) {
-  await db
-    .insert(passwordResetRequests)
-    .values({
-      email: input.email,
-      ipAddress: input.ipAddress,
-      sent: input.sent,
-      createdAt: input.at,
-    });
+  await db.insert(passwordResetRequests).values({
+    email: input.email,
+    ipAddress: input.ipAddress,
+    sent: input.sent,
+    createdAt: input.at,
+  });
 }
 
 /** Reset messages sent since `since`: to this address, and on requests from this client address. */

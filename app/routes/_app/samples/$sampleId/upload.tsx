@@ -561,7 +561,7 @@ export default function Upload({
                     {k > 0 ? "; " : ""}
                     {t.layout} layout{" "}
                     <a
-                      href={`/templates/${t.csv}`}
+                      href={`/upload-templates/${t.csv}`}
                       className="text-accent underline"
                       download
                     >
@@ -569,7 +569,7 @@ export default function Upload({
                     </a>{" "}
                     or{" "}
                     <a
-                      href={`/templates/${t.xlsx}`}
+                      href={`/upload-templates/${t.xlsx}`}
                       className="text-accent underline"
                       download
                     >
