@@ -86,7 +86,7 @@ const LAYERS: Layer[] = [
   })),
   {
     name: "utils",
-    paths: ["app/utils"],
+    paths: ["app/utils/**"],
     holds: "small client-safe helpers shared by server and browser",
     may: ["core/*"],
     packages: { kind: "browser" },
@@ -128,6 +128,7 @@ const LAYERS: Layer[] = [
       "app/.server/auth",
       "app/.server/db",
       "app/.server/email/**",
+      "app/.server/lookup",
       "app/.server/ops",
       "app/.server/samples",
       "app/.server/workers",
@@ -176,18 +177,6 @@ const TEST_SOURCES = ["reference-data", "tests/support"];
  * and for an entry that is no longer needed, so the list can only shrink. Goal: empty.
  */
 const KNOWN_VIOLATIONS: { from: string; to: string; why: string }[] = [
-  // a query imports UI labels (the property labels belong in one client-safe place below both)
-  {
-    from: "app/.server/db/queries/sample-records.ts",
-    to: "app/components/samples/labels.ts",
-    why: "property labels for audit text",
-  },
-  // a query imports a service
-  {
-    from: "app/.server/db/queries/review.ts",
-    to: "app/.server/samples/qc-report.ts",
-    why: "QC report built inside the review query",
-  },
   // server code imports values from the UI
   {
     from: "app/.server/samples/present.ts",
