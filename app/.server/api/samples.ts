@@ -24,7 +24,7 @@ import {
   toOutputValue,
   unitLabel,
   type OutputSystem,
-} from "./units";
+} from "~/core/units";
 
 const round = (v: number, digits = 10) => Number(v.toPrecision(digits));
 

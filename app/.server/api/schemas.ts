@@ -4,20 +4,23 @@ import {
 } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
 import { pointColumns } from "~/core/lookup";
-import { PROPERTY_KEYS } from "~/core/units";
+import {
+  keyWithAbbreviation,
+  OUTPUT_SYSTEMS,
+  PROPERTY_KEYS,
+} from "~/core/units";
 
 extendZodWithOpenApi(z);
 
 /** The zod schemas of the /api/v1 boundary; the OpenAPI document is generated from them (openapi.ts). */
 export const registry = new OpenAPIRegistry();
 
-export const UnitsParam = z.enum(["field", "metric"]).default("field").openapi({
+export const UnitsParam = z.enum(OUTPUT_SYSTEMS).default("field").openapi({
   description:
     "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
 });
 export const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
-  description:
-    "oil_fvf (Bo), solution_gor (Rs), oil_viscosity, oil_density, gas_fvf (Bg), gas_viscosity, z_factor",
+  description: PROPERTY_KEYS.map(keyWithAbbreviation).join(", "),
 });
 export const MethodSchema = z
   .enum(["auto", "newton", "pchip", "linear"])
@@ -101,21 +104,13 @@ export const LookupBody = z
     method: MethodSchema.default("auto"),
     degree: Degree.optional(),
     units: UnitsParam,
-    extrapolate: z
-      .boolean()
-      .default(false)
-      .openapi({
-        description:
-          "Allow points outside the measured range; they are flagged `extrapolated`.",
-      }),
-    revision: z
-      .number()
-      .int()
-      .positive()
-      .optional()
-      .openapi({
-        description: "Revision number; default the latest approved one.",
-      }),
+    extrapolate: z.boolean().default(false).openapi({
+      description:
+        "Allow points outside the measured range; they are flagged `extrapolated`.",
+    }),
+    revision: z.number().int().positive().optional().openapi({
+      description: "Revision number; default the latest approved one.",
+    }),
   })
   .strict()
   .openapi("LookupRequest");
@@ -158,17 +153,12 @@ export function parseLookupBody(
 }
 
 const StencilSchema = z.object({
-  pressure: z
-    .array(z.number())
-    .openapi({
-      description: "Measured pressures of the data zone used (output units).",
-    }),
-  temperature: z
-    .array(z.number())
-    .openapi({
-      description:
-        "Measured temperatures of the data zone used (output units).",
-    }),
+  pressure: z.array(z.number()).openapi({
+    description: "Measured pressures of the data zone used (output units).",
+  }),
+  temperature: z.array(z.number()).openapi({
+    description: "Measured temperatures of the data zone used (output units).",
+  }),
 });
 
 export const RefusalSchema = z
@@ -183,27 +173,19 @@ export const RefusalSchema = z
 
 export const LookupResultSchema = z
   .object({
-    value: z
-      .number()
-      .nullable()
-      .openapi({
-        description:
-          "In the output unit; null only when the point is refused (see refusal).",
-      }),
-    errorEstimate: z
-      .number()
-      .nullable()
-      .openapi({
-        description:
-          "Estimated interpolation error (same unit as value), never zero; see the engine's documentation. null when refused.",
-      }),
+    value: z.number().nullable().openapi({
+      description:
+        "In the output unit; null only when the point is refused (see refusal).",
+    }),
+    errorEstimate: z.number().nullable().openapi({
+      description:
+        "Estimated interpolation error (same unit as value), never zero; see the engine's documentation. null when refused.",
+    }),
     refusal: RefusalSchema.optional(),
-    warnings: z
-      .array(z.string())
-      .openapi({
-        description:
-          "Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells.",
-      }),
+    warnings: z.array(z.string()).openapi({
+      description:
+        "Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells.",
+    }),
     method: z
       .string()
       .openapi({ description: "Method that produced this value." }),
@@ -223,16 +205,14 @@ export const LookupResponse = z
         description:
           "Status of the revision used; anything but approved or superseded is an unapproved draft.",
       }),
-    approved: z
-      .boolean()
-      .openapi({
-        description:
-          "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for.",
-      }),
+    approved: z.boolean().openapi({
+      description:
+        "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for.",
+    }),
     property: PropertyKeySchema,
     method: MethodSchema,
     units: z.object({
-      system: z.enum(["field", "metric"]),
+      system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
       value: z.string(),
@@ -312,13 +292,10 @@ export const SampleSummarySchema = z
     sampleType: z.string(),
     reservoirTemperature: z.number().nullable(),
     reservoirPressure: z.number().nullable(),
-    bubblePoint: z
-      .number()
-      .nullable()
-      .openapi({
-        description:
-          "Bubble point at (or nearest measured to) the reservoir temperature.",
-      }),
+    bubblePoint: z.number().nullable().openapi({
+      description:
+        "Bubble point at (or nearest measured to) the reservoir temperature.",
+    }),
     approvedRevision: z.number().nullable(),
     properties: z.array(PropertyKeySchema),
   })
@@ -327,7 +304,7 @@ export const SampleSummarySchema = z
 export const SampleListResponse = z
   .object({
     units: z.object({
-      system: z.enum(["field", "metric"]),
+      system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
     }),
@@ -342,12 +319,10 @@ export const GridSchema = z
     laboratoryUnit: z.string().nullable(),
     pressures: z.array(z.number()),
     temperatures: z.array(z.number()),
-    values: z
-      .array(z.array(z.number().nullable()))
-      .openapi({
-        description:
-          "values[i][j] at pressures[i], temperatures[j]; null = not measured.",
-      }),
+    values: z.array(z.array(z.number().nullable())).openapi({
+      description:
+        "values[i][j] at pressures[i], temperatures[j]; null = not measured.",
+    }),
     bubblePoints: z.array(z.number().nullable()).optional(),
   })
   .openapi("Grid");
@@ -358,15 +333,13 @@ export const SampleDetailResponse = z
     revision: z.object({
       number: z.number(),
       status: z.enum(["draft", "approved", "rejected", "superseded"]),
-      approved: z
-        .boolean()
-        .openapi({
-          description:
-            "false for an unapproved revision (only signed-in people whose role allows it may ask for one).",
-        }),
+      approved: z.boolean().openapi({
+        description:
+          "false for an unapproved revision (only signed-in people whose role allows it may ask for one).",
+      }),
     }),
     units: z.object({
-      system: z.enum(["field", "metric"]),
+      system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
     }),

@@ -8,6 +8,8 @@ import {
   type TokenRestriction,
 } from "~/.server/db/queries/api-tokens";
 import type { ApiScope } from "~/.server/db/schema";
+import type { OutputSystem } from "~/core/units";
+import type { Role } from "~/utils/permissions";
 import { getEnv } from "~/.server/env";
 
 /*
@@ -82,8 +84,8 @@ export type TokenCaller = {
     id: number;
     email: string;
     name: string;
-    role: "viewer" | "engineer" | "lab_lead" | "admin";
-    unitSystem: "field" | "metric";
+    role: Role;
+    unitSystem: OutputSystem;
   };
 };
 

@@ -6,6 +6,7 @@ import {
   insertSession,
 } from "~/.server/db/queries/sessions";
 import { getEnv } from "~/.server/env";
+import type { OutputSystem } from "~/core/units";
 import type { Role } from "~/utils/permissions";
 import { generateToken, hashToken } from "./tokens";
 
@@ -22,7 +23,7 @@ export type SessionUser = {
   email: string;
   name: string;
   role: Role;
-  unitSystem: "field" | "metric";
+  unitSystem: OutputSystem;
 };
 
 let cookie: ReturnType<typeof createCookie> | undefined;

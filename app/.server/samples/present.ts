@@ -4,16 +4,16 @@ import {
   toOutputValue,
   unitLabel,
   type OutputSystem,
-} from "~/.server/api/units";
+} from "~/core/units";
 import type { Finding, QcRuleInfo } from "~/core/lab-data";
 import { QC_RULES } from "~/core/lab-data";
 import {
   getUnit,
+  PROPERTIES,
   PROPERTY_KEYS,
   PROPERTY_QUANTITIES,
   type PropertyKey,
 } from "~/core/units";
-import { PROPERTY_LABELS } from "~/components/samples/labels";
 import type {
   CellMark,
   DisplayBubblePoints,
@@ -99,7 +99,7 @@ export function presentFindings(
         const name =
           c.property === "bubble_point"
             ? "Bubble point"
-            : PROPERTY_LABELS[c.property].symbol;
+            : PROPERTIES[c.property].symbol;
         const at = `${short(toOutputTemperature(c.temperature, system))} ${t}`;
         return c.property === "bubble_point"
           ? `${name} ${short(toOutputPressure(c.pressure, system))} ${p} at ${at}`

@@ -3,7 +3,7 @@ import {
   fromInputTemperature,
   toOutputPressure,
   toOutputTemperature,
-} from "~/.server/api/units";
+} from "~/core/units";
 import type { SampleRecordInput } from "~/.server/db/queries/sample-records";
 import type { FieldErrors } from "~/components/form";
 import type {

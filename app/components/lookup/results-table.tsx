@@ -1,10 +1,6 @@
 import { useState } from "react";
-import {
-  describeWarningCode,
-  PROPERTY_NAMES,
-  type LookupWarning,
-} from "~/core/lookup";
-import type { PropertyKey } from "~/core/units";
+import { describeWarningCode, type LookupWarning } from "~/core/lookup";
+import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Condition } from "~/utils/conditions";
 import { lookupResultsDelimited } from "./results-csv";
 import {
@@ -171,7 +167,7 @@ export function LookupResultsTable({
           role="alert"
           className="mt-2 rounded border border-danger/40 bg-red-50 px-3 py-2 text-sm text-danger"
         >
-          {PROPERTY_NAMES[f.property]}: {f.error}
+          {PROPERTIES[f.property].phrase}: {f.error}
         </p>
       ))}
       {ok.length > 0 ? (
@@ -190,7 +186,7 @@ export function LookupResultsTable({
                     key={r.property}
                     className="px-3 py-2 text-right font-semibold"
                   >
-                    {PROPERTY_NAMES[r.property]} ({r.unit})
+                    {PROPERTIES[r.property].phrase} ({r.unit})
                   </th>
                 ))}
                 <th className="px-3 py-2 text-left font-semibold">Warnings</th>
@@ -241,7 +237,7 @@ export function LookupResultsTable({
                             type="button"
                             onClick={() => onExplain(i, r.property)}
                             className={`rounded px-1 font-semibold underline decoration-dotted underline-offset-2 hover:bg-accent-soft ${serious ? "text-caution" : ""}`}
-                            aria-label={`How ${PROPERTY_NAMES[r.property]} ${fmt(x.value)} at ${c.pressure} ${units.pressure}, ${c.temperature} ${units.temperature} was obtained`}
+                            aria-label={`How ${PROPERTIES[r.property].phrase} ${fmt(x.value)} at ${c.pressure} ${units.pressure}, ${c.temperature} ${units.temperature} was obtained`}
                             data-testid={`value-${r.property}-${i}`}
                             data-value={x.value}
                           >

@@ -1,5 +1,6 @@
 import { formatValue } from "./format";
-import { PROPERTY_LABELS, SEVERITY_LABELS } from "./labels";
+import { PROPERTIES } from "~/core/units";
+import { SEVERITY_LABELS } from "./labels";
 import type {
   CellMark,
   DisplayBubblePoints,
@@ -62,7 +63,7 @@ export function GridTable({
   linkFindings?: boolean;
   caption?: React.ReactNode;
 }) {
-  const label = PROPERTY_LABELS[grid.property];
+  const label = PROPERTIES[grid.property];
   const unit =
     grid.unit === "–" || grid.unit === "-" || grid.unit === ""
       ? ""

@@ -1,7 +1,7 @@
 import { useId } from "react";
 import { z } from "zod";
 import { FieldError, TextField, type FieldErrors } from "~/components/form";
-import { STANDARD_CONDITIONS_PRESETS } from "~/core/units";
+import { STANDARD_CONDITIONS_PRESETS, type OutputSystem } from "~/core/units";
 import { labelSchema, multilineTextSchema } from "~/utils/labels";
 import { SAMPLE_TYPE_LABELS } from "./labels";
 
@@ -10,7 +10,7 @@ import { SAMPLE_TYPE_LABELS } from "./labels";
  * the browser before it is sent and again in the action; the action converts to canonical units.
  */
 
-export type FormSystem = "field" | "metric";
+export type FormSystem = OutputSystem;
 
 export const SAMPLE_TYPES = [
   "bottomhole",

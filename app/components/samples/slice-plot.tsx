@@ -1,5 +1,5 @@
 import { formatValue } from "./format";
-import { PROPERTY_LABELS } from "./labels";
+import { PROPERTIES } from "~/core/units";
 import type { DisplayGrid, Severity } from "./types";
 
 /*
@@ -60,7 +60,7 @@ export function logTicks(min: number, max: number): number[] {
 }
 
 export function SlicePlot({ grid }: { grid: DisplayGrid }) {
-  const label = PROPERTY_LABELS[grid.property];
+  const label = PROPERTIES[grid.property];
   const values = grid.values.flat().filter((v): v is number => v !== null);
   if (values.length === 0 || grid.pressures.length === 0) return null;
   const pMin = Math.min(...grid.pressures);

@@ -16,11 +16,10 @@ import {
   toLookupError,
   unitContext,
   type LookupMethod,
-  type LookupUnits,
   type LookupWarning,
   type UsedMethod,
 } from "../lookup";
-import type { PropertyKey } from "../units";
+import type { OutputSystem, PropertyKey } from "../units";
 import {
   COLUMN_INFO,
   OIL_COLUMNS,
@@ -42,7 +41,7 @@ export type BlackOilTableInput = {
   degree?: number | [number, number];
   extrapolate?: boolean;
   /** Unit system of the numbers in error messages (default field); the table itself is canonical. */
-  messageUnits?: LookupUnits;
+  messageUnits?: OutputSystem;
 };
 
 export type TableCell = {
@@ -168,7 +167,7 @@ function fmt(x: number): string {
 function toTableError(
   error: unknown,
   column: TableColumnKey,
-  units: LookupUnits,
+  units: OutputSystem,
   rowsP: readonly number[],
 ): unknown {
   const mapped = toLookupError(error, column, unitContext(column, units));
@@ -327,7 +326,7 @@ function positive(w: Work, x: readonly number[], column: TableColumnKey): void {
  */
 export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   checkInput(input);
-  const units: LookupUnits =
+  const units: OutputSystem =
     input.messageUnits === "metric" ? "metric" : "field";
   let opts;
   try {

@@ -8,15 +8,15 @@ import type { Branch } from "../interpolation";
 import {
   affineToCanonical,
   fromCanonicalWith,
-  LOOKUP_UNITS,
-  unitSystemOf,
   type Affine,
   type LookupMethod,
-  type LookupUnits,
   type LookupWarning,
 } from "../lookup";
 import {
   gasVolumeRebaseFactor,
+  OUTPUT_SYSTEMS,
+  outputUnitSystem,
+  type OutputSystem,
   PROPERTY_QUANTITIES,
   type Quantity,
   type StandardConditions,
@@ -29,7 +29,7 @@ import { csvCell } from "../csv";
 import { TableError } from "./errors";
 
 export type TableFormatOptions = {
-  units: LookupUnits;
+  units: OutputSystem;
   /** How the sample is named to people (field, well, sample id). */
   sampleLabel: string;
   /** The sample revision the grids came from. */
@@ -118,7 +118,7 @@ type Prepared = {
   sample: string;
   revision: number;
   generatedAt: string;
-  units: LookupUnits;
+  units: OutputSystem;
   temperature: number;
   temperatureUnit: string;
   bubblePointPressure: number | null;
@@ -143,7 +143,7 @@ function checkOptions(options: TableFormatOptions): {
       "Format options are required: { units, sampleLabel, revision, generatedAt }.",
     );
   }
-  if (!(LOOKUP_UNITS as readonly string[]).includes(options.units)) {
+  if (!(OUTPUT_SYSTEMS as readonly string[]).includes(options.units)) {
     throw new TableError(
       "INVALID_OPTIONS",
       `units must be 'field' or 'metric'; got ${String(options.units)}.`,
@@ -194,7 +194,7 @@ function outputOf(
 /** Rounds and converts the table's values once; every format prints from this. */
 function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
   const { generatedAt, sample } = checkOptions(options);
-  const system = unitSystemOf(options.units);
+  const system = outputUnitSystem(options.units);
   const base = options.standardConditions ?? system.standardConditions;
   const pOut = affineToCanonical("pressure", system);
   const tOut = affineToCanonical("temperature", system);
@@ -331,7 +331,7 @@ export type BlackOilTableJson = {
   extrapolate: boolean;
   /** Unit ids of every column, plus the temperature. */
   units: {
-    system: LookupUnits;
+    system: OutputSystem;
     pressure: string;
     temperature: string;
   } & Partial<Record<TableColumnKey, string>>;

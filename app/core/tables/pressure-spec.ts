@@ -3,12 +3,8 @@
  * (start, stop, step; the stop is included when the steps land on it). Numbers are taken as written, in
  * the caller's pressure unit; converting them is the caller's business.
  */
-import {
-  affineToCanonical,
-  toCanonicalWith,
-  unitSystemOf,
-  type LookupUnits,
-} from "../lookup";
+import { affineToCanonical, toCanonicalWith } from "../lookup";
+import { outputUnitSystem, type OutputSystem } from "../units";
 import { TableError } from "./errors";
 
 /** Most rows a table may have (the bubble-point row comes on top). */
@@ -170,9 +166,9 @@ function parseRange(text: string): PressureSpec {
  */
 export function tableConditionsToCanonical(
   conditions: { pressures: readonly number[]; temperature: number },
-  units: LookupUnits,
+  units: OutputSystem,
 ): { pressures: number[]; temperature: number } {
-  const system = unitSystemOf(units);
+  const system = outputUnitSystem(units);
   const p = affineToCanonical("pressure", system);
   const t = affineToCanonical("temperature", system);
   return {

@@ -12,6 +12,10 @@ import {
   varchar,
   char,
 } from "drizzle-orm/mysql-core";
+import {
+  PROPERTY_KEYS,
+  type PropertyKey,
+} from "../../../core/units/properties";
 import { users } from "./auth";
 import { createdAt, id, ref, updatedAt } from "./columns";
 
@@ -148,16 +152,9 @@ export const revisionBubblePoints = mysqlTable(
   ],
 );
 
-export const PROPERTY_KEYS = [
-  "oil_fvf",
-  "solution_gor",
-  "oil_viscosity",
-  "oil_density",
-  "gas_fvf",
-  "gas_viscosity",
-  "z_factor",
-] as const;
-export type PropertyKey = (typeof PROPERTY_KEYS)[number];
+// Property keys are declared once in the property catalogue (app/core/units/properties.ts).
+export { PROPERTY_KEYS };
+export type { PropertyKey };
 
 /** One property measured on a pressure–temperature grid within a revision. */
 export const propertyGrids = mysqlTable(

@@ -5,7 +5,7 @@
  *   gas-viscosity-rising,
  *   oil-viscosity-temperature, bubble-point-temperature, undersaturated-compressibility.
  */
-import type { PropertyKey } from "../../units";
+import { PROPERTIES, type PropertyKey } from "../../units";
 import type { QcCell, QcFindingCode, Severity } from "../types";
 import {
   cell,
@@ -124,16 +124,6 @@ const TREND_RULES: readonly TrendRule[] = [
   },
 ];
 
-const SHORT: Readonly<Record<PropertyKey, string>> = {
-  oil_fvf: "Bo",
-  solution_gor: "Rs",
-  oil_viscosity: "the oil viscosity",
-  oil_density: "the oil density",
-  gas_fvf: "Bg",
-  gas_viscosity: "the gas viscosity",
-  z_factor: "Z",
-};
-
 export function checkPressureTrends(ctx: QcContext): void {
   for (const t of ctx.temperatures) {
     const bubble = ctx.bubbleAt(t);
@@ -166,7 +156,7 @@ export function checkPressureTrends(ctx: QcContext): void {
           r.code,
           r.severity,
           [cell(r.property, a.pressure, t), cell(r.property, b.pressure, t)],
-          `Between ${ctx.p(a.pressure, r.property)} and ${ctx.p(b.pressure, r.property)} at ${ctx.t(t, r.property)}, ${SHORT[r.property]} ${delta < 0 ? "falls" : "rises"} from ${va} to ${vb}; ${r.expectation}${where}.`,
+          `Between ${ctx.p(a.pressure, r.property)} and ${ctx.p(b.pressure, r.property)} at ${ctx.t(t, r.property)}, ${PROPERTIES[r.property].subject} ${delta < 0 ? "falls" : "rises"} from ${va} to ${vb}; ${r.expectation}${where}.`,
         );
       }
     }

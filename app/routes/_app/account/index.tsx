@@ -6,6 +6,7 @@ import { badRequest, parseForm, readFormData } from "~/.server/forms";
 import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { ChangePasswordSchema, ProfileSchema } from "~/utils/auth-schemas";
+import { OUTPUT_SYSTEMS } from "~/core/units";
 import { ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -97,7 +98,7 @@ export default function Account({
                 Units for lookups and tables
               </legend>
               <div className="mt-1 flex gap-4 text-sm">
-                {(["field", "metric"] as const).map((system) => (
+                {OUTPUT_SYSTEMS.map((system) => (
                   <label key={system} className="flex items-center gap-2">
                     <input
                       type="radio"

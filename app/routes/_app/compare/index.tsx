@@ -7,7 +7,6 @@ import {
   getRevisionData,
   resolveRevision,
 } from "~/.server/samples/revision-data";
-import { unitLabel } from "~/.server/api/units";
 import { PageHeader } from "~/components/page-header";
 import { EstimateCaution } from "~/components/estimate-caution";
 import { Button } from "~/components/form";
@@ -19,16 +18,15 @@ import {
   type PlotSeries,
   type QueryPoint,
 } from "~/components/plots";
-import {
-  describeWarningCode,
-  isLookupWarning,
-  PROPERTY_NAMES,
-} from "~/core/lookup";
+import { describeWarningCode, isLookupWarning } from "~/core/lookup";
 import {
   convertBetweenSystems,
-  FIELD_UNIT_SYSTEM,
-  METRIC_UNIT_SYSTEM,
+  OUTPUT_SYSTEMS,
+  outputUnitSystem,
+  PROPERTIES,
   PROPERTY_KEYS,
+  unitLabel,
+  type OutputSystem,
   type PropertyKey,
 } from "~/core/units";
 import { parseConditionList, type Condition } from "~/utils/conditions";
@@ -38,17 +36,6 @@ import type { Route } from "./+types/index";
 const MAX_SAMPLES = 4;
 const MAX_TABLE_CONDITIONS = 50;
 const DEFAULT_THRESHOLD_PERCENT = 5;
-
-/** Short names for axes and column headers. */
-const SHORT_NAMES: Record<PropertyKey, string> = {
-  oil_fvf: "Bo",
-  solution_gor: "Rs",
-  oil_viscosity: "Oil viscosity",
-  oil_density: "Oil density",
-  gas_fvf: "Bg",
-  gas_viscosity: "Gas viscosity",
-  z_factor: "z",
-};
 
 /**
  * The query string: ?samples=1,2 (or samples=1&samples=2)&property=oil_fvf&units=field&view=side-by-side. Bad values
@@ -67,7 +54,7 @@ const CompareQuery = z.object({
         .slice(0, MAX_SAMPLES),
     ),
   property: z.enum(PROPERTY_KEYS).catch("oil_fvf"),
-  units: z.enum(["field", "metric"]).optional().catch(undefined),
+  units: z.enum(OUTPUT_SYSTEMS).optional().catch(undefined),
   view: z.enum(["overlaid", "side-by-side"]).catch("overlaid"),
 });
 
@@ -271,7 +258,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
   const matches = (s: (typeof samples)[number]) =>
     !needle || `${s.label} ${s.field} ${s.well}`.toLowerCase().includes(needle);
   const matchCount = samples.filter(matches).length;
-  const propertyName = SHORT_NAMES[property];
+  const propertyName = PROPERTIES[property].short;
   const missing = selected.filter((s) => s.grid === null);
 
   return (
@@ -378,7 +365,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
             >
               {PROPERTY_KEYS.map((key) => (
                 <option key={key} value={key}>
-                  {capitalise(PROPERTY_NAMES[key])}
+                  {capitalise(PROPERTIES[key].phrase)}
                 </option>
               ))}
             </select>
@@ -386,7 +373,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
           <fieldset>
             <legend className="text-sm font-semibold">Units</legend>
             <div className="mt-1 flex gap-4 text-sm">
-              {(["field", "metric"] as const).map((system) => (
+              {OUTPUT_SYSTEMS.map((system) => (
                 <label key={system} className="flex items-center gap-2">
                   <input
                     type="radio"
@@ -420,7 +407,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         <p className="mb-4 rounded border border-caution/30 bg-caution-soft px-3 py-2 text-sm text-caution">
           {missing.map((s) => s.label).join(", ")}:{" "}
           {missing.length === 1 ? "has" : "have"} no approved{" "}
-          {PROPERTY_NAMES[property]} grid, so{" "}
+          {PROPERTIES[property].phrase} grid, so{" "}
           {missing.length === 1 ? "it is" : "they are"} left out below.
         </p>
       ) : null}
@@ -926,7 +913,7 @@ function useCompareLookups(
     revision: number;
   })[],
   property: PropertyKey,
-  system: "field" | "metric",
+  system: OutputSystem,
   conditions: Condition[],
   extrapolate: boolean,
 ): LookupState {
@@ -1014,7 +1001,7 @@ type Problem = {
 async function lookupSample(
   sample: Selected & { grid: NonNullable<Selected["grid"]>; revision: number },
   property: PropertyKey,
-  system: "field" | "metric",
+  system: OutputSystem,
   conditions: Condition[],
   extrapolate: boolean,
   signal: AbortSignal,
@@ -1112,25 +1099,24 @@ function defaultConditionsText(data: LoaderData): string {
 
 function convertConditionsText(
   text: string,
-  from: "field" | "metric",
-  to: "field" | "metric",
+  from: OutputSystem,
+  to: OutputSystem,
 ): string {
   const parsed = parseConditionList(text);
   if (!parsed.ok || from === to) return text;
-  const systems = { field: FIELD_UNIT_SYSTEM, metric: METRIC_UNIT_SYSTEM };
   return parsed.conditions
     .map((c) => {
       const p = convertBetweenSystems(
         c.pressure,
         "pressure",
-        systems[from],
-        systems[to],
+        outputUnitSystem(from),
+        outputUnitSystem(to),
       );
       const t = convertBetweenSystems(
         c.temperature,
         "temperature",
-        systems[from],
-        systems[to],
+        outputUnitSystem(from),
+        outputUnitSystem(to),
       );
       return `${formatPlain(Number(p.toPrecision(5)))}, ${formatPlain(Number(t.toPrecision(4)))}`;
     })

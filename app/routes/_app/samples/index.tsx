@@ -1,10 +1,6 @@
 import { Form, href, Link } from "react-router";
 import { z } from "zod";
-import {
-  toOutputPressure,
-  toOutputTemperature,
-  unitLabel,
-} from "~/.server/api/units";
+import { toOutputPressure, toOutputTemperature, unitLabel } from "~/core/units";
 import { requirePermission } from "~/.server/auth/guards";
 import { searchSamples } from "~/.server/db/queries/sample-records";
 import { Button } from "~/components/form";

@@ -14,8 +14,8 @@ import {
 import { runHeavy } from "~/.server/workers/pool";
 import { Button, FormAlert } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { PROPERTY_NAMES, isLookupError } from "~/core/lookup";
-import type { PropertyKey } from "~/core/units";
+import { isLookupError } from "~/core/lookup";
+import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Route } from "./+types/$setId";
 
 export const meta: Route.MetaFunction = () => [
@@ -85,7 +85,7 @@ export async function action(args: Route.ActionArgs) {
       }));
     } catch (error) {
       if (isLookupError(error))
-        return { error: `${PROPERTY_NAMES[property]}: ${error.message}` };
+        return { error: `${PROPERTIES[property].phrase}: ${error.message}` };
       throw error;
     }
   }
@@ -111,7 +111,9 @@ export default function LookupSetRuns({
     <>
       <PageHeader title={`Lookup set: ${set.name}`}>
         {sampleLabel} · {set.conditions.length} conditions ·{" "}
-        {set.properties.map((p) => PROPERTY_NAMES[p as PropertyKey]).join(", ")}{" "}
+        {set.properties
+          .map((p) => PROPERTIES[p as PropertyKey].phrase)
+          .join(", ")}{" "}
         · method {set.method}. Each run records the revision and method used;
         values in field units (psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³).
       </PageHeader>
@@ -167,7 +169,7 @@ export default function LookupSetRuns({
                   <th className="px-3 py-2 text-right font-semibold">T (°F)</th>
                   {Object.keys(latest.results).map((p) => (
                     <th key={p} className="px-3 py-2 text-right font-semibold">
-                      {PROPERTY_NAMES[p as PropertyKey]}
+                      {PROPERTIES[p as PropertyKey].phrase}
                     </th>
                   ))}
                 </tr>

@@ -4,7 +4,7 @@ import {
   toOutputTemperature,
   toOutputValue,
   unitLabel,
-} from "~/.server/api/units";
+} from "~/core/units";
 import { requirePermission } from "~/.server/auth/guards";
 import {
   getRevisionsForDiff,
@@ -14,11 +14,8 @@ import { diffRevisions, type CellDiff } from "~/.server/samples/diff";
 import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
 import { Button } from "~/components/form";
 import { formatChange, formatValue } from "~/components/samples/format";
-import {
-  PROPERTY_LABELS,
-  REVISION_STATUS_LABELS,
-} from "~/components/samples/labels";
-import type { PropertyKey } from "~/core/units";
+import { REVISION_STATUS_LABELS } from "~/components/samples/labels";
+import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Route } from "./+types/diff";
 
 export const meta: Route.MetaFunction = ({ data }) => [
@@ -143,7 +140,7 @@ type Row = {
 function propertyName(property: Row["property"]): string {
   return property === "bubble_point"
     ? "Bubble point"
-    : `${PROPERTY_LABELS[property].name} (${PROPERTY_LABELS[property].symbol})`;
+    : `${PROPERTIES[property].name} (${PROPERTIES[property].symbol})`;
 }
 
 function unitText(unit: string) {

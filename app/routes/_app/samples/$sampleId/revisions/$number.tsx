@@ -9,6 +9,7 @@ import {
   useSearchParams,
 } from "react-router";
 import { z } from "zod";
+import type { OutputSystem } from "~/core/units";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
 import { reviewRevision } from "~/.server/db/queries/review";
 import { getFourEyesPolicy } from "~/.server/db/queries/settings";
@@ -61,7 +62,7 @@ const ReviewSchema = z.discriminatedUnion(
 
 async function load(
   args: { params: { sampleId?: string; number?: string } },
-  system: "field" | "metric",
+  system: OutputSystem,
 ) {
   const sample = await requireSample(args.params);
   const number = revisionNumberFrom(args.params.number);
