@@ -25,8 +25,9 @@ import {
   unitLabel,
   type OutputSystem,
 } from "~/core/units";
+import { roundSignificant } from "~/core/format";
 
-const round = (v: number, digits = 10) => Number(v.toPrecision(digits));
+const round = (v: number, digits = 10) => roundSignificant(v, digits);
 
 export async function listSamplesForCaller(
   caller: ApiCaller,

@@ -21,6 +21,7 @@ import type {
   DisplayGrid,
   Severity,
 } from "~/components/samples/types";
+import { roundSignificant } from "~/core/format";
 
 /*
  * Turns canonical grids and QC findings into what the sample components show: numbers in the reader's unit
@@ -42,9 +43,9 @@ export type CanonicalBubblePoint = {
   bubblePointPsia: number;
 };
 
-const round = (v: number) => Number(v.toPrecision(10));
+const round = (v: number) => roundSignificant(v, 10);
 /** Numbers inside sentences: 6 significant digits. */
-const short = (v: number) => Number(v.toPrecision(6));
+const short = (v: number) => roundSignificant(v, 6);
 const TEMPERATURE_TOLERANCE = 0.01;
 const samePressure = (a: number, b: number) =>
   Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b), 1);

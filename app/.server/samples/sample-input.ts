@@ -12,10 +12,11 @@ import type {
   SampleFormValues,
 } from "~/components/samples/sample-form";
 import { METRE_PER_FOOT, STANDARD_CONDITIONS_PRESETS } from "~/core/units";
+import { roundSignificant } from "~/core/format";
 
 /* The sample form in the reader's units ↔ the sample record in canonical units (psia, °F, ft). */
 
-const round = (v: number, digits = 8) => Number(v.toPrecision(digits));
+const round = (v: number, digits = 8) => roundSignificant(v, digits);
 
 type StoredStandard = {
   standardPressurePsia: number;

@@ -1,5 +1,6 @@
-import { formatValue } from "./format";
+import { formatMeasured } from "~/core/format";
 import { PROPERTIES } from "~/core/units";
+import { roundSignificant } from "~/core/format";
 import type { DisplayGrid, Severity } from "./types";
 
 /*
@@ -37,7 +38,7 @@ export function niceTicks(min: number, max: number, count = 4): number[] {
     10 * magnitude;
   const ticks: number[] = [];
   for (let v = Math.ceil(min / step) * step; v <= max + step * 1e-9; v += step)
-    ticks.push(Number(v.toPrecision(12)));
+    ticks.push(roundSignificant(v, 12));
   return ticks;
 }
 
@@ -52,7 +53,7 @@ export function logTicks(min: number, max: number): number[] {
     e++
   ) {
     for (const m of steps) {
-      const v = Number((m * 10 ** e).toPrecision(6));
+      const v = roundSignificant(m * 10 ** e, 6);
       if (v >= min && v <= max) ticks.push(v);
     }
   }
@@ -88,7 +89,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
     ((scale(v) - vMin) / (vMax - vMin)) * (H - PAD.top - PAD.bottom);
   const yTicks = log ? logTicks(10 ** vMin, 10 ** vMax) : niceTicks(vMin, vMax);
   const unit = grid.unit === "–" || grid.unit === "-" ? "" : ` (${grid.unit})`;
-  const description = `${label.name} against pressure, one line per temperature: ${grid.temperatures.map((t) => `${formatValue(t)} ${grid.temperatureUnit}`).join(", ")}.`;
+  const description = `${label.name} against pressure, one line per temperature: ${grid.temperatures.map((t) => `${formatMeasured(t)} ${grid.temperatureUnit}`).join(", ")}.`;
   return (
     <figure className="rounded-lg border border-line bg-panel p-3">
       <figcaption className="text-sm font-semibold">
@@ -124,7 +125,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
               fontSize={9}
               fill="#55636f"
             >
-              {formatValue(t)}
+              {formatMeasured(t)}
             </text>
           </g>
         ))}
@@ -145,7 +146,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
               fontSize={9}
               fill="#55636f"
             >
-              {formatValue(t)}
+              {formatMeasured(t)}
             </text>
           </g>
         ))}
@@ -237,7 +238,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
               className="inline-block h-0.5 w-4"
               style={{ background: COLORS[j % COLORS.length] }}
             />
-            {formatValue(t)} {grid.temperatureUnit}
+            {formatMeasured(t)} {grid.temperatureUnit}
           </li>
         ))}
         {grid.bubblePoints.some((b) => b !== null) ? (

@@ -27,7 +27,7 @@ function target(file: string, specifier: string): string {
   return parts.join("/");
 }
 
-test("library modules import only their own modules, units, properties, the CSV cell writer, csv-parse and exceljs", () => {
+test("library modules import only their own modules, units, properties, the number formats, the CSV cell writer, csv-parse and exceljs", () => {
   const files = Object.keys(sources);
   expect(files).toContain("./index.ts");
   expect(files).toContain("./qc/run-qc.ts");
@@ -42,7 +42,7 @@ test("library modules import only their own modules, units, properties, the CSV 
       if (PACKAGES.includes(s)) continue;
       expect(s, `${file} imports ${s}`).toMatch(/^\.{1,2}\//);
       expect(target(file, s), `${file} imports ${s}`).toMatch(
-        /^(lab-data|units|properties|csv)(\/[a-z-/]+)?$/,
+        /^(lab-data|units|properties|csv|format)(\/[a-z-/]+)?$/,
       );
     }
     expect(text, file).not.toMatch(

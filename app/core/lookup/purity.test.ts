@@ -8,14 +8,14 @@ const sources = import.meta.glob(["./*.ts", "!./*.test.ts"], {
   eager: true,
 }) as Record<string, string>;
 
-test("lookup modules import only their own files, ../interpolation and ../units", () => {
+test("lookup modules import only their own files, ../interpolation, ../units and ../format", () => {
   expect(Object.keys(sources)).toContain("./index.ts");
   for (const [file, text] of Object.entries(sources)) {
     for (const m of text.matchAll(
       /^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm,
     )) {
       expect(m[1], `${file} imports ${m[1]}`).toMatch(
-        /^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/units)$/,
+        /^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/units|\.\.\/format)$/,
       );
     }
     expect(text, file).not.toMatch(

@@ -33,6 +33,7 @@ import {
 import { LookupError } from "./errors";
 import { affineToCanonical, type Affine } from "./unit-map";
 import { expandWarningFlags, type LookupWarning } from "./warnings";
+import { formatPlain } from "../format";
 
 /** Most points one lookup accepts (the API's limit). */
 export const MAX_LOOKUP_POINTS = 100_000;
@@ -455,11 +456,6 @@ function canonicalPoints(
   return { ps, ts };
 }
 
-function fmt(x: number): string {
-  if (!Number.isFinite(x)) return String(x);
-  return String(Number(x.toPrecision(6)));
-}
-
 function back(a: Affine, canonical: number): number {
   return (canonical - a.offset) / a.scale;
 }
@@ -487,11 +483,11 @@ export function toLookupError(
       const where = index === undefined ? "The point" : `Point ${index}`;
       const range =
         min === max
-          ? `the table of ${PROPERTIES[property].phrase} was measured at a single ${axis}, ${fmt(min)} ${unit}`
-          : `the measured ${axis}s of ${PROPERTIES[property].phrase} run from ${fmt(min)} to ${fmt(max)} ${unit}`;
+          ? `the table of ${PROPERTIES[property].phrase} was measured at a single ${axis}, ${formatPlain(min)} ${unit}`
+          : `the measured ${axis}s of ${PROPERTIES[property].phrase} run from ${formatPlain(min)} to ${formatPlain(max)} ${unit}`;
       return new LookupError(
         "OUT_OF_RANGE",
-        `${where} has ${axis} ${fmt(value)} ${unit}, outside the measured range: ${range}. Allow extrapolation to get a value anyway; it is then marked 'extrapolated'.`,
+        `${where} has ${axis} ${formatPlain(value)} ${unit}, outside the measured range: ${range}. Allow extrapolation to get a value anyway; it is then marked 'extrapolated'.`,
         { pointIndex: index, axis, value, min, max, unit, engineMessage },
         error,
       );
@@ -506,7 +502,7 @@ export function toLookupError(
           : "";
       return new LookupError(
         "NO_VALID_ZONE",
-        `${where} (${fmt(p)} ${pUnit}, ${fmt(t)} ${tUnit}): no measured values of ${PROPERTIES[property].phrase} surround it${branch}. Cells around it were not measured, or it lies beyond the last measured pressure of the neighbouring temperatures. Allow extrapolation to get a value from the nearest measured values; it is then marked 'extrapolated'.`,
+        `${where} (${formatPlain(p)} ${pUnit}, ${formatPlain(t)} ${tUnit}): no measured values of ${PROPERTIES[property].phrase} surround it${branch}. Cells around it were not measured, or it lies beyond the last measured pressure of the neighbouring temperatures. Allow extrapolation to get a value from the nearest measured values; it is then marked 'extrapolated'.`,
         {
           pointIndex: index,
           pressure: p,

@@ -27,6 +27,7 @@ import { correctionReason, TABLE_RULE_TEXT } from "./build-table";
 import { COLUMN_INFO, type TableColumnKey } from "./columns";
 import { csvCell } from "../csv";
 import { TableError } from "./errors";
+import { formatDecimals, roundSignificant } from "../format";
 
 export type TableFormatOptions = {
   units: OutputSystem;
@@ -68,7 +69,7 @@ const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
 export function roundTo(x: number, digits: number): number {
   if (x === 0 || !Number.isFinite(x)) return x === 0 ? 0 : x;
   const k = digits - 1 - Math.floor(Math.log10(Math.abs(x)));
-  if (k > 22 || k < -22) return Number(x.toPrecision(digits));
+  if (k > 22 || k < -22) return roundSignificant(x, digits);
   return k >= 0
     ? Math.round(x * POW10[k]!) / POW10[k]!
     : Math.round(x / POW10[-k]!) * POW10[-k]!;
@@ -459,7 +460,7 @@ function columnStrings(values: readonly number[]): string[] {
     0,
     ...plain.map((s) => (s.includes(".") ? s.length - s.indexOf(".") - 1 : 0)),
   );
-  return values.map((v) => v.toFixed(decimals));
+  return values.map((v) => formatDecimals(v, decimals));
 }
 
 function range(from: number, to: number): string {

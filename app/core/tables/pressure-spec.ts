@@ -6,6 +6,7 @@
 import { affineToCanonical, toCanonicalWith } from "../lookup";
 import { outputUnitSystem, type OutputSystem } from "../units";
 import { TableError } from "./errors";
+import { roundSignificant } from "../format";
 
 /** Most rows a table may have (the bubble-point row comes on top). */
 export const MAX_TABLE_ROWS = 10_000;
@@ -153,7 +154,7 @@ function parseRange(text: string): PressureSpec {
   const pressures: number[] = [];
   for (let i = 0; i <= steps; i++) {
     // computed from the start each time (no accumulated rounding), trimmed to the digits of the inputs
-    const p = Number((start + i * step).toPrecision(15));
+    const p = roundSignificant(start + i * step, 15);
     if (pressures.length === 0 || p > pressures[pressures.length - 1]!)
       pressures.push(p);
   }

@@ -9,14 +9,14 @@ const sources = import.meta.glob(["./*.ts", "!./*.test.ts"], {
   eager: true,
 }) as Record<string, string>;
 
-test("table modules import only their own files, ../interpolation, ../lookup, ../units and ../csv", () => {
+test("table modules import only their own files, ../interpolation, ../lookup, ../units, ../csv and ../format", () => {
   expect(Object.keys(sources)).toContain("./index.ts");
   for (const [file, text] of Object.entries(sources)) {
     for (const m of text.matchAll(
       /^\s*(?:import|export)\b[^;]*?\bfrom\s+"([^"]+)"/gm,
     )) {
       expect(m[1], `${file} imports ${m[1]}`).toMatch(
-        /^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/lookup|\.\.\/units|\.\.\/csv)$/,
+        /^(\.\/[a-z-]+|\.\.\/interpolation|\.\.\/lookup|\.\.\/units|\.\.\/csv|\.\.\/format)$/,
       );
     }
     expect(text, file).not.toMatch(

@@ -15,7 +15,8 @@ import {
   type Point,
   type QcContext,
 } from "./context";
-import { formatNumber, pairWithUnit } from "./format";
+import { formatReading } from "../../format";
+import { pairWithUnit } from "./format";
 import type { RuleId } from "./rules";
 
 /** Points at or below pb (saturated) or at or above pb (undersaturated). */
@@ -235,7 +236,7 @@ function checkUndersaturatedCompressibility(
       "UNDERSATURATED_COMPRESSIBILITY",
       "warning",
       [cell("oil_fvf", a.pressure, t), cell("oil_fvf", b.pressure, t)],
-      `Between ${ctx.p(a.pressure, "oil_fvf")} and ${ctx.p(b.pressure, "oil_fvf")} at ${ctx.t(t, "oil_fvf")}, Bo implies an oil compressibility of ${formatNumber(co * 1e6, 3)} × 10⁻⁶ 1/psi, outside the usual 2 to 60 × 10⁻⁶ 1/psi above the bubble point.`,
+      `Between ${ctx.p(a.pressure, "oil_fvf")} and ${ctx.p(b.pressure, "oil_fvf")} at ${ctx.t(t, "oil_fvf")}, Bo implies an oil compressibility of ${formatReading(co * 1e6, 3)} × 10⁻⁶ 1/psi, outside the usual 2 to 60 × 10⁻⁶ 1/psi above the bubble point.`,
     );
   }
 }

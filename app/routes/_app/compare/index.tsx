@@ -18,6 +18,15 @@ import {
   type PlotSeries,
   type QueryPoint,
 } from "~/components/plots";
+import {
+  formatCompared,
+  formatDifference,
+  formatErrorEstimate,
+  formatPlain,
+  formatPressure,
+  formatSignificant,
+  formatTemperature,
+} from "~/core/format";
 import { describeWarningCode, isLookupWarning } from "~/core/lookup";
 import {
   convertBetweenSystems,
@@ -815,9 +824,9 @@ function ValueCell({
       className="px-3 py-2 text-right align-top tabular-nums"
       data-testid="compare-value"
     >
-      <span className="font-semibold">{formatValue(cell.value)}</span>
+      <span className="font-semibold">{formatCompared(cell.value)}</span>
       <span className="block text-xs whitespace-nowrap text-ink-muted">
-        ± {formatError(cell.errorEstimate)}
+        ± {formatErrorEstimate(cell.errorEstimate)}
       </span>
       {cell.outsideRange || flags.length > 0 ? (
         <span className="mt-0.5 flex flex-wrap justify-end gap-1">
@@ -893,7 +902,7 @@ function DifferenceCell({
           ▲
         </span>
       ) : null}
-      {formatPercent(pct)}
+      {formatDifference(pct)}
       {exceeds ? (
         <span className="sr-only"> (beyond the threshold)</span>
       ) : null}
@@ -1091,7 +1100,7 @@ function defaultConditionsText(data: LoaderData): string {
       info.reservoirTemperature === null
     )
       continue;
-    const line = `${Number(info.reservoirPressure.toPrecision(4))}, ${Number(info.reservoirTemperature.toPrecision(4))}`;
+    const line = `${formatSignificant(info.reservoirPressure, 4)}, ${formatSignificant(info.reservoirTemperature, 4)}`;
     if (!pairs.includes(line)) pairs.push(line);
   }
   return pairs.join("\n");
@@ -1118,39 +1127,9 @@ function convertConditionsText(
         outputUnitSystem(from),
         outputUnitSystem(to),
       );
-      return `${formatPlain(Number(p.toPrecision(5)))}, ${formatPlain(Number(t.toPrecision(4)))}`;
+      return `${formatPressure(p)}, ${formatTemperature(t)}`;
     })
     .join("\n");
-}
-
-function formatPlain(v: number): string {
-  return String(Number(v.toPrecision(6)));
-}
-
-function formatValue(v: number): string {
-  if (!Number.isFinite(v)) return "—";
-  if (v === 0) return "0";
-  const abs = Math.abs(v);
-  if (abs < 1e-4 || abs >= 1e7) return v.toExponential(3);
-  return Number(v.toPrecision(5)).toLocaleString("en-US", {
-    maximumFractionDigits: 8,
-  });
-}
-
-/** An error estimate: two significant digits are all it carries. */
-function formatError(v: number): string {
-  if (!Number.isFinite(v)) return "—";
-  if (v === 0) return "0";
-  return Math.abs(v) < 1e-4 || Math.abs(v) >= 1e7
-    ? v.toExponential(1)
-    : String(Number(v.toPrecision(2)));
-}
-
-function formatPercent(pct: number): string {
-  const abs = Math.abs(pct);
-  const text =
-    abs >= 100 ? pct.toFixed(0) : abs >= 10 ? pct.toFixed(1) : pct.toFixed(2);
-  return `${pct > 0 ? "+" : pct < 0 ? "−" : ""}${text.replace("-", "")} %`;
 }
 
 function capitalise(s: string): string {

@@ -5,7 +5,7 @@ import { requirePermission } from "~/.server/auth/guards";
 import { searchSamples } from "~/.server/db/queries/sample-records";
 import { Button } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { formatValue } from "~/components/samples/format";
+import { formatMeasured } from "~/core/format";
 import {
   SAMPLE_SORTS,
   SAMPLE_STATUS_FILTERS,
@@ -15,6 +15,7 @@ import {
 import { SAMPLE_TYPES } from "~/components/samples/sample-form";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
+import { roundSignificant } from "~/core/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Samples · Isopleth" }];
 
@@ -267,13 +268,13 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
                 <td className="px-3 py-2 text-right tabular-nums">
                   {s.reservoirPressure === null
                     ? "—"
-                    : formatValue(Number(s.reservoirPressure.toPrecision(5)))}
+                    : formatMeasured(roundSignificant(s.reservoirPressure, 5))}
                 </td>
                 <td className="px-3 py-2 text-right tabular-nums">
                   {s.reservoirTemperature === null
                     ? "—"
-                    : formatValue(
-                        Number(s.reservoirTemperature.toPrecision(5)),
+                    : formatMeasured(
+                        roundSignificant(s.reservoirTemperature, 5),
                       )}
                 </td>
                 <td className="px-3 py-2 text-right tabular-nums">

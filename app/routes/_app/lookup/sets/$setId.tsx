@@ -17,6 +17,7 @@ import { PageHeader } from "~/components/page-header";
 import { isLookupError } from "~/core/lookup";
 import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Route } from "./+types/$setId";
+import { formatDecimals, formatPlain, formatPrecision } from "~/core/format";
 
 export const meta: Route.MetaFunction = () => [
   { title: "Lookup set · Isopleth" },
@@ -178,10 +179,10 @@ export default function LookupSetRuns({
                 {set.conditions.map((c, i) => (
                   <tr key={i} className="border-t border-line">
                     <td className="px-3 py-1 text-right">
-                      {c.pressurePsia.toPrecision(6)}
+                      {formatPrecision(c.pressurePsia, 6)}
                     </td>
                     <td className="px-3 py-1 text-right">
-                      {c.temperatureF.toPrecision(5)}
+                      {formatPrecision(c.temperatureF, 5)}
                     </td>
                     {Object.entries(latest.results).map(([p, values]) => {
                       const now = values[i]?.value;
@@ -194,13 +195,13 @@ export default function LookupSetRuns({
                           : null;
                       return (
                         <td key={p} className="px-3 py-1 text-right">
-                          {now === undefined ? "—" : Number(now.toPrecision(6))}
+                          {now === undefined ? "—" : formatPlain(now)}
                           {change !== null ? (
                             <span
                               className={`ml-2 text-xs ${Math.abs(change) > 1 ? "text-caution" : "text-ink-muted"}`}
                             >
                               {change >= 0 ? "+" : ""}
-                              {change.toFixed(2)} %
+                              {formatDecimals(change, 2)} %
                             </span>
                           ) : null}
                         </td>

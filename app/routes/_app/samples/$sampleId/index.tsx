@@ -14,7 +14,7 @@ import { requireSample } from "~/.server/samples/params";
 import { loadRevisionView } from "~/.server/samples/revision-view";
 import { standardLabel } from "~/.server/samples/sample-input";
 import { Button, FormAlert } from "~/components/form";
-import { formatDateTime, formatValue } from "~/components/samples/format";
+import { formatDateTime, formatMeasured } from "~/core/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { SAMPLE_TYPE_LABELS } from "~/components/samples/labels";
 import {
@@ -26,6 +26,7 @@ import { RevisionStatusBadge } from "~/components/samples/revision-status";
 import { METRE_PER_FOOT } from "~/core/units";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
+import { roundSignificant } from "~/core/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [
   { title: `${data?.sample.label ?? "Sample"} · Isopleth` },
@@ -50,7 +51,7 @@ export async function loader(args: Route.LoaderArgs) {
   const view = current
     ? await loadRevisionView(sample, current.number, system)
     : null;
-  const round = (v: number) => Number(v.toPrecision(6));
+  const round = (v: number) => roundSignificant(v, 6);
   return {
     sample: {
       id: sample.id,
@@ -146,7 +147,7 @@ function Meta({
 }
 
 const num = (v: number | null) =>
-  v === null ? null : <span className="tabular-nums">{formatValue(v)}</span>;
+  v === null ? null : <span className="tabular-nums">{formatMeasured(v)}</span>;
 
 export default function SamplePage({
   loaderData,

@@ -18,7 +18,7 @@ import { buildPreview } from "~/.server/samples/preview";
 import { describeStoreFailure } from "~/.server/samples/store-failure";
 import { logger } from "~/.server/ops/logger";
 import { uploadsByOutcome } from "~/.server/ops/metrics";
-import { megabytes, readCappedFormData } from "~/.server/samples/upload";
+import { readCappedFormData } from "~/.server/samples/upload";
 import { uploadGuide } from "~/.server/samples/upload-guide";
 import {
   Button,
@@ -28,7 +28,7 @@ import {
   type FieldErrors,
 } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { formatDateTime } from "~/components/samples/format";
+import { formatDateTime, formatFileSize } from "~/core/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { GuideBlocks, guideSections, Inline } from "~/components/samples/guide";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
@@ -181,7 +181,7 @@ export async function action(args: Route.ActionArgs) {
       return data<ActionResult>(
         {
           kind: "too_large",
-          formError: `The upload (${megabytes(size)} or more) is over the ${LIMIT_TEXT} limit, so it was not read and nothing was stored. Upload only the results table.`,
+          formError: `The upload (${formatFileSize(size)} or more) is over the ${LIMIT_TEXT} limit, so it was not read and nothing was stored. Upload only the results table.`,
         },
         { status: 413 },
       );

@@ -18,7 +18,7 @@ import { notifyFollowersOfApproval } from "~/.server/samples/notify";
 import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
 import { loadRevisionView } from "~/.server/samples/revision-view";
 import { Button, FieldError, FormAlert, useZodForm } from "~/components/form";
-import { formatDateTime } from "~/components/samples/format";
+import { formatDateTime } from "~/core/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
 import { RevisionStatusBadge } from "~/components/samples/revision-status";
