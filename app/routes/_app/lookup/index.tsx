@@ -38,6 +38,7 @@ import {
   type Condition,
 } from "~/utils/conditions";
 import { labelSchema } from "~/utils/labels";
+import { readIntent } from "~/utils/forms";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -87,7 +88,7 @@ export async function action(args: Route.ActionArgs) {
   const payload: unknown = contentType.includes("application/json")
     ? await readJsonBody(args.request)
     : Object.fromEntries(await readFormData(args.request));
-  const intent = (payload as { intent?: unknown }).intent;
+  const intent = readIntent(payload as Record<string, unknown>);
   if (intent === "units") {
     const units = z
       .enum(OUTPUT_SYSTEMS)

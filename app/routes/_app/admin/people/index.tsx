@@ -9,7 +9,8 @@ import {
   setUserDisabled,
   updateUserRole,
 } from "~/.server/db/queries/users";
-import { badRequest, parseForm, readFormData } from "~/.server/forms";
+import { badRequest, parseFormData, readFormData } from "~/.server/forms";
+import { readIntent } from "~/utils/forms";
 import {
   Button,
   FieldError,
@@ -36,12 +37,11 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const me = requirePermission(args, "manage:people");
   const { ipAddress } = getCaller(args);
-  const intent = String(
-    (await readFormData(args.request.clone())).get("intent") ?? "",
-  );
+  const formData = await readFormData(args.request);
+  const intent = readIntent(formData);
 
   if (intent === "invite") {
-    const form = await parseForm(args.request, InviteSchema);
+    const form = parseFormData(formData, InviteSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
     if (await getUserCredentialsByEmail(form.data.email)) {
       return badRequest({
@@ -66,7 +66,7 @@ export async function action(args: Route.ActionArgs) {
   }
 
   if (intent === "role") {
-    const form = await parseForm(args.request, ChangeRoleSchema);
+    const form = parseFormData(formData, ChangeRoleSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
     const person = await getUserById(form.data.userId);
     if (!person)
@@ -99,7 +99,7 @@ export async function action(args: Route.ActionArgs) {
     };
   }
 
-  const form = await parseForm(args.request, SetDisabledSchema);
+  const form = parseFormData(formData, SetDisabledSchema);
   if (!form.ok) return badRequest({ errors: form.errors, intent });
   const person = await getUserById(form.data.userId);
   if (!person)

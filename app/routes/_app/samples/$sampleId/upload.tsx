@@ -38,6 +38,7 @@ import {
   UPLOAD_ACCEPT,
   UPLOAD_LIMIT_BYTES,
 } from "~/components/samples/upload-limits";
+import { fieldErrorsOf, readIntent } from "~/utils/forms";
 import { multilineTextSchema } from "~/utils/labels";
 import type { Route } from "./+types/upload";
 
@@ -160,13 +161,6 @@ function identicalText(r: Identical): string {
   return `This file is identical (same SHA-256) to revision ${r.number}, uploaded by ${r.uploaderName ?? "a removed account"} on ${formatDateTime(r.createdAt)} (${r.status}).`;
 }
 
-function fieldErrors(issues: readonly z.core.$ZodIssue[]): FieldErrors {
-  const errors: FieldErrors = {};
-  for (const issue of issues)
-    (errors[String(issue.path[0] ?? "form")] ??= []).push(issue.message);
-  return errors;
-}
-
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "upload:revisions");
   const { ipAddress } = getCaller(args);
@@ -200,7 +194,7 @@ export async function action(args: Route.ActionArgs) {
     return data<ActionResult>(
       {
         kind: "invalid",
-        errors: fieldErrors(basic.error.issues),
+        errors: fieldErrorsOf(basic.error.issues),
         formError: "Nothing was stored.",
       },
       { status: 400 },
@@ -246,7 +240,7 @@ export async function action(args: Route.ActionArgs) {
         preview,
         identical,
         comment,
-        errors: confirm.success ? {} : fieldErrors(confirm.error.issues),
+        errors: confirm.success ? {} : fieldErrorsOf(confirm.error.issues),
       },
       { status: 400 },
     );
@@ -486,6 +480,7 @@ export default function Upload({
   useEffect(() => setStale(false), [actionData]);
   const sampleUrl = href("/samples/:sampleId", { sampleId: String(sample.id) });
   const busy = navigation.state === "submitting";
+  const pressed = navigation.formData ? readIntent(navigation.formData) : "";
   const preview = !stale && result?.preview ? result.preview : null;
   const fileErrors = [
     ...(sizeError ? [sizeError] : []),
@@ -589,7 +584,7 @@ export default function Upload({
               variant={preview ? "secondary" : "primary"}
               disabled={busy || !!sizeError}
             >
-              {busy && navigation.formData?.get("intent") === "preview"
+              {busy && pressed === "preview"
                 ? "Checking…"
                 : preview
                   ? "Check again"
@@ -643,7 +638,7 @@ export default function Upload({
         {preview ? (
           <div className="flex flex-wrap items-center gap-4">
             <Button type="submit" name="intent" value="confirm" disabled={busy}>
-              {busy && navigation.formData?.get("intent") === "confirm"
+              {busy && pressed === "confirm"
                 ? "Storing…"
                 : `Store as draft revision ${nextNumber}`}
             </Button>
