@@ -12,19 +12,20 @@ import {
   resolveRevision,
   type RevisionData,
 } from "~/.server/samples/revision-data";
-import type { PropertyKey } from "~/core/units";
+import {
+  type OutputSystem,
+  type PropertyKey,
+  toOutputPressure,
+  toOutputTemperature,
+  toOutputValue,
+  unitLabel,
+} from "~/core/units";
+import type { RevisionStatus } from "~/utils/sample-vocabulary";
 import {
   callerMayReadDrafts,
   callerMayReadSample,
   type ApiCaller,
 } from "./caller";
-import {
-  toOutputPressure,
-  toOutputTemperature,
-  toOutputValue,
-  unitLabel,
-  type OutputSystem,
-} from "~/core/units";
 import { roundSignificant } from "~/core/format";
 
 const round = (v: number, digits = 10) => roundSignificant(v, digits);
@@ -105,7 +106,7 @@ export async function requireSampleForCaller(
 }
 
 /** Statuses of revisions that were approved (a superseded revision was approved and stays citable). */
-const APPROVED_STATUSES: ReadonlySet<string> = new Set([
+const APPROVED_STATUSES: ReadonlySet<string> = new Set<RevisionStatus>([
   "approved",
   "superseded",
 ]);

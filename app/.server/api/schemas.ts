@@ -4,6 +4,7 @@ import {
 } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
 import { pointColumns } from "~/core/lookup";
+import { REVISION_STATUSES } from "~/utils/sample-vocabulary";
 import {
   keyWithAbbreviation,
   OUTPUT_SYSTEMS,
@@ -199,12 +200,10 @@ export const LookupResponse = z
   .object({
     sampleId: z.number(),
     revision: z.number(),
-    revisionStatus: z
-      .enum(["draft", "approved", "rejected", "superseded"])
-      .openapi({
-        description:
-          "Status of the revision used; anything but approved or superseded is an unapproved draft.",
-      }),
+    revisionStatus: z.enum(REVISION_STATUSES).openapi({
+      description:
+        "Status of the revision used; anything but approved or superseded is an unapproved draft.",
+    }),
     approved: z.boolean().openapi({
       description:
         "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for.",
@@ -332,7 +331,7 @@ export const SampleDetailResponse = z
     sample: z.record(z.string(), z.unknown()),
     revision: z.object({
       number: z.number(),
-      status: z.enum(["draft", "approved", "rejected", "superseded"]),
+      status: z.enum(REVISION_STATUSES),
       approved: z.boolean().openapi({
         description:
           "false for an unapproved revision (only signed-in people whose role allows it may ask for one).",

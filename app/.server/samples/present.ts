@@ -1,19 +1,17 @@
 import {
-  toOutputPressure,
-  toOutputTemperature,
-  toOutputValue,
-  unitLabel,
-  type OutputSystem,
-} from "~/core/units";
-import type { Finding, QcRuleInfo } from "~/core/lab-data";
-import { QC_RULES } from "~/core/lab-data";
-import {
   getUnit,
+  type OutputSystem,
   PROPERTIES,
   PROPERTY_KEYS,
   PROPERTY_QUANTITIES,
   type PropertyKey,
+  toOutputPressure,
+  toOutputTemperature,
+  toOutputValue,
+  unitLabel,
 } from "~/core/units";
+import type { Finding, QcRuleInfo } from "~/core/lab-data";
+import { QC_RULES } from "~/core/lab-data";
 import type {
   CellMark,
   DisplayBubblePoints,

@@ -1,6 +1,8 @@
 import {
   fromInputPressure,
   fromInputTemperature,
+  METRE_PER_FOOT,
+  STANDARD_CONDITIONS_PRESETS,
   toOutputPressure,
   toOutputTemperature,
 } from "~/core/units";
@@ -11,7 +13,6 @@ import type {
   SampleFormDefaults,
   SampleFormValues,
 } from "~/components/samples/sample-form";
-import { METRE_PER_FOOT, STANDARD_CONDITIONS_PRESETS } from "~/core/units";
 import { roundSignificant } from "~/core/format";
 
 /* The sample form in the reader's units ↔ the sample record in canonical units (psia, °F, ft). */

@@ -1,3 +1,5 @@
+import type { RevisionStatus, SampleType } from "~/utils/sample-vocabulary";
+
 // Property names and symbols are in the property catalogue, app/core/units/properties.ts.
 
 export const SAMPLE_TYPE_LABELS: Record<string, string> = {
@@ -5,14 +7,14 @@ export const SAMPLE_TYPE_LABELS: Record<string, string> = {
   separator_recombined: "Separator, recombined",
   wellhead: "Wellhead",
   formation_tester: "Formation tester",
-};
+} satisfies Record<SampleType, string>;
 
 export const REVISION_STATUS_LABELS: Record<string, string> = {
   draft: "Draft, awaiting review",
   approved: "Approved",
   rejected: "Rejected",
   superseded: "Superseded",
-};
+} satisfies Record<RevisionStatus, string>;
 
 export const QC_STATUS_LABELS: Record<"pass" | "warn" | "fail", string> = {
   pass: "Passed",

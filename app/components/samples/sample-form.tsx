@@ -1,6 +1,7 @@
 import { useId } from "react";
 import { z } from "zod";
 import { FieldError, TextField, type FieldErrors } from "~/components/form";
+import { SAMPLE_TYPES } from "~/utils/sample-vocabulary";
 import { STANDARD_CONDITIONS_PRESETS, type OutputSystem } from "~/core/units";
 import { labelSchema, multilineTextSchema } from "~/utils/labels";
 import { SAMPLE_TYPE_LABELS } from "./labels";
@@ -11,13 +12,6 @@ import { SAMPLE_TYPE_LABELS } from "./labels";
  */
 
 export type FormSystem = OutputSystem;
-
-export const SAMPLE_TYPES = [
-  "bottomhole",
-  "separator_recombined",
-  "wellhead",
-  "formation_tester",
-] as const;
 
 /** Units the form uses for each system. */
 export const FORM_UNITS: Record<

@@ -1,6 +1,5 @@
-import { formatMeasured } from "~/core/format";
+import { formatMeasured, roundSignificant } from "~/core/format";
 import { PROPERTIES } from "~/core/units";
-import { roundSignificant } from "~/core/format";
 import type { DisplayGrid, Severity } from "./types";
 
 /*

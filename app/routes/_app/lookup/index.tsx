@@ -3,7 +3,15 @@ import { Form, useFetcher, useSearchParams } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
 import { listSamplesForCaller } from "~/.server/api/samples";
-import { fromInputPressure, fromInputTemperature } from "~/core/units";
+import {
+  fromInputPressure,
+  fromInputTemperature,
+  OUTPUT_SYSTEMS,
+  type OutputSystem,
+  PROPERTIES,
+  PROPERTY_KEYS,
+  type PropertyKey,
+} from "~/core/units";
 import {
   createLookupSet,
   deleteLookupSet,
@@ -24,13 +32,6 @@ import {
 } from "~/components/lookup/results-table";
 import { PageHeader } from "~/components/page-header";
 import type { Grid, Method } from "~/core/interpolation";
-import {
-  OUTPUT_SYSTEMS,
-  PROPERTIES,
-  PROPERTY_KEYS,
-  type OutputSystem,
-  type PropertyKey,
-} from "~/core/units";
 import {
   depletionPath,
   parseConditionList,

@@ -5,17 +5,16 @@ import { requirePermission } from "~/.server/auth/guards";
 import { searchSamples } from "~/.server/db/queries/sample-records";
 import { Button } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { formatMeasured } from "~/core/format";
+import { formatMeasured, roundSignificant } from "~/core/format";
 import {
   SAMPLE_SORTS,
   SAMPLE_STATUS_FILTERS,
   SAMPLE_TYPE_LABELS,
   type SampleSort,
 } from "~/components/samples/labels";
-import { SAMPLE_TYPES } from "~/components/samples/sample-form";
+import { SAMPLE_TYPES } from "~/utils/sample-vocabulary";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
-import { roundSignificant } from "~/core/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Samples · Isopleth" }];
 

@@ -1,5 +1,7 @@
 import { Form, href, Link } from "react-router";
 import {
+  PROPERTIES,
+  type PropertyKey,
   toOutputPressure,
   toOutputTemperature,
   toOutputValue,
@@ -15,7 +17,6 @@ import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
 import { Button } from "~/components/form";
 import { formatChange, formatMeasured, roundSignificant } from "~/core/format";
 import { REVISION_STATUS_LABELS } from "~/components/samples/labels";
-import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Route } from "./+types/diff";
 
 export const meta: Route.MetaFunction = ({ data }) => [

@@ -1,6 +1,11 @@
 import { Form, href, Link, useNavigation, useSearchParams } from "react-router";
 import { z } from "zod";
-import { toOutputPressure, toOutputTemperature, unitLabel } from "~/core/units";
+import {
+  METRE_PER_FOOT,
+  toOutputPressure,
+  toOutputTemperature,
+  unitLabel,
+} from "~/core/units";
 import { requirePermission } from "~/.server/auth/guards";
 import {
   countFollowers,
@@ -14,7 +19,11 @@ import { requireSample } from "~/.server/samples/params";
 import { loadRevisionView } from "~/.server/samples/revision-view";
 import { standardLabel } from "~/.server/samples/sample-input";
 import { Button, FormAlert } from "~/components/form";
-import { formatDateTime, formatMeasured } from "~/core/format";
+import {
+  formatDateTime,
+  formatMeasured,
+  roundSignificant,
+} from "~/core/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { SAMPLE_TYPE_LABELS } from "~/components/samples/labels";
 import {
@@ -23,10 +32,8 @@ import {
   QcSummaryLine,
 } from "~/components/samples/qc-findings";
 import { RevisionStatusBadge } from "~/components/samples/revision-status";
-import { METRE_PER_FOOT } from "~/core/units";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
-import { roundSignificant } from "~/core/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [
   { title: `${data?.sample.label ?? "Sample"} · Isopleth` },
