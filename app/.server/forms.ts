@@ -1,6 +1,6 @@
 import { data } from "react-router";
 import type { z } from "zod";
-import type { FieldErrors } from "~/components/form";
+import { fieldErrorsOf, type FieldErrors } from "~/utils/forms";
 
 /**
  * The request's form, or a thrown 400 for a body that is not a readable form (a broken multipart body, another
@@ -32,24 +32,32 @@ export type FormFailure = {
   intent?: string;
 };
 
+export type ParsedForm<S extends z.ZodType> =
+  | { ok: true; data: z.output<S>; formData: FormData }
+  | { ok: false; errors: FieldErrors; formData: FormData };
+
 /** Parses a urlencoded or multipart form with a zod schema: the data, or field errors for a 400 reply. */
 export async function parseForm<S extends z.ZodType>(
   request: Request,
   schema: S,
-): Promise<
-  | { ok: true; data: z.output<S>; formData: FormData }
-  | { ok: false; errors: FieldErrors; formData: FormData }
-> {
-  const formData = await readFormData(request);
+): Promise<ParsedForm<S>> {
+  return parseFormData(await readFormData(request), schema);
+}
+
+/**
+ * Parses a form already read (its text fields) with a zod schema. An action with several operations reads
+ * the form once, picks the schema by `readIntent(formData)` (app/utils/forms.ts), then parses it here.
+ */
+export function parseFormData<S extends z.ZodType>(
+  formData: FormData,
+  schema: S,
+): ParsedForm<S> {
   const values: Record<string, unknown> = {};
   for (const [key, value] of formData)
     if (typeof value === "string") values[key] = value;
   const result = schema.safeParse(values);
   if (result.success) return { ok: true, data: result.data, formData };
-  const errors: FieldErrors = {};
-  for (const issue of result.error.issues)
-    (errors[String(issue.path[0] ?? "form")] ??= []).push(issue.message);
-  return { ok: false, errors, formData };
+  return { ok: false, errors: fieldErrorsOf(result.error.issues), formData };
 }
 
 export function badRequest(failure: FormFailure) {

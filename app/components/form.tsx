@@ -1,7 +1,8 @@
 import { useId, useState, type FormEvent } from "react";
 import type { z } from "zod";
+import { fieldErrorsOf, type FieldErrors } from "~/utils/forms";
 
-export type FieldErrors = Record<string, string[] | undefined>;
+export type { FieldErrors };
 
 /**
  * Checks a form with the same zod schema the server uses, before it is sent. Errors from the server
@@ -24,11 +25,7 @@ export function useZodForm(
       return;
     }
     event.preventDefault();
-    const errors: FieldErrors = {};
-    for (const issue of result.error.issues) {
-      const key = String(issue.path[0] ?? "form");
-      (errors[key] ??= []).push(issue.message);
-    }
+    const errors = fieldErrorsOf(result.error.issues);
     setClientErrors(errors);
     const first = form.querySelector<HTMLElement>(
       `[name="${Object.keys(errors)[0]}"]`,

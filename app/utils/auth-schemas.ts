@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { OUTPUT_SYSTEMS } from "~/core/units";
 import { labelSchema } from "./labels";
 import { ROLES } from "./permissions";
 
@@ -42,7 +43,7 @@ export const AcceptInvitationSchema = z
 export const ProfileSchema = z.object({
   intent: z.literal("profile"),
   name,
-  unitSystem: z.enum(["field", "metric"]),
+  unitSystem: z.enum(OUTPUT_SYSTEMS),
 });
 
 export const ChangePasswordSchema = z

@@ -2,6 +2,7 @@
  * Conditions typed or pasted by a person: one pair, a list from a spreadsheet, or a depletion path (a pressure
  * range with a step at one temperature). Pure and client-safe; numbers stay in the unit system on screen.
  */
+import { roundSignificant } from "~/core/format";
 export type Condition = { pressure: number; temperature: number };
 export type ParsedConditions =
   { ok: true; conditions: Condition[] } | { ok: false; error: string };
@@ -93,7 +94,7 @@ export function depletionPath(
     };
   const dir = to >= from ? 1 : -1;
   const conditions = Array.from({ length: count }, (_, k) => ({
-    pressure: Number((from + dir * k * step).toPrecision(12)),
+    pressure: roundSignificant(from + dir * k * step, 12),
     temperature,
   }));
   return { ok: true, conditions };

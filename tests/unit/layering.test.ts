@@ -20,17 +20,21 @@ const ROOT = normalize(join(dirname(fileURLToPath(import.meta.url)), "../.."));
  * those named in `uses`. So the order is the list order, and a cycle between libraries cannot be written down.
  */
 const CORE_ORDER: { lib: string; uses: string[]; packages?: string[] }[] = [
-  { lib: "units", uses: [] },
+  { lib: "format", uses: [] },
+  { lib: "units", uses: ["format"] },
   { lib: "csv", uses: [] },
-  { lib: "interpolation", uses: [] },
-  { lib: "properties", uses: ["units"] },
-  { lib: "lookup", uses: ["interpolation", "units"] },
+  { lib: "interpolation", uses: ["format"] },
+  { lib: "properties", uses: ["format", "units"] },
+  { lib: "lookup", uses: ["format", "interpolation", "units"] },
   {
     lib: "lab-data",
-    uses: ["units", "properties", "csv"],
+    uses: ["format", "units", "properties", "csv"],
     packages: ["csv-parse", "exceljs"],
   },
-  { lib: "tables", uses: ["units", "csv", "interpolation", "lookup"] },
+  {
+    lib: "tables",
+    uses: ["format", "units", "csv", "interpolation", "lookup"],
+  },
 ];
 const CORE = CORE_ORDER.map((c) => `core/${c.lib}`);
 const expand = (names: string[]) =>
@@ -102,7 +106,8 @@ const LAYERS: Layer[] = [
     name: ".server/db/schema",
     paths: ["app/.server/db/schema"],
     holds: "Drizzle tables and row types",
-    may: [],
+    // the enums' values come from their one declaration (roles, scopes, property keys, unit systems)
+    may: ["utils", "core/units"],
     packages: { kind: "only", names: ["drizzle-orm"] },
     relativeOnly: true,
   },
@@ -178,11 +183,6 @@ const TEST_SOURCES = ["reference-data", "tests/support"];
  */
 const KNOWN_VIOLATIONS: { from: string; to: string; why: string }[] = [
   // server code imports values from the UI
-  {
-    from: "app/.server/samples/present.ts",
-    to: "app/components/samples/labels.ts",
-    why: "property labels in the sample presenter",
-  },
   {
     from: "app/.server/samples/upload-guide.test.ts",
     to: "app/components/samples/guide.tsx",

@@ -5,6 +5,7 @@ import { problem } from "~/.server/http";
 import { apiAccess, type ApiOperation } from "~/utils/api-scopes";
 import { can, type Role } from "~/utils/permissions";
 import { noteCaller } from "~/.server/ops/request-store";
+import type { OutputSystem } from "~/core/units";
 import { RateLimiter } from "./rate-limit";
 import { verifyApiToken, type TokenCaller } from "./tokens";
 
@@ -15,7 +16,7 @@ export type ApiCaller = {
     email: string;
     name: string;
     role: Role;
-    unitSystem: "field" | "metric";
+    unitSystem: OutputSystem;
   };
   token: Omit<TokenCaller, "user"> | null;
 };

@@ -11,6 +11,7 @@ import type { RevisionData } from "~/.server/samples/revision-data";
 import { BUILD_ID, finiteJson, refuseNonFinite } from "./respond";
 import { isApprovedStatus } from "./samples";
 import type { LookupBody } from "./schemas";
+import { formatMilliseconds } from "~/core/format";
 
 /** A validated lookup request: the body's fields, its points as two columns (pressure, temperature). */
 export type LookupRequest = Omit<LookupBody, "points"> & {
@@ -151,7 +152,7 @@ export async function lookupResponse(
       "Isopleth-Revision-Status": data.status,
       // app = the whole request in the server; read = body read and JSON parse; compute = interpolation and
       // the results' JSON, with where it ran (a worker thread or inline) and how long it waited for a worker.
-      "Server-Timing": `app;dur=${(performance.now() - startedAt).toFixed(1)}, read;dur=${readMs.toFixed(1)}, compute;dur=${computeMs.toFixed(1)};desc="${run.where === "worker" ? `worker thread ${run.thread}` : "inline"}", queue;dur=${run.waitMs.toFixed(1)}, write;dur=${writeMs.toFixed(1)}, etag;dur=${etagMs.toFixed(1)}`,
+      "Server-Timing": `app;dur=${formatMilliseconds(performance.now() - startedAt)}, read;dur=${formatMilliseconds(readMs)}, compute;dur=${formatMilliseconds(computeMs)};desc="${run.where === "worker" ? `worker thread ${run.thread}` : "inline"}", queue;dur=${formatMilliseconds(run.waitMs)}, write;dur=${formatMilliseconds(writeMs)}, etag;dur=${formatMilliseconds(etagMs)}`,
     },
   });
 }

@@ -12,21 +12,23 @@ import {
   resolveRevision,
   type RevisionData,
 } from "~/.server/samples/revision-data";
-import type { PropertyKey } from "~/core/units";
+import {
+  type OutputSystem,
+  type PropertyKey,
+  toOutputPressure,
+  toOutputTemperature,
+  toOutputValue,
+  unitLabel,
+} from "~/core/units";
+import type { RevisionStatus } from "~/utils/sample-vocabulary";
 import {
   callerMayReadDrafts,
   callerMayReadSample,
   type ApiCaller,
 } from "./caller";
-import {
-  toOutputPressure,
-  toOutputTemperature,
-  toOutputValue,
-  unitLabel,
-  type OutputSystem,
-} from "./units";
+import { roundSignificant } from "~/core/format";
 
-const round = (v: number, digits = 10) => Number(v.toPrecision(digits));
+const round = (v: number, digits = 10) => roundSignificant(v, digits);
 
 export async function listSamplesForCaller(
   caller: ApiCaller,
@@ -104,7 +106,7 @@ export async function requireSampleForCaller(
 }
 
 /** Statuses of revisions that were approved (a superseded revision was approved and stays citable). */
-const APPROVED_STATUSES: ReadonlySet<string> = new Set([
+const APPROVED_STATUSES: ReadonlySet<string> = new Set<RevisionStatus>([
   "approved",
   "superseded",
 ]);

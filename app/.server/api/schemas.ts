@@ -4,20 +4,24 @@ import {
 } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
 import { pointColumns } from "~/core/lookup";
-import { PROPERTY_KEYS } from "~/core/units";
+import { REVISION_STATUSES } from "~/utils/sample-vocabulary";
+import {
+  keyWithAbbreviation,
+  OUTPUT_SYSTEMS,
+  PROPERTY_KEYS,
+} from "~/core/units";
 
 extendZodWithOpenApi(z);
 
 /** The zod schemas of the /api/v1 boundary; the OpenAPI document is generated from them (openapi.ts). */
 export const registry = new OpenAPIRegistry();
 
-export const UnitsParam = z.enum(["field", "metric"]).default("field").openapi({
+export const UnitsParam = z.enum(OUTPUT_SYSTEMS).default("field").openapi({
   description:
     "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
 });
 export const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
-  description:
-    "oil_fvf (Bo), solution_gor (Rs), oil_viscosity, oil_density, gas_fvf (Bg), gas_viscosity, z_factor",
+  description: PROPERTY_KEYS.map(keyWithAbbreviation).join(", "),
 });
 export const MethodSchema = z
   .enum(["auto", "newton", "pchip", "linear"])
@@ -196,12 +200,10 @@ export const LookupResponse = z
   .object({
     sampleId: z.number(),
     revision: z.number(),
-    revisionStatus: z
-      .enum(["draft", "approved", "rejected", "superseded"])
-      .openapi({
-        description:
-          "Status of the revision used; anything but approved or superseded is an unapproved draft.",
-      }),
+    revisionStatus: z.enum(REVISION_STATUSES).openapi({
+      description:
+        "Status of the revision used; anything but approved or superseded is an unapproved draft.",
+    }),
     approved: z.boolean().openapi({
       description:
         "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for.",
@@ -209,7 +211,7 @@ export const LookupResponse = z
     property: PropertyKeySchema,
     method: MethodSchema,
     units: z.object({
-      system: z.enum(["field", "metric"]),
+      system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
       value: z.string(),
@@ -301,7 +303,7 @@ export const SampleSummarySchema = z
 export const SampleListResponse = z
   .object({
     units: z.object({
-      system: z.enum(["field", "metric"]),
+      system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
     }),
@@ -329,14 +331,14 @@ export const SampleDetailResponse = z
     sample: z.record(z.string(), z.unknown()),
     revision: z.object({
       number: z.number(),
-      status: z.enum(["draft", "approved", "rejected", "superseded"]),
+      status: z.enum(REVISION_STATUSES),
       approved: z.boolean().openapi({
         description:
           "false for an unapproved revision (only signed-in people whose role allows it may ask for one).",
       }),
     }),
     units: z.object({
-      system: z.enum(["field", "metric"]),
+      system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
     }),

@@ -12,7 +12,7 @@ import {
 import { etagOf, json, notModified, respondWithEtag } from "./respond";
 import { draftWarning, isApprovedStatus } from "./samples";
 import type { TableQuery } from "./schemas";
-import { fromInputPressure, fromInputTemperature } from "./units";
+import { fromInputPressure, fromInputTemperature } from "~/core/units";
 
 const STATUS: Record<TableErrorCode, [number, string]> = {
   MALFORMED_PRESSURES: [400, "invalid_pressures"],

@@ -13,6 +13,8 @@ import {
 } from "~/.server/db/queries/api-tokens";
 import { recordAudit } from "~/.server/db/queries/audit";
 import type { ApiScope } from "~/.server/db/schema";
+import type { OutputSystem } from "~/core/units";
+import type { Role } from "~/utils/permissions";
 import { getEnv } from "~/.server/env";
 import { can } from "~/utils/permissions";
 
@@ -166,8 +168,8 @@ export type TokenCaller = {
     id: number;
     email: string;
     name: string;
-    role: "viewer" | "engineer" | "lab_lead" | "admin";
-    unitSystem: "field" | "metric";
+    role: Role;
+    unitSystem: OutputSystem;
   };
 };
 

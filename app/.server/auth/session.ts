@@ -8,6 +8,7 @@ import {
 import { getDb, type Executor } from "~/.server/db/client";
 import { recordAudit } from "~/.server/db/queries/audit";
 import { getEnv } from "~/.server/env";
+import type { OutputSystem } from "~/core/units";
 import type { Role } from "~/utils/permissions";
 import { generateToken, hashToken } from "./tokens";
 
@@ -24,7 +25,7 @@ export type SessionUser = {
   email: string;
   name: string;
   role: Role;
-  unitSystem: "field" | "metric";
+  unitSystem: OutputSystem;
 };
 
 let cookie: ReturnType<typeof createCookie> | undefined;

@@ -16,6 +16,7 @@ import {
   type Role,
   type SampleType,
 } from "./schema";
+import { roundSignificant } from "~/core/format";
 
 /*
  * Demo data for an INVENTED scenario: the Calder Shelf field, its wells and fluid samples do not exist.
@@ -269,8 +270,4 @@ export function demoGrids(s: DemoSample, seed: number, noise = DEMO_NOISE) {
       };
     }),
   };
-}
-
-function roundSignificant(value: number, digits: number): number {
-  return value === 0 ? 0 : Number(value.toPrecision(digits));
 }

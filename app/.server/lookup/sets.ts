@@ -10,7 +10,8 @@ import {
   getRevisionData,
   resolveRevision,
 } from "~/.server/samples/revision-data";
-import { isLookupError, PROPERTY_NAMES } from "~/core/lookup";
+import { isLookupError } from "~/core/lookup";
+import { PROPERTIES } from "~/core/units";
 
 /*
  * Saved lookup sets: a person's list of conditions and properties for one sample, run again whenever the sample
@@ -73,7 +74,7 @@ export async function runLookupSet(
       results[property] = readResults(run.value.resultsUtf8);
     } catch (error) {
       if (isLookupError(error))
-        return { error: `${PROPERTY_NAMES[property]}: ${error.message}` };
+        return { error: `${PROPERTIES[property].phrase}: ${error.message}` };
       throw error;
     }
   }

@@ -1,19 +1,17 @@
 import {
+  getUnit,
+  type OutputSystem,
+  PROPERTIES,
+  PROPERTY_KEYS,
+  PROPERTY_QUANTITIES,
+  type PropertyKey,
   toOutputPressure,
   toOutputTemperature,
   toOutputValue,
   unitLabel,
-  type OutputSystem,
-} from "~/.server/api/units";
+} from "~/core/units";
 import type { Finding, QcRuleInfo } from "~/core/lab-data";
 import { QC_RULES } from "~/core/lab-data";
-import {
-  getUnit,
-  PROPERTY_KEYS,
-  PROPERTY_QUANTITIES,
-  type PropertyKey,
-} from "~/core/units";
-import { PROPERTY_LABELS } from "~/components/samples/labels";
 import type {
   CellMark,
   DisplayBubblePoints,
@@ -21,6 +19,7 @@ import type {
   DisplayGrid,
   Severity,
 } from "~/components/samples/types";
+import { roundSignificant } from "~/core/format";
 
 /*
  * Turns canonical grids and QC findings into what the sample components show: numbers in the reader's unit
@@ -42,9 +41,9 @@ export type CanonicalBubblePoint = {
   bubblePointPsia: number;
 };
 
-const round = (v: number) => Number(v.toPrecision(10));
+const round = (v: number) => roundSignificant(v, 10);
 /** Numbers inside sentences: 6 significant digits. */
-const short = (v: number) => Number(v.toPrecision(6));
+const short = (v: number) => roundSignificant(v, 6);
 const TEMPERATURE_TOLERANCE = 0.01;
 const samePressure = (a: number, b: number) =>
   Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b), 1);
@@ -99,7 +98,7 @@ export function presentFindings(
         const name =
           c.property === "bubble_point"
             ? "Bubble point"
-            : PROPERTY_LABELS[c.property].symbol;
+            : PROPERTIES[c.property].symbol;
         const at = `${short(toOutputTemperature(c.temperature, system))} ${t}`;
         return c.property === "bubble_point"
           ? `${name} ${short(toOutputPressure(c.pressure, system))} ${p} at ${at}`

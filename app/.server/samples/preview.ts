@@ -1,4 +1,4 @@
-import type { OutputSystem } from "~/.server/api/units";
+import type { OutputSystem } from "~/core/units";
 import {
   bubblePointsOf,
   canonicalGridsOf,

@@ -1,4 +1,4 @@
-import type { OutputSystem } from "~/.server/api/units";
+import type { OutputSystem, PropertyKey } from "~/core/units";
 import { getRevisionDetail } from "~/.server/db/queries/revisions";
 import {
   datasetFromCanonicalGrids,
@@ -6,7 +6,6 @@ import {
   type CanonicalGridInput,
   type Finding,
 } from "~/core/lab-data";
-import type { PropertyKey } from "~/core/units";
 import { qcMetaOf, type SampleForQc } from "./check-upload";
 import {
   presentBubblePoints,

@@ -1,9 +1,11 @@
 import {
   fromInputPressure,
   fromInputTemperature,
+  METRE_PER_FOOT,
+  STANDARD_CONDITIONS_PRESETS,
   toOutputPressure,
   toOutputTemperature,
-} from "~/.server/api/units";
+} from "~/core/units";
 import type { SampleRecordInput } from "~/.server/db/queries/samples";
 import type { FieldErrors } from "~/components/form";
 import type {
@@ -11,11 +13,11 @@ import type {
   SampleFormDefaults,
   SampleFormValues,
 } from "~/components/samples/sample-form";
-import { METRE_PER_FOOT, STANDARD_CONDITIONS_PRESETS } from "~/core/units";
+import { roundSignificant } from "~/core/format";
 
 /* The sample form in the reader's units ↔ the sample record in canonical units (psia, °F, ft). */
 
-const round = (v: number, digits = 8) => Number(v.toPrecision(digits));
+const round = (v: number, digits = 8) => roundSignificant(v, digits);
 
 type StoredStandard = {
   standardPressurePsia: number;

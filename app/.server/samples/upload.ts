@@ -88,8 +88,3 @@ export async function readCappedFormData(
     return { ok: false, reason: "malformed", bytesRead: total };
   }
 }
-
-/** "5.0 MB" */
-export function megabytes(bytes: number): string {
-  return `${(bytes / 1024 / 1024).toFixed(1)} MB`;
-}

@@ -7,6 +7,7 @@ import {
   type Method,
 } from "~/core/interpolation";
 import { describeWarningCode, type LookupWarning } from "~/core/lookup";
+import { formatDetail } from "~/core/format";
 
 export type ExplainTarget = {
   propertyName: string;
@@ -19,9 +20,6 @@ export type ExplainTarget = {
   revision: number;
   units: { pressure: string; temperature: string; value: string };
 };
-
-const fmt = (v: number) =>
-  Number.isFinite(v) ? Number(v.toPrecision(7)).toString() : "—";
 
 /**
  * "How this number was obtained": the measured grid with the zone highlighted and the bubble points marked, then
@@ -62,8 +60,8 @@ export function ExplanationPanel({
             How this number was obtained
           </h2>
           <p className="text-sm text-ink-muted">
-            {target.propertyName} at {fmt(target.point.pressure)}{" "}
-            {units.pressure} and {fmt(target.point.temperature)}{" "}
+            {target.propertyName} at {formatDetail(target.point.pressure)}{" "}
+            {units.pressure} and {formatDetail(target.point.temperature)}{" "}
             {units.temperature}, revision {target.revision}, method{" "}
             {target.method}
             {target.degree && target.method !== "pchip"
@@ -105,22 +103,27 @@ function ExplanationBody({
   return (
     <div className="mt-4 space-y-6 text-sm">
       <div className="grid gap-3 sm:grid-cols-4">
-        <Figure label={`Value (${units.value})`} value={fmt(e.value)} />
+        <Figure
+          label={`Value (${units.value})`}
+          value={formatDetail(e.value)}
+        />
         <Figure
           label={`Error estimate (${units.value})`}
-          value={`± ${fmt(e.errorEstimate)}`}
+          value={`± ${formatDetail(e.errorEstimate)}`}
         />
         <Figure
           label="Branch"
           value={
             e.branch
-              ? `${e.branch.side}, bubble point ${fmt(e.branch.bubblePointPressure)} ${units.pressure}`
+              ? `${e.branch.side}, bubble point ${formatDetail(e.branch.bubblePointPressure)} ${units.pressure}`
               : "no bubble point (gas table)"
           }
         />
         <Figure
           label="Same as the server?"
-          value={agrees ? "yes" : `server gave ${fmt(target.serverValue)}`}
+          value={
+            agrees ? "yes" : `server gave ${formatDetail(target.serverValue)}`
+          }
         />
       </div>
       {e.warnings.length ? (
@@ -148,7 +151,7 @@ function ExplanationBody({
                     key={j}
                     className={`px-2 py-1 text-right ${zoneCols.has(j) ? "text-accent-strong" : ""}`}
                   >
-                    {fmt(t)}
+                    {formatDetail(t)}
                   </th>
                 ))}
               </tr>
@@ -162,7 +165,7 @@ function ExplanationBody({
                       key={j}
                       className="px-2 py-1 text-right font-normal text-caution"
                     >
-                      {b === null ? "—" : fmt(b)}
+                      {b === null ? "—" : formatDetail(b)}
                     </th>
                   ))}
                 </tr>
@@ -171,7 +174,9 @@ function ExplanationBody({
             <tbody>
               {grid.pressures.map((p, i) => (
                 <tr key={i} className="border-t border-line">
-                  <th className="px-2 py-1 text-left font-normal">{fmt(p)}</th>
+                  <th className="px-2 py-1 text-left font-normal">
+                    {formatDetail(p)}
+                  </th>
                   {grid.temperatures.map((_, j) => {
                     const inZone = zoneRows.has(i) && zoneCols.has(j);
                     const v = grid.values[i]?.[j];
@@ -181,7 +186,7 @@ function ExplanationBody({
                         data-zone={inZone ? "yes" : undefined}
                         className={`px-2 py-1 text-right ${inZone ? "bg-accent-soft font-semibold text-accent-strong" : ""}`}
                       >
-                        {v === null || v === undefined ? "—" : fmt(v)}
+                        {v === null || v === undefined ? "—" : formatDetail(v)}
                       </td>
                     );
                   })}
@@ -194,8 +199,8 @@ function ExplanationBody({
 
       <div>
         <h3 className="font-semibold">
-          Step one — along pressure to {fmt(e.point.pressure)} {units.pressure},
-          one value per temperature of the zone
+          Step one — along pressure to {formatDetail(e.point.pressure)}{" "}
+          {units.pressure}, one value per temperature of the zone
         </h3>
         <div className="mt-2 grid gap-3 lg:grid-cols-2">
           {e.stepOne
@@ -204,7 +209,7 @@ function ExplanationBody({
               <StepCard
                 key={s.column ?? -1}
                 step={s}
-                title={`T = ${fmt(s.temperature ?? NaN)} ${units.temperature}`}
+                title={`T = ${formatDetail(s.temperature ?? NaN)} ${units.temperature}`}
                 axisUnit={units.pressure}
               />
             ))}
@@ -213,7 +218,7 @@ function ExplanationBody({
 
       <div>
         <h3 className="font-semibold">
-          Step two — along temperature to {fmt(e.point.temperature)}{" "}
+          Step two — along temperature to {formatDetail(e.point.temperature)}{" "}
           {units.temperature}, on the new row
         </h3>
         <div className="mt-2 max-w-xl">
@@ -226,9 +231,9 @@ function ExplanationBody({
       </div>
 
       <p className="text-ink-muted">
-        Error estimate: {fmt(e.errorParts.pressure)} from the pressure
-        direction, {fmt(e.errorParts.temperature)} from temperature and{" "}
-        {fmt(e.errorParts.rounding)} for rounding (see the engine
+        Error estimate: {formatDetail(e.errorParts.pressure)} from the pressure
+        direction, {formatDetail(e.errorParts.temperature)} from temperature and{" "}
+        {formatDetail(e.errorParts.rounding)} for rounding (see the engine
         documentation). Newton form: value = f[x₀] + f[x₀,x₁](x−x₀) +
         f[x₀,x₁,x₂](x−x₀)(x−x₁) + …, with the divided differences in the tables
         above (first row of each column).
@@ -264,7 +269,7 @@ function StepCard({
       <div className="flex justify-between">
         <span className="font-semibold">{title}</span>
         <span className="tabular-nums">
-          → <strong>{fmt(step.value)}</strong>
+          → <strong>{formatDetail(step.value)}</strong>
           {step.status !== "inside" ? (
             <span className="ml-2 text-caution">
               ({step.status.replace("-", " ")})
@@ -295,14 +300,14 @@ function StepCard({
               }
             >
               <td className="pr-2 text-right">
-                {fmt(n.at)}
+                {formatDetail(n.at)}
                 {n.index === null ? "*" : ""}
               </td>
-              <td className="pr-2 text-right">{fmt(n.value)}</td>
+              <td className="pr-2 text-right">{formatDetail(n.value)}</td>
               {dd
                 ? dd.slice(1).map((level, l) => (
                     <td key={l} className="pr-2 text-right">
-                      {level[i] === undefined ? "" : fmt(level[i]!)}
+                      {level[i] === undefined ? "" : formatDetail(level[i]!)}
                     </td>
                   ))
                 : null}
@@ -312,9 +317,10 @@ function StepCard({
       </table>
       {step.pchip ? (
         <p className="mt-1 text-xs text-ink-muted">
-          pchip cell {fmt(step.pchip.cell[0])}–{fmt(step.pchip.cell[1])}, end
-          slopes {fmt(step.pchip.derivatives[0])} and{" "}
-          {fmt(step.pchip.derivatives[1])} (shape-preserving).
+          pchip cell {formatDetail(step.pchip.cell[0])}–
+          {formatDetail(step.pchip.cell[1])}, end slopes{" "}
+          {formatDetail(step.pchip.derivatives[0])} and{" "}
+          {formatDetail(step.pchip.derivatives[1])} (shape-preserving).
         </p>
       ) : null}
       {step.nodes.some((n) => n.index === null) ? (

@@ -4,8 +4,7 @@ import {
   PropertySurface,
   type PlotGrid,
 } from "~/components/plots";
-import { PROPERTY_NAMES } from "~/core/lookup";
-import type { PropertyKey } from "~/core/units";
+import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Condition } from "~/utils/conditions";
 
 const MAX_MARKED = 200;
@@ -75,7 +74,7 @@ export function LookupPlots({
           >
             {properties.map((p) => (
               <option key={p} value={p}>
-                {PROPERTY_NAMES[p]}
+                {PROPERTIES[p].phrase}
               </option>
             ))}
           </select>
@@ -96,7 +95,7 @@ export function LookupPlots({
           <PropertySurface
             key={`s-${property}`}
             series={[{ id: sampleId, label: sampleLabel, grid }]}
-            valueLabel={PROPERTY_NAMES[property]}
+            valueLabel={PROPERTIES[property].phrase}
             units={{ ...units, value: unitOf(property) }}
             method={method}
             degree={degree ?? undefined}
@@ -105,7 +104,7 @@ export function LookupPlots({
           <PropertySlices
             key={`c-${property}`}
             series={[{ id: sampleId, label: sampleLabel, grid }]}
-            valueLabel={PROPERTY_NAMES[property]}
+            valueLabel={PROPERTIES[property].phrase}
             units={{ ...units, value: unitOf(property) }}
             method={method}
             degree={degree ?? undefined}

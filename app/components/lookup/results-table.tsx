@@ -1,10 +1,6 @@
 import { useState } from "react";
-import {
-  describeWarningCode,
-  PROPERTY_NAMES,
-  type LookupWarning,
-} from "~/core/lookup";
-import type { PropertyKey } from "~/core/units";
+import { describeWarningCode, type LookupWarning } from "~/core/lookup";
+import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Condition } from "~/utils/conditions";
 import { lookupResultsDelimited } from "./results-csv";
 import {
@@ -13,6 +9,7 @@ import {
   SERIOUS_WARNINGS,
   warningLabel,
 } from "~/utils/warning-labels";
+import { formatMilliseconds, formatPlain } from "~/core/format";
 
 export type LookupApiResult = {
   /** null when the server refused the point (see refusal): it never sends NaN or Infinity. */
@@ -43,8 +40,6 @@ export type PropertyRun =
 
 const CAUTION =
   "Interpolated and extrapolated properties are estimates. Check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.";
-
-const fmt = (v: number) => Number(v.toPrecision(6)).toString();
 
 /** Warnings of one result, plus "near the bubble point" when the point lies within 2 % of it. */
 export function warningsOf(r: LookupApiResult, pressure: number): string[] {
@@ -142,7 +137,7 @@ export function LookupResultsTable({
             condition
             {conditions.length === 1 ? "" : "s"} · answered in{" "}
             {Math.round(elapsedMs)} ms
-            {ok.length ? ` (server ${serverMs.toFixed(1)} ms)` : ""}
+            {ok.length ? ` (server ${formatMilliseconds(serverMs)} ms)` : ""}
             {flagged
               ? ` · ${flagged} value${flagged === 1 ? "" : "s"} flagged`
               : ""}
@@ -171,7 +166,7 @@ export function LookupResultsTable({
           role="alert"
           className="mt-2 rounded border border-danger/40 bg-red-50 px-3 py-2 text-sm text-danger"
         >
-          {PROPERTY_NAMES[f.property]}: {f.error}
+          {PROPERTIES[f.property].phrase}: {f.error}
         </p>
       ))}
       {ok.length > 0 ? (
@@ -190,7 +185,7 @@ export function LookupResultsTable({
                     key={r.property}
                     className="px-3 py-2 text-right font-semibold"
                   >
-                    {PROPERTY_NAMES[r.property]} ({r.unit})
+                    {PROPERTIES[r.property].phrase} ({r.unit})
                   </th>
                 ))}
                 <th className="px-3 py-2 text-left font-semibold">Warnings</th>
@@ -241,14 +236,14 @@ export function LookupResultsTable({
                             type="button"
                             onClick={() => onExplain(i, r.property)}
                             className={`rounded px-1 font-semibold underline decoration-dotted underline-offset-2 hover:bg-accent-soft ${serious ? "text-caution" : ""}`}
-                            aria-label={`How ${PROPERTY_NAMES[r.property]} ${fmt(x.value)} at ${c.pressure} ${units.pressure}, ${c.temperature} ${units.temperature} was obtained`}
+                            aria-label={`How ${PROPERTIES[r.property].phrase} ${formatPlain(x.value)} at ${c.pressure} ${units.pressure}, ${c.temperature} ${units.temperature} was obtained`}
                             data-testid={`value-${r.property}-${i}`}
                             data-value={x.value}
                           >
-                            {fmt(x.value)}
+                            {formatPlain(x.value)}
                           </button>
                           <div className="text-xs text-ink-muted">
-                            ± {fmt(x.errorEstimate)} · {x.method}
+                            ± {formatPlain(x.errorEstimate)} · {x.method}
                             {x.branch ? ` · ${x.branch}` : ""}
                           </div>
                         </td>

@@ -34,6 +34,7 @@ import type {
   PropertySurfaceProps,
   QueryPoint,
 } from "./types";
+import { formatPlotValue } from "~/core/format";
 
 /** Okabe–Ito colours (distinguishable with the common colour-vision deficiencies). */
 export const SERIES_COLOURS = [
@@ -103,12 +104,6 @@ function hoverLines(
   ];
 }
 
-function formatNumber(v: number): string {
-  return Number(v.toPrecision(5)).toLocaleString("en-US", {
-    maximumFractionDigits: 6,
-  });
-}
-
 function queryHover(
   q: EvaluatedQuery,
   series: string,
@@ -118,9 +113,9 @@ function queryHover(
   const value =
     q.value === null
       ? "no value"
-      : `${formatNumber(q.value)}${units.value ? ` ${units.value}` : ""}`;
+      : `${formatPlotValue(q.value)}${units.value ? ` ${units.value}` : ""}`;
   return plotText(
-    `${q.label} · ${series}\np ${formatNumber(q.pressure)} ${units.pressure}\nT ${formatNumber(q.temperature)} ${units.temperature}\n${valueLabel} ${value}\n${QUERY_FLAG_TEXT[q.flag]}`,
+    `${q.label} · ${series}\np ${formatPlotValue(q.pressure)} ${units.pressure}\nT ${formatPlotValue(q.temperature)} ${units.temperature}\n${valueLabel} ${value}\n${QUERY_FLAG_TEXT[q.flag]}`,
   ).replace(/\n/g, "<br>");
 }
 
@@ -464,10 +459,10 @@ export function slicesFigure(input: SlicesInput): Figure {
           : pick(DASHES, j);
     const symbol = many ? pick(SYMBOLS_2D, k) : pick(SYMBOLS_2D, j);
     const name = many
-      ? `${s.label} · ${formatNumber(t)} ${tUnit}`
-      : `${formatNumber(t)} ${tUnit}`;
+      ? `${s.label} · ${formatPlotValue(t)} ${tUnit}`
+      : `${formatPlotValue(t)} ${tUnit}`;
     const group = `curve-${k}-${j}`;
-    const tLine = `T ${formatNumber(t)} ${plotText(tUnit)}`;
+    const tLine = `T ${formatPlotValue(t)} ${plotText(tUnit)}`;
     data.push({
       type: "scatter",
       mode: "lines",
@@ -529,12 +524,14 @@ export function slicesFigure(input: SlicesInput): Figure {
           },
           hovertemplate:
             plotText(`Bubble point of ${s.label}`) +
-            `<br>pb ${formatNumber(pb.pressure)} ${plotText(units.pressure)}<br>${tLine}<br>${plotText(input.valueLabel)} %{y:${NUM}} ${plotText(units.value)}<extra></extra>`,
+            `<br>pb ${formatPlotValue(pb.pressure)} ${plotText(units.pressure)}<br>${tLine}<br>${plotText(input.valueLabel)} %{y:${NUM}} ${plotText(units.value)}<extra></extra>`,
         } satisfies Partial<ScatterData>);
       }
       if (annotateBubble) {
         annotations.push({
-          text: plotText(`pb ${formatNumber(pb.pressure)} ${units.pressure}`),
+          text: plotText(
+            `pb ${formatPlotValue(pb.pressure)} ${units.pressure}`,
+          ),
           xref: "x",
           yref: "paper",
           x: pb.pressure,

@@ -1,5 +1,6 @@
-import { formatValue } from "./format";
-import { PROPERTY_LABELS, SEVERITY_LABELS } from "./labels";
+import { formatMeasured } from "~/core/format";
+import { PROPERTIES } from "~/core/units";
+import { SEVERITY_LABELS } from "./labels";
 import type {
   CellMark,
   DisplayBubblePoints,
@@ -62,7 +63,7 @@ export function GridTable({
   linkFindings?: boolean;
   caption?: React.ReactNode;
 }) {
-  const label = PROPERTY_LABELS[grid.property];
+  const label = PROPERTIES[grid.property];
   const unit =
     grid.unit === "–" || grid.unit === "-" || grid.unit === ""
       ? ""
@@ -116,7 +117,7 @@ export function GridTable({
                 scope="col"
                 className="px-3 py-1.5 text-right font-semibold tabular-nums"
               >
-                {formatValue(t)}
+                {formatMeasured(t)}
               </th>
             ))}
           </tr>
@@ -128,7 +129,7 @@ export function GridTable({
                 scope="row"
                 className="px-3 py-1 text-right font-normal text-ink-muted tabular-nums"
               >
-                {formatValue(p)}
+                {formatMeasured(p)}
               </th>
               {grid.temperatures.map((_, j) => {
                 const v = grid.values[i]?.[j] ?? null;
@@ -148,7 +149,7 @@ export function GridTable({
                     {v === null ? (
                       <span className="text-ink-muted">–</span>
                     ) : (
-                      formatValue(v)
+                      formatMeasured(v)
                     )}
                     {atBubble ? (
                       <span className="sr-only"> (at the bubble point)</span>
@@ -207,13 +208,13 @@ export function BubblePointTable({
                 scope="row"
                 className="px-3 py-1 text-right font-normal text-ink-muted tabular-nums"
               >
-                {formatValue(r.temperature)}
+                {formatMeasured(r.temperature)}
               </th>
               <td
                 className={`px-3 py-1 text-right tabular-nums ${r.mark ? MARK_STYLES[r.mark.severity] : ""}`}
                 data-flag={r.mark?.severity}
               >
-                {formatValue(r.pressure)}
+                {formatMeasured(r.pressure)}
                 {r.mark ? (
                   <Marker mark={r.mark} linkFindings={linkFindings} />
                 ) : null}

@@ -1,32 +1,20 @@
-import type { PropertyKey } from "~/core/units";
+import type { RevisionStatus, SampleType } from "~/utils/sample-vocabulary";
 
-/** How properties are named on screen: a plain name and the usual symbol. */
-export const PROPERTY_LABELS: Record<
-  PropertyKey,
-  { name: string; symbol: string }
-> = {
-  oil_fvf: { name: "Oil formation volume factor", symbol: "Bo" },
-  solution_gor: { name: "Solution gas–oil ratio", symbol: "Rs" },
-  oil_viscosity: { name: "Oil viscosity", symbol: "μo" },
-  oil_density: { name: "Oil density", symbol: "ρo" },
-  gas_fvf: { name: "Gas formation volume factor", symbol: "Bg" },
-  gas_viscosity: { name: "Gas viscosity", symbol: "μg" },
-  z_factor: { name: "Gas deviation factor", symbol: "Z" },
-};
+// Property names and symbols are in the property catalogue, app/core/units/properties.ts.
 
 export const SAMPLE_TYPE_LABELS: Record<string, string> = {
   bottomhole: "Bottomhole",
   separator_recombined: "Separator, recombined",
   wellhead: "Wellhead",
   formation_tester: "Formation tester",
-};
+} satisfies Record<SampleType, string>;
 
 export const REVISION_STATUS_LABELS: Record<string, string> = {
   draft: "Draft, awaiting review",
   approved: "Approved",
   rejected: "Rejected",
   superseded: "Superseded",
-};
+} satisfies Record<RevisionStatus, string>;
 
 export const QC_STATUS_LABELS: Record<"pass" | "warn" | "fail", string> = {
   pass: "Passed",

@@ -1,7 +1,8 @@
 import { useId } from "react";
 import { z } from "zod";
 import { FieldError, TextField, type FieldErrors } from "~/components/form";
-import { STANDARD_CONDITIONS_PRESETS } from "~/core/units";
+import { SAMPLE_TYPES } from "~/utils/sample-vocabulary";
+import { STANDARD_CONDITIONS_PRESETS, type OutputSystem } from "~/core/units";
 import { labelSchema, multilineTextSchema } from "~/utils/labels";
 import { SAMPLE_TYPE_LABELS } from "./labels";
 
@@ -10,14 +11,7 @@ import { SAMPLE_TYPE_LABELS } from "./labels";
  * the browser before it is sent and again in the action; the action converts to canonical units.
  */
 
-export type FormSystem = "field" | "metric";
-
-export const SAMPLE_TYPES = [
-  "bottomhole",
-  "separator_recombined",
-  "wellhead",
-  "formation_tester",
-] as const;
+export type FormSystem = OutputSystem;
 
 /** Units the form uses for each system. */
 export const FORM_UNITS: Record<

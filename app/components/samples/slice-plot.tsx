@@ -1,5 +1,5 @@
-import { formatValue } from "./format";
-import { PROPERTY_LABELS } from "./labels";
+import { formatMeasured, roundSignificant } from "~/core/format";
+import { PROPERTIES } from "~/core/units";
 import type { DisplayGrid, Severity } from "./types";
 
 /*
@@ -37,7 +37,7 @@ export function niceTicks(min: number, max: number, count = 4): number[] {
     10 * magnitude;
   const ticks: number[] = [];
   for (let v = Math.ceil(min / step) * step; v <= max + step * 1e-9; v += step)
-    ticks.push(Number(v.toPrecision(12)));
+    ticks.push(roundSignificant(v, 12));
   return ticks;
 }
 
@@ -52,7 +52,7 @@ export function logTicks(min: number, max: number): number[] {
     e++
   ) {
     for (const m of steps) {
-      const v = Number((m * 10 ** e).toPrecision(6));
+      const v = roundSignificant(m * 10 ** e, 6);
       if (v >= min && v <= max) ticks.push(v);
     }
   }
@@ -60,7 +60,7 @@ export function logTicks(min: number, max: number): number[] {
 }
 
 export function SlicePlot({ grid }: { grid: DisplayGrid }) {
-  const label = PROPERTY_LABELS[grid.property];
+  const label = PROPERTIES[grid.property];
   const values = grid.values.flat().filter((v): v is number => v !== null);
   if (values.length === 0 || grid.pressures.length === 0) return null;
   const pMin = Math.min(...grid.pressures);
@@ -88,7 +88,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
     ((scale(v) - vMin) / (vMax - vMin)) * (H - PAD.top - PAD.bottom);
   const yTicks = log ? logTicks(10 ** vMin, 10 ** vMax) : niceTicks(vMin, vMax);
   const unit = grid.unit === "–" || grid.unit === "-" ? "" : ` (${grid.unit})`;
-  const description = `${label.name} against pressure, one line per temperature: ${grid.temperatures.map((t) => `${formatValue(t)} ${grid.temperatureUnit}`).join(", ")}.`;
+  const description = `${label.name} against pressure, one line per temperature: ${grid.temperatures.map((t) => `${formatMeasured(t)} ${grid.temperatureUnit}`).join(", ")}.`;
   return (
     <figure className="rounded-lg border border-line bg-panel p-3">
       <figcaption className="text-sm font-semibold">
@@ -124,7 +124,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
               fontSize={9}
               fill="#55636f"
             >
-              {formatValue(t)}
+              {formatMeasured(t)}
             </text>
           </g>
         ))}
@@ -145,7 +145,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
               fontSize={9}
               fill="#55636f"
             >
-              {formatValue(t)}
+              {formatMeasured(t)}
             </text>
           </g>
         ))}
@@ -237,7 +237,7 @@ export function SlicePlot({ grid }: { grid: DisplayGrid }) {
               className="inline-block h-0.5 w-4"
               style={{ background: COLORS[j % COLORS.length] }}
             />
-            {formatValue(t)} {grid.temperatureUnit}
+            {formatMeasured(t)} {grid.temperatureUnit}
           </li>
         ))}
         {grid.bubblePoints.some((b) => b !== null) ? (

@@ -2,6 +2,7 @@
  * The one error type the interpolation engine throws. `code` is stable and machine-readable (for API
  * responses and tests); `message` is written for a person and names the axis, value, range or cell involved.
  */
+import { formatInMessage } from "../format";
 export type InterpolationErrorCode =
   /** grid is not an object with arrays `pressures`, `temperatures` and `values` */
   | "invalid-grid-shape"
@@ -43,17 +44,9 @@ export class InterpolationError extends Error {
   }
 }
 
-/** Numbers in messages: short, but exact enough to find the cell in a table. */
-export function formatNumber(x: number): string {
-  if (Number.isNaN(x)) return "NaN";
-  if (!Number.isFinite(x)) return x > 0 ? "Infinity" : "-Infinity";
-  if (Number.isInteger(x) && Math.abs(x) < 1e15) return String(x);
-  return String(Number(x.toPrecision(10)));
-}
-
 /** Describes a value that is not a finite number, for messages ("NaN", "Infinity", "a string", "undefined"). */
 export function describeBadNumber(x: unknown): string {
-  if (typeof x === "number") return formatNumber(x);
+  if (typeof x === "number") return formatInMessage(x);
   if (x === undefined) return "undefined (an empty slot)";
   if (x === null) return "null";
   return `a ${typeof x} (${JSON.stringify(x)})`;

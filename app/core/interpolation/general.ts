@@ -3,7 +3,8 @@
 // zone rule, and the work happens in preallocated scratch arrays (nothing is allocated per point unless a
 // trace is asked for, which only `explainInterpolation` does). Indices are in range by construction.
 import { cellOf, orderedZone, zoneStart } from "./axis";
-import { formatNumber, InterpolationError } from "./errors";
+import { formatInMessage } from "../format";
+import { InterpolationError } from "./errors";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
 import { pchipCell, pchipOut } from "./pchip";
 import type { Plan } from "./plan";
@@ -586,21 +587,21 @@ function noValidZone(
   for (let j = 0; j < prep.M; j++) {
     const off = br.off[j]!;
     const cnt = br.off[j + 1]! - off;
-    const temp = formatNumber(prep.T[j]!);
+    const temp = formatInMessage(prep.T[j]!);
     parts.push(
       cnt === 0
         ? `at ${temp}: none`
-        : `at ${temp}: ${formatNumber(br.x[off]!)} to ${formatNumber(br.x[off + cnt - 1]!)}`,
+        : `at ${temp}: ${formatInMessage(br.x[off]!)} to ${formatInMessage(br.x[off + cnt - 1]!)}`,
     );
   }
   const reason =
     nu === 0
-      ? `no temperature column has measured values${BRANCH_TEXT[b]} around pressure ${formatNumber(p)}`
-      : `only the columns from temperature ${formatNumber(ux[0]!)} to ${formatNumber(ux[nu - 1]!)} have measured values${BRANCH_TEXT[b]} around pressure ${formatNumber(p)}, and the temperature ${formatNumber(t)} is outside them`;
+      ? `no temperature column has measured values${BRANCH_TEXT[b]} around pressure ${formatInMessage(p)}`
+      : `only the columns from temperature ${formatInMessage(ux[0]!)} to ${formatInMessage(ux[nu - 1]!)} have measured values${BRANCH_TEXT[b]} around pressure ${formatInMessage(p)}, and the temperature ${formatInMessage(t)} is outside them`;
   const prefix = pointIndex < 0 ? "" : `Point ${pointIndex}: `;
   return new InterpolationError(
     "no-valid-zone",
-    `${prefix}No measured values surround pressure ${formatNumber(p)} and temperature ${formatNumber(t)}: ${reason}. Measured pressure ranges per temperature${BRANCH_TEXT[b]}: ${parts.join("; ")}.${prep.complete ? "" : " Cells that were not measured (null) cannot be used."}${b === 0 ? "" : " A column's values on the other side of its bubble point are never used."} Pass extrapolate: true to extrapolate from the nearest measured values.`,
+    `${prefix}No measured values surround pressure ${formatInMessage(p)} and temperature ${formatInMessage(t)}: ${reason}. Measured pressure ranges per temperature${BRANCH_TEXT[b]}: ${parts.join("; ")}.${prep.complete ? "" : " Cells that were not measured (null) cannot be used."}${b === 0 ? "" : " A column's values on the other side of its bubble point are never used."} Pass extrapolate: true to extrapolate from the nearest measured values.`,
     {
       pressure: p,
       temperature: t,

@@ -1,11 +1,12 @@
-import { formatNumber, InterpolationError } from "./errors";
+import { formatInMessage } from "../format";
+import { InterpolationError } from "./errors";
 import type { PreparedGrid } from "./prepare";
 import { W_EXTRAPOLATED } from "./warnings";
 
 function where(pointIndex: number, p: number, t: number): string {
   return pointIndex < 0
     ? ""
-    : `Point ${pointIndex} (pressure ${formatNumber(p)}, temperature ${formatNumber(t)}): `;
+    : `Point ${pointIndex} (pressure ${formatInMessage(p)}, temperature ${formatInMessage(t)}): `;
 }
 
 /**
@@ -24,7 +25,7 @@ export function checkRange(
     const bad = axis === "pressure" ? p : t;
     throw new InterpolationError(
       "invalid-point",
-      `${where(pointIndex, p, t)}The ${axis} is ${formatNumber(bad)}; a point needs finite numbers.`,
+      `${where(pointIndex, p, t)}The ${axis} is ${formatInMessage(bad)}; a point needs finite numbers.`,
       { axis, value: bad, pointIndex: pointIndex < 0 ? undefined : pointIndex },
     );
   }
@@ -56,8 +57,8 @@ function outOfRange(
   const side = value < lo ? "below" : "above";
   const text =
     n === 1
-      ? `The table was measured at a single ${axis}, ${formatNumber(lo)}; the ${axis} ${formatNumber(value)} differs from it.`
-      : `The measured ${axis}s run from ${formatNumber(lo)} to ${formatNumber(hi)}; the ${axis} ${formatNumber(value)} is ${side} that range.`;
+      ? `The table was measured at a single ${axis}, ${formatInMessage(lo)}; the ${axis} ${formatInMessage(value)} differs from it.`
+      : `The measured ${axis}s run from ${formatInMessage(lo)} to ${formatInMessage(hi)}; the ${axis} ${formatInMessage(value)} is ${side} that range.`;
   return new InterpolationError(
     "out-of-range",
     `${where(pointIndex, p, t)}${text} Pass extrapolate: true to extrapolate; the result is then marked 'extrapolated'.`,

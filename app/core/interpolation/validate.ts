@@ -1,4 +1,5 @@
-import { describeBadNumber, formatNumber, InterpolationError } from "./errors";
+import { formatInMessage } from "../format";
+import { describeBadNumber, InterpolationError } from "./errors";
 import type { Grid, Method, Options } from "./types";
 
 /** Highest polynomial degree accepted per axis. High degrees oscillate between nodes (Runge's phenomenon). */
@@ -42,11 +43,11 @@ function checkAxis(grid: Grid, name: "pressures" | "temperatures"): void {
       if (!(v > prev)) {
         const why =
           v === prev
-            ? `the ${AXIS_LABEL[name]} ${formatNumber(v)} appears twice`
-            : `it is smaller than ${name}[${i - 1}] = ${formatNumber(prev)}`;
+            ? `the ${AXIS_LABEL[name]} ${formatInMessage(v)} appears twice`
+            : `it is smaller than ${name}[${i - 1}] = ${formatInMessage(prev)}`;
         throw new InterpolationError(
           "axis-not-increasing",
-          `${name} must be strictly increasing, but ${name}[${i}] = ${formatNumber(v)}: ${why}.`,
+          `${name} must be strictly increasing, but ${name}[${i}] = ${formatInMessage(v)}: ${why}.`,
           { axis: AXIS_LABEL[name], index: i, value: v, previous: prev },
         );
       }
@@ -87,7 +88,7 @@ export function validateGrid(grid: Grid): void {
         : describeBadNumber(row);
       throw new InterpolationError(
         "ragged-values",
-        `values[${i}] (pressure ${formatNumber(pressures[i]!)}) has ${got} but there are ${temperatures.length} temperatures.`,
+        `values[${i}] (pressure ${formatInMessage(pressures[i]!)}) has ${got} but there are ${temperatures.length} temperatures.`,
         { row: i, pressure: pressures[i] },
       );
     }
@@ -97,7 +98,7 @@ export function validateGrid(grid: Grid): void {
       if (typeof v !== "number" || !Number.isFinite(v)) {
         throw new InterpolationError(
           "value-not-finite",
-          `values[${i}][${j}] (pressure ${formatNumber(pressures[i]!)}, temperature ${formatNumber(temperatures[j]!)}) is ${describeBadNumber(v)}; a measured value must be a finite number, and a cell that was not measured must be null.`,
+          `values[${i}][${j}] (pressure ${formatInMessage(pressures[i]!)}, temperature ${formatInMessage(temperatures[j]!)}) is ${describeBadNumber(v)}; a measured value must be a finite number, and a cell that was not measured must be null.`,
           {
             row: i,
             column: j,
@@ -128,7 +129,7 @@ export function validateGrid(grid: Grid): void {
     if (typeof v !== "number" || !Number.isFinite(v)) {
       throw new InterpolationError(
         "invalid-bubble-points",
-        `bubblePoints[${j}] (temperature ${formatNumber(temperatures[j]!)}) is ${describeBadNumber(v)}; use a finite pressure, or null when it is not known.`,
+        `bubblePoints[${j}] (temperature ${formatInMessage(temperatures[j]!)}) is ${describeBadNumber(v)}; use a finite pressure, or null when it is not known.`,
         { column: j, temperature: temperatures[j] },
       );
     }

@@ -2,7 +2,13 @@
  * One header cell: "oil viscosity (cP)", "Bo [rb/STB]", "Pressure, psia", "Z factor". Finds the name and
  * the unit, resolves both, and reports anything it cannot use.
  */
-import { isUnitError, parseUnitLabel, type Quantity } from "../units";
+import {
+  isUnitError,
+  parseUnitLabel,
+  PROPERTY_KEYS,
+  quotedHeader,
+  type Quantity,
+} from "../units";
 import { cellText, type RawCell } from "./cells";
 import { quote, type Place } from "./findings";
 import {
@@ -49,8 +55,13 @@ export function splitHeaderText(
   return null;
 }
 
-const SHORT_NAMES =
-  '"pressure", "temperature", "bubble point", "oil formation volume factor" (Bo), "solution GOR" (Rs), "oil viscosity", "oil density", "gas formation volume factor" (Bg), "gas viscosity" and "Z factor"';
+const KNOWN_NAMES = [
+  '"pressure"',
+  '"temperature"',
+  '"bubble point"',
+  ...PROPERTY_KEYS.map(quotedHeader),
+];
+const SHORT_NAMES = `${KNOWN_NAMES.slice(0, -1).join(", ")} and ${KNOWN_NAMES.at(-1)}`;
 
 /** The name part of a header if it is one we know (used to tell layouts apart). */
 export function headerNameOf(cell: RawCell): HeaderName | null {

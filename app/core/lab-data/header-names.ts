@@ -1,8 +1,9 @@
 /**
- * Column and block names we recognise, and the property each stands for. Matching ignores case, spaces,
+ * Column and block names we recognise (aliases of the catalogue's names), and the property each stands for. Matching ignores case, spaces,
  * dots, hyphens, underscores and slashes between words ("Solution GOR" = "solution-gor" = "solution_gor").
  */
 import {
+  PROPERTIES,
   PROPERTY_KEYS,
   PROPERTY_QUANTITIES,
   type PropertyKey,
@@ -12,12 +13,19 @@ import {
 export type AxisName = "pressure" | "temperature" | "bubble_point";
 export type HeaderName = PropertyKey | AxisName;
 
-/** The name the templates write, then accepted synonyms. */
+/** The axes' names as the templates write them and as messages say them. */
+const AXIS_LABELS: Readonly<Record<AxisName, string>> = {
+  pressure: "pressure",
+  temperature: "temperature",
+  bubble_point: "bubble point",
+};
+
+/** The name the templates write (the catalogue's `header` for a property), then accepted synonyms. */
 export const HEADER_NAMES: Readonly<Record<HeaderName, readonly string[]>> = {
-  pressure: ["pressure", "p"],
-  temperature: ["temperature", "temp", "t"],
+  pressure: [AXIS_LABELS.pressure, "p"],
+  temperature: [AXIS_LABELS.temperature, "temp", "t"],
   bubble_point: [
-    "bubble point",
+    AXIS_LABELS.bubble_point,
     "bubble-point pressure",
     "bubblepoint",
     "bubble point pressure",
@@ -25,42 +33,37 @@ export const HEADER_NAMES: Readonly<Record<HeaderName, readonly string[]>> = {
     "pb",
     "psat",
   ],
-  oil_fvf: [
-    "oil formation volume factor",
-    "oil FVF",
-    "Bo",
-    "oil volume factor",
-  ],
+  oil_fvf: [PROPERTIES.oil_fvf.header, "oil FVF", "Bo", "oil volume factor"],
   solution_gor: [
-    "solution GOR",
+    PROPERTIES.solution_gor.header,
     "solution gas-oil ratio",
     "solution gas/oil ratio",
     "dissolved gas-oil ratio",
     "Rs",
   ],
   oil_viscosity: [
-    "oil viscosity",
+    PROPERTIES.oil_viscosity.header,
     "viscosity of oil",
     "live oil viscosity",
     "muo",
     "μo",
   ],
   oil_density: [
-    "oil density",
+    PROPERTIES.oil_density.header,
     "density of oil",
     "live oil density",
     "rhoo",
     "ρo",
   ],
-  gas_fvf: [
-    "gas formation volume factor",
-    "gas FVF",
-    "Bg",
-    "gas volume factor",
+  gas_fvf: [PROPERTIES.gas_fvf.header, "gas FVF", "Bg", "gas volume factor"],
+  gas_viscosity: [
+    PROPERTIES.gas_viscosity.header,
+    "viscosity of gas",
+    "mug",
+    "μg",
   ],
-  gas_viscosity: ["gas viscosity", "viscosity of gas", "mug", "μg"],
   z_factor: [
-    "Z factor",
+    PROPERTIES.z_factor.header,
     "z",
     "gas compressibility factor",
     "gas deviation factor",
@@ -77,18 +80,12 @@ export const HEADER_QUANTITIES: Readonly<Record<HeaderName, Quantity>> = {
   ...PROPERTY_QUANTITIES,
 };
 
-/** Plain-words label used in messages. */
+/** Plain-words label used in messages: the axis name, or the catalogue's `header` for a property. */
 export const HEADER_LABELS: Readonly<Record<HeaderName, string>> = {
-  pressure: "pressure",
-  temperature: "temperature",
-  bubble_point: "bubble point",
-  oil_fvf: "oil formation volume factor",
-  solution_gor: "solution GOR",
-  oil_viscosity: "oil viscosity",
-  oil_density: "oil density",
-  gas_fvf: "gas formation volume factor",
-  gas_viscosity: "gas viscosity",
-  z_factor: "Z factor",
+  ...AXIS_LABELS,
+  ...(Object.fromEntries(
+    PROPERTY_KEYS.map((k) => [k, PROPERTIES[k].header]),
+  ) as Record<PropertyKey, string>),
 };
 
 export function normalizeHeaderName(name: string): string {

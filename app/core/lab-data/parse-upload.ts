@@ -32,6 +32,7 @@ import type {
   ParseOptions,
   ParseOutcome,
 } from "./types";
+import { formatFileSize } from "../format";
 
 /** Largest upload accepted: 5 MB. */
 export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
@@ -48,10 +49,6 @@ export function displayFileName(filename: unknown): string {
   const base = (raw.split(/[\\/]/).pop() ?? "").replace(/\p{Cc}/gu, "").trim();
   if (base === "") return "the uploaded file";
   return base.length > 120 ? `${base.slice(0, 117)}…` : base;
-}
-
-function megabytes(bytes: number): string {
-  return `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 }
 
 export async function parseUpload(
@@ -102,7 +99,7 @@ async function parseInto(
     findings.error(
       "FILE_TOO_LARGE",
       {},
-      `the file is ${megabytes(bytes.length)}, over the ${megabytes(MAX_UPLOAD_BYTES)} limit; upload only the results table.`,
+      `the file is ${formatFileSize(bytes.length)}, over the ${formatFileSize(MAX_UPLOAD_BYTES)} limit; upload only the results table.`,
     );
     return null;
   }

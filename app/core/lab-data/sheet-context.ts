@@ -19,6 +19,7 @@ import type { HeaderName } from "./header-names";
 import { HEADER_LABELS } from "./header-names";
 import { notNumberHint, parseNumberText, type DecimalMark } from "./numbers";
 import type { CellSource, Layout, UnitRef } from "./types";
+import { roundSignificant } from "../format";
 
 export interface SheetContext {
   readonly findings: FindingList;
@@ -69,7 +70,7 @@ export function sourceOf(place: Place): CellSource {
 
 /** Canonical values keep 12 significant digits: enough for any measurement, and no float noise. */
 export function tidy(value: number): number {
-  return Number(value.toPrecision(12));
+  return roundSignificant(value, 12);
 }
 
 /**

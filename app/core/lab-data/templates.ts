@@ -13,6 +13,7 @@ import { datasetFromCanonicalGrids, type CanonicalGridInput } from "./dataset";
 import { LabDataError } from "./errors";
 import type { Layout, ParsedDataset } from "./types";
 import { layoutSheets, toCsv, toXlsx } from "./write-tables";
+import { roundSignificant } from "../format";
 
 /** Significant digits kept per property in the template, as a laboratory would report them. */
 const DIGITS: Readonly<Record<PropertyKey, number>> = {
@@ -51,9 +52,7 @@ export function templateDataset(): ParsedDataset {
       pressures,
       temperatures,
       values: grid.values.map((row) =>
-        row.map((v) =>
-          v === null ? null : Number(v.toPrecision(DIGITS[key])),
-        ),
+        row.map((v) => (v === null ? null : roundSignificant(v, DIGITS[key]))),
       ),
       ...(key === "gas_fvf" ? { displayUnit: "ft3/scf" } : {}),
     };
@@ -68,7 +67,7 @@ export function templateDataset(): ParsedDataset {
         row.map((v) =>
           v === null
             ? null
-            : Number((v * perBarrel).toPrecision(DIGITS.gas_fvf)) / perBarrel,
+            : roundSignificant(v * perBarrel, DIGITS.gas_fvf) / perBarrel,
         ),
       ),
     };

@@ -15,6 +15,7 @@ import { LabDataError } from "./errors";
 import { HEADER_NAMES } from "./header-names";
 import type { Layout, ParsedDataset, PropertyGrid, UnitRef } from "./types";
 import { CANONICAL_REFS } from "./qc/format";
+import { roundSignificant } from "../format";
 
 export interface WriteOptions {
   /** Unit labels: catalogue ids, ASCII ("degF", "ft3/scf"; default, safe in any CSV) or symbols ("°F", "ft³/scf"). */
@@ -50,7 +51,7 @@ function shown(value: number, ref: UnitRef, options: WriteOptions): number {
         : {}),
     },
   );
-  return Number(v.toPrecision(12));
+  return roundSignificant(v, 12);
 }
 
 function propertyHeader(

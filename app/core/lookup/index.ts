@@ -46,13 +46,9 @@ export type { LookupWarning } from "./warnings";
 export {
   affineToCanonical,
   fromCanonicalWith,
-  LOOKUP_UNITS,
-  PROPERTY_NAMES,
   toCanonicalWith,
-  unitLabel,
-  unitSystemOf,
 } from "./unit-map";
-export type { Affine, LookupUnits, UnitLabel } from "./unit-map";
+export type { Affine } from "./unit-map";
 export {
   describeValue,
   nestedDeeperThan,

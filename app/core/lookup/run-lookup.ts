@@ -11,7 +11,17 @@ import {
   type Branch,
   type Grid,
 } from "../interpolation";
-import { isPropertyKey, type PropertyKey } from "../units";
+import {
+  isPropertyKey,
+  OUTPUT_SYSTEMS,
+  outputUnit,
+  outputUnitSystem,
+  PROPERTIES,
+  PROPERTY_QUANTITIES,
+  type OutputSystem,
+  type PropertyKey,
+  type UnitLabel,
+} from "../units";
 import {
   lookupCanonical,
   LOOKUP_METHODS,
@@ -21,18 +31,9 @@ import {
   type UsedMethod,
 } from "./compute";
 import { LookupError } from "./errors";
-import {
-  affineToCanonical,
-  LOOKUP_UNITS,
-  propertyQuantity,
-  PROPERTY_NAMES,
-  unitLabel,
-  unitSystemOf,
-  type Affine,
-  type LookupUnits,
-  type UnitLabel,
-} from "./unit-map";
+import { affineToCanonical, type Affine } from "./unit-map";
 import { expandWarningFlags, type LookupWarning } from "./warnings";
+import { formatPlain } from "../format";
 
 /** Most points one lookup accepts (the API's limit). */
 export const MAX_LOOKUP_POINTS = 100_000;
@@ -46,7 +47,7 @@ export type LookupOptions = {
   extrapolate?: boolean;
   property: PropertyKey;
   /** Unit system of the points and of everything returned. */
-  units: LookupUnits;
+  units: OutputSystem;
   /** Plain-word messages next to the warning codes (default true). */
   messages?: boolean;
 };
@@ -94,7 +95,7 @@ export type LookupPointResult = {
 };
 
 export type LookupUnitLabels = {
-  system: LookupUnits;
+  system: OutputSystem;
   pressure: UnitLabel;
   temperature: UnitLabel;
   /** Unit of `value`, `errorEstimate` and `alternative`. */
@@ -156,7 +157,7 @@ export type NormalizedLookupOptions = {
   degree: [number, number];
   extrapolate: boolean;
   property: PropertyKey;
-  units: LookupUnits;
+  units: OutputSystem;
   messages: boolean;
 };
 
@@ -224,7 +225,7 @@ export function normalizeLookupOptions(
   const units: unknown = options.units;
   if (
     typeof units !== "string" ||
-    !(LOOKUP_UNITS as readonly string[]).includes(units)
+    !(OUTPUT_SYSTEMS as readonly string[]).includes(units)
   ) {
     throw new LookupError(
       "INVALID_OPTIONS",
@@ -272,7 +273,7 @@ export function normalizeLookupOptions(
     degree: [m, n],
     extrapolate: extrapolate === true,
     property,
-    units: units as LookupUnits,
+    units: units as OutputSystem,
     messages: messages !== false,
   };
 }
@@ -304,19 +305,19 @@ export type UnitContext = {
 
 export function unitContext(
   property: PropertyKey,
-  units: LookupUnits,
+  units: OutputSystem,
 ): UnitContext {
-  const system = unitSystemOf(units);
-  const quantity = propertyQuantity(property);
+  const system = outputUnitSystem(units);
+  const quantity = PROPERTY_QUANTITIES[property];
   return {
     pressure: affineToCanonical("pressure", system),
     temperature: affineToCanonical("temperature", system),
     value: affineToCanonical(quantity, system),
     labels: {
       system: units,
-      pressure: unitLabel("pressure", system),
-      temperature: unitLabel("temperature", system),
-      value: unitLabel(quantity, system),
+      pressure: outputUnit(units, "pressure"),
+      temperature: outputUnit(units, "temperature"),
+      value: outputUnit(units, quantity),
       standardConditions: system.standardConditions.label,
     },
   };
@@ -455,11 +456,6 @@ function canonicalPoints(
   return { ps, ts };
 }
 
-function fmt(x: number): string {
-  if (!Number.isFinite(x)) return String(x);
-  return String(Number(x.toPrecision(6)));
-}
-
 function back(a: Affine, canonical: number): number {
   return (canonical - a.offset) / a.scale;
 }
@@ -487,11 +483,11 @@ export function toLookupError(
       const where = index === undefined ? "The point" : `Point ${index}`;
       const range =
         min === max
-          ? `the table of ${PROPERTY_NAMES[property]} was measured at a single ${axis}, ${fmt(min)} ${unit}`
-          : `the measured ${axis}s of ${PROPERTY_NAMES[property]} run from ${fmt(min)} to ${fmt(max)} ${unit}`;
+          ? `the table of ${PROPERTIES[property].phrase} was measured at a single ${axis}, ${formatPlain(min)} ${unit}`
+          : `the measured ${axis}s of ${PROPERTIES[property].phrase} run from ${formatPlain(min)} to ${formatPlain(max)} ${unit}`;
       return new LookupError(
         "OUT_OF_RANGE",
-        `${where} has ${axis} ${fmt(value)} ${unit}, outside the measured range: ${range}. Allow extrapolation to get a value anyway; it is then marked 'extrapolated'.`,
+        `${where} has ${axis} ${formatPlain(value)} ${unit}, outside the measured range: ${range}. Allow extrapolation to get a value anyway; it is then marked 'extrapolated'.`,
         { pointIndex: index, axis, value, min, max, unit, engineMessage },
         error,
       );
@@ -506,7 +502,7 @@ export function toLookupError(
           : "";
       return new LookupError(
         "NO_VALID_ZONE",
-        `${where} (${fmt(p)} ${pUnit}, ${fmt(t)} ${tUnit}): no measured values of ${PROPERTY_NAMES[property]} surround it${branch}. Cells around it were not measured, or it lies beyond the last measured pressure of the neighbouring temperatures. Allow extrapolation to get a value from the nearest measured values; it is then marked 'extrapolated'.`,
+        `${where} (${formatPlain(p)} ${pUnit}, ${formatPlain(t)} ${tUnit}): no measured values of ${PROPERTIES[property].phrase} surround it${branch}. Cells around it were not measured, or it lies beyond the last measured pressure of the neighbouring temperatures. Allow extrapolation to get a value from the nearest measured values; it is then marked 'extrapolated'.`,
         {
           pointIndex: index,
           pressure: p,
@@ -524,7 +520,7 @@ export function toLookupError(
     default:
       return new LookupError(
         "INVALID_GRID",
-        `The stored table of ${PROPERTY_NAMES[property]} cannot be used: ${error.message}`,
+        `The stored table of ${PROPERTIES[property].phrase} cannot be used: ${error.message}`,
         { ...d, engineCode: error.code },
         error,
       );

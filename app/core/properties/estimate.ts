@@ -4,6 +4,7 @@
  */
 import { RANKINE_OFFSET } from "../units";
 import { PropertyInputError } from "./errors";
+import { formatInMessage } from "../format";
 
 export type PropertyWarningCode =
   /** An input (or the result) lies outside the data range the method was fitted to. */
@@ -60,16 +61,12 @@ export function rangeWarnings(
         min: range.min,
         max: range.max,
         message:
-          `${range.input} = ${formatNumber(value)} ${range.unit} is outside the ${method} data range ` +
-          `${formatNumber(range.min)}–${formatNumber(range.max)} ${range.unit}; the value is an extrapolation.`,
+          `${range.input} = ${formatInMessage(value, 5)} ${range.unit} is outside the ${method} data range ` +
+          `${formatInMessage(range.min, 5)}–${formatInMessage(range.max, 5)} ${range.unit}; the value is an extrapolation.`,
       });
     }
   }
   return warnings;
-}
-
-export function formatNumber(x: number): string {
-  return Number.isInteger(x) ? String(x) : String(Number(x.toPrecision(5)));
 }
 
 // ---- input validation (throws) -------------------------------------------------------------------------

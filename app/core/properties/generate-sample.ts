@@ -64,6 +64,7 @@ import {
   vasquezBeggsUndersaturatedViscosity,
 } from "./vasquez-beggs";
 import { gasZFactor, type ZFactorMethod } from "./z-factor";
+import { formatDecimals } from "../format";
 
 /** Same shape as the interpolation engine's Grid: values[i][j] at pressures[i], temperatures[j]. */
 export interface PropertyGrid {
@@ -493,7 +494,7 @@ export function generateSample(
     notice:
       "Invented data: generated from published correlations" +
       (noise > 0
-        ? ` with ${(noise * 100).toFixed(2)} % artificial noise`
+        ? ` with ${formatDecimals(noise * 100, 2)} % artificial noise`
         : "") +
       "; not measurements of any real fluid.",
     fluid: model.fluid,

@@ -24,6 +24,7 @@ import {
   type Estimate,
   type PropertyWarning,
 } from "./estimate";
+import { formatDecimals } from "../format";
 
 export interface SeparatorAdjustmentBasis {
   /** Bofb: bubble-point oil FVF from the separator test, rb/STB. */
@@ -70,7 +71,7 @@ export function adjustSaturatedPoint(
       method: METHOD,
       input: "result",
       value: solutionGor,
-      message: `Adjusted Rs is negative (${solutionGor.toFixed(1)} scf/STB): the ratio method fails here (volatile oil?).`,
+      message: `Adjusted Rs is negative (${formatDecimals(solutionGor, 1)} scf/STB): the ratio method fails here (volatile oil?).`,
     });
   }
   if (point.rsd > basis.rsdb) {

@@ -31,6 +31,7 @@ import {
   type PropertyWarning,
   type ValidityRanges,
 } from "./estimate";
+import { formatDecimals } from "../format";
 
 const SOURCE = "Standing (1947) data range, as quoted in the domain brief §3.1";
 
@@ -131,7 +132,7 @@ export function standingBubblePoint(
         method,
         "result",
         pb,
-        `Bubble point ${pb.toFixed(1)} psia is not positive: Rs is too small for this method.`,
+        `Bubble point ${formatDecimals(pb, 1)} psia is not positive: Rs is too small for this method.`,
       ),
     );
   return { value: pb, warnings };
@@ -193,7 +194,7 @@ export function standingSaturationPressure(
         method,
         "result",
         p,
-        `Saturation pressure ${p.toFixed(1)} psia is not positive: Rs is too small for this method.`,
+        `Saturation pressure ${formatDecimals(p, 1)} psia is not positive: Rs is too small for this method.`,
       ),
     );
   return { value: p, warnings };

@@ -20,6 +20,7 @@ import {
   requirePressure,
   type PropertyWarning,
 } from "./estimate";
+import { formatDecimals } from "../format";
 
 export interface CcePoint {
   /** psia */
@@ -236,8 +237,8 @@ export function fitYFunction(input: {
       input: "pressure",
       value: pt.pressure,
       message:
-        `Point at ${pt.pressure} psia lies ${pt.residual >= 0 ? "+" : ""}${pt.residual.toFixed(3)} off the Y line ` +
-        `(${((pt.relativeResidual ?? 0) * 100).toFixed(1)} %) and was left out of the fit` +
+        `Point at ${pt.pressure} psia lies ${pt.residual >= 0 ? "+" : ""}${formatDecimals(pt.residual, 3)} off the Y line ` +
+        `(${formatDecimals((pt.relativeResidual ?? 0) * 100, 1)} %) and was left out of the fit` +
         (psat - pt.pressure < 0.05 * psat
           ? "; it is close to psat — check the saturation pressure."
           : "."),

@@ -37,6 +37,7 @@ import {
   type PseudoCriticalMethod,
 } from "./pseudo-critical";
 import { solveFirstRoot } from "./solve-bracketed";
+import { formatPrecision } from "../format";
 
 export interface ZFactorEstimate extends Estimate {
   /** Reduced density at the solution (y for Hall–Yarborough, ρr for Dranchuk–Abou-Kassem). */
@@ -136,7 +137,7 @@ function dakWarnings(tpr: number, ppr: number): PropertyWarning[] {
       method: "dranchuk-abou-kassem-1975-z-factor",
       input: "reduced temperature and pressure",
       message:
-        `Tpr = ${tpr.toPrecision(4)}, ppr = ${ppr.toPrecision(4)} is outside the Dranchuk–Abou-Kassem range ` +
+        `Tpr = ${formatPrecision(tpr, 4)}, ppr = ${formatPrecision(ppr, 4)} is outside the Dranchuk–Abou-Kassem range ` +
         "(0.2 ≤ ppr < 30 with 1.0 < Tpr ≤ 3.0; ppr < 1.0 with 0.7 < Tpr ≤ 1.0); the value is an extrapolation.",
     },
   ];

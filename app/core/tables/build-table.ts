@@ -16,11 +16,10 @@ import {
   toLookupError,
   unitContext,
   type LookupMethod,
-  type LookupUnits,
   type LookupWarning,
   type UsedMethod,
 } from "../lookup";
-import type { PropertyKey } from "../units";
+import type { OutputSystem, PropertyKey } from "../units";
 import {
   COLUMN_INFO,
   OIL_COLUMNS,
@@ -30,6 +29,7 @@ import {
 import { TableError } from "./errors";
 import { enforceDecreasing, enforceIncreasing, makePositive } from "./order";
 import { MAX_TABLE_ROWS } from "./pressure-spec";
+import { formatPlain } from "../format";
 
 export type BlackOilTableInput = {
   /** Canonical grids; the table has a column for each of solution_gor, oil_fvf, oil_viscosity, gas_fvf, gas_viscosity, z_factor given. */
@@ -42,7 +42,7 @@ export type BlackOilTableInput = {
   degree?: number | [number, number];
   extrapolate?: boolean;
   /** Unit system of the numbers in error messages (default field); the table itself is canonical. */
-  messageUnits?: LookupUnits;
+  messageUnits?: OutputSystem;
 };
 
 export type TableCell = {
@@ -161,14 +161,10 @@ export type BlackOilTable = {
 
 const ABSOLUTE_ZERO_F = -459.67;
 
-function fmt(x: number): string {
-  return String(Number(x.toPrecision(6)));
-}
-
 function toTableError(
   error: unknown,
   column: TableColumnKey,
-  units: LookupUnits,
+  units: OutputSystem,
   rowsP: readonly number[],
 ): unknown {
   const mapped = toLookupError(error, column, unitContext(column, units));
@@ -186,7 +182,7 @@ function toTableError(
     case "OUT_OF_RANGE":
       return new TableError(
         "OUT_OF_RANGE",
-        `The ${String(d.axis)} ${fmt(Number(d.value))} ${String(d.unit)} lies outside the measured range of ${name}, ${fmt(Number(d.min))} to ${fmt(Number(d.max))} ${String(d.unit)}. Choose ${d.axis === "temperature" ? "a temperature" : "pressures"} inside it, or allow extrapolation (extrapolated values are marked).`,
+        `The ${String(d.axis)} ${formatPlain(Number(d.value))} ${String(d.unit)} lies outside the measured range of ${name}, ${formatPlain(Number(d.min))} to ${formatPlain(Number(d.max))} ${String(d.unit)}. Choose ${d.axis === "temperature" ? "a temperature" : "pressures"} inside it, or allow extrapolation (extrapolated values are marked).`,
         details,
         mapped,
       );
@@ -327,7 +323,7 @@ function positive(w: Work, x: readonly number[], column: TableColumnKey): void {
  */
 export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   checkInput(input);
-  const units: LookupUnits =
+  const units: OutputSystem =
     input.messageUnits === "metric" ? "metric" : "field";
   let opts;
   try {
@@ -393,7 +389,7 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     } else if (Math.abs(here - pb) > 1e-6 * pb) {
       notes.push({
         code: "bubble-points-differ",
-        message: `The ${COLUMN_INFO[key].name} grid puts the bubble point at ${fmt(here)} psia, the ${COLUMN_INFO[pbFrom!].name} grid at ${fmt(pb)} psia; the table uses ${fmt(pb)} psia. The grids should come from one sample revision.`,
+        message: `The ${COLUMN_INFO[key].name} grid puts the bubble point at ${formatPlain(here)} psia, the ${COLUMN_INFO[pbFrom!].name} grid at ${formatPlain(pb)} psia; the table uses ${formatPlain(pb)} psia. The grids should come from one sample revision.`,
       });
     }
   }
@@ -401,7 +397,7 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   if (pb !== null && !Number.isFinite(pb)) {
     throw new TableError(
       "NOT_COMPUTABLE",
-      `The bubble point at ${fmt(temperature)} °F cannot be computed: extrapolating the measured bubble points does not give a finite pressure. Choose a temperature nearer the measured ones.`,
+      `The bubble point at ${formatPlain(temperature)} °F cannot be computed: extrapolating the measured bubble points does not give a finite pressure. Choose a temperature nearer the measured ones.`,
       { temperature },
     );
   }
@@ -429,7 +425,7 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     } else {
       notes.push({
         code: "bubble-point-row-omitted",
-        message: `The bubble point at this temperature, ${fmt(pb)} psia, lies outside the measured pressures, so the table has no row at the bubble point. Allow extrapolation to add it (it is then marked extrapolated).`,
+        message: `The bubble point at this temperature, ${formatPlain(pb)} psia, lies outside the measured pressures, so the table has no row at the bubble point. Allow extrapolation to add it (it is then marked extrapolated).`,
       });
     }
   }
@@ -480,7 +476,7 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
   if (bad.size === n) {
     throw new TableError(
       "NOT_COMPUTABLE",
-      `No row of the table can be computed: interpolation does not give finite values at ${n === 1 ? "this pressure" : "these pressures"} and ${fmt(temperature)} °F (too far outside the measured data). Choose conditions nearer the measured range.`,
+      `No row of the table can be computed: interpolation does not give finite values at ${n === 1 ? "this pressure" : "these pressures"} and ${formatPlain(temperature)} °F (too far outside the measured data). Choose conditions nearer the measured range.`,
       { rows: n },
     );
   }
@@ -489,7 +485,7 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     const omitted = [...bad].sort((a, b) => a - b).map((i) => rowsP[i]!);
     const shown = omitted
       .slice(0, 10)
-      .map((p) => fmt(p))
+      .map((p) => formatPlain(p))
       .join(", ");
     notes.push({
       code: "rows-not-computable",
@@ -615,7 +611,11 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
           original,
           corrected: value,
           rules,
-          reason: correctionReason(key, `${fmt(rowsP[i]!)} psia`, rules),
+          reason: correctionReason(
+            key,
+            `${formatPlain(rowsP[i]!)} psia`,
+            rules,
+          ),
           withinErrorEstimate: delta <= r.errors[i]!,
         });
       }

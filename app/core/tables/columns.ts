@@ -1,8 +1,9 @@
 /**
- * The columns of a black-oil table: our own plain names (no simulator's keywords), the property key of the
- * grid each comes from, and the short name used as a single word in the text layout.
+ * The columns of a black-oil table: the property key of the grid each comes from, with its plain name (no
+ * simulator's keywords) and the short name used as a single word in the text layout, both from the property
+ * catalogue.
  */
-import type { PropertyKey } from "../units";
+import { PROPERTIES, type PropertyKey } from "../units";
 
 export type TableColumnKey =
   | "solution_gor"
@@ -36,23 +37,13 @@ export type ColumnInfo = {
   word: string;
 };
 
+/** Each column's names, from the property catalogue (app/core/units/properties.ts). */
 export const COLUMN_INFO: Readonly<Record<TableColumnKey, ColumnInfo>> =
-  Object.freeze({
-    solution_gor: { key: "solution_gor", name: "Rs", word: "Rs" },
-    oil_fvf: { key: "oil_fvf", name: "Bo", word: "Bo" },
-    oil_viscosity: {
-      key: "oil_viscosity",
-      name: "oil viscosity",
-      word: "oil_viscosity",
-    },
-    gas_fvf: { key: "gas_fvf", name: "Bg", word: "Bg" },
-    gas_viscosity: {
-      key: "gas_viscosity",
-      name: "gas viscosity",
-      word: "gas_viscosity",
-    },
-    z_factor: { key: "z_factor", name: "z-factor", word: "z" },
-  });
+  Object.freeze(
+    Object.fromEntries(
+      TABLE_COLUMNS.map((key) => [key, { key, ...PROPERTIES[key].column }]),
+    ) as Record<TableColumnKey, ColumnInfo>,
+  );
 
 export function isTableColumn(key: PropertyKey): key is TableColumnKey {
   return (TABLE_COLUMNS as readonly string[]).includes(key);

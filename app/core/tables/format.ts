@@ -8,15 +8,15 @@ import type { Branch } from "../interpolation";
 import {
   affineToCanonical,
   fromCanonicalWith,
-  LOOKUP_UNITS,
-  unitSystemOf,
   type Affine,
   type LookupMethod,
-  type LookupUnits,
   type LookupWarning,
 } from "../lookup";
 import {
   gasVolumeRebaseFactor,
+  OUTPUT_SYSTEMS,
+  outputUnitSystem,
+  type OutputSystem,
   PROPERTY_QUANTITIES,
   type Quantity,
   type StandardConditions,
@@ -27,9 +27,10 @@ import { correctionReason, TABLE_RULE_TEXT } from "./build-table";
 import { COLUMN_INFO, type TableColumnKey } from "./columns";
 import { csvCell } from "../csv";
 import { TableError } from "./errors";
+import { formatDecimals, roundSignificant } from "../format";
 
 export type TableFormatOptions = {
-  units: LookupUnits;
+  units: OutputSystem;
   /** How the sample is named to people (field, well, sample id). */
   sampleLabel: string;
   /** The sample revision the grids came from. */
@@ -68,7 +69,7 @@ const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
 export function roundTo(x: number, digits: number): number {
   if (x === 0 || !Number.isFinite(x)) return x === 0 ? 0 : x;
   const k = digits - 1 - Math.floor(Math.log10(Math.abs(x)));
-  if (k > 22 || k < -22) return Number(x.toPrecision(digits));
+  if (k > 22 || k < -22) return roundSignificant(x, digits);
   return k >= 0
     ? Math.round(x * POW10[k]!) / POW10[k]!
     : Math.round(x / POW10[-k]!) * POW10[-k]!;
@@ -118,7 +119,7 @@ type Prepared = {
   sample: string;
   revision: number;
   generatedAt: string;
-  units: LookupUnits;
+  units: OutputSystem;
   temperature: number;
   temperatureUnit: string;
   bubblePointPressure: number | null;
@@ -143,7 +144,7 @@ function checkOptions(options: TableFormatOptions): {
       "Format options are required: { units, sampleLabel, revision, generatedAt }.",
     );
   }
-  if (!(LOOKUP_UNITS as readonly string[]).includes(options.units)) {
+  if (!(OUTPUT_SYSTEMS as readonly string[]).includes(options.units)) {
     throw new TableError(
       "INVALID_OPTIONS",
       `units must be 'field' or 'metric'; got ${String(options.units)}.`,
@@ -194,7 +195,7 @@ function outputOf(
 /** Rounds and converts the table's values once; every format prints from this. */
 function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
   const { generatedAt, sample } = checkOptions(options);
-  const system = unitSystemOf(options.units);
+  const system = outputUnitSystem(options.units);
   const base = options.standardConditions ?? system.standardConditions;
   const pOut = affineToCanonical("pressure", system);
   const tOut = affineToCanonical("temperature", system);
@@ -331,7 +332,7 @@ export type BlackOilTableJson = {
   extrapolate: boolean;
   /** Unit ids of every column, plus the temperature. */
   units: {
-    system: LookupUnits;
+    system: OutputSystem;
     pressure: string;
     temperature: string;
   } & Partial<Record<TableColumnKey, string>>;
@@ -459,7 +460,7 @@ function columnStrings(values: readonly number[]): string[] {
     0,
     ...plain.map((s) => (s.includes(".") ? s.length - s.indexOf(".") - 1 : 0)),
   );
-  return values.map((v) => v.toFixed(decimals));
+  return values.map((v) => formatDecimals(v, decimals));
 }
 
 function range(from: number, to: number): string {

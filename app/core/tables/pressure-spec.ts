@@ -3,13 +3,10 @@
  * (start, stop, step; the stop is included when the steps land on it). Numbers are taken as written, in
  * the caller's pressure unit; converting them is the caller's business.
  */
-import {
-  affineToCanonical,
-  toCanonicalWith,
-  unitSystemOf,
-  type LookupUnits,
-} from "../lookup";
+import { affineToCanonical, toCanonicalWith } from "../lookup";
+import { outputUnitSystem, type OutputSystem } from "../units";
 import { TableError } from "./errors";
+import { roundSignificant } from "../format";
 
 /** Most rows a table may have (the bubble-point row comes on top). */
 export const MAX_TABLE_ROWS = 10_000;
@@ -157,7 +154,7 @@ function parseRange(text: string): PressureSpec {
   const pressures: number[] = [];
   for (let i = 0; i <= steps; i++) {
     // computed from the start each time (no accumulated rounding), trimmed to the digits of the inputs
-    const p = Number((start + i * step).toPrecision(15));
+    const p = roundSignificant(start + i * step, 15);
     if (pressures.length === 0 || p > pressures[pressures.length - 1]!)
       pressures.push(p);
   }
@@ -170,9 +167,9 @@ function parseRange(text: string): PressureSpec {
  */
 export function tableConditionsToCanonical(
   conditions: { pressures: readonly number[]; temperature: number },
-  units: LookupUnits,
+  units: OutputSystem,
 ): { pressures: number[]; temperature: number } {
-  const system = unitSystemOf(units);
+  const system = outputUnitSystem(units);
   const p = affineToCanonical("pressure", system);
   const t = affineToCanonical("temperature", system);
   return {

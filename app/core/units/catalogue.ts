@@ -34,6 +34,7 @@ import {
   RANKINE_PER_KELVIN,
 } from "./definitions";
 import { UnitError } from "./errors";
+import { formatPrecision } from "../format";
 
 interface UnitSpec {
   /** Display symbol, e.g. "°F", "rm³/sm³", "mPa·s". */
@@ -451,7 +452,7 @@ function assertPhysical(
   if (quantity === "pressure" && canonical < 0) {
     throw new UnitError(
       "NEGATIVE_ABSOLUTE_PRESSURE",
-      `${original} ${unitId} is a negative absolute pressure (${canonical.toPrecision(6)} psia). ` +
+      `${original} ${unitId} is a negative absolute pressure (${formatPrecision(canonical, 6)} psia). ` +
         "Check whether the column is gauge or absolute.",
       { value: original, unit: unitId },
     );

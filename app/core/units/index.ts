@@ -7,5 +7,7 @@ export * from "./errors";
 export * from "./catalogue";
 export * from "./gravity";
 export * from "./standard-conditions";
+export * from "./properties";
 export * from "./unit-systems";
+export * from "./output";
 export * from "./parse-unit-label";

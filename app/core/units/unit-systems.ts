@@ -2,7 +2,7 @@
  * Unit systems: the canonical internal system and two presets for display and import/export
  * (field and metric). Each maps every quantity to one catalogue unit and carries its standard conditions.
  *
- * Property keys used across the app (grids, API, database) and the quantity each one is measured in.
+ * Property keys, names and quantities live in properties.ts.
  */
 import {
   CANONICAL_UNITS,
@@ -11,6 +11,7 @@ import {
   type Quantity,
   type UnitId,
 } from "./catalogue";
+import { PROPERTY_QUANTITIES, type PropertyKey } from "./properties";
 import {
   FIELD_STANDARD_CONDITIONS,
   METRIC_STANDARD_CONDITIONS,
@@ -67,32 +68,6 @@ export const UNIT_SYSTEMS = Object.freeze({
 });
 
 export type UnitSystemId = keyof typeof UNIT_SYSTEMS;
-
-/** Property keys used across the app. */
-export const PROPERTY_KEYS = [
-  "oil_fvf",
-  "solution_gor",
-  "oil_viscosity",
-  "oil_density",
-  "gas_fvf",
-  "gas_viscosity",
-  "z_factor",
-] as const;
-export type PropertyKey = (typeof PROPERTY_KEYS)[number];
-
-export const PROPERTY_QUANTITIES = Object.freeze({
-  oil_fvf: "oil_fvf",
-  solution_gor: "gas_oil_ratio",
-  oil_viscosity: "viscosity",
-  oil_density: "density",
-  gas_fvf: "gas_fvf",
-  gas_viscosity: "viscosity",
-  z_factor: "dimensionless",
-} as const satisfies Record<PropertyKey, Quantity>);
-
-export function isPropertyKey(value: string): value is PropertyKey {
-  return (PROPERTY_KEYS as readonly string[]).includes(value);
-}
 
 /** The unit a property is shown in within a unit system. */
 export function propertyUnit<K extends PropertyKey>(

@@ -1,5 +1,6 @@
 import { and, asc, eq, isNull, lt, ne, or, sql } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
+import type { OutputSystem } from "~/core/units";
 import { sessions, users, type Role } from "../schema";
 import { voidPasswordResetLinks } from "./link-tokens";
 
@@ -63,7 +64,7 @@ export async function createUser(
 
 export async function updateUserProfile(
   id: number,
-  patch: { name?: string; unitSystem?: "field" | "metric" },
+  patch: { name?: string; unitSystem?: OutputSystem },
   db: Executor = getDb(),
 ) {
   await db.update(users).set(patch).where(eq(users.id, id));

@@ -9,13 +9,18 @@ import {
   uniqueIndex,
   varchar,
 } from "drizzle-orm/mysql-core";
+import { API_SCOPES, type ApiScope } from "../../../utils/api-scopes";
+import { OUTPUT_SYSTEMS } from "../../../core/units/output";
+import { ROLES } from "../../../utils/permissions";
 import { createdAt, id, ref, updatedAt } from "./columns";
 
-// Kept in step with app/utils/permissions.ts (schema files import only drizzle-orm and relative paths).
-export const ROLES = ["viewer", "engineer", "lab_lead", "admin"] as const;
-export type Role = (typeof ROLES)[number];
+// Roles and scopes are declared once in app/utils (schema files import only drizzle-orm and relative paths).
+export { API_SCOPES, ROLES };
+export type { ApiScope } from "../../../utils/api-scopes";
+export type { Role } from "../../../utils/permissions";
 
-export const UNIT_SYSTEMS = ["field", "metric"] as const;
+// The unit systems a person may choose, declared once in app/core/units/output.ts.
+export const UNIT_SYSTEMS = OUTPUT_SYSTEMS;
 
 export const users = mysqlTable(
   "users",
@@ -55,9 +60,6 @@ export const sessions = mysqlTable(
     index("sessions_expires_at_idx").on(t.expiresAt),
   ],
 );
-
-export const API_SCOPES = ["tables:read", "lookup"] as const;
-export type ApiScope = (typeof API_SCOPES)[number];
 
 /** A token for simulators and scripts. `id` is the JWT's `jti`; the JWT itself is shown once and never stored. */
 export const apiTokens = mysqlTable(

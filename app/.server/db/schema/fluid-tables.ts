@@ -12,6 +12,16 @@ import {
   varchar,
   char,
 } from "drizzle-orm/mysql-core";
+import {
+  PROPERTY_KEYS,
+  type PropertyKey,
+} from "../../../core/units/properties";
+import {
+  REVISION_STATUSES,
+  SAMPLE_TYPES,
+  type RevisionStatus,
+  type SampleType,
+} from "../../../utils/sample-vocabulary";
 import { users } from "./auth";
 import { createdAt, id, ref, updatedAt } from "./columns";
 
@@ -47,13 +57,9 @@ export const wells = mysqlTable(
   (t) => [uniqueIndex("wells_field_id_name_unique").on(t.fieldId, t.name)],
 );
 
-export const SAMPLE_TYPES = [
-  "bottomhole",
-  "separator_recombined",
-  "wellhead",
-  "formation_tester",
-] as const;
-export type SampleType = (typeof SAMPLE_TYPES)[number];
+// Sample types and revision statuses are declared once in app/utils/sample-vocabulary.ts.
+export { REVISION_STATUSES, SAMPLE_TYPES };
+export type { RevisionStatus, SampleType };
 
 export const samples = mysqlTable(
   "samples",
@@ -87,14 +93,6 @@ export const samples = mysqlTable(
   },
   (t) => [uniqueIndex("samples_well_id_label_unique").on(t.wellId, t.label)],
 );
-
-export const REVISION_STATUSES = [
-  "draft",
-  "approved",
-  "rejected",
-  "superseded",
-] as const;
-export type RevisionStatus = (typeof REVISION_STATUSES)[number];
 
 /** An immutable set of measured grids for one sample. Numbered 1, 2, 3… per sample. */
 export const sampleRevisions = mysqlTable(
@@ -148,16 +146,9 @@ export const revisionBubblePoints = mysqlTable(
   ],
 );
 
-export const PROPERTY_KEYS = [
-  "oil_fvf",
-  "solution_gor",
-  "oil_viscosity",
-  "oil_density",
-  "gas_fvf",
-  "gas_viscosity",
-  "z_factor",
-] as const;
-export type PropertyKey = (typeof PROPERTY_KEYS)[number];
+// Property keys are declared once in the property catalogue (app/core/units/properties.ts).
+export { PROPERTY_KEYS };
+export type { PropertyKey };
 
 /** One property measured on a pressure–temperature grid within a revision. */
 export const propertyGrids = mysqlTable(

@@ -12,7 +12,11 @@ import { massBalanceOilDensity } from "../../properties/oil-density";
 import { saturatedConsistencyTest } from "../../properties/saturated-branch";
 import type { QcCell } from "../types";
 import { cell, samePressure, type QcContext } from "./context";
-import { formatNumber, percent, signedPercent } from "./format";
+import {
+  formatPercent,
+  formatReading,
+  formatSignedPercent,
+} from "../../format";
 import { branchOf } from "./trends";
 
 function standardConditions(ctx: QcContext): StandardConditions {
@@ -115,7 +119,7 @@ export function checkSaturatedConsistency(ctx: QcContext): void {
         "NEGATIVE_TOTAL_COMPRESSIBILITY",
         "error",
         cells,
-        `Between ${ctx.p(lo.pressure, "oil_fvf")} and ${ctx.p(hi.pressure, "oil_fvf")} at ${ctx.t(t, "oil_fvf")}, Bo changes by ${formatNumber(dBo, 3)} rb/STB while Bg·ΔRs is only ${formatNumber(gasTerm, 3)} rb/STB, so the total compressibility would be negative; below the bubble point dBo/dp must be less than Bg·dRs/dp.`,
+        `Between ${ctx.p(lo.pressure, "oil_fvf")} and ${ctx.p(hi.pressure, "oil_fvf")} at ${ctx.t(t, "oil_fvf")}, Bo changes by ${formatReading(dBo, 3)} rb/STB while Bg·ΔRs is only ${formatReading(gasTerm, 3)} rb/STB, so the total compressibility would be negative; below the bubble point dBo/dp must be less than Bg·dRs/dp.`,
       );
     }
   }
@@ -205,7 +209,7 @@ export function checkGasConsistency(ctx: QcContext): void {
         "BG_Z_MISMATCH",
         "warning",
         mismatch.cells,
-        `At ${ctx.t(t, "gas_fvf")}, Bg differs from (psc/Tsc)·zT/p with the given Z by up to ${signedPercent(mismatch.ratio - 1)} (at ${ctx.p(mismatch.p, "gas_fvf")}${mismatch.cells.length > 2 ? `, ${mismatch.cells.length / 2} pressures in all` : ""}); ${slipHint(mismatch.ratio)}.`,
+        `At ${ctx.t(t, "gas_fvf")}, Bg differs from (psc/Tsc)·zT/p with the given Z by up to ${formatSignedPercent(mismatch.ratio - 1)} (at ${ctx.p(mismatch.p, "gas_fvf")}${mismatch.cells.length > 2 ? `, ${mismatch.cells.length / 2} pressures in all` : ""}); ${slipHint(mismatch.ratio)}.`,
       );
     }
     if (implied.cells.length > 0) {
@@ -214,7 +218,7 @@ export function checkGasConsistency(ctx: QcContext): void {
         "BG_IMPLIED_Z",
         "warning",
         implied.cells,
-        `At ${ctx.t(t, "gas_fvf")}, Bg implies Z = ${formatNumber(implied.z, 3)} at ${ctx.p(implied.p, "gas_fvf")}${implied.cells.length > 1 ? ` (${implied.cells.length} values outside 0.3 to 2)` : ""}, outside the plausible 0.3 to 2; ${impliedSlipHint(implied.z)}.`,
+        `At ${ctx.t(t, "gas_fvf")}, Bg implies Z = ${formatReading(implied.z, 3)} at ${ctx.p(implied.p, "gas_fvf")}${implied.cells.length > 1 ? ` (${implied.cells.length} values outside 0.3 to 2)` : ""}, outside the plausible 0.3 to 2; ${impliedSlipHint(implied.z)}.`,
       );
     }
   });
@@ -258,7 +262,7 @@ export function checkDensityMassBalance(ctx: QcContext): void {
       "DENSITY_MASS_BALANCE",
       "warning",
       cells,
-      `At ${ctx.t(t, "oil_density")} and ${ctx.p(worst.p, "oil_density")}, the oil density ${ctx.v("oil_density", worst.measured)} is ${percent(Math.abs(worst.dev))} ${worst.dev > 0 ? "above" : "below"} the mass balance of the stock-tank oil and its dissolved gas (${ctx.v("oil_density", worst.computed)})${cells.length > 1 ? `, and ${cells.length - 1} other value${cells.length > 2 ? "s" : ""} by more than 5 %` : ""}; check the density, Rs, Bo and the sample's API and gas gravities.`,
+      `At ${ctx.t(t, "oil_density")} and ${ctx.p(worst.p, "oil_density")}, the oil density ${ctx.v("oil_density", worst.measured)} is ${formatPercent(Math.abs(worst.dev))} ${worst.dev > 0 ? "above" : "below"} the mass balance of the stock-tank oil and its dissolved gas (${ctx.v("oil_density", worst.computed)})${cells.length > 1 ? `, and ${cells.length - 1} other value${cells.length > 2 ? "s" : ""} by more than 5 %` : ""}; check the density, Rs, Bo and the sample's API and gas gravities.`,
     );
   });
 }

@@ -24,7 +24,7 @@ import type { PropertyKey } from "../../units";
 import { HEADER_LABELS } from "../header-names";
 import type { QcCell, Severity } from "../types";
 import { cell, samePressure, type QcContext } from "./context";
-import { percent, signedPercent } from "./format";
+import { formatPercent, formatSignedPercent } from "../../format";
 
 export const CORRELATION_BANDS = {
   bubblePoint: 0.2,
@@ -108,7 +108,7 @@ export function checkCorrelations(ctx: QcContext): void {
         CORRELATION_BANDS.bubblePoint,
         [cell("bubble_point", pb, t)],
         (d, e) =>
-          `At ${ctx.t(t)} the bubble point ${ctx.p(pb)} departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.p(e)}, Standing or Vasquez–Beggs at Rsb); worth a look, not necessarily wrong.`,
+          `At ${ctx.t(t)} the bubble point ${ctx.p(pb)} departs by ${formatSignedPercent(d)} from the closest correlation estimate (${ctx.p(e)}, Standing or Vasquez–Beggs at Rsb); worth a look, not necessarily wrong.`,
       );
     }
     const bob = ctx.valueAt("oil_fvf", pb, t);
@@ -123,7 +123,7 @@ export function checkCorrelations(ctx: QcContext): void {
         CORRELATION_BANDS.oilFvf,
         [cell("oil_fvf", pb, t)],
         (d, e) =>
-          `At ${ctx.t(t, "oil_fvf")} Bo at the bubble point (${ctx.v("oil_fvf", bob)}) departs by ${signedPercent(d)} from the closest correlation estimate (${ctx.v("oil_fvf", e)}, Standing or Vasquez–Beggs); worth a look, not necessarily wrong.`,
+          `At ${ctx.t(t, "oil_fvf")} Bo at the bubble point (${ctx.v("oil_fvf", bob)}) departs by ${formatSignedPercent(d)} from the closest correlation estimate (${ctx.v("oil_fvf", e)}, Standing or Vasquez–Beggs); worth a look, not necessarily wrong.`,
       );
     }
     const mub = ctx.valueAt("oil_viscosity", pb, t);
@@ -135,7 +135,7 @@ export function checkCorrelations(ctx: QcContext): void {
         CORRELATION_BANDS.oilViscosity,
         [cell("oil_viscosity", pb, t)],
         (d, e) =>
-          `At ${ctx.t(t, "oil_viscosity")} the oil viscosity at the bubble point (${ctx.v("oil_viscosity", mub)}) departs by ${signedPercent(d)} from the Beggs–Robinson estimate (${ctx.v("oil_viscosity", e)}); correlation errors this large are common, so this is worth a look only.`,
+          `At ${ctx.t(t, "oil_viscosity")} the oil viscosity at the bubble point (${ctx.v("oil_viscosity", mub)}) departs by ${formatSignedPercent(d)} from the Beggs–Robinson estimate (${ctx.v("oil_viscosity", e)}); correlation errors this large are common, so this is worth a look only.`,
       );
     }
   }
@@ -211,7 +211,7 @@ export function checkCorrelations(ctx: QcContext): void {
           "CORRELATION_DEPARTURE",
           severity,
           g.cells,
-          `At ${ctx.t(t, key)} the ${HEADER_LABELS[key]} departs from ${method} by up to ${signedPercent(g.worst)} (${ctx.v(key, g.measured)} against ${ctx.v(key, g.estimate)} at ${ctx.p(g.p, key)}${g.cells.length > 1 ? `; ${g.cells.length} values beyond ${percent(severity === "warning" ? 2 * band : band)}` : ""}); check the gas gravity of the sample, or the values.`,
+          `At ${ctx.t(t, key)} the ${HEADER_LABELS[key]} departs from ${method} by up to ${formatSignedPercent(g.worst)} (${ctx.v(key, g.measured)} against ${ctx.v(key, g.estimate)} at ${ctx.p(g.p, key)}${g.cells.length > 1 ? `; ${g.cells.length} values beyond ${formatPercent(severity === "warning" ? 2 * band : band)}` : ""}); check the gas gravity of the sample, or the values.`,
         );
       }
     });

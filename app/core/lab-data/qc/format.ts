@@ -1,6 +1,8 @@
 /**
- * Numbers in QC messages, shown in the units the file used (values are canonical inside).
+ * Numbers in QC messages, shown in the units the file used (values are canonical inside). The digits follow
+ * the reading format of app/core/format.
  */
+import { formatReading, formatReadingPair } from "../../format";
 import {
   fromCanonical,
   getUnit,
@@ -8,29 +10,6 @@ import {
   type UnitId,
 } from "../../units";
 import type { UnitRef } from "../types";
-
-/** x with `digits` significant digits, trailing zeros dropped; exponent only for very large or small x. */
-export function formatNumber(x: number, digits = 4): string {
-  if (!Number.isFinite(x)) return String(x);
-  if (x === 0) return "0";
-  const abs = Math.abs(x);
-  if (abs >= 1e7 || abs < 1e-4)
-    return x.toExponential(Math.max(0, digits - 1)).replace(/\.?0+e/, "e");
-  const magnitude = Math.floor(Math.log10(abs));
-  const decimals = Math.max(0, digits - 1 - magnitude);
-  const text = x.toFixed(Math.min(decimals, 12));
-  return text.includes(".") ? text.replace(/\.?0+$/, "") : text;
-}
-
-/** Two numbers with just enough digits to tell them apart (4 to 10 significant digits). */
-export function formatPair(a: number, b: number): [string, string] {
-  for (let d = 4; d <= 10; d++) {
-    const fa = formatNumber(a, d);
-    const fb = formatNumber(b, d);
-    if (fa !== fb) return [fa, fb];
-  }
-  return [formatNumber(a, 10), formatNumber(b, 10)];
-}
 
 export const CANONICAL_REFS: Readonly<
   Record<"pressure" | "temperature", UnitRef>
@@ -74,7 +53,7 @@ export function withUnit(
   digits = 4,
 ): string {
   const d = toDisplay(value, ref, barometricPsia);
-  const text = formatNumber(d.value, digits);
+  const text = formatReading(d.value, digits);
   return d.symbol === "" || d.symbol === "–" ? text : `${text} ${d.symbol}`;
 }
 
@@ -87,17 +66,7 @@ export function pairWithUnit(
 ): [string, string] {
   const da = toDisplay(a, ref, barometricPsia);
   const db = toDisplay(b, ref, barometricPsia);
-  const [fa, fb] = formatPair(da.value, db.value);
+  const [fa, fb] = formatReadingPair(da.value, db.value);
   const suffix = da.symbol === "" || da.symbol === "–" ? "" : ` ${da.symbol}`;
   return [`${fa}${suffix}`, `${fb}${suffix}`];
-}
-
-export function percent(fraction: number): string {
-  return `${formatNumber(fraction * 100, 2)} %`;
-}
-
-/** "+12 %" or "−7.5 %". */
-export function signedPercent(fraction: number): string {
-  const text = formatNumber(Math.abs(fraction) * 100, 2);
-  return `${fraction < 0 ? "−" : "+"}${text} %`;
 }

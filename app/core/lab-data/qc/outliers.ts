@@ -12,7 +12,7 @@ import {
   RECIPROCAL,
   type Transform,
 } from "./local-fit";
-import { percent } from "./format";
+import { formatPercent } from "../../format";
 import { branchOf } from "./trends";
 
 interface OutlierSpec {
@@ -115,7 +115,7 @@ export function checkOutliers(ctx: QcContext): void {
             "OUTLIER",
             "warning",
             [cell(key, pt.pressure, t)],
-            `At ${ctx.p(pt.pressure, key)} and ${ctx.t(t, key)}, the ${HEADER_LABELS[key]} ${ctx.v(key, pt.value)} stands ${percent(Math.abs(o.deviation))} ${o.deviation > 0 ? "above" : "below"} a smooth curve through its neighbours (about ${ctx.v(key, o.expected)}); check the reading or its transcription.`,
+            `At ${ctx.p(pt.pressure, key)} and ${ctx.t(t, key)}, the ${HEADER_LABELS[key]} ${ctx.v(key, pt.value)} stands ${formatPercent(Math.abs(o.deviation))} ${o.deviation > 0 ? "above" : "below"} a smooth curve through its neighbours (about ${ctx.v(key, o.expected)}); check the reading or its transcription.`,
           );
         }
       }

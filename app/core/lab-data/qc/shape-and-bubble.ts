@@ -16,7 +16,7 @@ import {
   TEMPERATURE_TOLERANCE,
   type BubbleAt,
 } from "./context";
-import { formatNumber } from "./format";
+import { formatReading } from "../../format";
 
 function isFiniteNumber(x: unknown): x is number {
   return typeof x === "number" && Number.isFinite(x);
@@ -207,7 +207,7 @@ function inferBubblePoint(
             pressure: start.pressure,
             origin: "inferred",
           },
-          message: `No bubble point is stated at ${ctx.t(t)}; ${ctx.p(start.pressure)} was inferred from where Rs stops rising (${formatNumber(max)} scf/STB) and used to split the branches.`,
+          message: `No bubble point is stated at ${ctx.t(t)}; ${ctx.p(start.pressure)} was inferred from where Rs stops rising (${formatReading(max)} scf/STB) and used to split the branches.`,
         };
       }
       if (start === last) {

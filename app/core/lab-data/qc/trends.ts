@@ -5,7 +5,7 @@
  *   gas-viscosity-rising,
  *   oil-viscosity-temperature, bubble-point-temperature, undersaturated-compressibility.
  */
-import type { PropertyKey } from "../../units";
+import { PROPERTIES, type PropertyKey } from "../../units";
 import type { QcCell, QcFindingCode, Severity } from "../types";
 import {
   cell,
@@ -15,7 +15,8 @@ import {
   type Point,
   type QcContext,
 } from "./context";
-import { formatNumber, pairWithUnit } from "./format";
+import { formatReading } from "../../format";
+import { pairWithUnit } from "./format";
 import type { RuleId } from "./rules";
 
 /** Points at or below pb (saturated) or at or above pb (undersaturated). */
@@ -124,16 +125,6 @@ const TREND_RULES: readonly TrendRule[] = [
   },
 ];
 
-const SHORT: Readonly<Record<PropertyKey, string>> = {
-  oil_fvf: "Bo",
-  solution_gor: "Rs",
-  oil_viscosity: "the oil viscosity",
-  oil_density: "the oil density",
-  gas_fvf: "Bg",
-  gas_viscosity: "the gas viscosity",
-  z_factor: "Z",
-};
-
 export function checkPressureTrends(ctx: QcContext): void {
   for (const t of ctx.temperatures) {
     const bubble = ctx.bubbleAt(t);
@@ -166,7 +157,7 @@ export function checkPressureTrends(ctx: QcContext): void {
           r.code,
           r.severity,
           [cell(r.property, a.pressure, t), cell(r.property, b.pressure, t)],
-          `Between ${ctx.p(a.pressure, r.property)} and ${ctx.p(b.pressure, r.property)} at ${ctx.t(t, r.property)}, ${SHORT[r.property]} ${delta < 0 ? "falls" : "rises"} from ${va} to ${vb}; ${r.expectation}${where}.`,
+          `Between ${ctx.p(a.pressure, r.property)} and ${ctx.p(b.pressure, r.property)} at ${ctx.t(t, r.property)}, ${PROPERTIES[r.property].subject} ${delta < 0 ? "falls" : "rises"} from ${va} to ${vb}; ${r.expectation}${where}.`,
         );
       }
     }
@@ -245,7 +236,7 @@ function checkUndersaturatedCompressibility(
       "UNDERSATURATED_COMPRESSIBILITY",
       "warning",
       [cell("oil_fvf", a.pressure, t), cell("oil_fvf", b.pressure, t)],
-      `Between ${ctx.p(a.pressure, "oil_fvf")} and ${ctx.p(b.pressure, "oil_fvf")} at ${ctx.t(t, "oil_fvf")}, Bo implies an oil compressibility of ${formatNumber(co * 1e6, 3)} × 10⁻⁶ 1/psi, outside the usual 2 to 60 × 10⁻⁶ 1/psi above the bubble point.`,
+      `Between ${ctx.p(a.pressure, "oil_fvf")} and ${ctx.p(b.pressure, "oil_fvf")} at ${ctx.t(t, "oil_fvf")}, Bo implies an oil compressibility of ${formatReading(co * 1e6, 3)} × 10⁻⁶ 1/psi, outside the usual 2 to 60 × 10⁻⁶ 1/psi above the bubble point.`,
     );
   }
 }

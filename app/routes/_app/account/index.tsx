@@ -2,10 +2,12 @@ import { Form, useNavigation } from "react-router";
 import { changePassword } from "~/.server/auth/accounts";
 import { getCaller, requireUser } from "~/.server/auth/guards";
 import { updateUserProfile } from "~/.server/db/queries/users";
-import { badRequest, parseForm, readFormData } from "~/.server/forms";
+import { badRequest, parseFormData, readFormData } from "~/.server/forms";
+import { readIntent } from "~/utils/forms";
 import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { ChangePasswordSchema, ProfileSchema } from "~/utils/auth-schemas";
+import { OUTPUT_SYSTEMS } from "~/core/units";
 import { ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -20,9 +22,10 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const user = requireUser(args);
   const caller = getCaller(args);
-  const intent = (await readFormData(args.request.clone())).get("intent");
+  const formData = await readFormData(args.request);
+  const intent = readIntent(formData);
   if (intent === "profile") {
-    const form = await parseForm(args.request, ProfileSchema);
+    const form = parseFormData(formData, ProfileSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
     await updateUserProfile(user.id, {
       name: form.data.name,
@@ -30,7 +33,7 @@ export async function action(args: Route.ActionArgs) {
     });
     return { errors: {}, intent, saved: "Your details are saved." };
   }
-  const form = await parseForm(args.request, ChangePasswordSchema);
+  const form = parseFormData(formData, ChangePasswordSchema);
   if (!form.ok) return badRequest({ errors: form.errors, intent: "password" });
   const result = await changePassword({
     userId: user.id,
@@ -97,7 +100,7 @@ export default function Account({
                 Units for lookups and tables
               </legend>
               <div className="mt-1 flex gap-4 text-sm">
-                {(["field", "metric"] as const).map((system) => (
+                {OUTPUT_SYSTEMS.map((system) => (
                   <label key={system} className="flex items-center gap-2">
                     <input
                       type="radio"

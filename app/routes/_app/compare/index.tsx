@@ -7,7 +7,6 @@ import {
   getRevisionData,
   resolveRevision,
 } from "~/.server/samples/revision-data";
-import { unitLabel } from "~/.server/api/units";
 import { PageHeader } from "~/components/page-header";
 import { EstimateCaution } from "~/components/estimate-caution";
 import { Button } from "~/components/form";
@@ -20,15 +19,23 @@ import {
   type QueryPoint,
 } from "~/components/plots";
 import {
-  describeWarningCode,
-  isLookupWarning,
-  PROPERTY_NAMES,
-} from "~/core/lookup";
+  formatCompared,
+  formatDifference,
+  formatErrorEstimate,
+  formatPlain,
+  formatPressure,
+  formatSignificant,
+  formatTemperature,
+} from "~/core/format";
+import { describeWarningCode, isLookupWarning } from "~/core/lookup";
 import {
   convertBetweenSystems,
-  FIELD_UNIT_SYSTEM,
-  METRIC_UNIT_SYSTEM,
+  OUTPUT_SYSTEMS,
+  outputUnitSystem,
+  PROPERTIES,
   PROPERTY_KEYS,
+  unitLabel,
+  type OutputSystem,
   type PropertyKey,
 } from "~/core/units";
 import { parseConditionList, type Condition } from "~/utils/conditions";
@@ -38,17 +45,6 @@ import type { Route } from "./+types/index";
 const MAX_SAMPLES = 4;
 const MAX_TABLE_CONDITIONS = 50;
 const DEFAULT_THRESHOLD_PERCENT = 5;
-
-/** Short names for axes and column headers. */
-const SHORT_NAMES: Record<PropertyKey, string> = {
-  oil_fvf: "Bo",
-  solution_gor: "Rs",
-  oil_viscosity: "Oil viscosity",
-  oil_density: "Oil density",
-  gas_fvf: "Bg",
-  gas_viscosity: "Gas viscosity",
-  z_factor: "z",
-};
 
 /**
  * The query string: ?samples=1,2 (or samples=1&samples=2)&property=oil_fvf&units=field&view=side-by-side. Bad values
@@ -67,7 +63,7 @@ const CompareQuery = z.object({
         .slice(0, MAX_SAMPLES),
     ),
   property: z.enum(PROPERTY_KEYS).catch("oil_fvf"),
-  units: z.enum(["field", "metric"]).optional().catch(undefined),
+  units: z.enum(OUTPUT_SYSTEMS).optional().catch(undefined),
   view: z.enum(["overlaid", "side-by-side"]).catch("overlaid"),
 });
 
@@ -271,7 +267,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
   const matches = (s: (typeof samples)[number]) =>
     !needle || `${s.label} ${s.field} ${s.well}`.toLowerCase().includes(needle);
   const matchCount = samples.filter(matches).length;
-  const propertyName = SHORT_NAMES[property];
+  const propertyName = PROPERTIES[property].short;
   const missing = selected.filter((s) => s.grid === null);
 
   return (
@@ -378,7 +374,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
             >
               {PROPERTY_KEYS.map((key) => (
                 <option key={key} value={key}>
-                  {capitalise(PROPERTY_NAMES[key])}
+                  {capitalise(PROPERTIES[key].phrase)}
                 </option>
               ))}
             </select>
@@ -386,7 +382,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
           <fieldset>
             <legend className="text-sm font-semibold">Units</legend>
             <div className="mt-1 flex gap-4 text-sm">
-              {(["field", "metric"] as const).map((system) => (
+              {OUTPUT_SYSTEMS.map((system) => (
                 <label key={system} className="flex items-center gap-2">
                   <input
                     type="radio"
@@ -420,7 +416,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         <p className="mb-4 rounded border border-caution/30 bg-caution-soft px-3 py-2 text-sm text-caution">
           {missing.map((s) => s.label).join(", ")}:{" "}
           {missing.length === 1 ? "has" : "have"} no approved{" "}
-          {PROPERTY_NAMES[property]} grid, so{" "}
+          {PROPERTIES[property].phrase} grid, so{" "}
           {missing.length === 1 ? "it is" : "they are"} left out below.
         </p>
       ) : null}
@@ -828,9 +824,9 @@ function ValueCell({
       className="px-3 py-2 text-right align-top tabular-nums"
       data-testid="compare-value"
     >
-      <span className="font-semibold">{formatValue(cell.value)}</span>
+      <span className="font-semibold">{formatCompared(cell.value)}</span>
       <span className="block text-xs whitespace-nowrap text-ink-muted">
-        ± {formatError(cell.errorEstimate)}
+        ± {formatErrorEstimate(cell.errorEstimate)}
       </span>
       {cell.outsideRange || flags.length > 0 ? (
         <span className="mt-0.5 flex flex-wrap justify-end gap-1">
@@ -906,7 +902,7 @@ function DifferenceCell({
           ▲
         </span>
       ) : null}
-      {formatPercent(pct)}
+      {formatDifference(pct)}
       {exceeds ? (
         <span className="sr-only"> (beyond the threshold)</span>
       ) : null}
@@ -926,7 +922,7 @@ function useCompareLookups(
     revision: number;
   })[],
   property: PropertyKey,
-  system: "field" | "metric",
+  system: OutputSystem,
   conditions: Condition[],
   extrapolate: boolean,
 ): LookupState {
@@ -1014,7 +1010,7 @@ type Problem = {
 async function lookupSample(
   sample: Selected & { grid: NonNullable<Selected["grid"]>; revision: number },
   property: PropertyKey,
-  system: "field" | "metric",
+  system: OutputSystem,
   conditions: Condition[],
   extrapolate: boolean,
   signal: AbortSignal,
@@ -1104,7 +1100,7 @@ function defaultConditionsText(data: LoaderData): string {
       info.reservoirTemperature === null
     )
       continue;
-    const line = `${Number(info.reservoirPressure.toPrecision(4))}, ${Number(info.reservoirTemperature.toPrecision(4))}`;
+    const line = `${formatSignificant(info.reservoirPressure, 4)}, ${formatSignificant(info.reservoirTemperature, 4)}`;
     if (!pairs.includes(line)) pairs.push(line);
   }
   return pairs.join("\n");
@@ -1112,59 +1108,28 @@ function defaultConditionsText(data: LoaderData): string {
 
 function convertConditionsText(
   text: string,
-  from: "field" | "metric",
-  to: "field" | "metric",
+  from: OutputSystem,
+  to: OutputSystem,
 ): string {
   const parsed = parseConditionList(text);
   if (!parsed.ok || from === to) return text;
-  const systems = { field: FIELD_UNIT_SYSTEM, metric: METRIC_UNIT_SYSTEM };
   return parsed.conditions
     .map((c) => {
       const p = convertBetweenSystems(
         c.pressure,
         "pressure",
-        systems[from],
-        systems[to],
+        outputUnitSystem(from),
+        outputUnitSystem(to),
       );
       const t = convertBetweenSystems(
         c.temperature,
         "temperature",
-        systems[from],
-        systems[to],
+        outputUnitSystem(from),
+        outputUnitSystem(to),
       );
-      return `${formatPlain(Number(p.toPrecision(5)))}, ${formatPlain(Number(t.toPrecision(4)))}`;
+      return `${formatPressure(p)}, ${formatTemperature(t)}`;
     })
     .join("\n");
-}
-
-function formatPlain(v: number): string {
-  return String(Number(v.toPrecision(6)));
-}
-
-function formatValue(v: number): string {
-  if (!Number.isFinite(v)) return "—";
-  if (v === 0) return "0";
-  const abs = Math.abs(v);
-  if (abs < 1e-4 || abs >= 1e7) return v.toExponential(3);
-  return Number(v.toPrecision(5)).toLocaleString("en-US", {
-    maximumFractionDigits: 8,
-  });
-}
-
-/** An error estimate: two significant digits are all it carries. */
-function formatError(v: number): string {
-  if (!Number.isFinite(v)) return "—";
-  if (v === 0) return "0";
-  return Math.abs(v) < 1e-4 || Math.abs(v) >= 1e7
-    ? v.toExponential(1)
-    : String(Number(v.toPrecision(2)));
-}
-
-function formatPercent(pct: number): string {
-  const abs = Math.abs(pct);
-  const text =
-    abs >= 100 ? pct.toFixed(0) : abs >= 10 ? pct.toFixed(1) : pct.toFixed(2);
-  return `${pct > 0 ? "+" : pct < 0 ? "−" : ""}${text.replace("-", "")} %`;
 }
 
 function capitalise(s: string): string {

@@ -3,7 +3,15 @@ import { Form, useFetcher, useSearchParams } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
 import { listSamplesForCaller } from "~/.server/api/samples";
-import { fromInputPressure, fromInputTemperature } from "~/.server/api/units";
+import {
+  fromInputPressure,
+  fromInputTemperature,
+  OUTPUT_SYSTEMS,
+  type OutputSystem,
+  PROPERTIES,
+  PROPERTY_KEYS,
+  type PropertyKey,
+} from "~/core/units";
 import {
   createLookupSet,
   deleteLookupSet,
@@ -24,8 +32,6 @@ import {
 } from "~/components/lookup/results-table";
 import { PageHeader } from "~/components/page-header";
 import type { Grid, Method } from "~/core/interpolation";
-import { PROPERTY_NAMES } from "~/core/lookup";
-import { PROPERTY_KEYS, type PropertyKey } from "~/core/units";
 import {
   depletionPath,
   parseConditionList,
@@ -33,6 +39,7 @@ import {
   type Condition,
 } from "~/utils/conditions";
 import { labelSchema } from "~/utils/labels";
+import { readIntent } from "~/utils/forms";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -48,7 +55,7 @@ const SaveSetSchema = z.object({
   ),
   sampleId: z.coerce.number().int().positive(),
   properties: z.array(z.enum(PROPERTY_KEYS)).min(1),
-  units: z.enum(["field", "metric"]),
+  units: z.enum(OUTPUT_SYSTEMS),
   method: z.enum(["auto", "newton", "pchip", "linear"]),
   degree: z
     .tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])
@@ -82,10 +89,10 @@ export async function action(args: Route.ActionArgs) {
   const payload: unknown = contentType.includes("application/json")
     ? await readJsonBody(args.request)
     : Object.fromEntries(await readFormData(args.request));
-  const intent = (payload as { intent?: unknown }).intent;
+  const intent = readIntent(payload as Record<string, unknown>);
   if (intent === "units") {
     const units = z
-      .enum(["field", "metric"])
+      .enum(OUTPUT_SYSTEMS)
       .safeParse((payload as { units?: unknown }).units);
     if (!units.success)
       return badRequest({ errors: { units: ["Choose field or metric."] } });
@@ -168,7 +175,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   });
   const [method, setMethod] = useState<"auto" | Method>("auto");
   const [degree, setDegree] = useState<[number, number]>([3, 3]);
-  const [units, setUnits] = useState<"field" | "metric">(user.unitSystem);
+  const [units, setUnits] = useState<OutputSystem>(user.unitSystem);
   const [extrapolate, setExtrapolate] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [running, setRunning] = useState(false);
@@ -176,7 +183,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     conditions: Condition[];
     runs: PropertyRun[];
     sampleId: number;
-    units: "field" | "metric";
+    units: OutputSystem;
     method: string;
     serverMs: number;
   } | null>(null);
@@ -198,7 +205,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   const pressureUnit = units === "field" ? "psia" : "bara";
   const temperatureUnit = units === "field" ? "°F" : "°C";
 
-  function changeUnits(next: "field" | "metric") {
+  function changeUnits(next: OutputSystem) {
     setUnits(next);
     setRun(null);
     setExplain(null);
@@ -303,7 +310,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   /** The measured grids of a revision in the units on screen, fetched once per sample, units and revision. */
   function loadGrids(
     id: number,
-    system: "field" | "metric",
+    system: OutputSystem,
     revision: number,
   ): Promise<GridPayload> {
     const key = `${id}:${system}:${revision}`;
@@ -334,7 +341,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     const grid = data.grids.find((g) => g.property === property);
     if (!grid) return;
     setExplain({
-      propertyName: PROPERTY_NAMES[property],
+      propertyName: PROPERTIES[property].phrase,
       grid,
       point: condition,
       method: result.method as Method,
@@ -490,7 +497,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
                     )
                   }
                 />
-                {PROPERTY_NAMES[p]}
+                {PROPERTIES[p].phrase}
               </label>
             ))}
           </div>

@@ -1,22 +1,18 @@
 import { Form, href, Link } from "react-router";
 import { z } from "zod";
-import {
-  toOutputPressure,
-  toOutputTemperature,
-  unitLabel,
-} from "~/.server/api/units";
+import { toOutputPressure, toOutputTemperature, unitLabel } from "~/core/units";
 import { requirePermission } from "~/.server/auth/guards";
 import { searchSamples } from "~/.server/db/queries/samples";
 import { Button } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { formatValue } from "~/components/samples/format";
+import { formatMeasured, roundSignificant } from "~/core/format";
 import {
   SAMPLE_SORTS,
   SAMPLE_STATUS_FILTERS,
   SAMPLE_TYPE_LABELS,
   type SampleSort,
 } from "~/components/samples/labels";
-import { SAMPLE_TYPES } from "~/components/samples/sample-form";
+import { SAMPLE_TYPES } from "~/utils/sample-vocabulary";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -271,13 +267,13 @@ export default function Samples({ loaderData }: Route.ComponentProps) {
                 <td className="px-3 py-2 text-right tabular-nums">
                   {s.reservoirPressure === null
                     ? "—"
-                    : formatValue(Number(s.reservoirPressure.toPrecision(5)))}
+                    : formatMeasured(roundSignificant(s.reservoirPressure, 5))}
                 </td>
                 <td className="px-3 py-2 text-right tabular-nums">
                   {s.reservoirTemperature === null
                     ? "—"
-                    : formatValue(
-                        Number(s.reservoirTemperature.toPrecision(5)),
+                    : formatMeasured(
+                        roundSignificant(s.reservoirTemperature, 5),
                       )}
                 </td>
                 <td className="px-3 py-2 text-right tabular-nums">

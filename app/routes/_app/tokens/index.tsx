@@ -14,6 +14,7 @@ import { Button, FieldError, FormAlert, TextField } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import { API_SCOPE_RULES, API_SCOPES, SCOPE_LABELS } from "~/utils/api-scopes";
 import { labelSchema } from "~/utils/labels";
+import { fieldErrorsOf, readIntent } from "~/utils/forms";
 import { ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -65,7 +66,7 @@ export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "read:samples");
   const { ipAddress } = getCaller(args);
   const form = await readFormData(args.request);
-  if (form.get("intent") === "revoke") {
+  if (readIntent(form) === "revoke") {
     const parsed = RevokeSchema.safeParse(Object.fromEntries(form));
     if (!parsed.success)
       return badRequest({
@@ -100,12 +101,8 @@ export async function action(args: Route.ActionArgs) {
     sampleIds: form.getAll("sampleIds"),
     expiresInDays: form.get("expiresInDays"),
   });
-  if (!parsed.success) {
-    const errors: Record<string, string[]> = {};
-    for (const issue of parsed.error.issues)
-      (errors[String(issue.path[0])] ??= []).push(issue.message);
-    return badRequest({ errors });
-  }
+  if (!parsed.success)
+    return badRequest({ errors: fieldErrorsOf(parsed.error.issues) });
   const { name, scopes, fieldIds, sampleIds, expiresInDays } = parsed.data;
   const issued = await issueApiToken({
     userId: user.id,

@@ -7,7 +7,8 @@ import {
   type PeopleOutcome,
 } from "~/.server/auth/people";
 import { listUsers } from "~/.server/db/queries/users";
-import { badRequest, parseForm, readFormData } from "~/.server/forms";
+import { badRequest, parseFormData, readFormData } from "~/.server/forms";
+import { readIntent } from "~/utils/forms";
 import {
   Button,
   FieldError,
@@ -34,12 +35,11 @@ export async function loader(args: Route.LoaderArgs) {
 export async function action(args: Route.ActionArgs) {
   const me = requirePermission(args, "manage:people");
   const { ipAddress } = getCaller(args);
-  const intent = String(
-    (await readFormData(args.request.clone())).get("intent") ?? "",
-  );
+  const formData = await readFormData(args.request);
+  const intent = readIntent(formData);
 
   if (intent === "invite") {
-    const form = await parseForm(args.request, InviteSchema);
+    const form = parseFormData(formData, InviteSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
     const invited = await inviteUser({
       inviterId: me.id,
@@ -61,7 +61,7 @@ export async function action(args: Route.ActionArgs) {
   }
 
   if (intent === "role") {
-    const form = await parseForm(args.request, ChangeRoleSchema);
+    const form = parseFormData(formData, ChangeRoleSchema);
     if (!form.ok) return badRequest({ errors: form.errors, intent });
     const { userId, role } = form.data;
     return answer(
@@ -70,7 +70,7 @@ export async function action(args: Route.ActionArgs) {
     );
   }
 
-  const form = await parseForm(args.request, SetDisabledSchema);
+  const form = parseFormData(formData, SetDisabledSchema);
   if (!form.ok) return badRequest({ errors: form.errors, intent });
   const disabled = form.data.intent === "disable";
   return answer(

@@ -4,9 +4,9 @@ import { invariantResponse } from "~/.server/http";
 import { getLookupSetPage, runLookupSet } from "~/.server/lookup/sets";
 import { Button, FormAlert } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { PROPERTY_NAMES } from "~/core/lookup";
-import type { PropertyKey } from "~/core/units";
+import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Route } from "./+types/$setId";
+import { formatDecimals, formatPlain, formatPrecision } from "~/core/format";
 
 export const meta: Route.MetaFunction = () => [
   { title: "Lookup set · Isopleth" },
@@ -40,7 +40,9 @@ export default function LookupSetRuns({
     <>
       <PageHeader title={`Lookup set: ${set.name}`}>
         {sampleLabel} · {set.conditions.length} conditions ·{" "}
-        {set.properties.map((p) => PROPERTY_NAMES[p as PropertyKey]).join(", ")}{" "}
+        {set.properties
+          .map((p) => PROPERTIES[p as PropertyKey].phrase)
+          .join(", ")}{" "}
         · method {set.method}. Each run records the revision and method used;
         values in field units (psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³).
       </PageHeader>
@@ -96,7 +98,7 @@ export default function LookupSetRuns({
                   <th className="px-3 py-2 text-right font-semibold">T (°F)</th>
                   {Object.keys(latest.results).map((p) => (
                     <th key={p} className="px-3 py-2 text-right font-semibold">
-                      {PROPERTY_NAMES[p as PropertyKey]}
+                      {PROPERTIES[p as PropertyKey].phrase}
                     </th>
                   ))}
                 </tr>
@@ -105,10 +107,10 @@ export default function LookupSetRuns({
                 {set.conditions.map((c, i) => (
                   <tr key={i} className="border-t border-line">
                     <td className="px-3 py-1 text-right">
-                      {c.pressurePsia.toPrecision(6)}
+                      {formatPrecision(c.pressurePsia, 6)}
                     </td>
                     <td className="px-3 py-1 text-right">
-                      {c.temperatureF.toPrecision(5)}
+                      {formatPrecision(c.temperatureF, 5)}
                     </td>
                     {Object.entries(latest.results).map(([p, values]) => {
                       const now = values[i]?.value;
@@ -121,13 +123,13 @@ export default function LookupSetRuns({
                         <td key={p} className="px-3 py-1 text-right">
                           {now === undefined || now === null
                             ? "—"
-                            : Number(now.toPrecision(6))}
+                            : formatPlain(now)}
                           {change !== null ? (
                             <span
                               className={`ml-2 text-xs ${Math.abs(change) > 1 ? "text-caution" : "text-ink-muted"}`}
                             >
                               {change >= 0 ? "+" : ""}
-                              {change.toFixed(2)} %
+                              {formatDecimals(change, 2)} %
                             </span>
                           ) : null}
                         </td>

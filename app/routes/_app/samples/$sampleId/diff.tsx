@@ -1,10 +1,12 @@
 import { Form, href, Link } from "react-router";
 import {
+  PROPERTIES,
+  type PropertyKey,
   toOutputPressure,
   toOutputTemperature,
   toOutputValue,
   unitLabel,
-} from "~/.server/api/units";
+} from "~/core/units";
 import { requirePermission } from "~/.server/auth/guards";
 import {
   getRevisionsForDiff,
@@ -13,12 +15,8 @@ import {
 import { diffRevisions, type CellDiff } from "~/.server/samples/diff";
 import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
 import { Button } from "~/components/form";
-import { formatChange, formatValue } from "~/components/samples/format";
-import {
-  PROPERTY_LABELS,
-  REVISION_STATUS_LABELS,
-} from "~/components/samples/labels";
-import type { PropertyKey } from "~/core/units";
+import { formatChange, formatMeasured, roundSignificant } from "~/core/format";
+import { REVISION_STATUS_LABELS } from "~/components/samples/labels";
 import type { Route } from "./+types/diff";
 
 export const meta: Route.MetaFunction = ({ data }) => [
@@ -63,15 +61,15 @@ export async function loader(args: Route.LoaderArgs) {
 
   function present(diff: ReturnType<typeof diffRevisions>) {
     const p = (v: number | null) =>
-      v === null ? null : Number(toOutputPressure(v, system).toPrecision(10));
+      v === null ? null : roundSignificant(toOutputPressure(v, system), 10);
     const value = (c: CellDiff, v: number | null) =>
       v === null
         ? null
-        : Number(
-            (c.property === "bubble_point"
+        : roundSignificant(
+            c.property === "bubble_point"
               ? toOutputPressure(v, system)
-              : toOutputValue(v, c.property, system)
-            ).toPrecision(10),
+              : toOutputValue(v, c.property, system),
+            10,
           );
     const row = (c: CellDiff) => ({
       property: c.property,
@@ -80,8 +78,9 @@ export async function loader(args: Route.LoaderArgs) {
           ? unitLabel(system, "pressure")
           : unitLabel(system, c.property),
       pressure: p(c.pressurePsia),
-      temperature: Number(
-        toOutputTemperature(c.temperatureF, system).toPrecision(10),
+      temperature: roundSignificant(
+        toOutputTemperature(c.temperatureF, system),
+        10,
       ),
       from: value(c, c.from),
       to: value(c, c.to),
@@ -143,7 +142,7 @@ type Row = {
 function propertyName(property: Row["property"]): string {
   return property === "bubble_point"
     ? "Bubble point"
-    : `${PROPERTY_LABELS[property].name} (${PROPERTY_LABELS[property].symbol})`;
+    : `${PROPERTIES[property].name} (${PROPERTIES[property].symbol})`;
 }
 
 function unitText(unit: string) {
@@ -231,19 +230,19 @@ function CellTable({
                   <tr key={k} className="border-t border-line">
                     <td className="px-3 py-1.5">{propertyName(r.property)}</td>
                     <td className="px-3 py-1.5 text-right tabular-nums">
-                      {formatValue(r.temperature)}
+                      {formatMeasured(r.temperature)}
                     </td>
                     <td className="px-3 py-1.5 text-right tabular-nums">
-                      {r.pressure === null ? "—" : formatValue(r.pressure)}
+                      {r.pressure === null ? "—" : formatMeasured(r.pressure)}
                     </td>
                     {kind !== "added" ? (
                       <td className="px-3 py-1.5 text-right tabular-nums">
-                        {formatValue(r.from)}
+                        {formatMeasured(r.from)}
                       </td>
                     ) : null}
                     {kind !== "removed" ? (
                       <td className="px-3 py-1.5 text-right tabular-nums">
-                        {formatValue(r.to)}
+                        {formatMeasured(r.to)}
                       </td>
                     ) : null}
                     <td className="px-3 py-1.5 text-ink-muted">

@@ -1,10 +1,11 @@
 import { Form, href, Link, useNavigation, useSearchParams } from "react-router";
 import { z } from "zod";
 import {
+  METRE_PER_FOOT,
   toOutputPressure,
   toOutputTemperature,
   unitLabel,
-} from "~/.server/api/units";
+} from "~/core/units";
 import { requirePermission } from "~/.server/auth/guards";
 import {
   countFollowers,
@@ -18,7 +19,11 @@ import { requireSample } from "~/.server/samples/params";
 import { loadRevisionView } from "~/.server/samples/revision-view";
 import { standardLabel } from "~/.server/samples/sample-input";
 import { Button, FormAlert } from "~/components/form";
-import { formatDateTime, formatValue } from "~/components/samples/format";
+import {
+  formatDateTime,
+  formatMeasured,
+  roundSignificant,
+} from "~/core/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { SAMPLE_TYPE_LABELS } from "~/components/samples/labels";
 import {
@@ -27,7 +32,6 @@ import {
   QcSummaryLine,
 } from "~/components/samples/qc-findings";
 import { RevisionStatusBadge } from "~/components/samples/revision-status";
-import { METRE_PER_FOOT } from "~/core/units";
 import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
@@ -54,7 +58,7 @@ export async function loader(args: Route.LoaderArgs) {
   const view = current
     ? await loadRevisionView(sample, current.number, system)
     : null;
-  const round = (v: number) => Number(v.toPrecision(6));
+  const round = (v: number) => roundSignificant(v, 6);
   return {
     sample: {
       id: sample.id,
@@ -150,7 +154,7 @@ function Meta({
 }
 
 const num = (v: number | null) =>
-  v === null ? null : <span className="tabular-nums">{formatValue(v)}</span>;
+  v === null ? null : <span className="tabular-nums">{formatMeasured(v)}</span>;
 
 export default function SamplePage({
   loaderData,

@@ -18,7 +18,7 @@ import { buildPreview } from "~/.server/samples/preview";
 import { describeStoreFailure } from "~/.server/samples/store-failure";
 import { logger } from "~/.server/ops/logger";
 import { uploadsByOutcome } from "~/.server/ops/metrics";
-import { megabytes, readCappedFormData } from "~/.server/samples/upload";
+import { readCappedFormData } from "~/.server/samples/upload";
 import { uploadGuide } from "~/.server/samples/upload-guide";
 import {
   Button,
@@ -28,7 +28,7 @@ import {
   type FieldErrors,
 } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
-import { formatDateTime } from "~/components/samples/format";
+import { formatDateTime, formatFileSize } from "~/core/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { GuideBlocks, guideSections, Inline } from "~/components/samples/guide";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
@@ -38,6 +38,7 @@ import {
   UPLOAD_ACCEPT,
   UPLOAD_LIMIT_BYTES,
 } from "~/components/samples/upload-limits";
+import { fieldErrorsOf, readIntent } from "~/utils/forms";
 import { multilineTextSchema } from "~/utils/labels";
 import type { Route } from "./+types/upload";
 
@@ -160,13 +161,6 @@ function identicalText(r: Identical): string {
   return `This file is identical (same SHA-256) to revision ${r.number}, uploaded by ${r.uploaderName ?? "a removed account"} on ${formatDateTime(r.createdAt)} (${r.status}).`;
 }
 
-function fieldErrors(issues: readonly z.core.$ZodIssue[]): FieldErrors {
-  const errors: FieldErrors = {};
-  for (const issue of issues)
-    (errors[String(issue.path[0] ?? "form")] ??= []).push(issue.message);
-  return errors;
-}
-
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "upload:revisions");
   const { ipAddress } = getCaller(args);
@@ -181,7 +175,7 @@ export async function action(args: Route.ActionArgs) {
       return data<ActionResult>(
         {
           kind: "too_large",
-          formError: `The upload (${megabytes(size)} or more) is over the ${LIMIT_TEXT} limit, so it was not read and nothing was stored. Upload only the results table.`,
+          formError: `The upload (${formatFileSize(size)} or more) is over the ${LIMIT_TEXT} limit, so it was not read and nothing was stored. Upload only the results table.`,
         },
         { status: 413 },
       );
@@ -200,7 +194,7 @@ export async function action(args: Route.ActionArgs) {
     return data<ActionResult>(
       {
         kind: "invalid",
-        errors: fieldErrors(basic.error.issues),
+        errors: fieldErrorsOf(basic.error.issues),
         formError: "Nothing was stored.",
       },
       { status: 400 },
@@ -246,7 +240,7 @@ export async function action(args: Route.ActionArgs) {
         preview,
         identical,
         comment,
-        errors: confirm.success ? {} : fieldErrors(confirm.error.issues),
+        errors: confirm.success ? {} : fieldErrorsOf(confirm.error.issues),
       },
       { status: 400 },
     );
@@ -486,6 +480,7 @@ export default function Upload({
   useEffect(() => setStale(false), [actionData]);
   const sampleUrl = href("/samples/:sampleId", { sampleId: String(sample.id) });
   const busy = navigation.state === "submitting";
+  const pressed = navigation.formData ? readIntent(navigation.formData) : "";
   const preview = !stale && result?.preview ? result.preview : null;
   const fileErrors = [
     ...(sizeError ? [sizeError] : []),
@@ -589,7 +584,7 @@ export default function Upload({
               variant={preview ? "secondary" : "primary"}
               disabled={busy || !!sizeError}
             >
-              {busy && navigation.formData?.get("intent") === "preview"
+              {busy && pressed === "preview"
                 ? "Checking…"
                 : preview
                   ? "Check again"
@@ -643,7 +638,7 @@ export default function Upload({
         {preview ? (
           <div className="flex flex-wrap items-center gap-4">
             <Button type="submit" name="intent" value="confirm" disabled={busy}>
-              {busy && navigation.formData?.get("intent") === "confirm"
+              {busy && pressed === "confirm"
                 ? "Storing…"
                 : `Store as draft revision ${nextNumber}`}
             </Button>

@@ -3,7 +3,7 @@ import { parseApiQuery } from "~/.server/api/request";
 import { json } from "~/.server/api/respond";
 import { listSamplesForCaller } from "~/.server/api/samples";
 import { SampleListQuery } from "~/.server/api/schemas";
-import { unitLabel } from "~/.server/api/units";
+import { unitLabel } from "~/core/units";
 import type { Route } from "./+types/index";
 
 /** GET /api/v1/samples — the samples the caller may read. */

@@ -9,6 +9,7 @@ import {
   useSearchParams,
 } from "react-router";
 import { z } from "zod";
+import type { OutputSystem } from "~/core/units";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
 import { getFourEyesPolicy } from "~/.server/db/queries/settings";
 import { badRequest, parseForm } from "~/.server/forms";
@@ -17,7 +18,7 @@ import { requireSample, revisionNumberFrom } from "~/.server/samples/params";
 import { reviewRevision } from "~/.server/samples/review";
 import { loadRevisionView } from "~/.server/samples/revision-view";
 import { Button, FieldError, FormAlert, useZodForm } from "~/components/form";
-import { formatDateTime } from "~/components/samples/format";
+import { formatDateTime } from "~/core/format";
 import { BubblePointTable, GridTable } from "~/components/samples/grid-table";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
 import { RevisionStatusBadge } from "~/components/samples/revision-status";
@@ -61,7 +62,7 @@ const ReviewSchema = z.discriminatedUnion(
 
 async function load(
   args: { params: { sampleId?: string; number?: string } },
-  system: "field" | "metric",
+  system: OutputSystem,
 ) {
   const sample = await requireSample(args.params);
   const number = revisionNumberFrom(args.params.number);

@@ -8,11 +8,7 @@ import {
   requireSampleForCaller,
 } from "~/.server/api/samples";
 import { SampleIdParams, SampleQuery } from "~/.server/api/schemas";
-import {
-  toOutputPressure,
-  toOutputTemperature,
-  unitLabel,
-} from "~/.server/api/units";
+import { toOutputPressure, toOutputTemperature, unitLabel } from "~/core/units";
 import type { Route } from "./+types/index";
 
 /** GET /api/v1/samples/:sampleId — metadata and the grids of the current approved revision (or ?revision=N). */
