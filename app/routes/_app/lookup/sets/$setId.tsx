@@ -22,6 +22,16 @@ export const meta: Route.MetaFunction = () => [
   { title: "Lookup set · Isopleth" },
 ];
 
+/** The set id of the URL; anything but a positive whole number is a 404 (not a query with NaN). */
+function setIdFrom(params: { setId?: string }): number {
+  const raw = params.setId ?? "";
+  invariantResponse(
+    /^[1-9]\d{0,15}$/.test(raw) && Number.isSafeInteger(Number(raw)),
+    "There is no such lookup set among yours.",
+  );
+  return Number(raw);
+}
+
 type RunResults = Record<
   string,
   { value: number; errorEstimate: number; warnings: string[] }[]
@@ -29,7 +39,7 @@ type RunResults = Record<
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "save:lookup-sets");
-  const set = await getLookupSet(Number(args.params.setId), user.id);
+  const set = await getLookupSet(setIdFrom(args.params), user.id);
   invariantResponse(set, "There is no such lookup set among yours.");
   const [sample, runs, current] = await Promise.all([
     getSampleWithPlace(set.sampleId),
@@ -47,7 +57,7 @@ export async function loader(args: Route.LoaderArgs) {
 /** Runs the set against the sample's current approved revision and records the run (values in field units). */
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "save:lookup-sets");
-  const set = await getLookupSet(Number(args.params.setId), user.id);
+  const set = await getLookupSet(setIdFrom(args.params), user.id);
   invariantResponse(set, "There is no such lookup set among yours.");
   const revision = await resolveRevision(set.sampleId);
   if (!revision)
