@@ -14,9 +14,19 @@ export const meta: Route.MetaFunction = () => [
 
 const NO_SUCH_SET = "There is no such lookup set among yours.";
 
+/** The set id of the URL; anything but a positive whole number is a 404 (not a query with NaN). */
+function setIdFrom(params: { setId?: string }): number {
+  const raw = params.setId ?? "";
+  invariantResponse(
+    /^[1-9]\d{0,15}$/.test(raw) && Number.isSafeInteger(Number(raw)),
+    NO_SUCH_SET,
+  );
+  return Number(raw);
+}
+
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "save:lookup-sets");
-  const page = await getLookupSetPage(Number(args.params.setId), user.id);
+  const page = await getLookupSetPage(setIdFrom(args.params), user.id);
   invariantResponse(page, NO_SUCH_SET);
   return page;
 }
@@ -24,7 +34,7 @@ export async function loader(args: Route.LoaderArgs) {
 /** Runs the set against the sample's current approved revision and records the run (values in field units). */
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "save:lookup-sets");
-  const outcome = await runLookupSet(Number(args.params.setId), user.id);
+  const outcome = await runLookupSet(setIdFrom(args.params), user.id);
   invariantResponse(outcome, NO_SUCH_SET);
   return outcome;
 }
