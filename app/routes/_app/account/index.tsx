@@ -5,6 +5,7 @@ import { updateUserProfile } from "~/.server/db/queries/users";
 import { badRequest, parseFormData, readFormData } from "~/.server/forms";
 import { readIntent } from "~/utils/forms";
 import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
+import { NewPasswordFields } from "~/components/new-password-fields";
 import { PageHeader } from "~/components/page-header";
 import { ChangePasswordSchema, ProfileSchema } from "~/utils/auth-schemas";
 import { OUTPUT_SYSTEMS } from "~/core/units";
@@ -140,23 +141,7 @@ export default function Account({
               required
               errors={password.errors.currentPassword}
             />
-            <TextField
-              label="New password"
-              name="password"
-              type="password"
-              autoComplete="new-password"
-              required
-              errors={password.errors.password}
-              hint="At least 10 characters."
-            />
-            <TextField
-              label="New password again"
-              name="confirm"
-              type="password"
-              autoComplete="new-password"
-              required
-              errors={password.errors.confirm}
-            />
+            <NewPasswordFields label="New password" errors={password.errors} />
             <Button type="submit" disabled={navigation.state === "submitting"}>
               Change password
             </Button>

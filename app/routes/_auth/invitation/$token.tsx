@@ -3,6 +3,7 @@ import { acceptInvitation, getInvitation } from "~/.server/auth/accounts";
 import { getCaller } from "~/.server/auth/guards";
 import { badRequest, parseForm } from "~/.server/forms";
 import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
+import { NewPasswordFields } from "~/components/new-password-fields";
 import { AcceptInvitationSchema } from "~/utils/auth-schemas";
 import { ROLE_LABELS } from "~/utils/permissions";
 import type { Route } from "./+types/$token";
@@ -79,23 +80,7 @@ export default function AcceptInvitation({
           required
           errors={errors.name}
         />
-        <TextField
-          label="Password"
-          name="password"
-          type="password"
-          autoComplete="new-password"
-          required
-          errors={errors.password}
-          hint="At least 10 characters."
-        />
-        <TextField
-          label="Password again"
-          name="confirm"
-          type="password"
-          autoComplete="new-password"
-          required
-          errors={errors.confirm}
-        />
+        <NewPasswordFields label="Password" errors={errors} />
         <Button
           type="submit"
           className="w-full"

@@ -2,7 +2,8 @@ import { Form, href, Link, redirect, useNavigation } from "react-router";
 import { getPasswordReset, resetPassword } from "~/.server/auth/accounts";
 import { getCaller } from "~/.server/auth/guards";
 import { badRequest, parseForm } from "~/.server/forms";
-import { Button, FormAlert, TextField, useZodForm } from "~/components/form";
+import { Button, FormAlert, useZodForm } from "~/components/form";
+import { NewPasswordFields } from "~/components/new-password-fields";
 import { NewPasswordSchema } from "~/utils/auth-schemas";
 import type { Route } from "./+types/$token";
 
@@ -66,23 +67,7 @@ export default function ResetPassword({
         noValidate
       >
         <FormAlert message={actionData?.formError} />
-        <TextField
-          label="New password"
-          name="password"
-          type="password"
-          autoComplete="new-password"
-          required
-          errors={errors.password}
-          hint="At least 10 characters."
-        />
-        <TextField
-          label="New password again"
-          name="confirm"
-          type="password"
-          autoComplete="new-password"
-          required
-          errors={errors.confirm}
-        />
+        <NewPasswordFields label="New password" errors={errors} />
         <Button
           type="submit"
           className="w-full"
