@@ -193,12 +193,6 @@ const KNOWN_VIOLATIONS: { from: string; to: string; why: string }[] = [
     to: "app/components/samples/upload-limits.ts",
     why: "test keeps the browser's upload limit equal to the library's by hand",
   },
-  // a client-safe helper's test reads the database schema (kept in step by hand, not by the type checker)
-  {
-    from: "app/utils/api-scopes.test.ts",
-    to: "app/.server/db/schema/index.ts",
-    why: "API scopes listed twice, compared by a test",
-  },
 ];
 
 // ---------------------------------------------------------------------------------------------------------
