@@ -34,8 +34,9 @@ import type {
 } from "./types";
 import { formatFileSize } from "../format";
 
-/** Largest upload accepted: 5 MB. */
-export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
+import { MAX_UPLOAD_BYTES } from "./limits";
+
+export { MAX_UPLOAD_BYTES };
 
 /** Extensions accepted on the upload page. */
 export const ACCEPTED_EXTENSIONS: readonly string[] = [
