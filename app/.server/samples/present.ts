@@ -52,7 +52,7 @@ export function outputNumber(value: number): number {
 export const outputPressure = (psia: number, system: OutputSystem) =>
   outputNumber(toOutputPressure(psia, system));
 /** A temperature (°F) as presented in the output system. */
-export const outputTemperature = (degF: number, system: OutputSystem) =>
+const outputTemperature = (degF: number, system: OutputSystem) =>
   outputNumber(toOutputTemperature(degF, system));
 
 const orNull = <T>(v: T | null, f: (x: T) => number) =>
