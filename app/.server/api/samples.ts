@@ -13,22 +13,31 @@ import {
   type RevisionData,
 } from "~/.server/samples/revision-data";
 import {
-  type OutputSystem,
-  type PropertyKey,
-  toOutputPressure,
-  toOutputTemperature,
-  toOutputValue,
-  unitLabel,
-} from "~/core/units";
+  gridInOutputUnits,
+  outputPressure,
+  presentSample,
+} from "~/.server/samples/present";
+import { type OutputSystem, type PropertyKey, unitLabel } from "~/core/units";
 import type { RevisionStatus } from "~/utils/sample-vocabulary";
 import {
   callerMayReadDrafts,
   callerMayReadSample,
   type ApiCaller,
 } from "./caller";
-import { roundSignificant } from "~/core/format";
 
-const round = (v: number, digits = 10) => roundSignificant(v, digits);
+/*
+ * What the API serves about samples. Every number in output units comes from the one presenter,
+ * app/.server/samples/present.ts, and follows its one rounding rule (10 significant digits), on every route.
+ */
+
+/** The units block of a response: the system and its pressure and temperature symbols. */
+export function unitsBlock(system: OutputSystem) {
+  return {
+    system,
+    pressure: unitLabel(system, "pressure"),
+    temperature: unitLabel(system, "temperature"),
+  };
+}
 
 export async function listSamplesForCaller(
   caller: ApiCaller,
@@ -48,34 +57,20 @@ export async function listSamplesForCaller(
   ]);
   return all.map((s) => {
     const rid = revisionIds.get(s.id);
-    const own = bubbles.filter((b) => b.revisionId === rid);
-    const nearest =
-      s.reservoirTemperatureF === null
-        ? own[own.length - 1]
-        : own
-            .slice()
-            .sort(
-              (a, b) =>
-                Math.abs(a.temperatureF - s.reservoirTemperatureF!) -
-                Math.abs(b.temperatureF - s.reservoirTemperatureF!),
-            )[0];
+    const shown = presentSample(
+      s,
+      system,
+      bubbles.filter((b) => b.revisionId === rid),
+    );
     return {
       id: s.id,
       label: s.label,
       field: s.fieldName,
       well: s.wellName,
       sampleType: s.sampleType,
-      reservoirTemperature:
-        s.reservoirTemperatureF === null
-          ? null
-          : round(toOutputTemperature(s.reservoirTemperatureF, system)),
-      reservoirPressure:
-        s.reservoirPressurePsia === null
-          ? null
-          : round(toOutputPressure(s.reservoirPressurePsia, system)),
-      bubblePoint: nearest
-        ? round(toOutputPressure(nearest.bubblePointPsia, system))
-        : null,
+      reservoirTemperature: shown.reservoirTemperature,
+      reservoirPressure: shown.reservoirPressure,
+      bubblePoint: shown.bubblePoint,
       approvedRevision:
         s.approvedRevision === null ? null : Number(s.approvedRevision),
       properties: props
@@ -177,22 +172,54 @@ export function gridsForOutput(data: RevisionData, system: OutputSystem) {
       property,
       unit: unitLabel(system, property),
       laboratoryUnit: grid.sourceUnit,
-      pressures: grid.pressures.map((p) => round(toOutputPressure(p, system))),
-      temperatures: grid.temperatures.map((t) =>
-        round(toOutputTemperature(t, system)),
-      ),
-      values: grid.values.map((row) =>
-        row.map((v) =>
-          v === null ? null : round(toOutputValue(v, property, system)),
-        ),
-      ),
+      ...gridInOutputUnits({ ...grid, property }, system),
       ...(grid.bubblePoints
         ? {
             bubblePoints: grid.bubblePoints.map((b) =>
-              b === null ? null : round(toOutputPressure(b, system)),
+              b === null ? null : outputPressure(b, system),
             ),
           }
         : {}),
     };
   });
+}
+
+type SampleRecord = NonNullable<Awaited<ReturnType<typeof getSampleWithPlace>>>;
+
+/** The body of GET /api/v1/samples/:sampleId: the sample's record and the revision's data in output units. */
+export function sampleDetailForOutput(
+  sample: SampleRecord,
+  data: RevisionData,
+  system: OutputSystem,
+) {
+  const shown = presentSample(sample, system, data.bubblePoints);
+  return {
+    sample: {
+      id: sample.id,
+      label: sample.label,
+      field: sample.fieldName,
+      well: sample.wellName,
+      sampleType: sample.sampleType,
+      samplingDate: sample.samplingDate,
+      samplingDepthFt: sample.samplingDepthFt,
+      reservoirPressure: shown.reservoirPressure,
+      reservoirTemperature: shown.reservoirTemperature,
+      stockTankApi: sample.stockTankApi,
+      gasSpecificGravity: sample.gasSpecificGravity,
+      standardConditions: {
+        pressurePsia: sample.standardPressurePsia,
+        temperatureF: sample.standardTemperatureF,
+      },
+      laboratory: sample.laboratory,
+      reportReference: sample.reportReference,
+    },
+    revision: {
+      number: data.number,
+      status: data.status,
+      approved: isApprovedStatus(data.status),
+    },
+    units: unitsBlock(system),
+    bubblePoints: shown.bubblePoints,
+    grids: gridsForOutput(data, system),
+  };
 }

@@ -1,10 +1,12 @@
 import {
+  depthUnitLabel,
   getUnit,
   type OutputSystem,
   PROPERTIES,
   PROPERTY_KEYS,
   PROPERTY_QUANTITIES,
   type PropertyKey,
+  toOutputDepth,
   toOutputPressure,
   toOutputTemperature,
   toOutputValue,
@@ -19,12 +21,149 @@ import type {
   DisplayGrid,
   Severity,
 } from "~/components/samples/types";
-import { roundSignificant } from "~/core/format";
+import { formatPlain, roundSignificant } from "~/core/format";
+import { standardLabel } from "./sample-input";
 
 /*
- * Turns canonical grids and QC findings into what the sample components show: numbers in the reader's unit
- * system (rounded to 10 significant digits to drop conversion noise), and each flagged cell keyed by its place.
+ * Presenting a sample in output units: the one place that turns a sample's canonical numbers (psia, °F, ft,
+ * canonical property units) into the reader's unit system, for the pages and the API alike.
+ *
+ * ## The one rounding rule
+ *
+ * Every number given out here is the canonical value converted with app/core/units (output.ts) and rounded to
+ * OUTPUT_SIGNIFICANT_DIGITS (10) significant digits (`outputNumber`): more than any measurement carries, and
+ * it drops the binary noise of a conversion (4650 psia is served as 320.6062141 bara, 204 °F as
+ * 95.55555556 °C; field units, the canonical ones, pass through unchanged). The API serves these numbers as
+ * they are, the same on every route (a sample, the listing, the grids); pages keep them in their loader data
+ * and format them only for display, with a named format of app/core/format (`formatMeasured` on the sample
+ * and revision pages, `formatListed` in the samples list). Numbers inside sentences (the cells a finding
+ * names) are written with `formatPlain`.
  */
+
+/** Significant digits of every number presented in output units (see the rule above). */
+export const OUTPUT_SIGNIFICANT_DIGITS = 10;
+
+/** A converted value as presented: rounded to OUTPUT_SIGNIFICANT_DIGITS significant digits. */
+export function outputNumber(value: number): number {
+  return roundSignificant(value, OUTPUT_SIGNIFICANT_DIGITS);
+}
+
+/** A pressure (psia) as presented in the output system. */
+export const outputPressure = (psia: number, system: OutputSystem) =>
+  outputNumber(toOutputPressure(psia, system));
+/** A temperature (°F) as presented in the output system. */
+const outputTemperature = (degF: number, system: OutputSystem) =>
+  outputNumber(toOutputTemperature(degF, system));
+
+const orNull = <T>(v: T | null, f: (x: T) => number) =>
+  v === null ? null : f(v);
+
+/**
+ * The fields of a sample record the presenter reads, in canonical units. A listing that does not read the
+ * depth or the standard conditions leaves them out, and gets null for them.
+ */
+export type SampleConditions = {
+  samplingDepthFt?: number | null;
+  reservoirPressurePsia: number | null;
+  reservoirTemperatureF: number | null;
+  standardPressurePsia?: number;
+  standardTemperatureF?: number;
+};
+
+/** A sample's conditions in the reader's unit system, with the unit symbols beside them. */
+export type SampleInOutputUnits = {
+  units: { pressure: string; temperature: string; depth: string };
+  samplingDepth: number | null;
+  reservoirPressure: number | null;
+  reservoirTemperature: number | null;
+  /**
+   * Standard conditions are a fact of the laboratory report, not a reading: they keep their canonical values
+   * (the API names them in psia and °F) and are shown by their preset's name.
+   */
+  standardConditions: {
+    pressurePsia: number;
+    temperatureF: number;
+    label: string;
+  } | null;
+  /** The bubble points given, in their order. */
+  bubblePoints: { temperature: number; pressure: number }[];
+  /**
+   * The bubble point at (or measured nearest to) the reservoir temperature; the last one given when the
+   * reservoir temperature is not recorded; null without bubble points.
+   */
+  bubblePoint: number | null;
+};
+
+/** The one presenter of a sample in output units (see the rounding rule above). */
+export function presentSample(
+  sample: SampleConditions,
+  system: OutputSystem,
+  bubblePoints: readonly CanonicalBubblePoint[] = [],
+): SampleInOutputUnits {
+  const reservoirT = sample.reservoirTemperatureF;
+  const nearest =
+    reservoirT === null
+      ? bubblePoints[bubblePoints.length - 1]
+      : bubblePoints
+          .slice()
+          .sort(
+            (a, b) =>
+              Math.abs(a.temperatureF - reservoirT) -
+              Math.abs(b.temperatureF - reservoirT),
+          )[0];
+  const pressure = (psia: number) => outputPressure(psia, system);
+  const temperature = (degF: number) => outputTemperature(degF, system);
+  return {
+    units: {
+      pressure: unitLabel(system, "pressure"),
+      temperature: unitLabel(system, "temperature"),
+      depth: depthUnitLabel(system),
+    },
+    samplingDepth: orNull(sample.samplingDepthFt ?? null, (ft) =>
+      outputNumber(toOutputDepth(ft, system)),
+    ),
+    reservoirPressure: orNull(sample.reservoirPressurePsia, pressure),
+    reservoirTemperature: orNull(reservoirT, temperature),
+    standardConditions:
+      sample.standardPressurePsia === undefined ||
+      sample.standardTemperatureF === undefined
+        ? null
+        : {
+            pressurePsia: sample.standardPressurePsia,
+            temperatureF: sample.standardTemperatureF,
+            label: standardLabel({
+              standardPressurePsia: sample.standardPressurePsia,
+              standardTemperatureF: sample.standardTemperatureF,
+            }),
+          },
+    bubblePoints: bubblePoints.map((b) => ({
+      temperature: temperature(b.temperatureF),
+      pressure: pressure(b.bubblePointPsia),
+    })),
+    bubblePoint: nearest ? pressure(nearest.bubblePointPsia) : null,
+  };
+}
+
+/** A grid's axes and values in output units (the API's grids and the pages' grids). */
+export function gridInOutputUnits(
+  grid: Pick<
+    CanonicalGrid,
+    "property" | "pressures" | "temperatures" | "values"
+  >,
+  system: OutputSystem,
+) {
+  return {
+    pressures: grid.pressures.map((v) => outputPressure(v, system)),
+    temperatures: grid.temperatures.map((v) => outputTemperature(v, system)),
+    values: grid.values.map((row) =>
+      row.map((v) =>
+        v === null
+          ? null
+          : outputNumber(toOutputValue(v, grid.property, system)),
+      ),
+    ),
+  };
+}
 
 /** A grid in canonical units, from a parsed upload or read back from the database. */
 export type CanonicalGrid = {
@@ -41,9 +180,6 @@ export type CanonicalBubblePoint = {
   bubblePointPsia: number;
 };
 
-const round = (v: number) => roundSignificant(v, 10);
-/** Numbers inside sentences: 6 significant digits. */
-const short = (v: number) => roundSignificant(v, 6);
 const TEMPERATURE_TOLERANCE = 0.01;
 const samePressure = (a: number, b: number) =>
   Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b), 1);
@@ -99,10 +235,10 @@ export function presentFindings(
           c.property === "bubble_point"
             ? "Bubble point"
             : PROPERTIES[c.property].symbol;
-        const at = `${short(toOutputTemperature(c.temperature, system))} ${t}`;
+        const at = `${formatPlain(toOutputTemperature(c.temperature, system))} ${t}`;
         return c.property === "bubble_point"
-          ? `${name} ${short(toOutputPressure(c.pressure, system))} ${p} at ${at}`
-          : `${name} at ${short(toOutputPressure(c.pressure, system))} ${p}, ${at}`;
+          ? `${name} ${formatPlain(toOutputPressure(c.pressure, system))} ${p} at ${at}`
+          : `${name} at ${formatPlain(toOutputPressure(c.pressure, system))} ${p}, ${at}`;
       }),
     };
   });
@@ -131,21 +267,13 @@ export function presentGrids(
       sourceUnit: source && source !== unit ? source : null,
       pressureUnit: unitLabel(system, "pressure"),
       temperatureUnit: unitLabel(system, "temperature"),
-      pressures: g.pressures.map((v) => round(toOutputPressure(v, system))),
-      temperatures: g.temperatures.map((v) =>
-        round(toOutputTemperature(v, system)),
-      ),
-      values: g.values.map((row) =>
-        row.map((v) =>
-          v === null ? null : round(toOutputValue(v, g.property, system)),
-        ),
-      ),
+      ...gridInOutputUnits(g, system),
       bubblePoints: g.temperatures.map((temperature) => {
         const b = bubblePoints.find(
           (bp) =>
             Math.abs(bp.temperatureF - temperature) <= TEMPERATURE_TOLERANCE,
         );
-        return b ? round(toOutputPressure(b.bubblePointPsia, system)) : null;
+        return b ? outputPressure(b.bubblePointPsia, system) : null;
       }),
       marks: {},
     };
@@ -190,8 +318,8 @@ export function presentBubblePoints(
         }
       });
       return {
-        temperature: round(toOutputTemperature(b.temperatureF, system)),
-        pressure: round(toOutputPressure(b.bubblePointPsia, system)),
+        temperature: outputTemperature(b.temperatureF, system),
+        pressure: outputPressure(b.bubblePointPsia, system),
         mark: marks.bp ?? null,
       };
     });

@@ -1,8 +1,9 @@
 import {
+  fromInputDepth,
   fromInputPressure,
   fromInputTemperature,
-  METRE_PER_FOOT,
   STANDARD_CONDITIONS_PRESETS,
+  toOutputDepth,
   toOutputPressure,
   toOutputTemperature,
 } from "~/core/units";
@@ -13,9 +14,12 @@ import type {
   SampleFormDefaults,
   SampleFormValues,
 } from "~/components/samples/sample-form";
-import { roundSignificant } from "~/core/format";
+import { formatPlain, roundSignificant } from "~/core/format";
 
-/* The sample form in the reader's units ↔ the sample record in canonical units (psia, °F, ft). */
+/*
+ * The sample form in the reader's units ↔ the sample record in canonical units (psia, °F, ft). What the form
+ * types is stored with 8 significant digits; what it shows back is written with formatPlain.
+ */
 
 const round = (v: number, digits = 8) => roundSignificant(v, digits);
 
@@ -36,7 +40,7 @@ export function standardPresetOf(stored: StoredStandard) {
 export function standardLabel(stored: StoredStandard): string {
   return (
     standardPresetOf(stored)?.label ??
-    `${round(stored.standardTemperatureF, 6)} °F, ${round(stored.standardPressurePsia, 6)} psia`
+    `${formatPlain(stored.standardTemperatureF)} °F, ${formatPlain(stored.standardPressurePsia)} psia`
   );
 }
 
@@ -69,9 +73,7 @@ export function recordInputFromForm(
   const depthFt =
     values.samplingDepth === null
       ? null
-      : system === "metric"
-        ? values.samplingDepth / METRE_PER_FOOT
-        : values.samplingDepth;
+      : fromInputDepth(values.samplingDepth, system);
   return {
     ok: true,
     input: {
@@ -101,7 +103,7 @@ export function recordInputFromForm(
 }
 
 const show = (v: number | null, convert: (x: number) => number = (x) => x) =>
-  v === null ? "" : String(round(convert(v), 6));
+  v === null ? "" : formatPlain(convert(v));
 
 export function formDefaultsFromRecord(
   record: Omit<SampleRecordInput, "fieldRegion"> & {
@@ -118,7 +120,7 @@ export function formDefaultsFromRecord(
     sampleType: record.sampleType,
     samplingDate: record.samplingDate ?? "",
     samplingDepth: show(record.samplingDepthFt, (ft) =>
-      system === "metric" ? ft * METRE_PER_FOOT : ft,
+      toOutputDepth(ft, system),
     ),
     reservoirPressure: show(record.reservoirPressurePsia, (p) =>
       toOutputPressure(p, system),

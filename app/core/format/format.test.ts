@@ -10,6 +10,7 @@ import {
   formatErrorEstimate,
   formatFileSize,
   formatInMessage,
+  formatListed,
   formatMeasured,
   formatMilliseconds,
   formatPercent,
@@ -52,6 +53,16 @@ test("measured value: 6 significant digits, exponent outside 1e-4 to 1e9, blank 
   expect(formatMeasured(null)).toBe("");
   expect(formatMeasured(undefined)).toBe("");
   expect(formatMeasured(Number.NaN)).toBe("");
+});
+
+test("listed condition: 5 significant digits, a dash when missing", () => {
+  expect(formatListed(320.6062141)).toBe("320.61");
+  expect(formatListed(95.55555556)).toBe("95.556");
+  expect(formatListed(4650)).toBe("4650");
+  expect(formatListed(123456)).toBe("123460");
+  expect(formatListed(0.000012345678)).toBe("1.2346e-5");
+  expect(formatListed(null)).toBe("—");
+  expect(formatListed(undefined)).toBe("—");
 });
 
 test("plain number and detail", () => {

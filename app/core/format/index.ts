@@ -5,7 +5,8 @@
  * ## Significant-digit rules
  *
  * - A measured value is known to about six significant digits: `formatMeasured` and `formatPlain` write at
- *   most 6, drop trailing zeros and float noise (`0.1 + 0.2` → "0.3"), and never group thousands.
+ *   most 6, drop trailing zeros and float noise (`0.1 + 0.2` → "0.3"), and never group thousands; the
+ *   samples list, a summary, writes 5 (`formatListed`).
  * - An error estimate carries two significant digits at most (`formatErrorEstimate`).
  * - A number inside an engine message must let the reader find the cell in the table: integers are written
  *   exactly, other numbers with 10 significant digits (`formatInMessage`).
@@ -61,6 +62,15 @@ export function formatMeasured(value: number | null | undefined): string {
   if (abs < 1e-4 || abs >= 1e9)
     return value.toExponential(4).replace(/\.?0+e/, "e");
   return formatSignificant(value, 6);
+}
+
+/**
+ * A reservoir condition in the samples list (a summary; the sample page shows 6 digits): 5 significant digits,
+ * exponent below 1e-4 and from 1e9 as formatMeasured, "—" for a missing value.
+ */
+export function formatListed(value: number | null | undefined): string {
+  if (value === null || value === undefined) return "—";
+  return formatMeasured(roundSignificant(value, 5));
 }
 
 /** A value in the explanation of one lookup (stencil, weights): 7 significant digits, "—" when not finite. */

@@ -1,9 +1,12 @@
 import { expect, test } from "vitest";
 import {
   OUTPUT_SYSTEMS,
+  depthUnitLabel,
+  fromInputDepth,
   fromInputPressure,
   isOutputSystem,
   outputUnit,
+  toOutputDepth,
   toOutputPressure,
   toOutputTemperature,
   toOutputValue,
@@ -33,4 +36,16 @@ test("conversions to the output system and back", () => {
     fromInputPressure(toOutputPressure(2500, "metric"), "metric"),
   ).toBeCloseTo(2500, 9);
   expect(toOutputValue(1.2, "oil_fvf", "metric")).toBeCloseTo(1.2, 12);
+});
+
+test("depth: recorded in ft, shown in ft or m", () => {
+  expect(depthUnitLabel("field")).toBe("ft");
+  expect(depthUnitLabel("metric")).toBe("m");
+  expect(toOutputDepth(8200, "field")).toBe(8200);
+  expect(toOutputDepth(1000, "metric")).toBeCloseTo(304.8, 12);
+  expect(fromInputDepth(304.8, "metric")).toBeCloseTo(1000, 9);
+  expect(fromInputDepth(toOutputDepth(8123.4, "metric"), "metric")).toBeCloseTo(
+    8123.4,
+    9,
+  );
 });

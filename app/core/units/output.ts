@@ -5,6 +5,7 @@
  * (system, quantity or property).
  */
 import { getUnit, type Quantity } from "./catalogue";
+import { METRE_PER_FOOT } from "./definitions";
 import {
   PROPERTY_QUANTITIES,
   isPropertyKey,
@@ -83,3 +84,19 @@ export const fromInputPressure = (value: number, system: OutputSystem) =>
   toCanonical(value, "pressure", system);
 export const fromInputTemperature = (value: number, system: OutputSystem) =>
   toCanonical(value, "temperature", system);
+
+/*
+ * Depth (a sample's sampling depth) is a length, which no table is measured in, so it is not in the unit
+ * catalogue: it is recorded in ft and shown in ft or m.
+ */
+const DEPTH_UNITS: Readonly<Record<OutputSystem, string>> = {
+  field: "ft",
+  metric: "m",
+};
+
+/** The symbol of the unit a depth is shown in: "ft" or "m". */
+export const depthUnitLabel = (system: OutputSystem) => DEPTH_UNITS[system];
+export const toOutputDepth = (ft: number, system: OutputSystem) =>
+  system === "metric" ? ft * METRE_PER_FOOT : ft;
+export const fromInputDepth = (value: number, system: OutputSystem) =>
+  system === "metric" ? value / METRE_PER_FOOT : value;

@@ -1,9 +1,8 @@
 import { requireApiCaller } from "~/.server/api/caller";
 import { parseApiQuery } from "~/.server/api/request";
 import { json } from "~/.server/api/respond";
-import { listSamplesForCaller } from "~/.server/api/samples";
+import { listSamplesForCaller, unitsBlock } from "~/.server/api/samples";
 import { SampleListQuery } from "~/.server/api/schemas";
-import { unitLabel } from "~/core/units";
 import type { Route } from "./+types/index";
 
 /** GET /api/v1/samples — the samples the caller may read. */
@@ -11,12 +10,5 @@ export async function loader(args: Route.LoaderArgs) {
   const caller = await requireApiCaller(args, "list-samples");
   const { units } = parseApiQuery(args.request, SampleListQuery);
   const samples = await listSamplesForCaller(caller, units);
-  return json(args.request, {
-    units: {
-      system: units,
-      pressure: unitLabel(units, "pressure"),
-      temperature: unitLabel(units, "temperature"),
-    },
-    samples,
-  });
+  return json(args.request, { units: unitsBlock(units), samples });
 }
