@@ -188,11 +188,6 @@ const KNOWN_VIOLATIONS: { from: string; to: string; why: string }[] = [
     to: "app/components/samples/guide.tsx",
     why: "test reads the guide's sections from the component module",
   },
-  {
-    from: "app/.server/samples/upload.test.ts",
-    to: "app/components/samples/upload-limits.ts",
-    why: "test keeps the browser's upload limit equal to the library's by hand",
-  },
   // a client-safe helper's test reads the database schema (kept in step by hand, not by the type checker)
   {
     from: "app/utils/api-scopes.test.ts",

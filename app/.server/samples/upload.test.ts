@@ -1,5 +1,5 @@
 import { expect, test } from "vitest";
-import { UPLOAD_LIMIT_BYTES } from "~/components/samples/upload-limits";
+import { UPLOAD_LIMIT_BYTES } from "~/utils/upload-form";
 import { MAX_UPLOAD_BYTES } from "~/core/lab-data";
 import { readCappedFormData, UPLOAD_BODY_LIMIT_BYTES } from "./upload";
 

@@ -34,10 +34,7 @@ import { GuideBlocks, guideSections, Inline } from "~/components/samples/guide";
 import { FindingList, QcSummaryLine } from "~/components/samples/qc-findings";
 import { SlicePlot } from "~/components/samples/slice-plot";
 import type { DisplayFinding } from "~/components/samples/types";
-import {
-  UPLOAD_ACCEPT,
-  UPLOAD_LIMIT_BYTES,
-} from "~/components/samples/upload-limits";
+import { UPLOAD_ACCEPT, UPLOAD_LIMIT_BYTES } from "~/utils/upload-form";
 import { fieldErrorsOf, readIntent } from "~/utils/forms";
 import { multilineTextSchema } from "~/utils/labels";
 import type { Route } from "./+types/upload";
