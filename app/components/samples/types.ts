@@ -114,3 +114,33 @@ export type UploadReply =
       formError?: string;
       errors?: FieldErrors;
     };
+
+/** One cell of a revision diff in the reader's units: a property at one pressure (none for a bubble point) and temperature. */
+export type DiffRow = {
+  property: PropertyKey | "bubble_point";
+  /** Display unit symbol of the values. */
+  unit: string;
+  pressure: number | null;
+  temperature: number;
+  from: number | null;
+  to: number | null;
+};
+
+/** Two revisions compared: counts, per-property counts, and the cells listed (at most a limit per kind). */
+export type DisplayRevisionDiff = {
+  byProperty: {
+    property: DiffRow["property"];
+    changed: number;
+    added: number;
+    removed: number;
+  }[];
+  counts: {
+    changed: number;
+    added: number;
+    removed: number;
+    unchanged: number;
+  };
+  changed: DiffRow[];
+  added: DiffRow[];
+  removed: DiffRow[];
+};
