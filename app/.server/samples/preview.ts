@@ -1,3 +1,4 @@
+import type { UploadPreview } from "~/components/samples/types";
 import type { OutputSystem } from "~/core/units";
 import {
   bubblePointsOf,
@@ -11,7 +12,7 @@ import { orderFindings, summarizeFindings } from "./qc-report";
 export function buildPreview(
   checked: Extract<CheckedUpload, { ok: true }>,
   system: OutputSystem,
-) {
+): UploadPreview {
   const findings = orderFindings([
     ...checked.fileFindings,
     ...checked.findings,
@@ -43,5 +44,3 @@ export function buildPreview(
     bubblePoints: presentBubblePoints(bubblePoints, findings, system),
   };
 }
-
-export type UploadPreview = ReturnType<typeof buildPreview>;

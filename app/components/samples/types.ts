@@ -2,7 +2,10 @@
  * Plain, JSON-serialisable shapes that loaders and actions hand to the sample components. Numbers are already
  * in the reader's unit system; unit symbols travel beside them.
  */
+import type { FileFormat, Layout } from "~/core/lab-data";
 import type { PropertyKey } from "~/core/units";
+import type { FieldErrors } from "~/utils/forms";
+import type { IdenticalRevisionNote } from "~/utils/upload-form";
 
 export type Severity = "error" | "warning" | "info";
 
@@ -61,4 +64,83 @@ export type QcSummary = {
   errors: number;
   warnings: number;
   notes: number;
+};
+
+/** An uploaded file checked and parsed, before anything is stored: what the upload page's preview shows. */
+export type UploadPreview = {
+  fileName: string;
+  /** SHA-256 of the file, sent back with the confirm so the server stores exactly the file checked. */
+  sha256: string;
+  sizeBytes: number;
+  format: FileFormat;
+  layout: Layout;
+  sheets: string[] | null;
+  counts: {
+    properties: number;
+    temperatures: number;
+    pressures: number;
+    cells: number;
+  };
+  summary: QcSummary;
+  findings: DisplayFinding[];
+  grids: DisplayGrid[];
+  bubblePoints: DisplayBubblePoints;
+};
+
+/** A file that cannot be used (it does not parse): its errors, and the warnings noted on the way. */
+export type RefusedUpload = {
+  fileName: string;
+  errors: DisplayFinding[];
+  warnings: DisplayFinding[];
+};
+
+/**
+ * What the upload action answers (a stored upload redirects instead):
+ *  - too_large / invalid: the request could not be read or the form is incomplete; nothing was checked;
+ *  - refused: the file was checked and cannot be used;
+ *  - preview: the file was checked (and, for a confirm, not stored: the field errors or formError say why);
+ *  - store_failed: the database did not store it; the preview and the comment are kept for a retry.
+ */
+export type UploadReply =
+  | { kind: "too_large" | "invalid"; formError: string; errors?: FieldErrors }
+  | { kind: "refused"; refused: RefusedUpload }
+  | {
+      kind: "preview" | "store_failed";
+      preview: UploadPreview;
+      /** The revision this file is identical to, if any. */
+      identical: IdenticalRevisionNote | null;
+      /** The comment as sent, to fill the field again after a failed confirm. */
+      comment?: string;
+      formError?: string;
+      errors?: FieldErrors;
+    };
+
+/** One cell of a revision diff in the reader's units: a property at one pressure (none for a bubble point) and temperature. */
+export type DiffRow = {
+  property: PropertyKey | "bubble_point";
+  /** Display unit symbol of the values. */
+  unit: string;
+  pressure: number | null;
+  temperature: number;
+  from: number | null;
+  to: number | null;
+};
+
+/** Two revisions compared: counts, per-property counts, and the cells listed (at most a limit per kind). */
+export type DisplayRevisionDiff = {
+  byProperty: {
+    property: DiffRow["property"];
+    changed: number;
+    added: number;
+    removed: number;
+  }[];
+  counts: {
+    changed: number;
+    added: number;
+    removed: number;
+    unchanged: number;
+  };
+  changed: DiffRow[];
+  added: DiffRow[];
+  removed: DiffRow[];
 };
