@@ -1,12 +1,7 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { Form, useNavigation, useSubmit } from "react-router";
-import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
-import { gridsForOutput, listSamplesForCaller } from "~/.server/api/samples";
-import {
-  getRevisionData,
-  resolveRevision,
-} from "~/.server/samples/revision-data";
+import { buildCompareView, parseCompareQuery } from "~/.server/samples/compare";
 import { PageHeader } from "~/components/page-header";
 import { EstimateCaution } from "~/components/estimate-caution";
 import { Button } from "~/components/form";
@@ -34,92 +29,23 @@ import {
   outputUnitSystem,
   PROPERTIES,
   PROPERTY_KEYS,
-  unitLabel,
   type OutputSystem,
   type PropertyKey,
 } from "~/core/units";
 import { parseConditionList, type Condition } from "~/utils/conditions";
 import { SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
+import { MAX_COMPARED_SAMPLES as MAX_SAMPLES } from "~/utils/compare";
 import type { Route } from "./+types/index";
 
-const MAX_SAMPLES = 4;
 const MAX_TABLE_CONDITIONS = 50;
 const DEFAULT_THRESHOLD_PERCENT = 5;
-
-/**
- * The query string: ?samples=1,2 (or samples=1&samples=2)&property=oil_fvf&units=field&view=side-by-side. Bad values
- * fall back to defaults rather than failing the page.
- */
-const CompareQuery = z.object({
-  samples: z
-    .array(z.string())
-    .transform((list) =>
-      [
-        ...new Set(
-          list.flatMap((v) => v.split(",")).map((v) => Number(v.trim())),
-        ),
-      ]
-        .filter((n) => Number.isInteger(n) && n > 0)
-        .slice(0, MAX_SAMPLES),
-    ),
-  property: z.enum(PROPERTY_KEYS).catch("oil_fvf"),
-  units: z.enum(OUTPUT_SYSTEMS).optional().catch(undefined),
-  view: z.enum(["overlaid", "side-by-side"]).catch("overlaid"),
-});
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare · Isopleth" }];
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "read:samples");
-  const params = new URL(args.request.url).searchParams;
-  const query = CompareQuery.parse({
-    samples: params.getAll("samples"),
-    property: params.get("property") ?? undefined,
-    units: params.get("units") ?? undefined,
-    view: params.get("view") ?? undefined,
-  });
-  const system = query.units ?? user.unitSystem;
-  const samples = await listSamplesForCaller({ user, token: null }, system);
-  const chosen = query.samples
-    .map((id) => samples.find((s) => s.id === id))
-    .filter((s) => s !== undefined);
-  const selected = await Promise.all(
-    chosen.map(async (s) => {
-      const revision =
-        s.approvedRevision === null ? null : await resolveRevision(s.id);
-      if (!revision)
-        return { id: s.id, label: s.label, revision: null, grid: null };
-      const data = await getRevisionData(revision);
-      const grid =
-        gridsForOutput(data, system).find(
-          (g) => g.property === query.property,
-        ) ?? null;
-      return { id: s.id, label: s.label, revision: data.number, grid };
-    }),
-  );
-  const valueUnit = unitLabel(system, query.property);
-  return {
-    units: {
-      system,
-      pressure: unitLabel(system, "pressure"),
-      temperature: unitLabel(system, "temperature"),
-      // a dimensionless property (z) has no unit to show: "z", not "z (–)"
-      value: /^[-–—]?$/.test(valueUnit) ? "" : valueUnit,
-    },
-    property: query.property,
-    view: query.view,
-    samples: samples.map((s) => ({
-      id: s.id,
-      label: s.label,
-      field: s.field,
-      well: s.well,
-      approvedRevision: s.approvedRevision,
-      properties: s.properties,
-      reservoirPressure: s.reservoirPressure,
-      reservoirTemperature: s.reservoirTemperature,
-    })),
-    selected,
-  };
+  const query = parseCompareQuery(new URL(args.request.url).searchParams);
+  return buildCompareView(user, query);
 }
 
 type LoaderData = Route.ComponentProps["loaderData"];
