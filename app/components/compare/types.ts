@@ -48,3 +48,30 @@ export type CompareView = {
   samples: CompareSampleOption[];
   selected: CompareSelection[];
 };
+
+/** One cell of the values table: a value from the lookup API, or why there is none. */
+export type CompareCell =
+  | {
+      kind: "value";
+      /** null when the service refused the point (no finite value there). */
+      value: number | null;
+      errorEstimate: number | null;
+      warnings: string[];
+      method: string;
+      outsideRange: boolean;
+    }
+  | { kind: "none"; reason: string };
+
+/** The lookups of the table: cells per sample id, in the order of the conditions. */
+export type CompareLookups = {
+  status: "idle" | "loading" | "done" | "error";
+  cells: Record<number, CompareCell[]>;
+  error: string | null;
+  /** The revision each sample's answer came from, by sample id. */
+  revision: Record<number, number>;
+};
+
+/** Whether a chosen sample has a grid of the property (and so takes part in the table and the plots). */
+export function isCompared(s: CompareSelection): s is ComparedSample {
+  return s.grid !== null && s.revision !== null;
+}

@@ -30,11 +30,12 @@ import {
   PROPERTIES,
   PROPERTY_KEYS,
   type OutputSystem,
-  type PropertyKey,
 } from "~/core/units";
 import { parseConditionList, type Condition } from "~/utils/conditions";
 import { SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
 import { MAX_COMPARED_SAMPLES as MAX_SAMPLES } from "~/utils/compare";
+import type { CompareCell, CompareLookups } from "~/components/compare/types";
+import { useCompareLookups } from "~/components/compare/use-compare-lookups";
 import type { Route } from "./+types/index";
 
 const MAX_TABLE_CONDITIONS = 50;
@@ -51,25 +52,6 @@ export async function loader(args: Route.LoaderArgs) {
 type LoaderData = Route.ComponentProps["loaderData"];
 type Selected = LoaderData["selected"][number];
 type Units = LoaderData["units"];
-
-/** One cell of the table: a value from the lookup API, or why there is none. */
-type Cell =
-  | {
-      kind: "value";
-      value: number;
-      errorEstimate: number;
-      warnings: string[];
-      method: string;
-      outsideRange: boolean;
-    }
-  | { kind: "none"; reason: string };
-
-type LookupState = {
-  status: "idle" | "loading" | "done" | "error";
-  cells: Record<number, Cell[]>;
-  error: string | null;
-  revision: Record<number, number>;
-};
 
 export default function Compare({ loaderData }: Route.ComponentProps) {
   const { samples, selected, property, units } = loaderData;
@@ -582,7 +564,7 @@ function ValuesTable({
   others: Selected[];
   units: Units;
   propertyName: string;
-  lookups: LookupState;
+  lookups: CompareLookups;
   threshold: number | null;
 }) {
   if (conditions.length === 0) {
@@ -720,7 +702,7 @@ function ValueCell({
   cell,
   loading,
 }: {
-  cell: Cell | undefined;
+  cell: CompareCell | undefined;
   loading: boolean;
 }) {
   if (!cell)
@@ -750,9 +732,9 @@ function ValueCell({
       className="px-3 py-2 text-right align-top tabular-nums"
       data-testid="compare-value"
     >
-      <span className="font-semibold">{formatCompared(cell.value)}</span>
+      <span className="font-semibold">{formatCompared(cell.value ?? NaN)}</span>
       <span className="block text-xs whitespace-nowrap text-ink-muted">
-        ± {formatErrorEstimate(cell.errorEstimate)}
+        ± {formatErrorEstimate(cell.errorEstimate ?? NaN)}
       </span>
       {cell.outsideRange || flags.length > 0 ? (
         <span className="mt-0.5 flex flex-wrap justify-end gap-1">
@@ -789,8 +771,8 @@ function DifferenceCell({
   threshold,
   loading,
 }: {
-  reference: Cell | undefined;
-  other: Cell | undefined;
+  reference: CompareCell | undefined;
+  other: CompareCell | undefined;
   threshold: number | null;
   loading: boolean;
 }) {
@@ -803,6 +785,8 @@ function DifferenceCell({
   if (
     reference.kind !== "value" ||
     other.kind !== "value" ||
+    reference.value === null ||
+    other.value === null ||
     reference.value === 0
   )
     return <td className="px-3 py-2 text-right text-ink-muted">—</td>;
@@ -839,181 +823,6 @@ function DifferenceCell({
       ) : null}
     </td>
   );
-}
-
-/** POSTs the conditions to the lookup API for each sample (debounced; stale answers are dropped). */
-function useCompareLookups(
-  samples: (Selected & {
-    grid: NonNullable<Selected["grid"]>;
-    revision: number;
-  })[],
-  property: PropertyKey,
-  system: OutputSystem,
-  conditions: Condition[],
-  extrapolate: boolean,
-): LookupState {
-  const [state, setState] = useState<LookupState>({
-    status: "idle",
-    cells: {},
-    error: null,
-    revision: {},
-  });
-  const key = JSON.stringify([
-    samples.map((s) => s.id),
-    property,
-    system,
-    conditions,
-    extrapolate,
-  ]);
-  const first = useRef(true);
-  useEffect(() => {
-    if (samples.length === 0 || conditions.length === 0) {
-      setState({ status: "idle", cells: {}, error: null, revision: {} });
-      return;
-    }
-    const controller = new AbortController();
-    const delay = first.current ? 0 : 250; // typing: wait for a pause; first load: at once
-    first.current = false;
-    setState((s) => ({ ...s, status: "loading" }));
-    const timer = setTimeout(() => {
-      Promise.all(
-        samples.map((s) =>
-          lookupSample(
-            s,
-            property,
-            system,
-            conditions,
-            extrapolate,
-            controller.signal,
-          ),
-        ),
-      )
-        .then((answers) => {
-          const cells: Record<number, Cell[]> = {};
-          const revision: Record<number, number> = {};
-          answers.forEach((a, i) => {
-            cells[samples[i]!.id] = a.cells;
-            if (a.revision !== null) revision[samples[i]!.id] = a.revision;
-          });
-          setState({ status: "done", cells, error: null, revision });
-        })
-        .catch((error: unknown) => {
-          if (controller.signal.aborted) return;
-          setState({
-            status: "error",
-            cells: {},
-            error: error instanceof Error ? error.message : String(error),
-            revision: {},
-          });
-        });
-    }, delay);
-    return () => {
-      clearTimeout(timer);
-      controller.abort();
-    };
-  }, [key]);
-  return state;
-}
-
-type LookupAnswer = {
-  results: {
-    value: number;
-    errorEstimate: number;
-    warnings: string[];
-    method: string;
-  }[];
-  revision: number;
-};
-type Problem = {
-  detail?: string;
-  issues?: { path?: (string | number)[]; message?: string }[];
-};
-
-/**
- * One sample's values. A point the service refuses (422: outside the range without extrapolation, or no
- * measured values around it) is marked and the others are asked again, so one point never blanks the column.
- */
-async function lookupSample(
-  sample: Selected & { grid: NonNullable<Selected["grid"]>; revision: number },
-  property: PropertyKey,
-  system: OutputSystem,
-  conditions: Condition[],
-  extrapolate: boolean,
-  signal: AbortSignal,
-): Promise<{ cells: Cell[]; revision: number | null }> {
-  const P = sample.grid.pressures;
-  const T = sample.grid.temperatures;
-  const outside = (c: Condition) =>
-    c.pressure < P[0]! ||
-    c.pressure > P[P.length - 1]! ||
-    c.temperature < T[0]! ||
-    c.temperature > T[T.length - 1]!;
-  const cells: Cell[] = conditions.map((c) => ({
-    kind: "none",
-    reason: outside(c) ? "outside the measured range" : "not looked up",
-  }));
-  // without extrapolation, points outside the measured range are not even asked for
-  let remaining = conditions
-    .map((_, k) => k)
-    .filter((k) => extrapolate || !outside(conditions[k]!));
-  let revision: number | null = sample.revision;
-  while (remaining.length > 0) {
-    const response = await fetch(`/api/v1/samples/${sample.id}/lookup`, {
-      method: "POST",
-      headers: {
-        "Content-Type": "application/json",
-        Accept: "application/json",
-      },
-      credentials: "same-origin",
-      signal,
-      body: JSON.stringify({
-        property,
-        points: remaining.map((k) => conditions[k]),
-        method: "auto",
-        units: system,
-        extrapolate,
-      }),
-    });
-    if (response.ok) {
-      const answer = (await response.json()) as LookupAnswer;
-      revision = answer.revision;
-      answer.results.forEach((r, i) => {
-        const k = remaining[i]!;
-        cells[k] = {
-          kind: "value",
-          value: r.value,
-          errorEstimate: r.errorEstimate,
-          warnings: r.warnings,
-          method: r.method,
-          outsideRange: outside(conditions[k]!),
-        };
-      });
-      break;
-    }
-    const problem = (await response.json().catch(() => ({}))) as Problem;
-    const index = problem.issues?.[0]?.path?.[1];
-    if (
-      response.status === 422 &&
-      typeof index === "number" &&
-      index >= 0 &&
-      index < remaining.length
-    ) {
-      const k = remaining[index]!;
-      cells[k] = {
-        kind: "none",
-        reason:
-          outside(conditions[k]!) && !extrapolate
-            ? "outside the measured range"
-            : "no measured values around this point",
-      };
-      remaining = remaining.filter((_, i) => i !== index);
-      continue;
-    }
-    throw new Error(
-      problem.detail ?? `the service answered ${response.status}`,
-    );
-  }
-  return { cells, revision };
 }
 
 function defaultConditionsText(data: LoaderData): string {
