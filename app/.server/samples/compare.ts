@@ -34,7 +34,7 @@ const CompareQuery = z.object({
   units: z.enum(OUTPUT_SYSTEMS).optional().catch(undefined),
   view: z.enum(SURFACE_ARRANGEMENTS).catch("overlaid"),
 });
-export type CompareQuery = z.infer<typeof CompareQuery>;
+type CompareQuery = z.infer<typeof CompareQuery>;
 
 /** The compare page's query from its URL's search parameters (never fails: bad values take the defaults). */
 export function parseCompareQuery(params: URLSearchParams): CompareQuery {
