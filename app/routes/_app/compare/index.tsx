@@ -11,6 +11,8 @@ import { SlicesPanel } from "~/components/compare/slices-panel";
 import { SurfacePanel } from "~/components/compare/surface-panel";
 import { isCompared } from "~/components/compare/types";
 import { useCompareConditions } from "~/components/compare/use-compare-conditions";
+import { useCompareLookups } from "~/components/compare/use-compare-lookups";
+import { useDifferenceOptions } from "~/components/compare/use-difference-options";
 import { usePlotSequence } from "~/components/compare/use-plot-sequence";
 import { useSliceTemperatures } from "~/components/compare/use-slice-temperatures";
 import { ValuesSection } from "~/components/compare/values-section";
@@ -39,6 +41,14 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
     compared,
     conditions.conditions,
     units.system,
+  );
+  const options = useDifferenceOptions();
+  const lookups = useCompareLookups(
+    compared,
+    property,
+    units.system,
+    conditions.conditions,
+    options.extrapolate,
   );
   const [arrangement, setArrangement] = useState(loaderData.view);
 
@@ -80,13 +90,14 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         <>
           <ValuesSection
             samples={compared}
-            property={property}
             propertyName={propertyName}
             units={units}
             conditionsText={conditions.text}
             onConditionsTextChange={conditions.setText}
             parsed={conditions.parsed}
             conditions={conditions.conditions}
+            options={options}
+            lookups={lookups}
           />
           <SurfacePanel
             series={series}
