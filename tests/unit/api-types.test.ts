@@ -10,4 +10,4 @@ test("app/utils/api/openapi-types.ts is the current output of npm run api:types"
     "utf8",
   );
   expect(committed).toBe(await apiTypesSource());
-});
+}, 60_000); // generating and formatting takes a few seconds on a loaded machine

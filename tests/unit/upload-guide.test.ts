@@ -1,6 +1,6 @@
 import { expect, test } from "vitest";
 import { guideSections } from "~/components/samples/guide";
-import { parseGuide, uploadGuide } from "./upload-guide";
+import { parseGuide, uploadGuide } from "~/.server/samples/upload-guide";
 
 /* The upload page shows the user part of app/core/lab-data/README.md; these are the parts it relies on. */
 
