@@ -7,7 +7,7 @@
 // /compare?samples=…&property=… and records, inside the page (performance.now(), so the page's busy main thread
 // does not delay the reading): the plot chunk's arrival, the 3D canvas in the DOM, and the surface drawn
 // (Plotly's first plot done plus two animation frames). It measures; it never fails on a slow result.
-import { chromium } from "playwright-core";
+import { chromium } from "@playwright/test";
 import { CHROMIUM_ARGS, CHROMIUM_PATH } from "../tests/support/chromium";
 
 const args = process.argv.slice(2);

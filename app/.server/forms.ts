@@ -26,13 +26,13 @@ export async function readJsonBody(request: Request): Promise<unknown> {
   }
 }
 
-export type FormFailure = {
+type FormFailure = {
   errors: FieldErrors;
   formError?: string;
   intent?: string;
 };
 
-export type ParsedForm<S extends z.ZodType> =
+type ParsedForm<S extends z.ZodType> =
   | { ok: true; data: z.output<S>; formData: FormData }
   | { ok: false; errors: FieldErrors; formData: FormData };
 

@@ -4,7 +4,7 @@ import { data } from "react-router";
  * Errors of the JSON API are problem details (RFC 9457, `application/problem+json`): type, title, status,
  * detail, plus our machine-readable `code` and, for invalid input, the zod `issues` with field paths.
  */
-export type Problem = {
+type Problem = {
   type: string;
   title: string;
   status: number;

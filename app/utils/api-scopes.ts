@@ -14,7 +14,7 @@ export type ApiScope = (typeof API_SCOPES)[number];
 export type ApiOperation =
   "list-samples" | "read-sample" | "export-table" | "lookup";
 
-export type ApiScopeRule = {
+type ApiScopeRule = {
   operation: ApiOperation;
   method: "GET" | "POST";
   /** The path as the OpenAPI description writes it. */
@@ -83,7 +83,7 @@ export function apiScopeRule(operation: ApiOperation): ApiScopeRule {
   return rule;
 }
 
-export type ApiAccess =
+type ApiAccess =
   { ok: true } | { ok: false; reason: "scope" | "role"; message: string };
 
 /** Whether a caller (a token's scopes, or null for a browser session) with `role` may perform `operation`. */

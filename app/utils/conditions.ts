@@ -7,7 +7,7 @@ export type Condition = { pressure: number; temperature: number };
 export type ParsedConditions =
   { ok: true; conditions: Condition[] } | { ok: false; error: string };
 
-export const MAX_CONDITIONS = 10_000;
+const MAX_CONDITIONS = 10_000;
 
 /** A number as people type it: "3250", "3,250.5", "3250,5" (decimal comma when unambiguous), "1e3". */
 export function parseNumber(text: string): number | null {

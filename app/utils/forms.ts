@@ -13,7 +13,7 @@ import type { z } from "zod";
 export type FieldErrors = Record<string, string[] | undefined>;
 
 /** The name of the field that says which operation a form asks for. */
-export const INTENT_FIELD = "intent";
+const INTENT_FIELD = "intent";
 
 /** Zod issues grouped by the field they are about (the first segment of their path; "form" when none). */
 export function fieldErrorsOf(

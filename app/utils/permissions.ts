@@ -51,9 +51,3 @@ export function can(
 ): boolean {
   return !!user && GRANTS[permission].includes(user.role);
 }
-
-export function permissionsOf(role: Role): Permission[] {
-  return (Object.keys(GRANTS) as Permission[]).filter((p) =>
-    GRANTS[p].includes(role),
-  );
-}

@@ -2,7 +2,7 @@ import type { LookupWarning } from "~/core/lookup";
 
 /** Flagged in the browser, not by the engine: the point lies within NEAR_BUBBLE_POINT_FRACTION of pb. */
 export const NEAR_BUBBLE_POINT = "near-bubble-point" as const;
-export type BadgeWarning = LookupWarning | typeof NEAR_BUBBLE_POINT;
+type BadgeWarning = LookupWarning | typeof NEAR_BUBBLE_POINT;
 
 /**
  * Short labels for the warning badges of lookup results; the full sentence comes from describeWarningCode.

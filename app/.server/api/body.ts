@@ -1,49 +1,11 @@
 import { problem } from "~/.server/http";
 import { nestedDeeperThan } from "~/core/lookup";
 
-export const MAX_JSON_BODY_BYTES = 8 * 1024 * 1024;
+const MAX_JSON_BODY_BYTES = 8 * 1024 * 1024;
 /** Deepest nesting of arrays and objects a JSON body may have (a lookup body needs 3). */
 export const MAX_JSON_DEPTH = 32;
 
 export { nestedDeeperThan };
-
-/**
- * Reads a JSON body, refusing it while it is read once it passes `maxBytes` (413), and answering 415 for a
- * body that is not application/json and 400 for JSON that does not parse. Throws problem Responses.
- */
-export async function readJsonBody(
-  request: Request,
-  maxBytes = MAX_JSON_BODY_BYTES,
-): Promise<unknown> {
-  return (await readJsonBodyWithText(request, maxBytes)).value;
-}
-
-/** As readJsonBody, also returning the body's text (e.g. to derive an ETag from the request). */
-export async function readJsonBodyWithText(
-  request: Request,
-  maxBytes = MAX_JSON_BODY_BYTES,
-): Promise<{ value: unknown; text: string }> {
-  const text = await readJsonText(request, maxBytes);
-  let value: unknown;
-  try {
-    value = JSON.parse(text) as unknown;
-  } catch (error) {
-    // V8's message quotes the text around the fault; the problem helper cuts what it quotes.
-    throw problem(
-      400,
-      "invalid_body",
-      `The body is not valid JSON: ${(error as Error).message.slice(0, 120)}`,
-    );
-  }
-  if (nestedDeeperThan(value, MAX_JSON_DEPTH)) {
-    throw problem(
-      400,
-      "invalid_body",
-      `The body nests lists or objects more than ${MAX_JSON_DEPTH} levels deep; a lookup body needs three.`,
-    );
-  }
-  return { value, text };
-}
 
 /**
  * A JSON body's text, read without parsing it (a large body is parsed in a worker thread): 415 for another

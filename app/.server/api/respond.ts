@@ -32,12 +32,6 @@ export function finiteJson(value: unknown): string {
   });
 }
 
-/** For hand-written JSON: the number as JSON, or a thrown NonFiniteNumberError. */
-export function finiteNumber(value: number, key: string): string {
-  if (!Number.isFinite(value)) throw new NonFiniteNumberError(key, value);
-  return String(value);
-}
-
 /** Development and tests: rethrow (fail loudly). Production: log and answer a 500 problem. */
 export function refuseNonFinite(
   error: unknown,

@@ -123,7 +123,7 @@ export async function listTokensFor(user: SessionUser, now = new Date()) {
   };
 }
 
-export type RevokeOutcome =
+type RevokeOutcome =
   { ok: true; name: string } | { ok: false; reason: "not_found" | "forbidden" };
 
 /**
@@ -173,7 +173,7 @@ export type TokenCaller = {
   };
 };
 
-export type TokenCheck =
+type TokenCheck =
   { ok: true; caller: TokenCaller } | { ok: false; detail: string };
 
 /** Verifies signature, algorithm, issuer, audience and expiry, then the token record and its owner. */

@@ -42,10 +42,10 @@ import {
 } from "./sign-in-throttle";
 import { generateToken, hashToken } from "./tokens";
 
-export const INVITATION_TTL_MS = 72 * 60 * 60 * 1000;
-export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
+const INVITATION_TTL_MS = 72 * 60 * 60 * 1000;
+const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
 /** Quiet limits on reset messages (the answer on the page stays the same): per address and per client, per hour. */
-export const PASSWORD_RESET_LIMITS = {
+const PASSWORD_RESET_LIMITS = {
   windowMs: 60 * 60 * 1000,
   perEmail: 3,
   perClient: 10,
@@ -57,7 +57,7 @@ export const SIGN_IN_FAILED_MESSAGE =
 
 type RequestMeta = { ipAddress: string; userAgent: string | null };
 
-export type SignInResult =
+type SignInResult =
   | { ok: true; userId: number; setCookie: string }
   | { ok: false; reason: "invalid"; message: string }
   | {
@@ -177,7 +177,7 @@ async function warnOwnerOfAttack(
   );
 }
 
-export type InviteResult =
+type InviteResult =
   { ok: true } | { ok: false; field: "email"; message: string };
 
 /**
@@ -239,7 +239,7 @@ export async function getInvitation(token: string) {
   return getUsableLinkToken("invitation", hashToken(token));
 }
 
-export type AcceptResult =
+type AcceptResult =
   { ok: true; setCookie: string } | { ok: false; message: string };
 
 export async function acceptInvitation(

@@ -17,8 +17,8 @@ import { generateToken, hashToken } from "./tokens";
  * so a copy of the sessions table cannot be used to sign in. Expiry slides: 30 days from the last use,
  * renewed (in the database and the cookie) once less than 15 days are left.
  */
-export const SESSION_TTL_MS = 30 * 24 * 60 * 60 * 1000;
-export const SESSION_RENEW_BELOW_MS = 15 * 24 * 60 * 60 * 1000;
+const SESSION_TTL_MS = 30 * 24 * 60 * 60 * 1000;
+const SESSION_RENEW_BELOW_MS = 15 * 24 * 60 * 60 * 1000;
 
 export type SessionUser = {
   id: number;
@@ -76,7 +76,7 @@ export async function createSession(
   return { sessionId, setCookie: await sessionCookie().serialize(token) };
 }
 
-export type ValidatedSession = {
+type ValidatedSession = {
   sessionId: string;
   user: SessionUser;
   renewedCookie: string | null;

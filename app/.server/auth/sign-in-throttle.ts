@@ -41,7 +41,7 @@ export const SIGN_IN_THROTTLE = {
 } as const;
 
 type Rule = { freeFailures: number; baseDelayMs: number; maxDelayMs: number };
-export type FailureCount = { failures: number; lastFailureAt: Date | null };
+type FailureCount = { failures: number; lastFailureAt: Date | null };
 export type SignInHistory = {
   pair: FailureCount;
   account: FailureCount;

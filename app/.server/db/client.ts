@@ -10,7 +10,7 @@ export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
 /** A query function accepts the database or a transaction, so several can share one transaction. */
 export type Executor = Database | Transaction;
 
-export type PoolBounds = {
+type PoolBounds = {
   connectionLimit: number;
   /** ms a single query may run before it fails (the connection is then discarded). */
   queryTimeoutMs: number;
@@ -103,10 +103,7 @@ function boundQueries<T extends Queryable>(target: T, timeoutMs: number): T {
  * query (queryTimeoutMs, mysql2's own timeout, which discards the connection). The server also stops a statement
  * that runs past the same bound (max_statement_time), so an abandoned query does not run on.
  */
-export function createPool(
-  url: string,
-  bounds: PoolBounds | number,
-): mysql.Pool {
+function createPool(url: string, bounds: PoolBounds | number): mysql.Pool {
   const b: PoolBounds =
     typeof bounds === "number"
       ? {
@@ -174,7 +171,7 @@ export function createPool(
 }
 
 /** A database handle over a pool of its own: the drizzle instance and how to close its pool. */
-export type DatabaseHandle = { db: Database; close: () => Promise<void> };
+type DatabaseHandle = { db: Database; close: () => Promise<void> };
 
 /** Opens a handle on `url` (scripts and tests; the application's own comes from getDb()). */
 export function createDatabase(

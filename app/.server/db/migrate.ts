@@ -4,7 +4,7 @@ import { migrate } from "drizzle-orm/mysql2/migrator";
 import mysql from "mysql2/promise";
 
 /** How long a second migrator waits for the first one to finish before giving up. */
-export const MIGRATION_LOCK_TIMEOUT_S = 120;
+const MIGRATION_LOCK_TIMEOUT_S = 120;
 
 /**
  * The name of the migration lock of one database. GET_LOCK names are server-wide, so the database name is part

@@ -23,7 +23,7 @@ import { roundSignificant } from "~/core/format";
  * No number here is a measurement. See reference-data/README.md.
  */
 
-export const DEMO_FIELD = {
+const DEMO_FIELD = {
   name: "Calder Shelf (demo)",
   region: "Invented offshore basin",
   description:
@@ -41,7 +41,7 @@ export const DEMO_USERS: { email: string; name: string; role: Role }[] = [
   { email: "viewer@calder.example", name: "Mona Manager", role: "viewer" },
 ];
 
-export type DemoSample = {
+type DemoSample = {
   well: string;
   label: string;
   sampleType: SampleType;
@@ -140,7 +140,7 @@ export const DEMO_SAMPLES: DemoSample[] = [
   },
 ];
 
-export type SeedOptions = { demoPassword: string };
+type SeedOptions = { demoPassword: string };
 
 /** Loads the demo scenario. Idempotent: rows that already exist (by name, e-mail or label) are left alone. */
 export async function seedDemo(
@@ -237,7 +237,7 @@ export async function seedDemo(
 
 /** Relative standard deviation of the artificial noise: small enough that the invented tables keep the trends
  * the physics requires (and pass the QC checks), large enough that they do not look perfectly smooth. */
-export const DEMO_NOISE = 0.001;
+const DEMO_NOISE = 0.001;
 
 /** The invented grids of one demo sample, in canonical units. */
 export function demoGrids(s: DemoSample, seed: number, noise = DEMO_NOISE) {

@@ -1,7 +1,7 @@
 import { getEnv } from "~/.server/env";
 import { getTransport } from "./transport";
 
-export type EmailMessage = {
+type EmailMessage = {
   to: string;
   subject: string;
   text: string;

@@ -4,7 +4,7 @@ import { isApiPath, problem } from "~/.server/http";
 import { currentRequest } from "./request-store";
 
 /** Seconds a client is asked to wait when the database is unavailable. */
-export const DATABASE_RETRY_AFTER_S = 5;
+const DATABASE_RETRY_AFTER_S = 5;
 
 const CODES: Record<number, string> = {
   400: "bad_request",
@@ -71,7 +71,7 @@ function isProblem(response: Response): boolean {
   );
 }
 
-export function databaseUnavailable(request: Request): Response {
+function databaseUnavailable(request: Request): Response {
   const headers = { "Retry-After": String(DATABASE_RETRY_AFTER_S) };
   if (isApiPath(request)) {
     return problem(

@@ -15,16 +15,16 @@ import { getEnv, type Env } from "~/.server/env";
  * the disks the data and the uploads live on have room. Each check answers within `timeoutMs`.
  */
 
-export type CheckName = "database" | "migrations" | "disk";
+type CheckName = "database" | "migrations" | "disk";
 
-export type DiskReport = {
+type DiskReport = {
   name: string;
   ok: boolean;
   freeBytes: number | null;
   problem?: string;
 };
 
-export type Readiness = {
+type Readiness = {
   status: "ready" | "not ready";
   failing: CheckName[];
   checks: {

@@ -5,7 +5,7 @@ import { AsyncLocalStorage } from "node:async_hooks";
  * that no function has to pass it along: the request id of the log line, the CSP nonce of the page, who called
  * (for the log line) and whether the database failed during the request (turned into a 503 at the edge).
  */
-export type RequestState = {
+type RequestState = {
   requestId: string;
   nonce: string;
   /** `user:<id>` or `token:<id>`, set by authentication; logged, never the token itself. */

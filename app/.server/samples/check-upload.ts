@@ -63,7 +63,7 @@ export function qcMetaOf(sample: SampleForQc): QcMeta {
   };
 }
 
-export function sha256Hex(bytes: Uint8Array): string {
+function sha256Hex(bytes: Uint8Array): string {
   return createHash("sha256").update(bytes).digest("hex");
 }
 

@@ -62,7 +62,7 @@ const orNull = <T>(v: T | null, f: (x: T) => number) =>
  * The fields of a sample record the presenter reads, in canonical units. A listing that does not read the
  * depth or the standard conditions leaves them out, and gets null for them.
  */
-export type SampleConditions = {
+type SampleConditions = {
   samplingDepthFt?: number | null;
   reservoirPressurePsia: number | null;
   reservoirTemperatureF: number | null;
@@ -71,7 +71,7 @@ export type SampleConditions = {
 };
 
 /** A sample's conditions in the reader's unit system, with the unit symbols beside them. */
-export type SampleInOutputUnits = {
+type SampleInOutputUnits = {
   units: { pressure: string; temperature: string; depth: string };
   samplingDepth: number | null;
   reservoirPressure: number | null;

@@ -29,7 +29,7 @@ export function isStoredQcReport(value: unknown): value is StoredQcReport {
   );
 }
 
-export type QcSummary = {
+type QcSummary = {
   status: "pass" | "warn" | "fail";
   errors: number;
   warnings: number;

@@ -16,7 +16,7 @@ import { isStoredQcReport, summarizeReport } from "./qc-report";
  * checked and applied in one transaction that holds the sample's row lock, with the decision's audit row.
  */
 
-export type ReviewDecision = {
+type ReviewDecision = {
   sampleId: number;
   number: number;
   decision: "approve" | "reject";

@@ -18,7 +18,7 @@ export type RevisionData = {
   >;
 };
 
-export const OIL_PROPERTIES: ReadonlySet<PropertyKey> = new Set([
+const OIL_PROPERTIES: ReadonlySet<PropertyKey> = new Set([
   "oil_fvf",
   "solution_gor",
   "oil_viscosity",

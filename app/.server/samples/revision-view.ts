@@ -86,7 +86,3 @@ export async function loadRevisionView(
     bubblePoints: presentBubblePoints(data.bubblePoints, findings, system),
   };
 }
-
-export type RevisionView = NonNullable<
-  Awaited<ReturnType<typeof loadRevisionView>>
->;

@@ -136,13 +136,3 @@ export function formDefaultsFromRecord(
     notes: record.notes ?? "",
   };
 }
-
-/** Which fields an edit changed (for the audit log). */
-export function changedFields(
-  before: Record<string, unknown>,
-  after: Record<string, unknown>,
-): string[] {
-  return Object.keys(after).filter(
-    (k) => k !== "fieldRegion" && before[k] !== after[k],
-  );
-}

@@ -5,7 +5,7 @@
  * its error code, for whoever reads the server log.
  */
 
-export type StoreFailure = {
+type StoreFailure = {
   status: 409 | 500 | 503;
   kind: "unavailable" | "conflict" | "refused";
   /** For the user. */

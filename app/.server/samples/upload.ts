@@ -9,10 +9,10 @@ import { MAX_UPLOAD_BYTES } from "~/core/lab-data";
  */
 
 /** Room for the other form fields and the multipart framing around a file of MAX_UPLOAD_BYTES. */
-export const FORM_OVERHEAD_BYTES = 64 * 1024;
+const FORM_OVERHEAD_BYTES = 64 * 1024;
 export const UPLOAD_BODY_LIMIT_BYTES = MAX_UPLOAD_BYTES + FORM_OVERHEAD_BYTES;
 /** Past this much, an oversized body is no longer drained but cut off. */
-export const DRAIN_LIMIT_BYTES = 64 * 1024 * 1024;
+const DRAIN_LIMIT_BYTES = 64 * 1024 * 1024;
 
 export type CappedForm =
   | { ok: true; formData: FormData; bytesRead: number }

@@ -25,8 +25,6 @@ import {
   type TaskOutcome,
 } from "./tasks";
 
-export type { HeavyInput, HeavyOutput, HeavyTask } from "./tasks";
-
 /*
  * Below these sizes a job runs inline. Measured on this 2-core machine (warm, but shared with other work, so
  * figures are high): a round trip through a worker costs 1–2 ms (message, clone, wake-up). Inline, a lookup of
@@ -48,10 +46,7 @@ export const MIN_WORKER_SIZE: Readonly<Record<HeavyTask, number>> =
   });
 
 /** The size of a job in the unit of MIN_WORKER_SIZE. */
-export function jobSize<T extends HeavyTask>(
-  task: T,
-  input: HeavyInput<T>,
-): number {
+function jobSize<T extends HeavyTask>(task: T, input: HeavyInput<T>): number {
   switch (task) {
     case "api-lookup":
       return (input as HeavyInput<"api-lookup">).pressures.length;
@@ -70,7 +65,7 @@ export function jobSize<T extends HeavyTask>(
   }
 }
 
-export type HeavyPoolSettings = {
+type HeavyPoolSettings = {
   /** Worker threads. */
   workers: number;
   /** Heavy jobs that may wait for a worker; one more is refused with 503. */
@@ -252,7 +247,7 @@ function transferListOf<T extends HeavyTask>(
 // worker beside it, so the work runs inline.
 const WORKER_FILE = "./heavy-worker.js";
 
-export function heavyPoolSettingsFromEnv(): HeavyPoolSettings {
+function heavyPoolSettingsFromEnv(): HeavyPoolSettings {
   const env = getEnv();
   const file = fileURLToPath(new URL(WORKER_FILE, import.meta.url));
   return {
@@ -265,7 +260,7 @@ export function heavyPoolSettingsFromEnv(): HeavyPoolSettings {
 let shared: HeavyPool | undefined;
 
 /** The process's pool, made on first use from the environment. */
-export function getHeavyPool(): HeavyPool {
+function getHeavyPool(): HeavyPool {
   shared ??= new HeavyPool(heavyPoolSettingsFromEnv());
   return shared;
 }

@@ -14,7 +14,7 @@ import type {
  * finding numbers, linked to the list of findings (#finding-n).
  */
 
-export const MARK_STYLES: Record<Severity, string> = {
+const MARK_STYLES: Record<Severity, string> = {
   error:
     "bg-red-100 text-danger ring-1 ring-inset ring-danger/50 font-semibold",
   warning:

@@ -42,4 +42,3 @@ export const SAMPLE_SORTS = [
 ] as const;
 export type SampleSort = (typeof SAMPLE_SORTS)[number];
 export const SAMPLE_STATUS_FILTERS = ["approved", "none", "draft"] as const;
-export type SampleStatusFilter = (typeof SAMPLE_STATUS_FILTERS)[number];

@@ -9,7 +9,7 @@ const BADGE: Record<Severity, string> = {
   info: "border-accent/30 bg-accent-soft text-accent-strong",
 };
 
-export function SeverityBadge({ severity }: { severity: Severity }) {
+function SeverityBadge({ severity }: { severity: Severity }) {
   return (
     <span
       className={`inline-block rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${BADGE[severity]}`}

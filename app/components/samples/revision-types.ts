@@ -10,7 +10,7 @@ import type {
 } from "./types";
 
 /** Who uploaded and reviewed a revision, and when. */
-export type DisplayRevision = {
+type DisplayRevision = {
   number: number;
   status: string;
   comment: string | null;

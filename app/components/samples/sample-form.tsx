@@ -14,7 +14,7 @@ import { SAMPLE_TYPE_LABELS } from "./labels";
 export type FormSystem = OutputSystem;
 
 /** Units the form uses for each system. */
-export const FORM_UNITS: Record<
+const FORM_UNITS: Record<
   FormSystem,
   { pressure: string; temperature: string; depth: string }
 > = {

@@ -27,7 +27,7 @@ const RING: Record<Severity, string> = {
 };
 
 /** About `count` round tick values covering [min, max]. */
-export function niceTicks(min: number, max: number, count = 4): number[] {
+function niceTicks(min: number, max: number, count = 4): number[] {
   if (!Number.isFinite(min) || !Number.isFinite(max)) return [];
   if (min === max) return [min];
   const raw = (max - min) / count;
@@ -42,7 +42,7 @@ export function niceTicks(min: number, max: number, count = 4): number[] {
 }
 
 /** Ticks at 1, 2 and 5 times powers of ten within [min, max] (fewer when the range is wide). */
-export function logTicks(min: number, max: number): number[] {
+function logTicks(min: number, max: number): number[] {
   const ticks: number[] = [];
   const decades = Math.log10(max / min);
   const steps = decades > 3 ? [1] : decades > 1.5 ? [1, 3] : [1, 2, 5];

@@ -10,7 +10,7 @@ import type { IdenticalRevisionNote } from "~/utils/upload-form";
 export type Severity = "error" | "warning" | "info";
 
 /** Where a finding points in the uploaded file. */
-export type FindingPlace = {
+type FindingPlace = {
   file: string;
   sheet?: string;
   row?: number;

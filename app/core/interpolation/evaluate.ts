@@ -153,7 +153,7 @@ function span(start: number, count: number): number[] {
 }
 
 /** The Result for the point last evaluated into plan.single. */
-export function toResult(plan: Plan): Result {
+function toResult(plan: Plan): Result {
   const buf = plan.single;
   const flags = buf.warnings[0]!;
   const stencil: Stencil =

@@ -25,7 +25,7 @@ import {
  * A node as shown to a person. `index` is the grid row (step one, along pressure) or the grid column (step
  * two, along temperature); null for a bubble-point node that lies between grid rows.
  */
-export type TraceNode = {
+type TraceNode = {
   coordinate: number;
   value: number;
   index: number | null;
@@ -364,7 +364,7 @@ function rowOvershoot(
  * Bubble-point pressure at temperature t, interpolated along temperature through every column's bubble
  * point with the method's own temperature step (Newton on the zone, pchip, or linear).
  */
-export function bubblePointAt(plan: Plan, t: number): number {
+function bubblePointAt(plan: Plan, t: number): number {
   const prep = plan.prep;
   const { M, T } = prep;
   const pb = prep.bubble!.pb;

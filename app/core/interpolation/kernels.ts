@@ -51,7 +51,7 @@ function cellIn(ax: AxisIndex, t: number): number {
 }
 
 /** Newton of any degree on a complete grid (the loop form). */
-export function runNewtonFast(
+function runNewtonFast(
   plan: Plan,
   ps: Float64Array,
   ts: Float64Array,
@@ -447,7 +447,7 @@ function runNewton33(
 }
 
 /** pchip value for one point on the same grid (the alternative shown with an overshoot). */
-export function pchipAt(plan: Plan, p: number, t: number): BatchResult {
+function pchipAt(plan: Plan, p: number, t: number): BatchResult {
   let pp = plan.pchipPlan;
   if (!pp) {
     pp = getPlan(plan.prep, "pchip", 0, 0);
@@ -460,7 +460,7 @@ export function pchipAt(plan: Plan, p: number, t: number): BatchResult {
 }
 
 /** pchip along pressure for every column, then along temperature, on points [from, to). */
-export function runPchipFast(
+function runPchipFast(
   plan: Plan,
   ps: Float64Array,
   ts: Float64Array,

@@ -110,7 +110,7 @@ export function pchipCell(
 }
 
 /** Cubic Hermite on one cell in power form about its left node (the form SciPy evaluates). */
-export function hermite(
+function hermite(
   y0: number,
   d0: number,
   d1: number,

@@ -18,7 +18,7 @@ import {
  * order[v*q + i] lists the q nodes in Newton order (see `orderedZone`); the first `valueTerms` of them are
  * the zone, and `start[v]` is its smallest node index.
  */
-export type AxisVariants = {
+type AxisVariants = {
   n: number;
   degree: number;
   q: number;
@@ -30,10 +30,7 @@ export type AxisVariants = {
   asc: Int32Array;
 };
 
-export function buildVariants(
-  nodes: Float64Array,
-  degree: number,
-): AxisVariants {
+function buildVariants(nodes: Float64Array, degree: number): AxisVariants {
   const n = nodes.length;
   const m = Math.min(degree, n - 1);
   const cells = Math.max(1, n - 1);
@@ -65,7 +62,7 @@ export function buildVariants(
 }
 
 /** Complete grid, no bubble points: Newton coefficients of every column on every pressure zone. */
-export type NewtonTables = {
+type NewtonTables = {
   p: AxisVariants;
   t: AxisVariants;
   /** coef[(vp*M + j)*q + i]: Newton coefficients of column j on pressure variant vp. */
@@ -98,7 +95,7 @@ export type NewtonTables = {
 };
 
 /** Complete grid, no bubble points: pchip and three-point derivatives of every column along pressure. */
-export type PchipTables = {
+type PchipTables = {
   d: Float64Array;
   b: Float64Array;
   /**
@@ -116,7 +113,7 @@ export type PchipTables = {
 };
 
 /** Scratch for the general evaluator (missing cells, bubble points), sized for the grid. */
-export type Scratch = {
+type Scratch = {
   usable: Int32Array;
   ux: Float64Array;
   status: Uint8Array;

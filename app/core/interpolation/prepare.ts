@@ -24,7 +24,7 @@ export type BranchNodes = {
   bubbleLast: Uint8Array;
 };
 
-export type BubbleInfo = {
+type BubbleInfo = {
   /** Bubble-point pressure per column; columns given as null are filled along temperature (see README). */
   pb: Float64Array;
   known: Uint8Array;

@@ -28,7 +28,7 @@ function placeOf(source: CellSource): Place {
   };
 }
 
-export function buildGrid(
+function buildGrid(
   record: PropertyRecord,
   points: readonly PointRecord[],
 ): PropertyGrid {
@@ -71,11 +71,11 @@ export function buildGrid(
 }
 
 /** Most distinct pressures, temperatures and cells one property grid may have (far above any laboratory table). */
-export const MAX_GRID_PRESSURES = 5_000;
-export const MAX_GRID_TEMPERATURES = 500;
-export const MAX_GRID_CELLS = 200_000;
+const MAX_GRID_PRESSURES = 5_000;
+const MAX_GRID_TEMPERATURES = 500;
+const MAX_GRID_CELLS = 200_000;
 
-export interface Assembled {
+interface Assembled {
   readonly properties: { [K in PropertyKey]?: PropertyGrid };
   readonly bubblePoints: BubblePoint[];
 }

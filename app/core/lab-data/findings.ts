@@ -10,7 +10,7 @@ import type {
 } from "./types";
 
 /** Most findings listed for one upload; the rest are summarised in one last finding. */
-export const MAX_FINDINGS = 100;
+const MAX_FINDINGS = 100;
 
 export interface Place {
   readonly sheet?: string;
@@ -28,7 +28,7 @@ export function quote(value: string): string {
 }
 
 /** "In results.xlsx, sheet "Bo", row 7, column C" */
-export function describePlace(file: string, place: Place): string {
+function describePlace(file: string, place: Place): string {
   const parts = [`In ${file}`];
   if (place.sheet !== undefined) parts.push(`sheet ${quote(place.sheet)}`);
   if (place.row !== undefined) parts.push(`row ${place.row}`);
@@ -37,7 +37,7 @@ export function describePlace(file: string, place: Place): string {
   return parts.join(", ");
 }
 
-export function makeLocation(
+function makeLocation(
   file: string,
   place: Place,
   value?: string,

@@ -27,9 +27,7 @@ export interface HeaderCell {
 }
 
 /** Split "Name (unit)", "Name [unit]" or "Name, unit"; null when there is no unit part. */
-export function splitHeaderText(
-  text: string,
-): { name: string; unit: string } | null {
+function splitHeaderText(text: string): { name: string; unit: string } | null {
   const t = text.trim();
   const last = t.at(-1);
   if (last === ")" || last === "]") {

@@ -10,7 +10,7 @@ import {
   type Quantity,
 } from "../units";
 
-export type AxisName = "pressure" | "temperature" | "bubble_point";
+type AxisName = "pressure" | "temperature" | "bubble_point";
 export type HeaderName = PropertyKey | AxisName;
 
 /** The axes' names as the templates write them and as messages say them. */
@@ -88,7 +88,7 @@ export const HEADER_LABELS: Readonly<Record<HeaderName, string>> = {
   ) as Record<PropertyKey, string>),
 };
 
-export function normalizeHeaderName(name: string): string {
+function normalizeHeaderName(name: string): string {
   return name
     .normalize("NFKC")
     .toLowerCase()

@@ -13,14 +13,14 @@ const DOT_DECIMAL = /^[+-]?(?:\d+\.\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const COMMA_DECIMAL = /^[+-]?(?:\d+,\d*|,\d+)(?:[eE][+-]?\d+)?$/;
 
 /** Trim, fold the Unicode minus sign and no-break spaces. */
-export function tidyNumberText(text: string): string {
+function tidyNumberText(text: string): string {
   return text
     .replace(/[\u00a0\u202f]/g, " ")
     .trim()
     .replace(/^[\u2212\u2013]/, "-");
 }
 
-export type NumberStyle = "integer" | "dot" | "comma";
+type NumberStyle = "integer" | "dot" | "comma";
 
 /** How a cell's text writes a number, or null when it is not a number in either style. */
 export function numberStyle(text: string): NumberStyle | null {

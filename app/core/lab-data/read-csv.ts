@@ -25,7 +25,7 @@ function fieldCount(line: string, delimiter: Delimiter): number {
  * Pick the delimiter: the one that splits the most of the first 50 content lines into two or more fields,
  * then the one giving the most lines with the commonest field count. Ties keep the order comma, semicolon, tab.
  */
-export function detectDelimiter(text: string): Delimiter {
+function detectDelimiter(text: string): Delimiter {
   const lines = text
     .split(/\r\n|\n|\r/)
     .filter((l) => l.trim() !== "" && !l.trimStart().startsWith("#"))
@@ -111,6 +111,6 @@ export function readCsv(
   return { sheet: { rows }, delimiter };
 }
 
-export function delimiterName(d: Delimiter): string {
+function delimiterName(d: Delimiter): string {
   return d === "," ? "comma" : d === ";" ? "semicolon" : "tab";
 }

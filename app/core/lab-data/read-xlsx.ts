@@ -8,10 +8,10 @@ import type { FindingList } from "./findings";
 import { zipDirectory } from "./sniff-file";
 
 /** A workbook may unpack to at most this many bytes (a guard against ZIP bombs). */
-export const MAX_UNPACKED_BYTES = 100 * 1024 * 1024;
+const MAX_UNPACKED_BYTES = 100 * 1024 * 1024;
 /** Rows and columns read per sheet at most. */
-export const MAX_SHEET_ROWS = 50_000;
-export const MAX_SHEET_COLUMNS = 1_000;
+const MAX_SHEET_ROWS = 50_000;
+const MAX_SHEET_COLUMNS = 1_000;
 
 type ExcelModule = typeof import("exceljs");
 

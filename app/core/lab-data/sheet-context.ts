@@ -15,8 +15,6 @@ import {
 import { cellText, type RawCell } from "./cells";
 import type { FindingList, Place } from "./findings";
 import { quote } from "./findings";
-import type { HeaderName } from "./header-names";
-import { HEADER_LABELS } from "./header-names";
 import { notNumberHint, parseNumberText, type DecimalMark } from "./numbers";
 import type { CellSource, Layout, UnitRef } from "./types";
 import { roundSignificant } from "../format";
@@ -172,8 +170,4 @@ export function toCanonicalChecked(
 /** Unit symbols of a quantity, for messages: "psia, psig, bara, …". */
 export function unitChoices(quantity: Quantity): string {
   return Object.keys(UNITS[quantity]).join(", ");
-}
-
-export function headerLabel(name: HeaderName): string {
-  return HEADER_LABELS[name];
 }

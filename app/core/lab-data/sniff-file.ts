@@ -2,7 +2,7 @@
  * What kind of file is this? Decided from the bytes (magic numbers, text decoding), with the file name
  * only as a hint. Pure: works on a Uint8Array.
  */
-export type SniffResult =
+type SniffResult =
   | { readonly kind: "zip" }
   | {
       readonly kind: "text";

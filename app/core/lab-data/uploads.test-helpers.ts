@@ -38,7 +38,7 @@ export function errorsOf(outcome: ParseOutcome): readonly Finding[] {
   return outcome.errors;
 }
 
-export interface Expected {
+interface Expected {
   readonly file?: string;
   readonly sheet?: string;
   readonly row?: number;

@@ -17,7 +17,7 @@ type Entry = {
 const cache = new WeakMap<Grid, Entry>();
 
 /** The one-row grid of bubble points along temperature, or null when the grid has none known. */
-export function bubblePointGrid(grid: Grid): Grid | null {
+function bubblePointGrid(grid: Grid): Grid | null {
   const hit = cache.get(grid);
   if (
     hit &&

@@ -3,7 +3,7 @@
  * simulator's keywords) and the short name used as a single word in the text layout, both from the property
  * catalogue.
  */
-import { PROPERTIES, type PropertyKey } from "../units";
+import { PROPERTIES } from "../units";
 
 export type TableColumnKey =
   | "solution_gor"
@@ -44,7 +44,3 @@ export const COLUMN_INFO: Readonly<Record<TableColumnKey, ColumnInfo>> =
       TABLE_COLUMNS.map((key) => [key, { key, ...PROPERTIES[key].column }]),
     ) as Record<TableColumnKey, ColumnInfo>,
   );
-
-export function isTableColumn(key: PropertyKey): key is TableColumnKey {
-  return (TABLE_COLUMNS as readonly string[]).includes(key);
-}

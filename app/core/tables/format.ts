@@ -66,7 +66,7 @@ const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
  * it short). An integer divided (or multiplied) by an exact power of ten is correctly rounded in IEEE
  * arithmetic; a tie may round either way, and every format uses this one function, so they agree.
  */
-export function roundTo(x: number, digits: number): number {
+function roundTo(x: number, digits: number): number {
   if (x === 0 || !Number.isFinite(x)) return x === 0 ? 0 : x;
   const k = digits - 1 - Math.floor(Math.log10(Math.abs(x)));
   if (k > 22 || k < -22) return roundSignificant(x, digits);

@@ -1,9 +1,7 @@
 import { and, count, desc, eq, gte, lte, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
-import { AUDIT_ACTIONS, type AuditAction } from "~/utils/audit-actions";
+import type { AuditAction } from "~/utils/audit-actions";
 import { auditLog, users } from "../schema";
-
-export { AUDIT_ACTIONS, type AuditAction };
 
 /*
  * THE AUDIT RULE. An audit row is written by the function that opens the transaction of the change it records,
@@ -16,7 +14,7 @@ export { AUDIT_ACTIONS, type AuditAction };
  * `db` has no default here, so every caller says which transaction its row belongs to.
  */
 
-export type AuditEvent = {
+type AuditEvent = {
   action: AuditAction;
   userId?: number | null;
   apiTokenId?: string | null;
@@ -44,7 +42,7 @@ export async function recordAudit(
   });
 }
 
-export type AuditFilter = {
+type AuditFilter = {
   userId?: number;
   action?: AuditAction;
   from?: Date;

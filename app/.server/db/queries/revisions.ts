@@ -299,7 +299,7 @@ export async function listBubblePointsOfRevisions(
     .orderBy(asc(revisionBubblePoints.temperatureF));
 }
 
-export type DraftUpload = Omit<
+type DraftUpload = Omit<
   NewRevision,
   "status" | "reviewedBy" | "reviewComment"
 > & {
@@ -378,7 +378,7 @@ export async function storeDraftRevision(
   }, REVISION_WRITE_TX);
 }
 
-export type UploadOutcome =
+type UploadOutcome =
   | { ok: true; id: number; number: number }
   | { ok: false; reason: "identical"; identical: IdenticalRevision }
   | { ok: false; reason: "sample_gone" };
@@ -504,7 +504,7 @@ export async function getRevisionForReview(
   return row ?? null;
 }
 
-export type ReviewStamp = {
+type ReviewStamp = {
   reviewerId: number;
   comment: string | null;
   at: Date;

@@ -74,9 +74,9 @@ export type SampleRecordInput = {
 const WRITE_TX = { isolationLevel: "read committed" } as const;
 
 /** Who makes the change, for the audit log. */
-export type Actor = { userId: number; ipAddress?: string | null };
+type Actor = { userId: number; ipAddress?: string | null };
 
-export type SampleRecordResult =
+type SampleRecordResult =
   | { ok: true; id: number; createdField: boolean; createdWell: boolean }
   | { ok: false; conflict: "label" };
 
@@ -288,7 +288,7 @@ export async function getSampleRecord(id: number, db: Executor = getDb()) {
 }
 
 /** The list's sort keys (query string values): each names the column it sorts by (see searchSamples). */
-export type SampleSort =
+type SampleSort =
   | "field"
   | "well"
   | "label"
@@ -299,9 +299,9 @@ export type SampleSort =
   | "revision"
   | "updated";
 /** approved: has an approved revision; none: has none; draft: has a draft awaiting review. */
-export type SampleStatusFilter = "approved" | "none" | "draft";
+type SampleStatusFilter = "approved" | "none" | "draft";
 
-export type SampleSearch = {
+type SampleSearch = {
   q?: string;
   type?: SampleType;
   status?: SampleStatusFilter;

@@ -1,4 +1,4 @@
-import { eq, lt } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { sessions, users } from "../schema";
 
@@ -45,11 +45,4 @@ export async function extendSession(
 
 export async function deleteSession(id: string, db: Executor = getDb()) {
   await db.delete(sessions).where(eq(sessions.id, id));
-}
-
-export async function deleteExpiredSessions(
-  now = new Date(),
-  db: Executor = getDb(),
-) {
-  await db.delete(sessions).where(lt(sessions.expiresAt, now));
 }

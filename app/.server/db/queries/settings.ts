@@ -17,9 +17,7 @@ function asMode(value: string | undefined): FourEyesMode {
   return FOUR_EYES_MODES.find((m) => m === value) ?? "auto";
 }
 
-export async function countActiveLabLeads(
-  db: Executor = getDb(),
-): Promise<number> {
+async function countActiveLabLeads(db: Executor = getDb()): Promise<number> {
   const [row] = await db
     .select({ n: count() })
     .from(users)

@@ -37,7 +37,7 @@ export async function deleteSignInAttempt(id: number, db: Executor = getDb()) {
   await db.delete(signInAttempts).where(eq(signInAttempts.id, id));
 }
 
-export type FailureCount = { failures: number; lastFailureAt: Date | null };
+type FailureCount = { failures: number; lastFailureAt: Date | null };
 
 /**
  * What the throttle needs about the attempts recorded before attempt `beforeId`:

@@ -4,7 +4,6 @@
  */
 import { PROPERTY_KEYS, type PropertyKey } from "../../units";
 import type {
-  BubblePoint,
   Finding,
   ParsedDataset,
   PropertyGrid,
@@ -18,9 +17,9 @@ import { RULES, type RuleId } from "./rules";
 /** Temperatures closer than this (°F) are the same temperature. */
 export const TEMPERATURE_TOLERANCE = 0.01;
 /** Findings listed per rule; the rest are counted in one closing note. */
-export const MAX_FINDINGS_PER_RULE = 50;
+const MAX_FINDINGS_PER_RULE = 50;
 /** Pressures closer than this fraction are the same pressure. */
-export const PRESSURE_TOLERANCE = 1e-6;
+const PRESSURE_TOLERANCE = 1e-6;
 
 export interface QcMeta {
   /** Stock-tank oil gravity, °API: enables the correlation and density checks. */
@@ -49,7 +48,7 @@ export interface Point {
   readonly value: number;
 }
 
-export type BubbleOrigin = "file" | "sample" | "inferred";
+type BubbleOrigin = "file" | "sample" | "inferred";
 
 export interface BubbleAt {
   readonly temperature: number;
@@ -202,13 +201,3 @@ export function cell(
 ): QcCell {
   return { property, pressure, temperature };
 }
-
-export function bubbleOriginText(b: BubbleAt): string {
-  return b.origin === "file"
-    ? "stated in the file"
-    : b.origin === "sample"
-      ? "from the sample record"
-      : "inferred from the data";
-}
-
-export type { BubblePoint };

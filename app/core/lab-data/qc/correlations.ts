@@ -26,7 +26,7 @@ import type { QcCell, Severity } from "../types";
 import { cell, samePressure, type QcContext } from "./context";
 import { formatPercent, formatSignedPercent } from "../../format";
 
-export const CORRELATION_BANDS = {
+const CORRELATION_BANDS = {
   bubblePoint: 0.2,
   oilFvf: 0.05,
   oilViscosity: 0.3,

@@ -24,7 +24,7 @@ export const CANONICAL_REFS: Readonly<
 };
 
 /** Convert a canonical value to the unit of `ref` for display (falls back to canonical on any problem). */
-export function toDisplay(
+function toDisplay(
   value: number,
   ref: UnitRef | undefined,
   barometricPsia?: number,

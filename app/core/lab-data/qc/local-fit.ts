@@ -10,7 +10,7 @@
  * differential liberation down to atmospheric pressure — from being flagged. The worst point is flagged
  * first and left out before looking again. */
 
-export interface FitPoint {
+interface FitPoint {
   readonly x: number;
   readonly y: number;
 }
@@ -80,9 +80,9 @@ export const RECIPROCAL: Transform = {
 };
 
 /** At most this many points are flagged per series; the rest would only repeat the message. */
-export const MAX_FLAGS = 10;
+const MAX_FLAGS = 10;
 
-export interface Outlier {
+interface Outlier {
   readonly index: number;
   /** The smooth value expected at the point, in value units. */
   readonly expected: number;

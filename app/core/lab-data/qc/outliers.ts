@@ -27,7 +27,7 @@ interface OutlierSpec {
 }
 
 /** Tolerances sit above usual laboratory repeatability for each property (common practice). */
-export const OUTLIER_SPECS: Readonly<Record<PropertyKey, OutlierSpec>> = {
+const OUTLIER_SPECS: Readonly<Record<PropertyKey, OutlierSpec>> = {
   oil_fvf: {
     saturated: IDENTITY,
     undersaturated: LOG,

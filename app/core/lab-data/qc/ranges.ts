@@ -46,19 +46,19 @@ export const PLAUSIBLE_BANDS: Readonly<Record<PropertyKey, Band>> = {
   z_factor: { rejectAtOrBelow: 0, warnBelow: 0.3, warnAbove: 2.0 },
 };
 
-export const PRESSURE_BAND: Band = {
+const PRESSURE_BAND: Band = {
   rejectAtOrBelow: 0,
   warnBelow: 14.6,
   warnAbove: 20_000,
   warnWhy: "below one atmosphere or above the usual high-pressure range",
 };
-export const TEMPERATURE_BAND: Band = {
+const TEMPERATURE_BAND: Band = {
   rejectBelow: -40,
   rejectAbove: 700,
   warnBelow: 40,
   warnAbove: 450,
 };
-export const BUBBLE_POINT_BAND: Band = {
+const BUBBLE_POINT_BAND: Band = {
   rejectAtOrBelow: 0,
   warnAbove: 8000,
   warnWhy: "bubble points this high suggest a near-critical or volatile fluid",

@@ -64,5 +64,3 @@ export function qcStatus(
   if (findings.some((f) => f.severity === "warning")) return "warn";
   return "pass";
 }
-
-export type { QcMeta };

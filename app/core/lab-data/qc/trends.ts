@@ -206,7 +206,7 @@ function checkRsFlat(ctx: QcContext, t: number, bubble: BubbleAt): void {
 }
 
 /** Shortest pressure step (psi) over which co is computed; shorter steps are merged, so reading noise is not amplified. */
-export const MIN_COMPRESSIBILITY_STEP = 250;
+const MIN_COMPRESSIBILITY_STEP = 250;
 
 /** undersaturated-compressibility: co from Bo above pb, over steps of at least 250 psi, within 2–60 × 10⁻⁶ 1/psi. */
 function checkUndersaturatedCompressibility(
