@@ -2,7 +2,12 @@ import { useId } from "react";
 import { z } from "zod";
 import { FieldError, TextField, type FieldErrors } from "~/components/form";
 import { SAMPLE_TYPES } from "~/utils/sample-vocabulary";
-import { STANDARD_CONDITIONS_PRESETS, type OutputSystem } from "~/core/units";
+import {
+  depthUnitLabel,
+  STANDARD_CONDITIONS_PRESETS,
+  unitLabel,
+  type OutputSystem,
+} from "~/core/units";
 import { labelSchema, multilineTextSchema } from "~/utils/labels";
 import { SAMPLE_TYPE_LABELS } from "./labels";
 
@@ -13,14 +18,14 @@ import { SAMPLE_TYPE_LABELS } from "./labels";
 
 export type FormSystem = OutputSystem;
 
-/** Units the form uses for each system. */
-const FORM_UNITS: Record<
-  FormSystem,
-  { pressure: string; temperature: string; depth: string }
-> = {
-  field: { pressure: "psia", temperature: "°F", depth: "ft" },
-  metric: { pressure: "bara", temperature: "°C", depth: "m" },
-};
+/** Units the form uses in a system, from the one output-units module. */
+function formUnits(system: FormSystem) {
+  return {
+    pressure: unitLabel(system, "pressure"),
+    temperature: unitLabel(system, "temperature"),
+    depth: depthUnitLabel(system),
+  };
+}
 
 /** Plausible limits, in the form's units (checked again in canonical units on the server). */
 const LIMITS: Record<
@@ -77,7 +82,7 @@ function optionalNumber(label: string, range: [number, number], unit = "") {
 }
 
 export function sampleFormSchema(system: FormSystem) {
-  const units = FORM_UNITS[system];
+  const units = formUnits(system);
   const limits = LIMITS[system];
   return z.object({
     fieldName: labelSchema("field name", 120, true),
@@ -196,7 +201,7 @@ export function SampleFormFields({
   /** On edit: the recorded standard conditions when they match no preset. */
   currentStandard?: { label: string } | null;
 }) {
-  const units = FORM_UNITS[system];
+  const units = formUnits(system);
   const notesId = useId();
   return (
     <div className="space-y-6">
