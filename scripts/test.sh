@@ -17,6 +17,9 @@ npm run -s lint
 log "format check (prettier)"
 node_modules/.bin/prettier --check --log-level warn .
 
+log "unused files, exports and dependencies (knip)"
+node_modules/.bin/knip --no-progress
+
 db_started_here=0
 if ! bash scripts/db.sh status >/dev/null 2>&1; then
   bash scripts/db.sh start
