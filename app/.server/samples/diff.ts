@@ -22,7 +22,7 @@ import { revisionNumberFrom } from "./params";
  * The diff page (getRevisionDiffPage) shows it in the reader's unit system (presentDiff).
  */
 
-export type CellDiff = {
+type CellDiff = {
   property: PropertyKey | "bubble_point";
   pressurePsia: number | null;
   temperatureF: number;
@@ -30,7 +30,7 @@ export type CellDiff = {
   to: number | null;
 };
 
-export type RevisionDiff = {
+type RevisionDiff = {
   changed: CellDiff[];
   added: CellDiff[];
   removed: CellDiff[];
@@ -135,7 +135,7 @@ export function diffRevisions(
 }
 
 /** Most rows listed per kind; the counts are always complete. */
-export const DIFF_ROW_LIMIT = 2000;
+const DIFF_ROW_LIMIT = 2000;
 
 /** A diff in the reader's unit system (rounded to 10 significant digits to drop conversion noise), counted by property. */
 export function presentDiff(

@@ -41,9 +41,9 @@ import { uploadGuide } from "./upload-guide";
  */
 
 /** The sample an upload is for: its id and what the QC checks need. */
-export type UploadSample = SampleForQc & { id: number };
+type UploadSample = SampleForQc & { id: number };
 
-export type UploadSubmission =
+type UploadSubmission =
   | { kind: "stored"; number: number }
   /** The sample was deleted while the upload was checked. */
   | { kind: "sample_gone" }
