@@ -26,12 +26,11 @@ import {
   type ExplainTarget,
 } from "~/components/lookup/explanation-panel";
 import { LookupPlots } from "~/components/lookup/lookup-plots";
-import {
-  LookupResultsTable,
-  type PropertyRun,
-} from "~/components/lookup/results-table";
+import type { PropertyRun } from "~/components/lookup/property-run";
+import { LookupResultsTable } from "~/components/lookup/results-table";
 import { PageHeader } from "~/components/page-header";
-import type { Grid, Method } from "~/core/interpolation";
+import type { Method } from "~/core/interpolation";
+import type { SampleDetail } from "~/utils/api/client";
 import {
   depletionPath,
   parseConditionList,
@@ -135,10 +134,7 @@ export async function action(args: Route.ActionArgs) {
 
 type Mode = "single" | "list" | "path";
 type SampleInfo = Route.ComponentProps["loaderData"]["samples"][number];
-type GridPayload = {
-  revision: { number: number };
-  grids: (Grid & { property: PropertyKey; unit: string })[];
-};
+type GridPayload = SampleDetail;
 
 const DEFAULT_PROPERTIES: PropertyKey[] = [
   "oil_fvf",
