@@ -2,21 +2,16 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { Form, useFetcher, useSearchParams } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
-import { listSamplesForCaller } from "~/.server/api/samples";
 import {
-  fromInputPressure,
-  fromInputTemperature,
   OUTPUT_SYSTEMS,
   type OutputSystem,
   PROPERTIES,
   PROPERTY_KEYS,
   type PropertyKey,
 } from "~/core/units";
-import {
-  createLookupSet,
-  deleteLookupSet,
-  listLookupSets,
-} from "~/.server/db/queries/lookup-sets";
+import { deleteLookupSet } from "~/.server/db/queries/lookup-sets";
+import { SaveLookupSetSchema, saveLookupSet } from "~/.server/lookup/sets";
+import { getLookupWorkspace } from "~/.server/lookup/workspace";
 import { updateUserProfile } from "~/.server/db/queries/users";
 import { badRequest, readFormData, readJsonBody } from "~/.server/forms";
 import { Button, FormAlert } from "~/components/form";
@@ -37,62 +32,29 @@ import {
   parseNumber,
   type Condition,
 } from "~/utils/conditions";
-import { labelSchema } from "~/utils/labels";
 import { readIntent } from "~/utils/forms";
-import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Lookup · Isopleth" }];
 
-const SaveSetSchema = z.object({
-  intent: z.literal("save-set"),
-  name: labelSchema(
-    "set name",
-    120,
-    true,
-    "Name the set, e.g. “CS-1 depletion path”.",
-  ),
-  sampleId: z.coerce.number().int().positive(),
-  properties: z.array(z.enum(PROPERTY_KEYS)).min(1),
-  units: z.enum(OUTPUT_SYSTEMS),
-  method: z.enum(["auto", "newton", "pchip", "linear"]),
-  degree: z
-    .tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])
-    .nullable(),
-  conditions: z
-    .array(
-      z.object({
-        pressure: z.number().finite(),
-        temperature: z.number().finite(),
-      }),
-    )
-    .min(1)
-    .max(10_000),
-});
+const SetIdSchema = z.coerce.number().int().positive();
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "read:samples");
-  const samples = await listSamplesForCaller(
-    { user, token: null },
-    user.unitSystem,
-  );
-  const sets = can(user, "save:lookup-sets")
-    ? await listLookupSets(user.id)
-    : [];
-  return { user, canSave: can(user, "save:lookup-sets"), samples, sets };
+  return getLookupWorkspace(user);
 }
 
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "read:samples");
   const contentType = args.request.headers.get("Content-Type") ?? "";
-  const payload: unknown = contentType.includes("application/json")
-    ? await readJsonBody(args.request)
-    : Object.fromEntries(await readFormData(args.request));
-  const intent = readIntent(payload as Record<string, unknown>);
+  const payload = (
+    contentType.includes("application/json")
+      ? await readJsonBody(args.request)
+      : Object.fromEntries(await readFormData(args.request))
+  ) as Record<string, unknown>;
+  const intent = readIntent(payload);
   if (intent === "units") {
-    const units = z
-      .enum(OUTPUT_SYSTEMS)
-      .safeParse((payload as { units?: unknown }).units);
+    const units = z.enum(OUTPUT_SYSTEMS).safeParse(payload.units);
     if (!units.success)
       return badRequest({ errors: { units: ["Choose field or metric."] } });
     await updateUserProfile(user.id, { unitSystem: units.data });
@@ -100,35 +62,18 @@ export async function action(args: Route.ActionArgs) {
   }
   requirePermission(args, "save:lookup-sets");
   if (intent === "delete-set") {
-    const id = z.coerce
-      .number()
-      .int()
-      .positive()
-      .safeParse((payload as { setId?: unknown }).setId);
+    const id = SetIdSchema.safeParse(payload.setId);
     if (id.success) await deleteLookupSet(id.data, user.id);
     return { ok: true as const, saved: "The set is deleted." };
   }
-  const parsed = SaveSetSchema.safeParse(payload);
+  const parsed = SaveLookupSetSchema.safeParse(payload);
   if (!parsed.success)
     return badRequest({
       errors: { name: parsed.error.issues.map((i) => i.message) },
     });
-  const s = parsed.data;
-  await createLookupSet({
-    userId: user.id,
-    sampleId: s.sampleId,
-    name: s.name,
-    properties: s.properties,
-    method: s.method,
-    degree: s.degree,
-    conditions: s.conditions.map((c) => ({
-      pressurePsia: fromInputPressure(c.pressure, s.units),
-      temperatureF: fromInputTemperature(c.temperature, s.units),
-    })),
-  });
   return {
     ok: true as const,
-    saved: `Saved “${s.name}” (${s.conditions.length} conditions).`,
+    saved: await saveLookupSet(user.id, parsed.data),
   };
 }
 
