@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import { Form, useFetcher, useSearchParams } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
@@ -313,13 +313,6 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
         : () => Promise.reject(new Error("no run")),
     [run], // plotRun and loadGrids follow from run
   );
-
-  useEffect(() => {
-    if (explain)
-      document
-        .getElementById("explanation-title")
-        ?.scrollIntoView({ behavior: "smooth", block: "start" });
-  }, [explain]);
 
   function loadSet(set: (typeof sets)[number]) {
     setSampleId(set.sampleId);
