@@ -1,3 +1,4 @@
+import type { Method } from "~/core/interpolation";
 import type { OutputSystem, PropertyKey } from "~/core/units";
 import type { LookupResponse } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
@@ -35,9 +36,9 @@ export type LookupRun = {
   runs: PropertyRun[];
   sampleId: number;
   units: OutputSystem;
-  method: string;
+  method: "auto" | Method;
   /** Time in the browser from the press to the last answer (ms). */
-  serverMs: number;
+  elapsedMs: number;
 };
 
 export const answeredRuns = (runs: readonly PropertyRun[]) =>

@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from "react";
+import { useMemo, useState } from "react";
 import { Form, useFetcher, useSearchParams } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
@@ -21,11 +21,15 @@ import {
   type ExplainTarget,
 } from "~/components/lookup/explanation-panel";
 import { LookupPlots } from "~/components/lookup/lookup-plots";
-import type { PropertyRun } from "~/components/lookup/property-run";
+import {
+  answeredRuns,
+  type PropertyRun,
+} from "~/components/lookup/property-run";
+import { useLookupRun } from "~/components/lookup/use-lookup-run";
+import { useRevisionGrids } from "~/components/lookup/use-revision-grids";
 import { LookupResultsTable } from "~/components/lookup/results-table";
 import { PageHeader } from "~/components/page-header";
 import type { Method } from "~/core/interpolation";
-import type { SampleDetail } from "~/utils/api/client";
 import {
   depletionPath,
   parseConditionList,
@@ -79,7 +83,6 @@ export async function action(args: Route.ActionArgs) {
 
 type Mode = "single" | "list" | "path";
 type SampleInfo = Route.ComponentProps["loaderData"]["samples"][number];
-type GridPayload = SampleDetail;
 
 const DEFAULT_PROPERTIES: PropertyKey[] = [
   "oil_fvf",
@@ -118,18 +121,10 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   const [degree, setDegree] = useState<[number, number]>([3, 3]);
   const [units, setUnits] = useState<OutputSystem>(user.unitSystem);
   const [extrapolate, setExtrapolate] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const [running, setRunning] = useState(false);
-  const [run, setRun] = useState<{
-    conditions: Condition[];
-    runs: PropertyRun[];
-    sampleId: number;
-    units: OutputSystem;
-    method: string;
-    serverMs: number;
-  } | null>(null);
+  const lookup = useLookupRun();
+  const { run } = lookup;
   const [explain, setExplain] = useState<ExplainTarget | null>(null);
-  const gridCache = useRef(new Map<string, Promise<GridPayload>>());
+  const loadGrids = useRevisionGrids();
   const unitsFetcher = useFetcher();
   const setsFetcher = useFetcher<typeof action>();
 
@@ -148,7 +143,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
 
   function changeUnits(next: OutputSystem) {
     setUnits(next);
-    setRun(null);
+    lookup.clear();
     setExplain(null);
     if (next === "metric" && units === "field") {
       setSingle({ pressure: "224", temperature: "100" });
@@ -180,92 +175,24 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     return parsed.ok ? parsed.conditions : parsed.error;
   }
 
-  async function runLookup(event: React.FormEvent) {
+  function runLookup(event: React.FormEvent) {
     event.preventDefault();
-    setError(null);
     setExplain(null);
     const conds = conditions();
-    if (typeof conds === "string") return setError(conds);
-    if (!sample) return setError("Choose a sample.");
+    if (typeof conds === "string") return lookup.fail(conds);
+    if (!sample) return lookup.fail("Choose a sample.");
     if (properties.length === 0)
-      return setError("Choose at least one property.");
-    setRunning(true);
-    const started = performance.now();
-    try {
-      const runs = await Promise.all(
-        properties.map(async (property): Promise<PropertyRun> => {
-          const response = await fetch(`/api/v1/samples/${sample.id}/lookup`, {
-            method: "POST",
-            headers: { "Content-Type": "application/json" },
-            body: JSON.stringify({
-              property,
-              points: conds,
-              method,
-              degree: method === "newton" ? degree : undefined,
-              units,
-              extrapolate,
-              revision,
-            }),
-          });
-          const body = await response.json();
-          const timing = response.headers.get("Server-Timing");
-          const serverMs = Number(
-            /dur=([\d.]+)/.exec(timing ?? "")?.[1] ?? NaN,
-          );
-          if (!response.ok)
-            return {
-              property,
-              ok: false,
-              error: body.detail ?? "The lookup failed.",
-              serverMs,
-            };
-          return {
-            property,
-            ok: true,
-            revision: body.revision,
-            revisionStatus: body.revisionStatus,
-            approved: body.approved,
-            unit: body.units.value,
-            methodDescription: body.methodDescription,
-            degree: body.degree,
-            results: body.results,
-            serverMs,
-          };
-        }),
-      );
-      setRun({
-        conditions: conds,
-        runs,
-        sampleId: sample.id,
-        units,
-        method,
-        serverMs: performance.now() - started,
-      });
-    } catch {
-      setError("The server could not be reached. Try again.");
-    } finally {
-      setRunning(false);
-    }
-  }
-
-  /** The measured grids of a revision in the units on screen, fetched once per sample, units and revision. */
-  function loadGrids(
-    id: number,
-    system: OutputSystem,
-    revision: number,
-  ): Promise<GridPayload> {
-    const key = `${id}:${system}:${revision}`;
-    let payload = gridCache.current.get(key);
-    if (!payload) {
-      payload = fetch(
-        `/api/v1/samples/${id}?units=${system}&revision=${revision}`,
-      ).then((r) => {
-        if (!r.ok) throw new Error(`grids of sample ${id}: ${r.status}`);
-        return r.json() as Promise<GridPayload>;
-      });
-      gridCache.current.set(key, payload);
-    }
-    return payload;
+      return lookup.fail("Choose at least one property.");
+    void lookup.start({
+      sampleId: sample.id,
+      properties,
+      conditions: conds,
+      method,
+      degree,
+      units,
+      extrapolate,
+      revision,
+    });
   }
 
   async function openExplanation(
@@ -303,15 +230,14 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     });
   }
 
-  const plotRun =
-    run?.runs.find((r): r is Extract<PropertyRun, { ok: true }> => r.ok) ??
-    null;
-  const plotLoader = useMemo(
+  // The plots show the grids of the revision of the first property answered.
+  const plotRun = run ? (answeredRuns(run.runs)[0] ?? null) : null;
+  const loadPlotGrids = useMemo(
     () =>
       run && plotRun
         ? () => loadGrids(run.sampleId, run.units, plotRun.revision)
-        : () => Promise.reject(new Error("no run")),
-    [run], // plotRun and loadGrids follow from run
+        : null,
+    [run, plotRun, loadGrids],
   );
 
   function loadSet(set: (typeof sets)[number]) {
@@ -326,7 +252,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
         .map((c) => `${c.pressurePsia}\t${c.temperatureF}`)
         .join("\n"),
     );
-    setRun(null);
+    lookup.clear();
   }
 
   function saveSet() {
@@ -384,7 +310,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
             value={sampleId ?? ""}
             onChange={(e) => {
               setSampleId(Number(e.target.value));
-              setRun(null);
+              lookup.clear();
               setExplain(null);
             }}
             className="w-full rounded border border-line text-sm"
@@ -609,8 +535,8 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
             </div>
           )}
           <div className="flex flex-wrap gap-2 pt-2">
-            <Button type="submit" disabled={running}>
-              {running ? "Looking up…" : "Look up"}
+            <Button type="submit" disabled={lookup.running}>
+              {lookup.running ? "Looking up…" : "Look up"}
             </Button>
             {canSave ? (
               <Button type="button" variant="secondary" onClick={saveSet}>
@@ -618,7 +544,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
               </Button>
             ) : null}
           </div>
-          {error ? <FormAlert message={error} /> : null}
+          {lookup.error ? <FormAlert message={lookup.error} /> : null}
           {setsFetcher.data && "saved" in setsFetcher.data ? (
             <FormAlert message={setsFetcher.data.saved} tone="ok" />
           ) : null}
@@ -634,24 +560,24 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
           method={run.method}
           sampleLabel={samples.find((s) => s.id === run.sampleId)?.label ?? ""}
           onExplain={openExplanation}
-          elapsedMs={run.serverMs}
+          elapsedMs={run.elapsedMs}
         />
       ) : null}
       {explain ? (
         <ExplanationPanel target={explain} onClose={() => setExplain(null)} />
       ) : null}
-      {run && plotRun ? (
+      {run && plotRun && loadPlotGrids ? (
         <LookupPlots
           key={`${run.sampleId}-${run.units}-${plotRun.revision}-${run.conditions.length}`}
-          properties={run.runs.filter((r) => r.ok).map((r) => r.property)}
-          load={plotLoader}
+          properties={answeredRuns(run.runs).map((r) => r.property)}
+          load={loadPlotGrids}
           conditions={run.conditions}
           units={{ pressure: pressureUnit, temperature: temperatureUnit }}
           unitOf={(p) => {
             const r = run.runs.find((x) => x.property === p);
             return r?.ok ? r.unit : "";
           }}
-          method={run.method as "auto"}
+          method={run.method}
           degree={plotRun.degree}
           sampleLabel={samples.find((s) => s.id === run.sampleId)?.label ?? ""}
           sampleId={run.sampleId}
