@@ -210,6 +210,14 @@ export const LookupResponse = z
     }),
     property: PropertyKeySchema,
     method: MethodSchema,
+    methodDescription: z.string().openapi({
+      description:
+        "The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`.",
+    }),
+    degree: z.tuple([z.number().int(), z.number().int()]).nullable().openapi({
+      description:
+        "[along pressure, along temperature] degree of the polynomial method used; null for pchip.",
+    }),
     units: z.object({
       system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),

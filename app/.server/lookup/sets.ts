@@ -1,6 +1,8 @@
+import { z } from "zod";
 import { computeLookup, type LookupRequest } from "~/.server/api/lookup";
 import {
   createLookupRun,
+  createLookupSet,
   getLookupSet,
   listLookupRuns,
   type LookupRunResults,
@@ -11,13 +13,68 @@ import {
   resolveRevision,
 } from "~/.server/samples/revision-data";
 import { isLookupError } from "~/core/lookup";
-import { PROPERTIES } from "~/core/units";
+import {
+  fromInputPressure,
+  fromInputTemperature,
+  OUTPUT_SYSTEMS,
+  PROPERTIES,
+  PROPERTY_KEYS,
+} from "~/core/units";
+import { labelSchema } from "~/utils/labels";
 
 /*
  * Saved lookup sets: a person's list of conditions and properties for one sample, run again whenever the sample
  * gets a new approved revision. A run is the API's lookup (computeLookup) at the set's conditions, in field
  * units with extrapolation allowed, recorded with the revision and method it used.
  */
+
+/** "Save as set" on the lookup page: the form's sample, properties, method and conditions in its unit system. */
+export const SaveLookupSetSchema = z.object({
+  intent: z.literal("save-set"),
+  name: labelSchema(
+    "set name",
+    120,
+    true,
+    "Name the set, e.g. “CS-1 depletion path”.",
+  ),
+  sampleId: z.coerce.number().int().positive(),
+  properties: z.array(z.enum(PROPERTY_KEYS)).min(1),
+  units: z.enum(OUTPUT_SYSTEMS),
+  method: z.enum(["auto", "newton", "pchip", "linear"]),
+  degree: z
+    .tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])
+    .nullable(),
+  conditions: z
+    .array(
+      z.object({
+        pressure: z.number().finite(),
+        temperature: z.number().finite(),
+      }),
+    )
+    .min(1)
+    .max(10_000),
+});
+export type SaveLookupSetInput = z.infer<typeof SaveLookupSetSchema>;
+
+/** Saves the set with its conditions in canonical units (psia, °F); returns what the page says about it. */
+export async function saveLookupSet(
+  userId: number,
+  input: SaveLookupSetInput,
+): Promise<string> {
+  await createLookupSet({
+    userId,
+    sampleId: input.sampleId,
+    name: input.name,
+    properties: input.properties,
+    method: input.method,
+    degree: input.degree,
+    conditions: input.conditions.map((c) => ({
+      pressurePsia: fromInputPressure(c.pressure, input.units),
+      temperatureF: fromInputTemperature(c.temperature, input.units),
+    })),
+  });
+  return `Saved “${input.name}” (${input.conditions.length} conditions).`;
+}
 
 /** The set page: the set (only among the user's own), its sample, its last runs and the revision a run would use. */
 export async function getLookupSetPage(setId: number, userId: number) {

@@ -1,4 +1,4 @@
-import { useMemo } from "react";
+import { useEffect, useMemo, useRef } from "react";
 import {
   explainInterpolation,
   type Explanation,
@@ -48,6 +48,11 @@ export function ExplanationPanel({
       return { ok: false as const, message: (error as Error).message };
     }
   }, [target]);
+  // Brought into view when it opens and whenever it explains another value.
+  const title = useRef<HTMLHeadingElement>(null);
+  useEffect(() => {
+    title.current?.scrollIntoView({ behavior: "smooth", block: "start" });
+  }, [target]);
   const { units } = target;
   return (
     <section
@@ -56,7 +61,11 @@ export function ExplanationPanel({
     >
       <div className="flex items-start justify-between gap-4">
         <div>
-          <h2 id="explanation-title" className="text-lg font-semibold">
+          <h2
+            ref={title}
+            id="explanation-title"
+            className="text-lg font-semibold"
+          >
             How this number was obtained
           </h2>
           <p className="text-sm text-ink-muted">

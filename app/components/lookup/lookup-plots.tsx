@@ -1,10 +1,7 @@
 import { useEffect, useState } from "react";
-import {
-  PropertySlices,
-  PropertySurface,
-  type PlotGrid,
-} from "~/components/plots";
+import { PropertySlices, PropertySurface } from "~/components/plots";
 import { PROPERTIES, type PropertyKey } from "~/core/units";
+import type { ApiGrid, SampleDetail } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
 
 const MAX_MARKED = 200;
@@ -25,7 +22,7 @@ export function LookupPlots({
   sampleId,
 }: {
   properties: PropertyKey[];
-  load: () => Promise<{ grids: (PlotGrid & { property: PropertyKey })[] }>;
+  load: () => Promise<Pick<SampleDetail, "grids">>;
   conditions: Condition[];
   units: { pressure: string; temperature: string };
   unitOf: (property: PropertyKey) => string;
@@ -35,9 +32,7 @@ export function LookupPlots({
   sampleId: number;
 }) {
   const [property, setProperty] = useState<PropertyKey>(properties[0]!);
-  const [grids, setGrids] = useState<
-    (PlotGrid & { property: PropertyKey })[] | null
-  >(null);
+  const [grids, setGrids] = useState<ApiGrid[] | null>(null);
   const [failed, setFailed] = useState(false);
   useEffect(() => {
     let live = true;

@@ -3,7 +3,7 @@
 import { parse } from "csv-parse/sync";
 import { expect, test } from "vitest";
 import { lookupResultsDelimited } from "./results-csv";
-import type { PropertyRun } from "./results-table";
+import type { PropertyRun } from "./property-run";
 
 const runs: PropertyRun[] = [
   {

@@ -1,6 +1,7 @@
 import { csvCommentLine, csvRow } from "~/core/csv";
+import type { LookupResult } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
-import type { LookupApiResult, PropertyRun } from "./results-table";
+import { answeredRuns, type PropertyRun } from "./property-run";
 
 /**
  * The lookup results as delimited text (CSV for "Export CSV", tab-separated for the clipboard). Every cell goes
@@ -13,9 +14,9 @@ export function lookupResultsDelimited(
   units: { pressure: string; temperature: string },
   delimiter: "," | "\t",
   meta: readonly string[],
-  warningsOf: (r: LookupApiResult, pressure: number) => string[],
+  warningsOf: (r: LookupResult, pressure: number) => string[],
 ): string {
-  const ok = runs.filter((r): r is Extract<PropertyRun, { ok: true }> => r.ok);
+  const ok = answeredRuns(runs);
   const header: string[] = [
     `pressure (${units.pressure})`,
     `temperature (${units.temperature})`,

@@ -1,7 +1,9 @@
 import { useState } from "react";
 import { describeWarningCode, type LookupWarning } from "~/core/lookup";
 import { PROPERTIES, type PropertyKey } from "~/core/units";
+import type { LookupResult } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
+import { answeredRuns, failedRuns, type PropertyRun } from "./property-run";
 import { lookupResultsDelimited } from "./results-csv";
 import {
   NEAR_BUBBLE_POINT,
@@ -11,38 +13,11 @@ import {
 } from "~/utils/warning-labels";
 import { formatMilliseconds, formatPlain } from "~/core/format";
 
-export type LookupApiResult = {
-  /** null when the server refused the point (see refusal): it never sends NaN or Infinity. */
-  value: number | null;
-  errorEstimate: number | null;
-  refusal?: { code: string; message: string };
-  warnings: string[];
-  method: string;
-  stencil: { pressure: number[]; temperature: number[] };
-  branch?: "saturated" | "undersaturated";
-  bubblePointPressure?: number;
-};
-
-export type PropertyRun =
-  | {
-      property: PropertyKey;
-      ok: true;
-      revision: number;
-      revisionStatus: string;
-      approved: boolean;
-      unit: string;
-      methodDescription: string;
-      degree: [number, number] | null;
-      results: LookupApiResult[];
-      serverMs: number;
-    }
-  | { property: PropertyKey; ok: false; error: string; serverMs: number };
-
 const CAUTION =
   "Interpolated and extrapolated properties are estimates. Check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.";
 
 /** Warnings of one result, plus "near the bubble point" when the point lies within 2 % of it. */
-export function warningsOf(r: LookupApiResult, pressure: number): string[] {
+export function warningsOf(r: LookupResult, pressure: number): string[] {
   const list = [...r.warnings];
   if (
     r.bubblePointPressure !== undefined &&
@@ -78,10 +53,8 @@ export function LookupResultsTable({
   elapsedMs: number;
 }) {
   const [copied, setCopied] = useState(false);
-  const ok = runs.filter((r): r is Extract<PropertyRun, { ok: true }> => r.ok);
-  const failed = runs.filter(
-    (r): r is Extract<PropertyRun, { ok: false }> => !r.ok,
-  );
+  const ok = answeredRuns(runs);
+  const failed = failedRuns(runs);
   const revisions = [...new Set(ok.map((r) => r.revision))];
   const meta = [
     `Isopleth lookup — sample ${sampleLabel}, revision ${revisions.join(", ")}, method ${ok[0]?.methodDescription ?? method}`,

@@ -2,18 +2,17 @@
  * Plain-data props of the plot components (see README.md in this folder). Everything is in display units:
  * the caller converts (the samples API already answers in field or metric units) and passes the unit labels.
  */
+import type { ApiGrid } from "~/utils/api/client";
 
-/** A measured property grid, as the samples API returns it (`grids[]` of GET /api/v1/samples/:id). */
-export type PlotGrid = {
-  /** Strictly increasing, display unit. */
-  pressures: number[];
-  /** Strictly increasing, display unit. */
-  temperatures: number[];
-  /** values[i][j] at pressures[i], temperatures[j]; null = not measured. */
-  values: (number | null)[][];
-  /** Bubble-point pressure per temperature column (oil properties); null where unknown. */
-  bubblePoints?: (number | null)[];
-};
+/**
+ * A measured property grid, as the samples API returns it (`grids[]` of GET /api/v1/samples/:id, its generated
+ * type): pressures and temperatures strictly increasing, values[i][j] at pressures[i], temperatures[j] (null = not
+ * measured), the bubble-point pressure per temperature column where known; all in display units.
+ */
+export type PlotGrid = Pick<
+  ApiGrid,
+  "pressures" | "temperatures" | "values" | "bubblePoints"
+>;
 
 /** One sample's grid of the plotted property. */
 export type PlotSeries = {

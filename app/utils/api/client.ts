@@ -11,6 +11,7 @@ export type LookupRequest = Schemas["LookupRequest"];
 export type LookupResponse = Schemas["LookupResponse"];
 export type LookupResult = Schemas["LookupResult"];
 export type SampleDetail = Schemas["SampleDetail"];
+export type SampleSummary = Schemas["SampleSummary"];
 export type ApiGrid = Schemas["Grid"];
 export type Problem = Schemas["Problem"];
 

@@ -457,7 +457,11 @@ export interface components {
     LookupResponse: {
       /** @description false for an unapproved (draft or rejected) revision, which only signed-in people may ask for. */
       approved: boolean;
+      /** @description [along pressure, along temperature] degree of the polynomial method used; null for pchip. */
+      degree: [number, number] | null;
       method: components["schemas"]["Method"];
+      /** @description The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`. */
+      methodDescription: string;
       property: components["schemas"]["PropertyKey"];
       results: components["schemas"]["LookupResult"][];
       revision: number;

@@ -1,99 +1,56 @@
-import { useEffect, useMemo, useRef, useState } from "react";
-import { Form, useFetcher, useSearchParams } from "react-router";
+import { useMemo, useState } from "react";
+import { useFetcher, useSearchParams } from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
-import { listSamplesForCaller } from "~/.server/api/samples";
-import {
-  fromInputPressure,
-  fromInputTemperature,
-  OUTPUT_SYSTEMS,
-  type OutputSystem,
-  PROPERTIES,
-  PROPERTY_KEYS,
-  type PropertyKey,
-} from "~/core/units";
-import {
-  createLookupSet,
-  deleteLookupSet,
-  listLookupSets,
-} from "~/.server/db/queries/lookup-sets";
+import { deleteLookupSet } from "~/.server/db/queries/lookup-sets";
 import { updateUserProfile } from "~/.server/db/queries/users";
 import { badRequest, readFormData, readJsonBody } from "~/.server/forms";
-import { Button, FormAlert } from "~/components/form";
+import { SaveLookupSetSchema, saveLookupSet } from "~/.server/lookup/sets";
+import { getLookupWorkspace } from "~/.server/lookup/workspace";
 import { EstimateCaution } from "~/components/estimate-caution";
+import { DraftBanner } from "~/components/lookup/draft-banner";
+import { explainTargetOf } from "~/components/lookup/explain-target";
 import {
   ExplanationPanel,
   type ExplainTarget,
 } from "~/components/lookup/explanation-panel";
+import { LookupForm } from "~/components/lookup/lookup-form";
 import { LookupPlots } from "~/components/lookup/lookup-plots";
-import {
-  LookupResultsTable,
-  type PropertyRun,
-} from "~/components/lookup/results-table";
+import { answeredRuns } from "~/components/lookup/property-run";
+import { LookupResultsTable } from "~/components/lookup/results-table";
+import { SavedSets, type SavedLookupSet } from "~/components/lookup/saved-sets";
+import { useLookupForm } from "~/components/lookup/use-lookup-form";
+import { useLookupRun } from "~/components/lookup/use-lookup-run";
+import { useRevisionGrids } from "~/components/lookup/use-revision-grids";
 import { PageHeader } from "~/components/page-header";
-import type { Grid, Method } from "~/core/interpolation";
 import {
-  depletionPath,
-  parseConditionList,
-  parseNumber,
-  type Condition,
-} from "~/utils/conditions";
-import { labelSchema } from "~/utils/labels";
+  OUTPUT_SYSTEMS,
+  type OutputSystem,
+  type PropertyKey,
+} from "~/core/units";
 import { readIntent } from "~/utils/forms";
-import { can } from "~/utils/permissions";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Lookup · Isopleth" }];
 
-const SaveSetSchema = z.object({
-  intent: z.literal("save-set"),
-  name: labelSchema(
-    "set name",
-    120,
-    true,
-    "Name the set, e.g. “CS-1 depletion path”.",
-  ),
-  sampleId: z.coerce.number().int().positive(),
-  properties: z.array(z.enum(PROPERTY_KEYS)).min(1),
-  units: z.enum(OUTPUT_SYSTEMS),
-  method: z.enum(["auto", "newton", "pchip", "linear"]),
-  degree: z
-    .tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])
-    .nullable(),
-  conditions: z
-    .array(
-      z.object({
-        pressure: z.number().finite(),
-        temperature: z.number().finite(),
-      }),
-    )
-    .min(1)
-    .max(10_000),
-});
+const SetIdSchema = z.coerce.number().int().positive();
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "read:samples");
-  const samples = await listSamplesForCaller(
-    { user, token: null },
-    user.unitSystem,
-  );
-  const sets = can(user, "save:lookup-sets")
-    ? await listLookupSets(user.id)
-    : [];
-  return { user, canSave: can(user, "save:lookup-sets"), samples, sets };
+  return getLookupWorkspace(user);
 }
 
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "read:samples");
   const contentType = args.request.headers.get("Content-Type") ?? "";
-  const payload: unknown = contentType.includes("application/json")
-    ? await readJsonBody(args.request)
-    : Object.fromEntries(await readFormData(args.request));
-  const intent = readIntent(payload as Record<string, unknown>);
+  const payload = (
+    contentType.includes("application/json")
+      ? await readJsonBody(args.request)
+      : Object.fromEntries(await readFormData(args.request))
+  ) as Record<string, unknown>;
+  const intent = readIntent(payload);
   if (intent === "units") {
-    const units = z
-      .enum(OUTPUT_SYSTEMS)
-      .safeParse((payload as { units?: unknown }).units);
+    const units = z.enum(OUTPUT_SYSTEMS).safeParse(payload.units);
     if (!units.success)
       return badRequest({ errors: { units: ["Choose field or metric."] } });
     await updateUserProfile(user.id, { unitSystem: units.data });
@@ -101,50 +58,20 @@ export async function action(args: Route.ActionArgs) {
   }
   requirePermission(args, "save:lookup-sets");
   if (intent === "delete-set") {
-    const id = z.coerce
-      .number()
-      .int()
-      .positive()
-      .safeParse((payload as { setId?: unknown }).setId);
+    const id = SetIdSchema.safeParse(payload.setId);
     if (id.success) await deleteLookupSet(id.data, user.id);
     return { ok: true as const, saved: "The set is deleted." };
   }
-  const parsed = SaveSetSchema.safeParse(payload);
+  const parsed = SaveLookupSetSchema.safeParse(payload);
   if (!parsed.success)
     return badRequest({
       errors: { name: parsed.error.issues.map((i) => i.message) },
     });
-  const s = parsed.data;
-  await createLookupSet({
-    userId: user.id,
-    sampleId: s.sampleId,
-    name: s.name,
-    properties: s.properties,
-    method: s.method,
-    degree: s.degree,
-    conditions: s.conditions.map((c) => ({
-      pressurePsia: fromInputPressure(c.pressure, s.units),
-      temperatureF: fromInputTemperature(c.temperature, s.units),
-    })),
-  });
   return {
     ok: true as const,
-    saved: `Saved “${s.name}” (${s.conditions.length} conditions).`,
+    saved: await saveLookupSet(user.id, parsed.data),
   };
 }
-
-type Mode = "single" | "list" | "path";
-type SampleInfo = Route.ComponentProps["loaderData"]["samples"][number];
-type GridPayload = {
-  revision: { number: number };
-  grids: (Grid & { property: PropertyKey; unit: string })[];
-};
-
-const DEFAULT_PROPERTIES: PropertyKey[] = [
-  "oil_fvf",
-  "solution_gor",
-  "oil_viscosity",
-];
 
 export default function Lookup({ loaderData }: Route.ComponentProps) {
   const { samples, user, canSave, sets } = loaderData;
@@ -153,269 +80,74 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   const revision = /^[1-9][0-9]{0,14}$/.test(params.get("revision") ?? "")
     ? Number(params.get("revision"))
     : undefined;
-  const [filter, setFilter] = useState("");
-  const [sampleId, setSampleId] = useState<number | null>(
-    Number(params.get("sample")) ||
-      samples.find((s) => s.approvedRevision !== null)?.id ||
-      null,
-  );
-  const [properties, setProperties] =
-    useState<PropertyKey[]>(DEFAULT_PROPERTIES);
-  const [mode, setMode] = useState<Mode>("single");
-  const [single, setSingle] = useState({
-    pressure: "3250",
-    temperature: "212",
+  const form = useLookupForm({
+    samples,
+    requestedSampleId: Number(params.get("sample")) || null,
+    unitSystem: user.unitSystem,
   });
-  const [list, setList] = useState("");
-  const [path, setPath] = useState({
-    from: "5000",
-    to: "500",
-    step: "250",
-    temperature: "212",
-  });
-  const [method, setMethod] = useState<"auto" | Method>("auto");
-  const [degree, setDegree] = useState<[number, number]>([3, 3]);
-  const [units, setUnits] = useState<OutputSystem>(user.unitSystem);
-  const [extrapolate, setExtrapolate] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const [running, setRunning] = useState(false);
-  const [run, setRun] = useState<{
-    conditions: Condition[];
-    runs: PropertyRun[];
-    sampleId: number;
-    units: OutputSystem;
-    method: string;
-    serverMs: number;
-  } | null>(null);
+  const lookup = useLookupRun();
+  const loadGrids = useRevisionGrids();
   const [explain, setExplain] = useState<ExplainTarget | null>(null);
-  const gridCache = useRef(new Map<string, Promise<GridPayload>>());
   const unitsFetcher = useFetcher();
   const setsFetcher = useFetcher<typeof action>();
-
-  const sample = samples.find((s) => s.id === sampleId) ?? null;
-  const visibleSamples = useMemo(() => {
-    const f = filter.trim().toLowerCase();
-    return f
-      ? samples.filter((s) =>
-          `${s.label} ${s.well} ${s.field}`.toLowerCase().includes(f),
-        )
-      : samples;
-  }, [samples, filter]);
-
-  const pressureUnit = units === "field" ? "psia" : "bara";
-  const temperatureUnit = units === "field" ? "°F" : "°C";
+  const { run } = lookup;
+  const units = form.unitLabels;
 
   function changeUnits(next: OutputSystem) {
-    setUnits(next);
-    setRun(null);
+    form.changeUnits(next);
+    lookup.clear();
     setExplain(null);
-    if (next === "metric" && units === "field") {
-      setSingle({ pressure: "224", temperature: "100" });
-      setPath({ from: "345", to: "35", step: "15", temperature: "100" });
-    } else if (next === "field" && units === "metric") {
-      setSingle({ pressure: "3250", temperature: "212" });
-      setPath({ from: "5000", to: "500", step: "250", temperature: "212" });
-    }
     unitsFetcher.submit({ intent: "units", units: next }, { method: "post" });
   }
 
-  function conditions(): Condition[] | string {
-    if (mode === "single") {
-      const pressure = parseNumber(single.pressure);
-      const temperature = parseNumber(single.temperature);
-      if (pressure === null || temperature === null)
-        return "Enter a pressure and a temperature.";
-      return [{ pressure, temperature }];
-    }
-    const parsed =
-      mode === "list"
-        ? parseConditionList(list)
-        : depletionPath(
-            parseNumber(path.from) ?? NaN,
-            parseNumber(path.to) ?? NaN,
-            parseNumber(path.step) ?? NaN,
-            parseNumber(path.temperature) ?? NaN,
-          );
-    return parsed.ok ? parsed.conditions : parsed.error;
-  }
-
-  async function runLookup(event: React.FormEvent) {
+  function lookUp(event: React.FormEvent) {
     event.preventDefault();
-    setError(null);
     setExplain(null);
-    const conds = conditions();
-    if (typeof conds === "string") return setError(conds);
-    if (!sample) return setError("Choose a sample.");
-    if (properties.length === 0)
-      return setError("Choose at least one property.");
-    setRunning(true);
-    const started = performance.now();
-    try {
-      const runs = await Promise.all(
-        properties.map(async (property): Promise<PropertyRun> => {
-          const response = await fetch(`/api/v1/samples/${sample.id}/lookup`, {
-            method: "POST",
-            headers: { "Content-Type": "application/json" },
-            body: JSON.stringify({
-              property,
-              points: conds,
-              method,
-              degree: method === "newton" ? degree : undefined,
-              units,
-              extrapolate,
-              revision,
-            }),
-          });
-          const body = await response.json();
-          const timing = response.headers.get("Server-Timing");
-          const serverMs = Number(
-            /dur=([\d.]+)/.exec(timing ?? "")?.[1] ?? NaN,
-          );
-          if (!response.ok)
-            return {
-              property,
-              ok: false,
-              error: body.detail ?? "The lookup failed.",
-              serverMs,
-            };
-          return {
-            property,
-            ok: true,
-            revision: body.revision,
-            revisionStatus: body.revisionStatus,
-            approved: body.approved,
-            unit: body.units.value,
-            methodDescription: body.methodDescription,
-            degree: body.degree,
-            results: body.results,
-            serverMs,
-          };
-        }),
-      );
-      setRun({
-        conditions: conds,
-        runs,
-        sampleId: sample.id,
-        units,
-        method,
-        serverMs: performance.now() - started,
-      });
-    } catch {
-      setError("The server could not be reached. Try again.");
-    } finally {
-      setRunning(false);
-    }
+    const query = form.query(revision);
+    if (typeof query === "string") return lookup.fail(query);
+    void lookup.start(query);
   }
 
-  /** The measured grids of a revision in the units on screen, fetched once per sample, units and revision. */
-  function loadGrids(
-    id: number,
-    system: OutputSystem,
-    revision: number,
-  ): Promise<GridPayload> {
-    const key = `${id}:${system}:${revision}`;
-    let payload = gridCache.current.get(key);
-    if (!payload) {
-      payload = fetch(
-        `/api/v1/samples/${id}?units=${system}&revision=${revision}`,
-      ).then((r) => {
-        if (!r.ok) throw new Error(`grids of sample ${id}: ${r.status}`);
-        return r.json() as Promise<GridPayload>;
-      });
-      gridCache.current.set(key, payload);
-    }
-    return payload;
-  }
-
-  async function openExplanation(
-    conditionIndex: number,
-    property: PropertyKey,
-  ) {
+  async function openExplanation(index: number, property: PropertyKey) {
     if (!run) return;
-    const propertyRun = run.runs.find((r) => r.property === property);
-    if (!propertyRun?.ok) return;
-    const result = propertyRun.results[conditionIndex];
-    const condition = run.conditions[conditionIndex];
-    if (!result || !condition || result.value === null) return;
-    const data = await loadGrids(run.sampleId, run.units, propertyRun.revision);
-    const grid = data.grids.find((g) => g.property === property);
-    if (!grid) return;
-    setExplain({
-      propertyName: PROPERTIES[property].phrase,
-      grid,
-      point: condition,
-      method: result.method as Method,
-      degree:
-        result.method === "pchip"
-          ? null
-          : result.method === "linear"
-            ? [1, 1]
-            : (propertyRun.degree ?? [3, 3]),
-      extrapolate: run.runs.length > 0 && extrapolate,
-      serverValue: result.value,
-      revision: propertyRun.revision,
-      units: {
-        pressure: pressureUnit,
-        temperature: temperatureUnit,
-        value: propertyRun.unit,
-      },
+    const target = await explainTargetOf(run, index, property, {
+      loadGrids,
+      extrapolate: form.extrapolate,
+      units,
     });
+    if (target) setExplain(target);
   }
 
-  const plotRun =
-    run?.runs.find((r): r is Extract<PropertyRun, { ok: true }> => r.ok) ??
-    null;
-  const plotLoader = useMemo(
+  // The plots show the grids of the revision of the first property answered.
+  const plotRun = run ? (answeredRuns(run.runs)[0] ?? null) : null;
+  const loadPlotGrids = useMemo(
     () =>
       run && plotRun
         ? () => loadGrids(run.sampleId, run.units, plotRun.revision)
-        : () => Promise.reject(new Error("no run")),
-    [run], // plotRun and loadGrids follow from run
+        : null,
+    [run, plotRun, loadGrids],
   );
 
-  useEffect(() => {
-    if (explain)
-      document
-        .getElementById("explanation-title")
-        ?.scrollIntoView({ behavior: "smooth", block: "start" });
-  }, [explain]);
-
-  function loadSet(set: (typeof sets)[number]) {
-    setSampleId(set.sampleId);
-    setProperties(set.properties);
-    setMethod(set.method as "auto" | Method);
-    if (Array.isArray(set.degree)) setDegree(set.degree);
+  function loadSet(set: SavedLookupSet) {
+    form.applySet(set);
     changeUnits("field");
-    setMode("list");
-    setList(
-      set.conditions
-        .map((c) => `${c.pressurePsia}\t${c.temperatureF}`)
-        .join("\n"),
-    );
-    setRun(null);
   }
 
   function saveSet() {
     const name = window.prompt(
       "Name of the lookup set (e.g. a well's depletion path):",
     );
-    const conds = conditions();
-    if (!name || typeof conds === "string" || !sample) return;
-    setsFetcher.submit(
-      {
-        intent: "save-set",
-        name,
-        sampleId: sample.id,
-        properties,
-        units,
-        method,
-        degree: method === "newton" ? degree : null,
-        conditions: conds,
-      },
-      { method: "post", encType: "application/json" },
-    );
+    const set = name ? form.setToSave(name) : null;
+    if (set)
+      setsFetcher.submit(
+        { intent: "save-set", ...set },
+        { method: "post", encType: "application/json" },
+      );
   }
 
+  const sampleLabel = run
+    ? (samples.find((s) => s.id === run.sampleId)?.label ?? "")
+    : "";
   return (
     <>
       <PageHeader title="Lookup">
@@ -423,303 +155,55 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
         approved grids, with the error estimate, the method and the data zone
         behind every number.
       </PageHeader>
-      <form
-        onSubmit={runLookup}
-        className="grid gap-4 rounded-lg border border-line bg-panel p-5 lg:grid-cols-3"
-        aria-label="Lookup"
-      >
-        <fieldset className="space-y-2">
-          <legend className="text-sm font-semibold">Sample</legend>
-          <label className="sr-only" htmlFor="sample-filter">
-            Filter samples
-          </label>
-          <input
-            id="sample-filter"
-            type="search"
-            placeholder="Filter by sample, well or field"
-            value={filter}
-            onChange={(e) => setFilter(e.target.value)}
-            className="w-full rounded border border-line px-3 py-1.5 text-sm"
-          />
-          <label className="sr-only" htmlFor="sample">
-            Sample
-          </label>
-          <select
-            id="sample"
-            size={6}
-            value={sampleId ?? ""}
-            onChange={(e) => {
-              setSampleId(Number(e.target.value));
-              setRun(null);
-              setExplain(null);
-            }}
-            className="w-full rounded border border-line text-sm"
-          >
-            {visibleSamples.map((s) => (
-              <option
-                key={s.id}
-                value={s.id}
-                disabled={s.approvedRevision === null}
-              >
-                {s.label} — {s.well}, {s.field}
-                {s.approvedRevision === null
-                  ? " (no approved revision)"
-                  : ` · rev. ${s.approvedRevision}`}
-              </option>
-            ))}
-          </select>
-          {sample ? (
-            <SampleFacts
-              sample={sample}
-              pressureUnit={pressureUnit}
-              temperatureUnit={temperatureUnit}
-            />
-          ) : null}
-        </fieldset>
-
-        <fieldset className="space-y-3">
-          <legend className="text-sm font-semibold">Properties</legend>
-          <div className="grid grid-cols-1 gap-1 text-sm">
-            {PROPERTY_KEYS.map((p) => (
-              <label
-                key={p}
-                className={`flex items-center gap-2 ${sample && !sample.properties.includes(p) ? "text-ink-muted" : ""}`}
-              >
-                <input
-                  type="checkbox"
-                  checked={properties.includes(p)}
-                  disabled={!!sample && !sample.properties.includes(p)}
-                  onChange={(e) =>
-                    setProperties(
-                      e.target.checked
-                        ? [...properties, p]
-                        : properties.filter((x) => x !== p),
-                    )
-                  }
-                />
-                {PROPERTIES[p].phrase}
-              </label>
-            ))}
-          </div>
-          <div className="flex flex-wrap gap-4 text-sm">
-            <label className="flex flex-col gap-1">
-              <span className="font-semibold">Method</span>
-              <select
-                value={method}
-                onChange={(e) => setMethod(e.target.value as "auto" | Method)}
-                className="rounded border border-line px-2 py-1"
-              >
-                <option value="auto">
-                  Automatic (Newton [3,3], pchip where it overshoots)
-                </option>
-                <option value="newton">Newton, degree per axis</option>
-                <option value="pchip">pchip (shape-preserving)</option>
-                <option value="linear">Linear</option>
-              </select>
-            </label>
-            {method === "newton" ? (
-              <div className="flex gap-2">
-                <label className="flex flex-col gap-1">
-                  <span className="font-semibold">Degree in p</span>
-                  <input
-                    type="number"
-                    min={1}
-                    max={6}
-                    value={degree[0]}
-                    onChange={(e) =>
-                      setDegree([Number(e.target.value), degree[1]])
-                    }
-                    className="w-20 rounded border border-line px-2 py-1"
-                  />
-                </label>
-                <label className="flex flex-col gap-1">
-                  <span className="font-semibold">Degree in T</span>
-                  <input
-                    type="number"
-                    min={1}
-                    max={6}
-                    value={degree[1]}
-                    onChange={(e) =>
-                      setDegree([degree[0], Number(e.target.value)])
-                    }
-                    className="w-20 rounded border border-line px-2 py-1"
-                  />
-                </label>
-              </div>
-            ) : null}
-          </div>
-          <fieldset className="text-sm">
-            <legend className="font-semibold">Units</legend>
-            <div className="mt-1 flex gap-4">
-              <label className="flex items-center gap-2">
-                <input
-                  type="radio"
-                  name="units"
-                  checked={units === "field"}
-                  onChange={() => changeUnits("field")}
-                />{" "}
-                Field (psia, °F)
-              </label>
-              <label className="flex items-center gap-2">
-                <input
-                  type="radio"
-                  name="units"
-                  checked={units === "metric"}
-                  onChange={() => changeUnits("metric")}
-                />{" "}
-                Metric (bara, °C)
-              </label>
-            </div>
-          </fieldset>
-          <label className="flex items-center gap-2 text-sm">
-            <input
-              type="checkbox"
-              checked={extrapolate}
-              onChange={(e) => setExtrapolate(e.target.checked)}
-            />{" "}
-            Allow extrapolation beyond the measured range (flagged)
-          </label>
-        </fieldset>
-
-        <fieldset className="space-y-3">
-          <legend className="text-sm font-semibold">Conditions</legend>
-          <div
-            role="tablist"
-            aria-label="How to enter conditions"
-            className="flex gap-1 text-sm"
-          >
-            {(
-              [
-                ["single", "One point"],
-                ["list", "Pasted list"],
-                ["path", "Depletion path"],
-              ] as const
-            ).map(([m, label]) => (
-              <button
-                key={m}
-                type="button"
-                role="tab"
-                aria-selected={mode === m}
-                onClick={() => setMode(m)}
-                className={`rounded px-3 py-1 font-semibold ${mode === m ? "bg-accent-soft text-accent-strong" : "text-ink-muted hover:bg-surface"}`}
-              >
-                {label}
-              </button>
-            ))}
-          </div>
-          {mode === "single" ? (
-            <div className="flex gap-3 text-sm">
-              <label className="flex flex-col gap-1">
-                <span className="font-semibold">Pressure ({pressureUnit})</span>
-                <input
-                  inputMode="decimal"
-                  value={single.pressure}
-                  onChange={(e) =>
-                    setSingle({ ...single, pressure: e.target.value })
-                  }
-                  className="w-32 rounded border border-line px-2 py-1 tabular-nums"
-                />
-              </label>
-              <label className="flex flex-col gap-1">
-                <span className="font-semibold">
-                  Temperature ({temperatureUnit})
-                </span>
-                <input
-                  inputMode="decimal"
-                  value={single.temperature}
-                  onChange={(e) =>
-                    setSingle({ ...single, temperature: e.target.value })
-                  }
-                  className="w-32 rounded border border-line px-2 py-1 tabular-nums"
-                />
-              </label>
-            </div>
-          ) : mode === "list" ? (
-            <label className="block text-sm">
-              <span className="font-semibold">
-                Pressure ({pressureUnit}) and temperature ({temperatureUnit}),
-                one pair per line
-              </span>
-              <textarea
-                value={list}
-                onChange={(e) => setList(e.target.value)}
-                rows={6}
-                placeholder={"3250\t212\n3000\t212"}
-                className="mt-1 block w-full rounded border border-line px-2 py-1 font-mono text-xs"
-              />
-              <span className="text-xs text-ink-muted">
-                Paste two columns from a spreadsheet; tabs, semicolons, commas
-                or spaces.
-              </span>
-            </label>
-          ) : (
-            <div className="grid grid-cols-2 gap-2 text-sm">
-              {(
-                [
-                  ["from", `From (${pressureUnit})`],
-                  ["to", `To (${pressureUnit})`],
-                  ["step", `Step (${pressureUnit})`],
-                  ["temperature", `At (${temperatureUnit})`],
-                ] as const
-              ).map(([k, label]) => (
-                <label key={k} className="flex flex-col gap-1">
-                  <span className="font-semibold">{label}</span>
-                  <input
-                    inputMode="decimal"
-                    value={path[k]}
-                    onChange={(e) => setPath({ ...path, [k]: e.target.value })}
-                    className="rounded border border-line px-2 py-1 tabular-nums"
-                  />
-                </label>
-              ))}
-            </div>
-          )}
-          <div className="flex flex-wrap gap-2 pt-2">
-            <Button type="submit" disabled={running}>
-              {running ? "Looking up…" : "Look up"}
-            </Button>
-            {canSave ? (
-              <Button type="button" variant="secondary" onClick={saveSet}>
-                Save as set
-              </Button>
-            ) : null}
-          </div>
-          {error ? <FormAlert message={error} /> : null}
-          {setsFetcher.data && "saved" in setsFetcher.data ? (
-            <FormAlert message={setsFetcher.data.saved} tone="ok" />
-          ) : null}
-        </fieldset>
-      </form>
+      <LookupForm
+        form={form}
+        samples={samples}
+        onSampleChange={(id) => {
+          form.setSampleId(id);
+          lookup.clear();
+          setExplain(null);
+        }}
+        onUnitsChange={changeUnits}
+        onSubmit={lookUp}
+        running={lookup.running}
+        onSave={canSave ? saveSet : null}
+        error={lookup.error}
+        saved={
+          setsFetcher.data && "saved" in setsFetcher.data
+            ? setsFetcher.data.saved
+            : undefined
+        }
+      />
 
       {run ? <DraftBanner runs={run.runs} /> : null}
       {run ? (
         <LookupResultsTable
           conditions={run.conditions}
           runs={run.runs}
-          units={{ pressure: pressureUnit, temperature: temperatureUnit }}
+          units={units}
           method={run.method}
-          sampleLabel={samples.find((s) => s.id === run.sampleId)?.label ?? ""}
-          onExplain={openExplanation}
-          elapsedMs={run.serverMs}
+          sampleLabel={sampleLabel}
+          onExplain={(index, property) => void openExplanation(index, property)}
+          elapsedMs={run.elapsedMs}
         />
       ) : null}
       {explain ? (
         <ExplanationPanel target={explain} onClose={() => setExplain(null)} />
       ) : null}
-      {run && plotRun ? (
+      {run && plotRun && loadPlotGrids ? (
         <LookupPlots
           key={`${run.sampleId}-${run.units}-${plotRun.revision}-${run.conditions.length}`}
-          properties={run.runs.filter((r) => r.ok).map((r) => r.property)}
-          load={plotLoader}
+          properties={answeredRuns(run.runs).map((r) => r.property)}
+          load={loadPlotGrids}
           conditions={run.conditions}
-          units={{ pressure: pressureUnit, temperature: temperatureUnit }}
+          units={units}
           unitOf={(p) => {
             const r = run.runs.find((x) => x.property === p);
             return r?.ok ? r.unit : "";
           }}
-          method={run.method as "auto"}
+          method={run.method}
           degree={plotRun.degree}
-          sampleLabel={samples.find((s) => s.id === run.sampleId)?.label ?? ""}
+          sampleLabel={sampleLabel}
           sampleId={run.sampleId}
         />
       ) : null}
@@ -729,118 +213,5 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
       ) : null}
       {canSave ? <SavedSets sets={sets} onLoad={loadSet} /> : null}
     </>
-  );
-}
-
-/** Said wherever a page shows values of an unapproved revision (asked for with ?revision=N). */
-function DraftBanner({ runs }: { runs: PropertyRun[] }) {
-  const drafts = [
-    ...new Map(
-      runs.flatMap((r) =>
-        r.ok && !r.approved ? [[r.revision, r.revisionStatus] as const] : [],
-      ),
-    ).entries(),
-  ];
-  if (drafts.length === 0) return null;
-  return (
-    <div
-      role="alert"
-      className="mt-6 rounded-lg border border-danger/40 bg-red-50 p-4 text-sm text-danger"
-    >
-      <strong>Unapproved draft.</strong>{" "}
-      {drafts
-        .map(([number, status]) => `revision ${number} (${status})`)
-        .join(", ")}{" "}
-      has not been approved; its checks may have failed. These values are for
-      review only: do not use them for decisions or hand them on.
-    </div>
-  );
-}
-
-function SampleFacts({
-  sample,
-  pressureUnit,
-  temperatureUnit,
-}: {
-  sample: SampleInfo;
-  pressureUnit: string;
-  temperatureUnit: string;
-}) {
-  return (
-    <dl className="grid grid-cols-2 gap-x-3 text-xs text-ink-muted">
-      <dt>Reservoir</dt>
-      <dd className="tabular-nums">
-        {sample.reservoirPressure ?? "—"} {pressureUnit},{" "}
-        {sample.reservoirTemperature ?? "—"} {temperatureUnit}
-      </dd>
-      <dt>Bubble point</dt>
-      <dd className="tabular-nums">
-        {sample.bubblePoint === null
-          ? "—"
-          : `${sample.bubblePoint} ${pressureUnit}`}
-      </dd>
-      <dt>Approved revision</dt>
-      <dd>{sample.approvedRevision ?? "none"}</dd>
-    </dl>
-  );
-}
-
-function SavedSets({
-  sets,
-  onLoad,
-}: {
-  sets: Route.ComponentProps["loaderData"]["sets"];
-  onLoad: (set: Route.ComponentProps["loaderData"]["sets"][number]) => void;
-}) {
-  if (sets.length === 0) return null;
-  return (
-    <section
-      className="mt-6 rounded-lg border border-line bg-panel p-5"
-      aria-labelledby="sets-title"
-    >
-      <h2 id="sets-title" className="font-semibold">
-        Your lookup sets
-      </h2>
-      <ul className="mt-2 divide-y divide-line text-sm">
-        {sets.map((s) => (
-          <li key={s.id} className="flex flex-wrap items-center gap-3 py-2">
-            <span className="font-semibold">{s.name}</span>
-            <span className="text-ink-muted">
-              {s.sampleLabel} · {s.conditions.length} conditions ·{" "}
-              {s.properties.length} properties · {s.method}
-            </span>
-            <span className="ml-auto flex gap-2">
-              <Button
-                type="button"
-                variant="secondary"
-                className="px-2 py-1"
-                onClick={() => onLoad(s)}
-              >
-                Load
-              </Button>
-              <a
-                href={`/lookup/sets/${s.id}`}
-                className="rounded border border-line px-2 py-1 font-semibold hover:border-accent"
-              >
-                Runs
-              </a>
-              <Form method="post">
-                <input type="hidden" name="setId" value={s.id} />
-                <Button
-                  type="submit"
-                  name="intent"
-                  value="delete-set"
-                  variant="danger"
-                  className="px-2 py-1"
-                  aria-label={`Delete ${s.name}`}
-                >
-                  Delete
-                </Button>
-              </Form>
-            </span>
-          </li>
-        ))}
-      </ul>
-    </section>
   );
 }
