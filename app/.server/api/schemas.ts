@@ -9,6 +9,7 @@ import {
   keyWithAbbreviation,
   OUTPUT_SYSTEMS,
   PROPERTY_KEYS,
+  unitLabel,
 } from "~/core/units";
 
 extendZodWithOpenApi(z);
@@ -16,14 +17,14 @@ extendZodWithOpenApi(z);
 /** The zod schemas of the /api/v1 boundary; the OpenAPI document is generated from them (openapi.ts). */
 export const registry = new OpenAPIRegistry();
 
-export const UnitsParam = z.enum(OUTPUT_SYSTEMS).default("field").openapi({
+const UnitsParam = z.enum(OUTPUT_SYSTEMS).default("field").openapi({
   description:
     "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
 });
-export const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
+const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
   description: PROPERTY_KEYS.map(keyWithAbbreviation).join(", "),
 });
-export const MethodSchema = z
+const MethodSchema = z
   .enum(["auto", "newton", "pchip", "linear"])
   .openapi("Method", {
     description:
@@ -44,7 +45,7 @@ const Degree = z
  * in plain decimal digits (no sign, leading zero, exponent, hex or fraction: `0x1`, `1e0`, `+1`, `01` and
  * `1.0` are refused), a number as a plain decimal such as 212 or -40.5.
  */
-export const IdParam = z
+const IdParam = z
   .string()
   .regex(
     /^[1-9][0-9]{0,14}$/,
@@ -53,7 +54,7 @@ export const IdParam = z
   .transform(Number)
   .openapi({ type: "string", pattern: "^[1-9][0-9]{0,14}$", example: "1" });
 
-export const DecimalParam = z
+const DecimalParam = z
   .string()
   .max(32, "At most 32 characters.")
   .regex(
@@ -83,7 +84,7 @@ export const SampleQuery = z.object({
   units: UnitsParam,
 });
 
-export const MAX_LOOKUP_POINTS = 100_000;
+const MAX_LOOKUP_POINTS = 100_000;
 export const LookupBody = z
   .object({
     property: PropertyKeySchema,
@@ -162,7 +163,7 @@ const StencilSchema = z.object({
   }),
 });
 
-export const RefusalSchema = z
+const RefusalSchema = z
   .object({
     code: z.literal("not_computable"),
     message: z.string(),
@@ -172,7 +173,7 @@ export const RefusalSchema = z
       "Why a point has no value: the interpolation did not give a finite number (e.g. far beyond the measured range with extrapolation allowed). No NaN or Infinity is ever written; such a point gets value null, errorEstimate null and this refusal, and the other points are served.",
   });
 
-export const LookupResultSchema = z
+const LookupResultSchema = z
   .object({
     value: z.number().nullable().openapi({
       description:
@@ -228,7 +229,7 @@ export const LookupResponse = z
   })
   .openapi("LookupResponse");
 
-export const MAX_PRESSURES_CHARS = 6_000;
+const MAX_PRESSURES_CHARS = 6_000;
 const ABSOLUTE_ZERO = { field: -459.67, metric: -273.15 } as const;
 
 export const TableQuery = z
@@ -264,7 +265,7 @@ export const TableQuery = z
       ctx.addIssue({
         code: "custom",
         path: ["temperature"],
-        message: `${q.temperature} is at or below absolute zero (${zero} ${q.units === "field" ? "°F" : "°C"}).`,
+        message: `${q.temperature} is at or below absolute zero (${zero} ${unitLabel(q.units, "temperature")}).`,
       });
     }
   });
@@ -290,7 +291,7 @@ export const ProblemSchema = z
     description: "RFC 9457 problem details (application/problem+json).",
   });
 
-export const SampleSummarySchema = z
+const SampleSummarySchema = z
   .object({
     id: z.number(),
     label: z.string(),
@@ -319,7 +320,7 @@ export const SampleListResponse = z
   })
   .openapi("SampleList");
 
-export const GridSchema = z
+const GridSchema = z
   .object({
     property: PropertyKeySchema,
     unit: z.string(),

@@ -54,7 +54,7 @@ export const SaveLookupSetSchema = z.object({
     .min(1)
     .max(10_000),
 });
-export type SaveLookupSetInput = z.infer<typeof SaveLookupSetSchema>;
+type SaveLookupSetInput = z.infer<typeof SaveLookupSetSchema>;
 
 /** Saves the set with its conditions in canonical units (psia, °F); returns what the page says about it. */
 export async function saveLookupSet(
@@ -93,7 +93,7 @@ export async function getLookupSetPage(setId: number, userId: number) {
   };
 }
 
-export type SetRunOutcome = { error: string | null };
+type SetRunOutcome = { error: string | null };
 
 /**
  * Runs the set against the sample's current approved revision and records the run (values in field units).

@@ -7,7 +7,7 @@ import type { Condition } from "~/utils/conditions";
  * What the lookup page keeps of one property's answer: the fields of the lookup API's response (its generated
  * type), the value unit, and the server's own time from its Server-Timing header; or the reason it failed.
  */
-export type AnsweredRun = Pick<
+type AnsweredRun = Pick<
   LookupResponse,
   | "revision"
   | "revisionStatus"
@@ -22,7 +22,7 @@ export type AnsweredRun = Pick<
   unit: string;
   serverMs: number;
 };
-export type FailedRun = {
+type FailedRun = {
   property: PropertyKey;
   ok: false;
   error: string;

@@ -17,7 +17,7 @@ const CAUTION =
   "Interpolated and extrapolated properties are estimates. Check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.";
 
 /** Warnings of one result, plus "near the bubble point" when the point lies within 2 % of it. */
-export function warningsOf(r: LookupResult, pressure: number): string[] {
+function warningsOf(r: LookupResult, pressure: number): string[] {
   const list = [...r.warnings];
   if (
     r.bubblePointPressure !== undefined &&

@@ -30,8 +30,8 @@ const PATH_DEFAULTS: Record<OutputSystem, PathFields> = {
   metric: { from: "345", to: "35", step: "15", temperature: "100" },
 };
 
-export type SinglePoint = { pressure: string; temperature: string };
-export type PathFields = {
+type SinglePoint = { pressure: string; temperature: string };
+type PathFields = {
   from: string;
   to: string;
   step: string;

@@ -23,7 +23,7 @@ export const DEFAULT_SURFACE_RESOLUTION = {
 } as const;
 export const DEFAULT_CURVE_RESOLUTION = 120;
 
-export type Evaluation = {
+type Evaluation = {
   /** NaN where the engine refused the point (missing zone, out of range, …). */
   values: Float64Array;
   /** Warning mask per point (engine bits; 0 where refused). */
@@ -31,7 +31,7 @@ export type Evaluation = {
   refused: Uint8Array;
 };
 
-export function normalizeDegree(
+function normalizeDegree(
   degree: number | [number, number] | undefined,
 ): [number, number] {
   if (degree === undefined) return [3, 3];
@@ -120,7 +120,7 @@ export function axisWith(
   return out;
 }
 
-export type MeasuredPoint = {
+type MeasuredPoint = {
   pressure: number;
   temperature: number;
   value: number;
@@ -138,7 +138,7 @@ export function measuredPoints(grid: PlotGrid): MeasuredPoint[] {
   return out;
 }
 
-export type Surface = {
+type Surface = {
   /** Pressures (x), temperatures (y); z[k][i] at temperature k and pressure i, null where refused. */
   pressures: number[];
   temperatures: number[];
@@ -195,7 +195,7 @@ export function surfaceOf(
 }
 
 /** Bubble-point pressure at each temperature (as the engine interpolates it), or null for grids without one. */
-export function bubblePointsOf(
+function bubblePointsOf(
   grid: PlotGrid,
   temperatures: readonly number[],
   method: PlotMethod,
@@ -218,7 +218,7 @@ export function bubblePointsOf(
   }
 }
 
-export type Curve = {
+type Curve = {
   temperature: number;
   pressures: number[];
   /** null where the engine refused. */

@@ -37,13 +37,8 @@ import type {
 import { formatPlotValue } from "~/core/format";
 
 /** Okabe–Ito colours (distinguishable with the common colour-vision deficiencies). */
-export const SERIES_COLOURS = [
-  "#0072B2",
-  "#E69F00",
-  "#009E73",
-  "#CC79A7",
-] as const;
-export const DASHES = ["solid", "dash", "dot", "dashdot"] as const;
+const SERIES_COLOURS = ["#0072B2", "#E69F00", "#009E73", "#CC79A7"] as const;
+const DASHES = ["solid", "dash", "dot", "dashdot"] as const;
 const SYMBOLS_2D = [
   "circle",
   "square",
@@ -54,7 +49,7 @@ const SYMBOLS_3D = ["circle", "square", "circle-open", "square-open"] as const;
 const INK = "#1c2733";
 const FLAG = "#D55E00";
 const GRID_LINE = "#dfe4e1";
-export const FONT = {
+const FONT = {
   family: "Noto Sans, ui-sans-serif, system-ui, sans-serif",
   size: 12,
   color: INK,
@@ -66,7 +61,7 @@ export type Figure = {
 };
 
 /** Legend entry of query points outside the measured data (extrapolated or beyond the envelope). */
-export const FLAGGED_NAME = "Query points outside the data (*)";
+const FLAGGED_NAME = "Query points outside the data (*)";
 
 const pick = <T>(list: readonly T[], i: number): T => list[i % list.length]!;
 
@@ -407,7 +402,7 @@ type SlicesInput = Pick<
 > & { narrow?: boolean };
 
 /** The default slice temperatures: the measured temperatures of the first series. */
-export function defaultSliceTemperatures(series: PlotSeries[]): number[] {
+function defaultSliceTemperatures(series: PlotSeries[]): number[] {
   return series[0]?.grid.temperatures.slice() ?? [];
 }
 

@@ -6,14 +6,4 @@ export {
   PropertySurface,
   preloadPlots,
 } from "./lazy-plot";
-export type {
-  CommonPlotProps,
-  PlotGrid,
-  PlotMethod,
-  PlotSeries,
-  PlotUnits,
-  PropertySlicesProps,
-  PropertySurfaceProps,
-  QueryFlag,
-  QueryPoint,
-} from "./types";
+export type { PlotSeries, PlotUnits, QueryPoint } from "./types";

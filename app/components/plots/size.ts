@@ -1,7 +1,7 @@
 /** Sizes shared by the loading placeholder and the drawn figure, so the page does not jump when Plotly arrives. */
-export const SURFACE_ROW_HEIGHT = 460;
+const SURFACE_ROW_HEIGHT = 460;
 /** One scene (one sample, or several overlaid) gets a little more room. */
-export const SINGLE_SCENE_HEIGHT = 520;
+const SINGLE_SCENE_HEIGHT = 520;
 export const SLICES_HEIGHT = 420;
 /** Below this width (CSS pixels) the plots stack their scenes and put the legend under the axes. */
 export const NARROW_WIDTH = 640;

@@ -46,7 +46,7 @@ export type QueryFlag =
   "inside" | "extrapolated" | "beyond-envelope" | "unavailable";
 
 /** Props shared by PropertySurface and PropertySlices. */
-export type CommonPlotProps = {
+type CommonPlotProps = {
   /** One to four series (samples) of the same property. */
   series: PlotSeries[];
   /** Name of the plotted property for axis titles and hover, e.g. "Bo" or "Oil viscosity". */

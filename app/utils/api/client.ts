@@ -7,7 +7,7 @@ import createClient from "openapi-fetch";
 import type { components, paths } from "./openapi-types";
 
 type Schemas = components["schemas"];
-export type LookupRequest = Schemas["LookupRequest"];
+type LookupRequest = Schemas["LookupRequest"];
 export type LookupResponse = Schemas["LookupResponse"];
 export type LookupResult = Schemas["LookupResult"];
 export type SampleDetail = Schemas["SampleDetail"];
@@ -15,7 +15,7 @@ export type SampleSummary = Schemas["SampleSummary"];
 export type ApiGrid = Schemas["Grid"];
 export type Problem = Schemas["Problem"];
 
-export const api = createClient<paths>({
+const api = createClient<paths>({
   credentials: "same-origin",
   headers: { Accept: "application/json" },
 });
