@@ -1,9 +1,11 @@
 import { Form, href, Link, redirect, useNavigation } from "react-router";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import { listFieldsAndWells } from "~/.server/db/queries/catalogue";
-import { createSampleRecord } from "~/.server/db/queries/samples";
 import { badRequest, parseForm } from "~/.server/forms";
-import { recordInputFromForm } from "~/.server/samples/sample-input";
+import {
+  NOTHING_SAVED,
+  sampleFormChoices,
+  submitSampleRecord,
+} from "~/.server/samples/record-form";
 import { Button, FormAlert, useZodForm } from "~/components/form";
 import { PageHeader } from "~/components/page-header";
 import {
@@ -18,12 +20,7 @@ export const meta: Route.MetaFunction = () => [
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "edit:samples");
-  const places = await listFieldsAndWells();
-  return {
-    system: user.unitSystem,
-    fieldNames: places.fields.map((f) => f.name),
-    wellNames: [...new Set(places.wells.map((w) => w.name))],
-  };
+  return { system: user.unitSystem, ...(await sampleFormChoices()) };
 }
 
 export async function action(args: Route.ActionArgs) {
@@ -31,32 +28,11 @@ export async function action(args: Route.ActionArgs) {
   const { ipAddress } = getCaller(args);
   const form = await parseForm(args.request, sampleFormSchema(user.unitSystem));
   if (!form.ok)
-    return badRequest({
-      errors: form.errors,
-      formError: "Some fields need attention; nothing was saved.",
-    });
-  const converted = recordInputFromForm(form.data, user.unitSystem);
-  if (!converted.ok)
-    return badRequest({
-      errors: converted.errors,
-      formError: "Some fields need attention; nothing was saved.",
-    });
-  const result = await createSampleRecord(converted.input, {
-    userId: user.id,
-    ipAddress,
-  });
-  if (!result.ok) {
-    return badRequest({
-      errors: {
-        label: [
-          `Well ${converted.input.wellName} already has a sample labelled "${converted.input.label}"; choose another label.`,
-        ],
-      },
-      formError: "Some fields need attention; nothing was saved.",
-    });
-  }
+    return badRequest({ errors: form.errors, formError: NOTHING_SAVED });
+  const saved = await submitSampleRecord(form.data, user, ipAddress);
+  if (!saved.ok) return badRequest(saved);
   throw redirect(
-    `${href("/samples/:sampleId", { sampleId: String(result.id) })}?created=1`,
+    `${href("/samples/:sampleId", { sampleId: String(saved.sampleId) })}?created=1`,
   );
 }
 

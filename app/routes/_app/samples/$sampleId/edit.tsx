@@ -1,15 +1,15 @@
 import { data, Form, href, Link, redirect, useNavigation } from "react-router";
 import { getCaller, requirePermission } from "~/.server/auth/guards";
-import { listFieldsAndWells } from "~/.server/db/queries/catalogue";
-import {
-  getSampleRecord,
-  updateSampleRecord,
-} from "~/.server/db/queries/samples";
+import { getSampleRecord } from "~/.server/db/queries/samples";
 import { badRequest, parseForm } from "~/.server/forms";
 import { sampleIdFrom } from "~/.server/samples/params";
 import {
+  NOTHING_SAVED,
+  sampleFormChoices,
+  submitSampleRecord,
+} from "~/.server/samples/record-form";
+import {
   formDefaultsFromRecord,
-  recordInputFromForm,
   standardLabel,
   standardPresetOf,
 } from "~/.server/samples/sample-input";
@@ -35,7 +35,6 @@ async function requireRecord(params: { sampleId?: string }) {
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "edit:samples");
   const record = await requireRecord(args.params);
-  const places = await listFieldsAndWells();
   return {
     id: record.id,
     label: record.label,
@@ -44,8 +43,7 @@ export async function loader(args: Route.LoaderArgs) {
     currentStandard: standardPresetOf(record)
       ? null
       : { label: standardLabel(record) },
-    fieldNames: places.fields.map((f) => f.name),
-    wellNames: [...new Set(places.wells.map((w) => w.name))],
+    ...(await sampleFormChoices()),
   };
 }
 
@@ -55,32 +53,11 @@ export async function action(args: Route.ActionArgs) {
   const record = await requireRecord(args.params);
   const form = await parseForm(args.request, sampleFormSchema(user.unitSystem));
   if (!form.ok)
-    return badRequest({
-      errors: form.errors,
-      formError: "Some fields need attention; nothing was saved.",
-    });
-  const converted = recordInputFromForm(form.data, user.unitSystem, record);
-  if (!converted.ok)
-    return badRequest({
-      errors: converted.errors,
-      formError: "Some fields need attention; nothing was saved.",
-    });
-  const result = await updateSampleRecord(record.id, converted.input, {
-    userId: user.id,
-    ipAddress,
-  });
-  if (!result.ok) {
-    return badRequest({
-      errors: {
-        label: [
-          `Well ${converted.input.wellName} already has a sample labelled "${converted.input.label}"; choose another label.`,
-        ],
-      },
-      formError: "Some fields need attention; nothing was saved.",
-    });
-  }
+    return badRequest({ errors: form.errors, formError: NOTHING_SAVED });
+  const saved = await submitSampleRecord(form.data, user, ipAddress, record);
+  if (!saved.ok) return badRequest(saved);
   throw redirect(
-    `${href("/samples/:sampleId", { sampleId: String(record.id) })}?saved=1`,
+    `${href("/samples/:sampleId", { sampleId: String(saved.sampleId) })}?saved=1`,
   );
 }
 
