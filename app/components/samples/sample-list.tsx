@@ -61,36 +61,20 @@ export function SampleSearchForm({ query }: { query: SampleListQuery }) {
           className="rounded border border-line px-2 py-1.5"
         />
       </label>
-      <label className="flex flex-col gap-1">
-        <span className="font-semibold">Type</span>
-        <select
-          name="type"
-          defaultValue={query.type ?? ""}
-          className="rounded border border-line px-2 py-1.5"
-        >
-          <option value="">Any</option>
-          {SAMPLE_TYPES.map((t) => (
-            <option key={t} value={t}>
-              {SAMPLE_TYPE_LABELS[t]}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="flex flex-col gap-1">
-        <span className="font-semibold">Tables</span>
-        <select
-          name="status"
-          defaultValue={query.status ?? ""}
-          className="rounded border border-line px-2 py-1.5"
-        >
-          <option value="">Any</option>
-          {SAMPLE_STATUS_FILTERS.map((s) => (
-            <option key={s} value={s}>
-              {STATUS_LABELS[s]}
-            </option>
-          ))}
-        </select>
-      </label>
+      <FilterSelect
+        label="Type"
+        name="type"
+        value={query.type}
+        options={SAMPLE_TYPES}
+        labels={SAMPLE_TYPE_LABELS}
+      />
+      <FilterSelect
+        label="Tables"
+        name="status"
+        value={query.status}
+        options={SAMPLE_STATUS_FILTERS}
+        labels={STATUS_LABELS}
+      />
       <input type="hidden" name="sort" value={query.sort} />
       <input type="hidden" name="dir" value={query.dir} />
       <Button type="submit">Search</Button>
@@ -265,5 +249,38 @@ export function SampleListPager({
         </Link>
       ) : null}
     </nav>
+  );
+}
+
+/** A filter of the list: one of the options, or "Any" (no filter). */
+function FilterSelect<T extends string>({
+  label,
+  name,
+  value,
+  options,
+  labels,
+}: {
+  label: string;
+  name: string;
+  value: T | undefined | null;
+  options: readonly T[];
+  labels: Record<T, string>;
+}) {
+  return (
+    <label className="flex flex-col gap-1">
+      <span className="font-semibold">{label}</span>
+      <select
+        name={name}
+        defaultValue={value ?? ""}
+        className="rounded border border-line px-2 py-1.5"
+      >
+        <option value="">Any</option>
+        {options.map((option) => (
+          <option key={option} value={option}>
+            {labels[option]}
+          </option>
+        ))}
+      </select>
+    </label>
   );
 }
