@@ -10,6 +10,9 @@ started=$SECONDS
 bash scripts/system-deps.sh --test
 bash scripts/node-deps.sh
 
+# Route types first (generated, not committed): knip and tsc resolve each route's ./+types import through them.
+node_modules/.bin/react-router typegen >/dev/null
+
 # Cheapest first: a lint finding or an unformatted file fails in seconds, before the database starts.
 log "lint (eslint)"
 npm run -s lint
@@ -37,7 +40,6 @@ export E2E_DATABASE_URL="$(database_url "$E2E_DB_NAME")"
 export DB_PORT DB_USER DB_PASSWORD
 
 log "type-check"
-node_modules/.bin/react-router typegen >/dev/null 2>&1
 node_modules/.bin/tsc
 
 # Built before the integration tests: tests/integration/start-script.db.test.ts runs `npm start`, which then
