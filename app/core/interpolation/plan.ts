@@ -236,7 +236,7 @@ export function allocateBatch(
     count,
     values: new Float64Array(count),
     errorEstimates: new Float64Array(count),
-    warnings: new Uint8Array(count),
+    warnings: new Uint16Array(count),
     alternatives: null,
     pressureStart: new Int32Array(count),
     pressureCount: new Uint8Array(count),

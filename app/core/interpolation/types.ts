@@ -72,7 +72,7 @@ export type BatchResult = {
   count: number;
   values: Float64Array;
   errorEstimates: Float64Array;
-  warnings: Uint8Array;
+  warnings: Uint16Array;
   alternatives: Float64Array | null;
   pressureStart: Int32Array;
   pressureCount: Uint8Array;

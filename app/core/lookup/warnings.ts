@@ -17,7 +17,7 @@ export const LOOKUP_WARNING_CODES = [...WARNING_CODES, PCHIP_FALLBACK] as const;
 export type LookupWarning = Warning | typeof PCHIP_FALLBACK;
 
 /** Bit of `pchip-fallback` in the warning masks of `runLookupColumns` (above the engine's bits). */
-export const W_PCHIP_FALLBACK = 1 << 8;
+export const W_PCHIP_FALLBACK = 1 << 12;
 
 const FALLBACK_TEXT =
   "Newton interpolation overshot here: its value left the range of the measured values around the point, although those values rise or fall steadily. The automatic method therefore gives the shape-preserving (pchip) value instead.";
