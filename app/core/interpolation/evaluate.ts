@@ -15,7 +15,7 @@ export function evaluateRange(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -23,7 +23,7 @@ export function evaluateRange(
   let kernel = plan.kernel;
   if (kernel === undefined) kernel = plan.kernel = fastKernel(plan);
   if (kernel) {
-    kernel(plan, ps, ts, from, to, extrapolate, out, outOffset, batch);
+    kernel(plan, ps, ts, from, to, reach, out, outOffset, batch);
     const tb = plan.newton;
     if (tb) {
       // zone sizes are the same for every point on a complete grid
@@ -42,6 +42,14 @@ export function evaluateRange(
           outOffset + to - from,
         );
       }
+      const refused = out.refusals;
+      if (refused) {
+        for (let o = outOffset; o < outOffset + to - from; o++)
+          if (refused[o] !== 0) {
+            out.pressureCount[o] = 0;
+            out.temperatureCount[o] = 0;
+          }
+      }
     }
   } else {
     for (let idx = from; idx < to; idx++) {
@@ -49,7 +57,7 @@ export function evaluateRange(
         plan,
         ps[idx]!,
         ts[idx]!,
-        extrapolate,
+        reach,
         out,
         outOffset + idx - from,
         batch ? idx : -1,
@@ -98,7 +106,7 @@ function badPoint(
 export function evaluatePoint(
   plan: Plan,
   point: Point,
-  extrapolate: boolean,
+  reach: number,
   pointIndex: number,
 ): Result {
   checkPoint(point, pointIndex);
@@ -109,7 +117,7 @@ export function evaluatePoint(
     plan.singleT[0] = point.temperature;
     const out = plan.single;
     out.alternatives = null;
-    kernel(plan, plan.singleP, plan.singleT, 0, 1, extrapolate, out, 0, false);
+    kernel(plan, plan.singleP, plan.singleT, 0, 1, reach, out, 0, false);
     const tb = plan.newton;
     if (tb) {
       out.pressureCount[0] = tb.p.valueTerms;
@@ -125,7 +133,7 @@ export function evaluatePoint(
     plan.singleT,
     0,
     1,
-    extrapolate,
+    reach,
     plan.single,
     0,
     false,

@@ -121,7 +121,7 @@ export function explainInterpolation(
     plan,
     point.pressure,
     point.temperature,
-    opts.extrapolate,
+    opts.reach,
     plan.single,
     0,
     -1,

@@ -8,9 +8,15 @@ import { InterpolationError } from "./errors";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
 import { pchipCell, pchipOut } from "./pchip";
 import type { Plan } from "./plan";
-import { alternativesOf, getPlan, overshootTolerance, STRIDE } from "./plan";
+import {
+  alternativesOf,
+  getPlan,
+  overshootTolerance,
+  refusePoint,
+  STRIDE,
+} from "./plan";
 import type { BranchNodes, PreparedGrid } from "./prepare";
-import { checkRange } from "./range";
+import { checkRange, R_NO_VALID_ZONE, snapped } from "./range";
 import type { BatchResult } from "./types";
 import {
   W_BRANCH_EXTRAPOLATED,
@@ -58,12 +64,16 @@ export type Trace = {
 
 const STATUS = ["inside", "branch-extrapolated", "extrapolated"] as const;
 
-/** Evaluates one point; writes entry `o` of `out`. pointIndex < 0 for a single point. */
+/**
+ * Evaluates one point; writes entry `o` of `out`. pointIndex < 0 for a single point (a point that cannot
+ * be served throws); pointIndex ≥ 0 in the typed batch path (such a point is refused: see `refusePoint`).
+ * `reach` as in range.ts `checkRange`.
+ */
 export function evaluateGeneral(
   plan: Plan,
-  p: number,
-  t: number,
-  extrapolate: boolean,
+  p0: number,
+  t0: number,
+  reach: number,
   out: BatchResult,
   o: number,
   pointIndex: number,
@@ -72,7 +82,20 @@ export function evaluateGeneral(
   const prep = plan.prep;
   const sc = plan.scratch;
   const { M, T } = prep;
-  let flags = plan.constFlags | checkRange(prep, p, t, extrapolate, pointIndex);
+  const refuse = pointIndex >= 0;
+  const extrapolate = reach > 0;
+  const range = checkRange(prep, p0, t0, reach, pointIndex, refuse);
+  if (range < 0) {
+    refusePoint(out, o, -range);
+    return;
+  }
+  let flags = plan.constFlags | range;
+  // snapping (README, "Snapping"): a coordinate within the tolerance of an axis end is that end (done by
+  // checkRange); within the tolerance of a column's first or last measured node, of the first or last
+  // usable column, or of the bubble point, it counts as on that node (inside, on the node's branch)
+  const p = snapped.p;
+  const t = snapped.t;
+  const pTol = prep.pSnap;
 
   let b = 0;
   sc.pbStar = NaN;
@@ -81,7 +104,7 @@ export function evaluateGeneral(
     sc.pbStar = pb;
     if (t < prep.bubble.knownLo || t > prep.bubble.knownHi)
       flags |= W_BUBBLE_POINT_EXTRAPOLATED;
-    b = p <= pb ? 1 : 2;
+    b = p <= pb + pTol ? 1 : 2;
   }
   sc.branch = b;
   const br = prep.branches[b]!;
@@ -93,11 +116,11 @@ export function evaluateGeneral(
     const cnt = br.off[j + 1]! - off;
     if (cnt === 0) continue;
     let status = 0;
-    if (p < br.x[off]!) {
+    if (p < br.x[off]! - pTol) {
       if (br.bubbleFirst[j]) status = 1;
       else if (extrapolate) status = 2;
       else continue;
-    } else if (p > br.x[off + cnt - 1]!) {
+    } else if (p > br.x[off + cnt - 1]! + pTol) {
       if (br.bubbleLast[j]) status = 1;
       else if (extrapolate) status = 2;
       else continue;
@@ -107,10 +130,18 @@ export function evaluateGeneral(
     sc.status[nu] = status;
     nu++;
   }
-  if (nu === 0 || ((t < sc.ux[0]! || t > sc.ux[nu - 1]!) && !extrapolate)) {
+  const tTol = prep.tSnap;
+  const tOutside =
+    nu > 0 && (t < sc.ux[0]! - tTol || t > sc.ux[nu - 1]! + tTol);
+  if (nu === 0 || (tOutside && !extrapolate)) {
+    if (refuse) {
+      if (out.branches) out.branches[o] = b;
+      refusePoint(out, o, R_NO_VALID_ZONE);
+      return;
+    }
     throw noValidZone(prep, br, b, p, t, nu, sc.ux, pointIndex);
   }
-  if (t < sc.ux[0]! || t > sc.ux[nu - 1]!) flags |= W_EXTRAPOLATED;
+  if (tOutside) flags |= W_EXTRAPOLATED;
 
   const isNewton = plan.method !== "pchip";
   let value: number;
@@ -237,7 +268,7 @@ export function evaluateGeneral(
       plan.pchipPlan = pp;
     }
     // the pchip plan has its own scratch; the stencil of this plan's scratch stays intact
-    evaluateGeneral(pp, p, t, true, pp.single, 0, -1, null);
+    evaluateGeneral(pp, p, t, Infinity, pp.single, 0, -1, null);
     alternativesOf(out)[o] = pp.single.values[0]!;
   }
 }

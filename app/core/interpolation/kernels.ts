@@ -6,8 +6,13 @@
 import type { AxisIndex } from "./axis";
 import { pchipCell, pchipOut } from "./pchip";
 import type { Kernel, Plan } from "./plan";
-import { alternativesOf, getPlan, overshootTolerance } from "./plan";
-import { checkRange } from "./range";
+import {
+  alternativesOf,
+  getPlan,
+  overshootTolerance,
+  refusePoint,
+} from "./plan";
+import { checkRange, snapped } from "./range";
 import type { BatchResult } from "./types";
 import { W_EXTRAPOLATED, W_OVERSHOOT } from "./warnings";
 
@@ -57,7 +62,7 @@ function runNewtonFast(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -86,11 +91,18 @@ function runNewtonFast(
     out;
 
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = plan.constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     // overshoot is judged between the zone's nodes only; outside the table a steady rise continues
     const checkOvershoot = newton && (flags & W_EXTRAPOLATED) === 0;
@@ -204,7 +216,7 @@ function runNewton11(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -234,11 +246,18 @@ function runNewton11(
     out;
 
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     let b = Math.floor((p - pLo) * pScale);
     b = b < 0 ? 0 : b > pLast ? pLast : b;
@@ -296,7 +315,7 @@ function runNewton33(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -328,11 +347,18 @@ function runNewton33(
     out;
 
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     let b = Math.floor((p - pLo) * pScale);
     b = b < 0 ? 0 : b > pLast ? pLast : b;
@@ -455,7 +481,7 @@ function pchipAt(plan: Plan, p: number, t: number): BatchResult {
   }
   pp.singleP[0] = p;
   pp.singleT[0] = t;
-  runPchipFast(pp, pp.singleP, pp.singleT, 0, 1, true, pp.single, 0, false);
+  runPchipFast(pp, pp.singleP, pp.singleT, 0, 1, Infinity, pp.single, 0, false);
   return pp.single;
 }
 
@@ -466,7 +492,7 @@ function runPchipFast(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -491,11 +517,18 @@ function runPchipFast(
     temperatureCount,
   } = out;
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = plan.constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     const kp = cellIn(pAxis, p);
     const kt = cellIn(tAxis, t);

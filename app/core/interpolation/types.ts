@@ -28,6 +28,12 @@ export type Options = {
   degree?: number | [number, number];
   /** Allow points outside the measured range; the result then carries the `extrapolated` warning. */
   extrapolate?: boolean;
+  /**
+   * With `extrapolate`: the farthest a point may lie outside the measured range, per axis, as a fraction
+   * of that axis' measured span (default 0.25; Infinity = no limit). Farther points are refused with
+   * `extrapolation-too-far`. An axis with a single node has no span: only the other axis is limited.
+   */
+  maxExtrapolation?: number;
 };
 
 /** Grid indices of the measured nodes whose values make up the result (see README, "Stencil"). */
@@ -67,6 +73,10 @@ export type PointColumns = {
  *   is exactly the zone of the zone rule. With missing cells or bubble points a column may use its own
  *   nodes inside that span; ask `interpolateGrid` for the exact list of one point.
  * - `branches`: with bubble points, 1 = saturated, 2 = undersaturated per point; otherwise null.
+ * - `refusals`: null when every point was served; otherwise per point 0 = served, k = the code
+ *   REFUSAL_CODES[k − 1] ("out-of-range", "no-valid-zone", "extrapolation-too-far"). A refused point has
+ *   value and error estimate NaN, no warnings, a stencil of count 0 and (with bubble points) the branch it
+ *   was on when the refusal concerns a branch, else 0.
  */
 export type BatchResult = {
   count: number;
@@ -79,4 +89,5 @@ export type BatchResult = {
   temperatureStart: Int32Array;
   temperatureCount: Uint8Array;
   branches: Uint8Array | null;
+  refusals: Uint8Array | null;
 };
