@@ -48,7 +48,7 @@ export {
   fromCanonicalWith,
   toCanonicalWith,
 } from "./unit-map";
-export type { Affine } from "./unit-map";
+export type { Affine, UnitBasis } from "./unit-map";
 export {
   describeValue,
   nestedDeeperThan,

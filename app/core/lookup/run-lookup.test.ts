@@ -120,6 +120,9 @@ describe("field units: the engine's numbers, unchanged", () => {
       temperature: { id: "degF", symbol: "°F" },
       value: { id: "ft3/scf", symbol: "ft³/scf" },
       standardConditions: "60 °F, 14.696 psia",
+      reportStandardConditions: "60 °F, 14.696 psia",
+      pressureBasis: "absolute",
+      barometricPressurePsia: 14.696,
     });
   });
 

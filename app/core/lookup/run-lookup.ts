@@ -12,12 +12,16 @@ import {
   type Grid,
 } from "../interpolation";
 import {
+  CANONICAL_UNIT_SYSTEM,
+  DEFAULT_SAMPLE_BAROMETRIC_PSIA,
   isPropertyKey,
   OUTPUT_SYSTEMS,
+  outputPressureUnit,
   outputUnit,
   outputUnitSystem,
   PROPERTIES,
   PROPERTY_QUANTITIES,
+  standardConditionsLabel,
   type OutputSystem,
   type PropertyKey,
   type UnitLabel,
@@ -31,7 +35,12 @@ import {
   type UsedMethod,
 } from "./compute";
 import { LookupError } from "./errors";
-import { affineToCanonical, type Affine } from "./unit-map";
+import {
+  affineToCanonical,
+  normalizeUnitBasis,
+  type Affine,
+  type UnitBasis,
+} from "./unit-map";
 import { expandWarningFlags, type LookupWarning } from "./warnings";
 import { formatPlain } from "../format";
 
@@ -50,6 +59,15 @@ export type LookupOptions = {
   units: OutputSystem;
   /** Plain-word messages next to the warning codes (default true). */
   messages?: boolean;
+  /**
+   * Standard conditions of the grid's Rs and Bg (the sample's); values come out rebased to those of `units`.
+   * Default 60 °F, 14.696 psia (the canonical base: no rebase in field units).
+   */
+  standardConditions?: { temperatureF: number; pressurePsia: number };
+  /** Points and output pressures as absolute (default) or gauge (psig in field, barg in metric units). */
+  pressureBasis?: "absolute" | "gauge";
+  /** Barometric pressure of gauge pressures, psia (the sample's); default 14.696. */
+  barometricPressurePsia?: number;
 };
 
 export type LookupPoint = { pressure: number; temperature: number };
@@ -102,6 +120,12 @@ export type LookupUnitLabels = {
   value: UnitLabel;
   /** Reference conditions of gas and oil volumes in this system (Rs, Bg, Bo). */
   standardConditions: string;
+  /** The report's own standard conditions, from which Rs and Bg were rebased to `standardConditions`. */
+  reportStandardConditions: string;
+  /** Pressures (points, stencil, bubble points) absolute or gauge; see `pressure`. */
+  pressureBasis: "absolute" | "gauge";
+  /** Barometric pressure that makes a gauge pressure absolute, psia. */
+  barometricPressurePsia: number;
 };
 
 export type LookupSummary = {
@@ -159,6 +183,7 @@ export type NormalizedLookupOptions = {
   property: PropertyKey;
   units: OutputSystem;
   messages: boolean;
+  basis: UnitBasis;
 };
 
 function describe(value: unknown): string {
@@ -275,6 +300,7 @@ export function normalizeLookupOptions(
     property,
     units: units as OutputSystem,
     messages: messages !== false,
+    basis: normalizeUnitBasis(options),
   };
 }
 
@@ -303,22 +329,34 @@ export type UnitContext = {
   labels: LookupUnitLabels;
 };
 
+/**
+ * The conversions between the caller's units and the stored grid: `basis` says which standard conditions the
+ * grid's Rs and Bg are on (the sample's) and whether pressures are gauge (normalizeUnitBasis checks it).
+ */
 export function unitContext(
   property: PropertyKey,
   units: OutputSystem,
+  basis: UnitBasis = {},
 ): UnitContext {
   const system = outputUnitSystem(units);
   const quantity = PROPERTY_QUANTITIES[property];
+  const pressureBasis = basis.pressureBasis ?? "absolute";
   return {
-    pressure: affineToCanonical("pressure", system),
+    pressure: affineToCanonical("pressure", system, basis),
     temperature: affineToCanonical("temperature", system),
-    value: affineToCanonical(quantity, system),
+    value: affineToCanonical(quantity, system, basis),
     labels: {
       system: units,
-      pressure: outputUnit(units, "pressure"),
+      pressure: outputPressureUnit(units, pressureBasis),
       temperature: outputUnit(units, "temperature"),
       value: outputUnit(units, quantity),
       standardConditions: system.standardConditions.label,
+      reportStandardConditions: standardConditionsLabel(
+        basis.standardConditions ?? CANONICAL_UNIT_SYSTEM.standardConditions,
+      ),
+      pressureBasis,
+      barometricPressurePsia:
+        basis.barometricPressurePsia ?? DEFAULT_SAMPLE_BAROMETRIC_PSIA,
     },
   };
 }
@@ -368,7 +406,9 @@ function checkedPoint(
       "pressure",
       p,
       ctx,
-      "pressures are absolute and must be above zero.",
+      ctx.labels.pressureBasis === "gauge"
+        ? `with the barometric ${formatPlain(ctx.labels.barometricPressurePsia)} psia added, the absolute pressure must be above zero.`
+        : "pressures are absolute and must be above zero.",
     );
   if (!(tc > ABSOLUTE_ZERO_F))
     throw badPoint(
@@ -529,7 +569,7 @@ export function toLookupError(
 
 function prepare(grid: Grid, points: LookupPoints, options: LookupOptions) {
   const opts = normalizeLookupOptions(options);
-  const ctx = unitContext(opts.property, opts.units);
+  const ctx = unitContext(opts.property, opts.units, opts.basis);
   const { ps, ts } = canonicalPoints(points, ctx);
   let raw: CanonicalLookup;
   try {
