@@ -36,7 +36,7 @@ export function LookupForm({
   return (
     <form
       onSubmit={onSubmit}
-      className="grid gap-4 rounded-lg border border-line bg-panel p-5 lg:grid-cols-3"
+      className="grid gap-4 rounded-lg border border-line bg-panel p-5 lg:grid-cols-3 [&>fieldset]:min-w-0"
       aria-label="Lookup"
     >
       <SamplePicker

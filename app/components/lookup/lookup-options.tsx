@@ -43,14 +43,14 @@ export function LookupOptions({
         ))}
       </div>
       <div className="flex flex-wrap gap-4 text-sm">
-        <label className="flex flex-col gap-1">
+        <label className="flex max-w-full min-w-0 flex-col gap-1">
           <span className="font-semibold">Method</span>
           <select
             value={method}
             onChange={(e) =>
               form.setMethod(e.target.value as LookupMethodChoice)
             }
-            className="rounded border border-line px-2 py-1"
+            className="max-w-full rounded border border-line px-2 py-1"
           >
             <option value="auto">
               Automatic (Newton [3,3], pchip where it overshoots)

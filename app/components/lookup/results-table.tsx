@@ -143,7 +143,7 @@ export function LookupResultsTable({
         </p>
       ))}
       {ok.length > 0 ? (
-        <div className="mt-3 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
+        <div className="relative mt-3 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
           <table className="w-full text-sm" data-testid="results-table">
             <thead className="sticky top-0 bg-surface text-ink-muted">
               <tr>
