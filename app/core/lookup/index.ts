@@ -20,6 +20,7 @@ export type {
   LookupRefusal,
   LookupResult,
   LookupStencil,
+  LookupStencilColumn,
   LookupSummary,
   LookupUnitLabels,
   NormalizedLookupOptions,

@@ -361,3 +361,65 @@ describe("warnings: one typed list, near-bubble-point computed on the server", (
     ).not.toContain("near-bubble-point");
   });
 });
+
+describe("stencil: the exact measured cells, per column, in the output units", () => {
+  test("missing cells and bubble points: every listed cell was measured; the engine's columns, converted", () => {
+    // the generated oil grid with a few cells removed (invented data)
+    const grid: Grid = {
+      ...clean.grids.oil_fvf,
+      values: clean.grids.oil_fvf.values.map((row, i) =>
+        row.map((v, j) => ((i * 7 + j * 3) % 11 === 0 ? null : v)),
+      ),
+    };
+    // bara and °C inside the measured 34.5–413.7 bara, 48.9–115.6 °C
+    const pts = Array.from({ length: 60 }, (_, k) => ({
+      pressure: 40 + k * 6,
+      temperature: 52 + ((k * 37) % 60),
+    }));
+    const out = runLookup(grid, pts, options("oil_fvf", { units: "metric" }));
+    const pa = affineToCanonical("pressure", METRIC_UNIT_SYSTEM);
+    const ta = affineToCanonical("temperature", METRIC_UNIT_SYSTEM);
+    let differ = 0;
+    out.results.forEach((r, k) => {
+      if (r.refused) return;
+      const method = r.warnings.includes("pchip-fallback") ? "pchip" : "newton";
+      const e = interpolateGrid(
+        grid,
+        {
+          pressure: pts[k]!.pressure * pa.scale + pa.offset,
+          temperature: pts[k]!.temperature * ta.scale + ta.offset,
+        },
+        method === "pchip"
+          ? { method, extrapolate: true, maxExtrapolation: Infinity }
+          : { method, degree: [3, 3] },
+      );
+      expect(r.stencil!.columns.map((c) => c.temperatureIndex)).toEqual(
+        e.stencil.columns.map((c) => c.temperature),
+      );
+      r.stencil!.columns.forEach((c, n) => {
+        expect(c.pressureIndices).toEqual(e.stencil.columns[n]!.pressure);
+        expect(c.bubblePointNode).toBe(e.stencil.columns[n]!.bubblePointNode);
+        for (const i of c.pressureIndices)
+          expect(grid.values[i]![c.temperatureIndex]).not.toBeNull();
+        c.pressureIndices.forEach((i, m) =>
+          expect(c.pressures[m]).toBeCloseTo(
+            (grid.pressures[i]! - pa.offset) / pa.scale,
+            9,
+          ),
+        );
+        expect(c.temperature).toBeCloseTo(
+          (grid.temperatures[c.temperatureIndex]! - ta.offset) / ta.scale,
+          9,
+        );
+      });
+      if (
+        new Set(r.stencil!.columns.map((c) => c.pressureIndices.join())).size >
+        1
+      )
+        differ++;
+    });
+    expect(out.summary.refusedCount).toBeLessThan(6);
+    // some points really have columns on different rows (else the per-column list would prove nothing)
+    expect(differ).toBeGreaterThan(0);
+  });
+});

@@ -9,8 +9,10 @@ import {
   DEFAULT_MAX_EXTRAPOLATION,
   InterpolationError,
   MAX_DEGREE,
+  interpolateGrid,
   type Branch,
   type Grid,
+  type Stencil,
 } from "../interpolation";
 import {
   isPropertyKey,
@@ -34,7 +36,11 @@ import {
 } from "./compute";
 import { LookupError } from "./errors";
 import { affineToCanonical, type Affine } from "./unit-map";
-import { expandWarningFlags, type LookupWarning } from "./warnings";
+import {
+  expandWarningFlags,
+  W_PCHIP_FALLBACK,
+  type LookupWarning,
+} from "./warnings";
 import { formatPlain } from "../format";
 import { formatApart } from "../format/distinct";
 import {
@@ -82,16 +88,29 @@ export type LookupPointColumns = {
 export type LookupPoints = readonly LookupPoint[] | LookupPointColumns;
 
 /**
- * The measured nodes behind a value: grid row indices (pressures) and column indices (temperatures) of
- * the zone, and their pressures and temperatures in the output units. On an oil grid the zone's pressure
- * nodes may also include the bubble point itself (not a grid row; see `bubblePointPressure`), and a
- * column may use its own rows within this span; `explainInterpolation` lists every node of one point.
+ * The measured cells behind a value. `columns` lists them exactly, column by column (ascending
+ * temperature): the grid column index and its temperature, and the grid rows used by that column and
+ * their pressures, all in the output units; every listed cell was measured. With missing cells or bubble
+ * points a column may use its own rows. A column whose zone also used the bubble-point node inserted
+ * between two grid rows (not a grid cell; its pressure is `bubblePointPressure` of the column's own
+ * temperature) has `bubblePointNode: true`. `pressureIndices`/`pressures` are every row used by some
+ * column, `temperatureIndices`/`temperatures` every column used. `explainInterpolation` shows every node
+ * of one point with its value.
  */
 export type LookupStencil = {
   readonly pressureIndices: readonly number[];
   readonly temperatureIndices: readonly number[];
   readonly pressures: readonly number[];
   readonly temperatures: readonly number[];
+  readonly columns: readonly LookupStencilColumn[];
+};
+
+export type LookupStencilColumn = {
+  readonly temperatureIndex: number;
+  readonly temperature: number;
+  readonly pressureIndices: readonly number[];
+  readonly pressures: readonly number[];
+  readonly bubblePointNode?: true;
 };
 
 /** Why a point was not served, in plain words (numbers in the caller's units; points counted from 1). */
@@ -738,6 +757,10 @@ export function runLookup(
   const P = grid.pressures;
   const T = grid.temperatures;
   const stencils = new Map<number, LookupStencil>();
+  const exactStencils = new Map<string, LookupStencil>();
+  // with missing cells or bubble points a column may use its own rows: the batch gives only the span,
+  // so each point's exact cells are asked of the engine (only on such grids)
+  const exactCells = needsExactCells(grid);
   const methodCounts: Record<UsedMethod, number> = {
     newton: 0,
     pchip: 0,
@@ -782,32 +805,40 @@ export function runLookup(
       };
       continue;
     }
-    const ps = raw.pressureStart[i]!;
-    const pc = raw.pressureCount[i]!;
-    const tsI = raw.temperatureStart[i]!;
-    const tc = raw.temperatureCount[i]!;
-    const key = ((ps * 256 + pc) * 65536 + tsI) * 256 + tc;
-    let stencil = stencils.get(key);
-    if (!stencil) {
-      const pressureIndices: number[] = [];
-      const pressures: number[] = [];
-      for (let r = ps; r < ps + pc; r++) {
-        pressureIndices.push(r);
-        pressures.push((P[r]! - pa.offset) / pa.scale);
+    let stencil: LookupStencil | undefined;
+    const exact = exactCells
+      ? exactStencil(grid, cps[i]!, cts[i]!, methods[i]!, flags[i]!, opts)
+      : null;
+    if (exact) {
+      const key = stencilKey(exact);
+      stencil = exactStencils.get(key);
+      if (!stencil) {
+        stencil = toLookupStencil(exact, P, T, pa, ta);
+        exactStencils.set(key, stencil);
       }
-      const temperatureIndices: number[] = [];
-      const temperatures: number[] = [];
-      for (let c = tsI; c < tsI + tc; c++) {
-        temperatureIndices.push(c);
-        temperatures.push((T[c]! - ta.offset) / ta.scale);
+    } else {
+      const ps = raw.pressureStart[i]!;
+      const pc = raw.pressureCount[i]!;
+      const tsI = raw.temperatureStart[i]!;
+      const tc = raw.temperatureCount[i]!;
+      const key = ((ps * 256 + pc) * 65536 + tsI) * 256 + tc;
+      stencil = stencils.get(key);
+      if (!stencil) {
+        const pressure = span(ps, pc);
+        const temperature = span(tsI, tc);
+        stencil = toLookupStencil(
+          {
+            pressure,
+            temperature,
+            columns: temperature.map((j) => ({ temperature: j, pressure })),
+          },
+          P,
+          T,
+          pa,
+          ta,
+        );
+        stencils.set(key, stencil);
       }
-      stencil = Object.freeze({
-        pressureIndices: Object.freeze(pressureIndices),
-        temperatureIndices: Object.freeze(temperatureIndices),
-        pressures: Object.freeze(pressures),
-        temperatures: Object.freeze(temperatures),
-      });
-      stencils.set(key, stencil);
     }
     const f = flags[i]!;
     const expanded = expandWarningFlags(f);
@@ -855,6 +886,94 @@ export function runLookup(
 }
 
 const NO_WARNINGS: readonly LookupWarning[] = Object.freeze([]);
+
+function span(start: number, count: number): number[] {
+  const out = new Array<number>(count);
+  for (let k = 0; k < count; k++) out[k] = start + k;
+  return out;
+}
+
+/** Whether the batch's stencil spans can differ from the exact cells: missing cells or bubble points. */
+function needsExactCells(grid: Grid): boolean {
+  if (grid.bubblePoints?.some((b) => b !== null && b !== undefined))
+    return true;
+  for (const row of grid.values)
+    for (const v of row) if (v === null || v === undefined) return true;
+  return false;
+}
+
+/**
+ * The engine's exact stencil of one served point, computed as the batch computed its value (the method
+ * used; the pchip fallback as lookupCanonical runs it). Null if the engine unexpectedly refuses it.
+ */
+function exactStencil(
+  grid: Grid,
+  p: number,
+  t: number,
+  methodCode: number,
+  flags: number,
+  opts: NormalizedLookupOptions,
+): Stencil | null {
+  const method = METHOD_CODES[methodCode]!;
+  const fallback = (flags & W_PCHIP_FALLBACK) !== 0;
+  try {
+    return interpolateGrid(
+      grid,
+      { pressure: p, temperature: t },
+      fallback
+        ? { method: "pchip", extrapolate: true, maxExtrapolation: Infinity }
+        : {
+            method,
+            degree: opts.degree,
+            extrapolate: opts.extrapolate,
+            maxExtrapolation: opts.maxExtrapolation,
+          },
+    ).stencil;
+  } catch {
+    return null;
+  }
+}
+
+function stencilKey(s: Stencil): string {
+  let key = "";
+  for (const c of s.columns)
+    key += `${c.temperature}${c.bubblePointNode ? "b" : ""}:${c.pressure.join(",")};`;
+  return key;
+}
+
+function toLookupStencil(
+  s: Stencil,
+  P: readonly number[],
+  T: readonly number[],
+  pa: Affine,
+  ta: Affine,
+): LookupStencil {
+  const pOut = (i: number) => (P[i]! - pa.offset) / pa.scale;
+  const tOut = (j: number) => (T[j]! - ta.offset) / ta.scale;
+  const rowsOf = new Map<number[], readonly number[]>();
+  const columns = s.columns.map((c) => {
+    let pressures = rowsOf.get(c.pressure);
+    if (!pressures) {
+      pressures = Object.freeze(c.pressure.map(pOut));
+      rowsOf.set(c.pressure, pressures);
+    }
+    const column: LookupStencilColumn = {
+      temperatureIndex: c.temperature,
+      temperature: tOut(c.temperature),
+      pressureIndices: Object.freeze([...c.pressure]),
+      pressures,
+      ...(c.bubblePointNode ? { bubblePointNode: true as const } : {}),
+    };
+    return Object.freeze(column);
+  });
+  return Object.freeze({
+    pressureIndices: Object.freeze([...s.pressure]),
+    temperatureIndices: Object.freeze([...s.temperature]),
+    pressures: Object.freeze(s.pressure.map(pOut)),
+    temperatures: Object.freeze(s.temperature.map(tOut)),
+    columns: Object.freeze(columns),
+  });
+}
 
 /** Summary counts of a columns result (served points' methods and warnings). */
 function columnsSummary(
