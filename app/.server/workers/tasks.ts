@@ -250,13 +250,14 @@ export function serialiseResults(results: LookupResult["results"]): string {
   const parts: string[] = new Array(results.length);
   for (let i = 0; i < results.length; i++) {
     const r = results[i]!;
-    let stencil = stencilJson.get(r.stencil);
-    if (stencil === undefined) {
+    const s = r.stencil;
+    let stencil = s === null ? "null" : stencilJson.get(s);
+    if (stencil === undefined && s !== null) {
       stencil = JSON.stringify({
-        pressure: r.stencil.pressures,
-        temperature: r.stencil.temperatures,
+        pressure: s.pressures,
+        temperature: s.temperatures,
       });
-      stencilJson.set(r.stencil, stencil);
+      stencilJson.set(s, stencil);
     }
     let warnings = warningsJson.get(r.warnings);
     if (warnings === undefined) {
@@ -273,7 +274,7 @@ export function serialiseResults(results: LookupResult["results"]): string {
     parts[i] =
       Number.isFinite(r.value) && Number.isFinite(r.errorEstimate)
         ? `{"value":${r.value},"errorEstimate":${r.errorEstimate},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`
-        : `{"value":null,"errorEstimate":null,"refusal":${REFUSAL_JSON},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`;
+        : `{"value":null,"errorEstimate":null,"refusal":${r.refused ? JSON.stringify(r.refused) : REFUSAL_JSON},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`;
   }
   return `[${parts.join(",")}]`;
 }

@@ -5,7 +5,13 @@ import { evaluateGeneral, stencilLists } from "./general";
 import { fastKernel } from "./kernels";
 import type { Plan } from "./plan";
 import { finishAlternatives } from "./plan";
-import type { BatchResult, Point, Result, Stencil } from "./types";
+import type {
+  BatchResult,
+  Point,
+  Result,
+  Stencil,
+  StencilColumn,
+} from "./types";
 import { W_OVERSHOOT, warningsFromFlags } from "./warnings";
 
 /** Evaluates points [from, to) of ps/ts into `out` from index outOffset. */
@@ -164,13 +170,19 @@ function span(start: number, count: number): number[] {
 function toResult(plan: Plan): Result {
   const buf = plan.single;
   const flags = buf.warnings[0]!;
-  const stencil: Stencil =
-    plan.kernel !== null
-      ? {
-          pressure: span(buf.pressureStart[0]!, buf.pressureCount[0]!),
-          temperature: span(buf.temperatureStart[0]!, buf.temperatureCount[0]!),
-        }
-      : stencilLists(plan);
+  let stencil: Stencil;
+  if (plan.kernel !== null) {
+    // complete grid, no bubble points: every column of the zone uses the same rows
+    const pressure = span(buf.pressureStart[0]!, buf.pressureCount[0]!);
+    const temperature = span(
+      buf.temperatureStart[0]!,
+      buf.temperatureCount[0]!,
+    );
+    const columns = new Array<StencilColumn>(temperature.length);
+    for (let c = 0; c < temperature.length; c++)
+      columns[c] = { temperature: temperature[c]!, pressure };
+    stencil = { pressure, temperature, columns };
+  } else stencil = stencilLists(plan);
   const result: Result = {
     value: buf.values[0]!,
     errorEstimate: buf.errorEstimates[0]!,

@@ -17,7 +17,7 @@ import {
 } from "./plan";
 import type { BranchNodes, PreparedGrid } from "./prepare";
 import { checkRange, R_NO_VALID_ZONE, snapped } from "./range";
-import type { BatchResult } from "./types";
+import type { BatchResult, Stencil, StencilColumn } from "./types";
 import {
   W_BRANCH_EXTRAPOLATED,
   W_BUBBLE_POINT_EXTRAPOLATED,
@@ -501,26 +501,36 @@ function writeStencilSpan(
   out.temperatureCount[o] = cHi - cLo + 1;
 }
 
-/** Grid rows and columns whose measured values make up the last result (for `Result.stencil`). */
-export function stencilLists(plan: Plan): {
-  pressure: number[];
-  temperature: number[];
-} {
+/**
+ * Grid rows and columns whose measured values make up the last result, and the exact cells column by
+ * column (for `Result.stencil`).
+ */
+export function stencilLists(plan: Plan): Stencil {
   const sc = plan.scratch;
   const br = plan.prep.branches[sc.branch]!;
   const rows = new Set<number>();
-  const cols: number[] = [];
+  const columns: StencilColumn[] = [];
   for (let c = 0; c < sc.nCols; c++) {
-    cols.push(sc.cols[c]!);
     const off = sc.colOff[c]!;
+    const pressure: number[] = [];
+    let bubble = false;
     for (let li = sc.vFrom[c]!; li <= sc.vTo[c]!; li++) {
       const row = br.row[off + li]!;
-      if (row >= 0) rows.add(row);
+      if (row >= 0) {
+        rows.add(row);
+        pressure.push(row);
+      } else bubble = true;
     }
+    pressure.sort((a, b) => a - b);
+    const column: StencilColumn = { temperature: sc.cols[c]!, pressure };
+    if (bubble) column.bubblePointNode = true;
+    columns.push(column);
   }
+  columns.sort((a, b) => a.temperature - b.temperature);
   return {
     pressure: [...rows].sort((a, b) => a - b),
-    temperature: cols.sort((a, b) => a - b),
+    temperature: columns.map((c) => c.temperature),
+    columns,
   };
 }
 

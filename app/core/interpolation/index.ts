@@ -33,6 +33,7 @@ export type {
   PointColumns,
   Result,
   Stencil,
+  StencilColumn,
 } from "./types";
 export { InterpolationError } from "./errors";
 export type { InterpolationErrorCode } from "./errors";

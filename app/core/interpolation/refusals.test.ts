@@ -1,6 +1,6 @@
 // Per-point refusal in the typed batch path, the extrapolation limit and snapping. Reference for the
 // behaviour: issue 13 (items 1–3) and README, "Refused points", "Snapping". Unit factors from NIST SP 811
-// (2008), appendix B.8: 1 psi = 6894.757293168 Pa (exact from 1 lbf and 1 in), 1 bar = 1e5 Pa;
+// (2008), appendix B.8: 1 psi = 1 lbf/in² = 0.45359237 kg × 9.80665 m/s² / (0.0254 m)² = 6894.757293168… Pa, 1 bar = 1e5 Pa;
 // T(°F) = T(K) × 1.8 − 459.67, T(K) = T(°C) + 273.15.
 import { describe, expect, test } from "vitest";
 import {
@@ -12,7 +12,7 @@ import {
 } from "./index";
 import type { BatchResult, Grid, Options } from "./index";
 
-const PA_PER_PSI = 6894.757293168;
+const PA_PER_PSI = (0.45359237 * 9.80665) / 0.0254 ** 2;
 const barToPsi = (bar: number): number => (bar * 1e5) / PA_PER_PSI;
 const cToF = (c: number): number => (c + 273.15) * 1.8 - 459.67;
 

@@ -36,8 +36,28 @@ export type Options = {
   maxExtrapolation?: number;
 };
 
-/** Grid indices of the measured nodes whose values make up the result (see README, "Stencil"). */
-export type Stencil = { pressure: number[]; temperature: number[] };
+/**
+ * Grid indices of the measured nodes whose values make up the result (see README, "Stencil"):
+ * `pressure` every grid row used by some column, `temperature` every grid column used, and `columns` the
+ * exact cells, column by column (ascending temperature index): with missing cells or bubble points a
+ * column may use its own rows. Every listed cell (pressure[i], temperature j) was measured. A column whose
+ * zone includes an inserted bubble-point node (pb between two grid rows: not a grid cell) says so with
+ * `bubblePointNode: true`. Arrays may be shared between the fields of one result: treat them as read-only.
+ */
+export type Stencil = {
+  pressure: number[];
+  temperature: number[];
+  columns: StencilColumn[];
+};
+
+export type StencilColumn = {
+  /** Grid column index. */
+  temperature: number;
+  /** Grid row indices of the measured cells of this column that were used, ascending. */
+  pressure: number[];
+  /** Present when this column also used its bubble-point node inserted between grid rows. */
+  bubblePointNode?: true;
+};
 
 export type Branch = "saturated" | "undersaturated";
 
