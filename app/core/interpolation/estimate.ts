@@ -47,9 +47,7 @@ function quantum(v: number): number {
   // a whole multiple of 10^k, to the round-off of the division (a few ulps of the quotient)
   const whole = (k: number): boolean => {
     const q = a / 10 ** k;
-    return (
-      Math.abs(q - Math.round(q)) <= Math.max(1e-9, 8 * Number.EPSILON * q)
-    );
+    return Math.abs(q - Math.round(q)) <= 2 * Number.EPSILON * Math.max(1, q);
   };
   let k = top - MAX_DIGITS + 1;
   while (k <= top && !whole(k)) k++;
