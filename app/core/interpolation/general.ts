@@ -17,11 +17,20 @@ import {
 } from "./plan";
 import type { BranchNodes, PreparedGrid } from "./prepare";
 import { checkRange, R_NO_VALID_ZONE, snapped } from "./range";
+import {
+  ESTIMATE_CALIBRATION,
+  estimateFactor,
+  estimateInfo,
+  extrapolatedEstimate,
+  extrapolationOut,
+} from "./estimate";
 import type { BatchResult, Stencil, StencilColumn } from "./types";
 import {
   W_BRANCH_EXTRAPOLATED,
   W_BUBBLE_POINT_EXTRAPOLATED,
   W_DEGREE_REDUCED,
+  W_ESTIMATE_UNAVAILABLE,
+  W_ESTIMATE_UNRELIABLE,
   W_EXTRAPOLATED,
   W_MISSING_DATA,
   W_OVERSHOOT,
@@ -60,6 +69,11 @@ export type Trace = {
   stepTwo: TraceStep | null;
   errorPressure: number;
   errorTemperature: number;
+  /** The calibration applied to the raw parts (README "Error estimate"). */
+  errorFactor: number;
+  errorFloor: number;
+  errorRounding: number;
+  errorGrowth: number;
 };
 
 const STATUS = ["inside", "branch-extrapolated", "extrapolated"] as const;
@@ -142,6 +156,9 @@ export function evaluateGeneral(
     throw noValidZone(prep, br, b, p, t, nu, sc.ux, pointIndex);
   }
   if (tOutside) flags |= W_EXTRAPOLATED;
+  // one usable column and another temperature, or (below) a zone column with a single node on this
+  // branch and another pressure: the table says nothing about the error in that direction
+  let silent = nu === 1 && Math.abs(t - sc.ux[0]!) > tTol;
 
   const isNewton = plan.method !== "pchip";
   let value: number;
@@ -161,6 +178,7 @@ export function evaluateGeneral(
       sc.tx[c] = sc.ux[u]!;
       const zone = c < vT;
       if (zone) flags |= statusFlag(sc.status[u]!);
+      if (zone && singleNodeElsewhere(br, j, p)) silent = true;
       flags |= newtonColumn(plan, br, j, p, c, zone);
       if (zone) scale += Math.abs(sc.r[c]!);
       if (trace)
@@ -213,6 +231,7 @@ export function evaluateGeneral(
     for (let u = uLo; u <= uHi; u++) {
       const j = sc.usable[u]!;
       flags |= statusFlag(sc.status[u]!);
+      if (singleNodeElsewhere(br, j, p)) silent = true;
       const c = u - uLo;
       const off = br.off[j]!;
       const cnt = br.off[j + 1]! - off;
@@ -249,15 +268,36 @@ export function evaluateGeneral(
   if (!prep.complete && idealZoneHasGap(plan, br, p, t))
     flags |= W_MISSING_DATA;
 
+  // the calibrated estimate (estimate.ts): factor × raw parts + rounding floor, grown outside the table
+  const info = estimateInfo(prep);
+  const cell = prep.pAxis.cell(p) + prep.tAxis.cell(t) * info.cellsP;
+  const factor = estimateFactor(plan.method, plan.m);
+  const floor = ESTIMATE_CALIBRATION.floor * info.floor[cell]!;
+  const rounding = 4 * Number.EPSILON * (scale + Math.abs(value));
+  let err = factor * (Math.abs(errP) + Math.abs(errT)) + floor + rounding;
+  let growth = 1;
+  flags |= info.flags[cell]!;
+  if (flags & W_MISSING_DATA) flags |= W_ESTIMATE_UNRELIABLE;
+  if (silent) {
+    err = NaN;
+    growth = NaN;
+    flags |= W_ESTIMATE_UNAVAILABLE;
+  } else if (flags & W_EXTRAPOLATED) {
+    const inside = err;
+    err = extrapolatedEstimate(prep, err, p, t);
+    flags |= extrapolationOut.flags;
+    growth = err / inside;
+  }
   if (trace) {
     trace.errorPressure = errP;
     trace.errorTemperature = errT;
+    trace.errorFactor = factor;
+    trace.errorFloor = floor;
+    trace.errorRounding = rounding;
+    trace.errorGrowth = growth;
   }
   out.values[o] = value;
-  out.errorEstimates[o] =
-    Math.abs(errP) +
-    Math.abs(errT) +
-    4 * Number.EPSILON * (scale + Math.abs(value));
+  out.errorEstimates[o] = err;
   out.warnings[o] = flags;
   if (out.branches) out.branches[o] = b;
   writeStencilSpan(plan, br, out, o);
@@ -271,6 +311,12 @@ export function evaluateGeneral(
     evaluateGeneral(pp, p, t, Infinity, pp.single, 0, -1, null);
     alternativesOf(out)[o] = pp.single.values[0]!;
   }
+}
+
+/** Column j has a single node on this branch and p is not at it. */
+function singleNodeElsewhere(br: BranchNodes, j: number, p: number): boolean {
+  const off = br.off[j]!;
+  return br.off[j + 1]! - off === 1 && p !== br.x[off]!;
 }
 
 function statusFlag(status: number): number {

@@ -15,6 +15,13 @@ import {
 import { checkRange, snapped } from "./range";
 import type { BatchResult } from "./types";
 import { W_EXTRAPOLATED, W_OVERSHOOT } from "./warnings";
+import {
+  ESTIMATE_CALIBRATION,
+  estimateFactor,
+  estimateInfo,
+  extrapolatedEstimate,
+  extrapolationOut,
+} from "./estimate";
 
 /**
  * The fast kernel for a plan, or null when the general evaluator must be used. The Newton kernels leave
@@ -89,6 +96,12 @@ function runNewtonFast(
   const eps4 = 4 * Number.EPSILON;
   const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
     out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
     let p = ps[idx]!;
@@ -162,8 +175,17 @@ function runNewtonFast(
 
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] =
-      Math.abs(dP) + Math.abs(dT) + eps4 * (scale + Math.abs(value));
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (Math.abs(dP) + Math.abs(dT)) +
+      share * floorOf[cell]! +
+      eps4 * (scale + Math.abs(value));
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
@@ -244,6 +266,12 @@ function runNewton11(
   const eps4 = 4 * Number.EPSILON;
   const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
     out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
     let p = ps[idx]!;
@@ -298,10 +326,17 @@ function runNewton11(
 
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] =
-      Math.abs(dP) +
-      Math.abs(dT) +
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (Math.abs(dP) + Math.abs(dT)) +
+      share * floorOf[cell]! +
       eps4 * (Math.abs(r0) + Math.abs(r1) + Math.abs(value));
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
@@ -345,6 +380,12 @@ function runNewton33(
   const eps4 = 4 * Number.EPSILON;
   const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
     out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
     let p = ps[idx]!;
@@ -463,7 +504,17 @@ function runNewton33(
       Math.abs(value);
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * scale;
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (Math.abs(dP) + Math.abs(dT)) +
+      share * floorOf[cell]! +
+      eps4 * scale;
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
@@ -516,6 +567,12 @@ function runPchipFast(
     temperatureStart,
     temperatureCount,
   } = out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
   for (let idx = from; idx < to; idx++) {
     let p = ps[idx]!;
     let t = ts[idx]!;
@@ -614,7 +671,17 @@ function runPchipFast(
     }
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = eP + Math.abs(eT) + eps4 * (scale + Math.abs(value));
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (eP + Math.abs(eT)) +
+      share * floorOf[cell]! +
+      eps4 * (scale + Math.abs(value));
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     const pS = kp > 0 ? kp - 1 : 0;
     pressureStart[o] = pS;

@@ -63,7 +63,7 @@ export type Branch = "saturated" | "undersaturated";
 
 export type Result = {
   value: number;
-  /** Always ≥ 0 and finite; see README, "Error estimate". */
+  /** ≥ 0; NaN only with the `estimate-unavailable` warning (the table says nothing that way). README "Error estimate". */
   errorEstimate: number;
   stencil: Stencil;
   warnings: Warning[];
