@@ -167,8 +167,10 @@ export async function lookupResponse(
           data,
           {
             property,
-            pressures: body.pressures,
-            temperatures: body.temperatures,
+            // A large job's columns are moved to its worker thread (detached here), so each property gets its
+            // own copy and the request keeps the points for the CSV rows.
+            pressures: body.pressures.slice(),
+            temperatures: body.temperatures.slice(),
             method: body.method,
             degree: body.degree,
             extrapolate: body.extrapolate,

@@ -391,10 +391,6 @@ const LookupColumnsBlockSchema = z
         method: z.array(UsedMethodSchema.nullable()),
         warnings: z.array(z.array(WarningSchema)),
         refused: z.array(orNull(RefusedSchema)),
-        stencil: z.array(z.number().int().nullable()).openapi({
-          description:
-            "Index into `stencils` of each point's stencil; null when refused.",
-        }),
         branch: z
           .array(z.enum(["saturated", "undersaturated"]).nullable())
           .optional(),
@@ -402,16 +398,13 @@ const LookupColumnsBlockSchema = z
       })
       .openapi({
         description:
-          "Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult`.",
+          "Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult` (null where a point is refused, or where it has no error estimate).",
       }),
-    stencils: z.array(StencilSchema).openapi({
-      description: "The distinct stencils, each written once.",
-    }),
     summary: SummarySchema,
   })
   .openapi("LookupColumnsBlock", {
     description:
-      "The answer for one property as arrays per field (no object per point).",
+      "The answer for one property as arrays per field (no object per point). It leaves out the stencils, for speed: the per-point form gives them.",
   });
 
 export const LookupColumnsResponse = z

@@ -25,8 +25,12 @@ import {
 import {
   isLookupError,
   LookupError,
+  lookupWarningsFromFlags,
+  METHOD_CODES,
   readLookupText,
   runLookup,
+  runLookupColumns,
+  type LookupColumnsResult,
   type LookupErrorCode,
   type LookupOptions,
   type LookupPoints,
@@ -127,6 +131,26 @@ const TASKS: {
   ) => HeavyOutput<T> | Promise<HeavyOutput<T>>;
 } = {
   "api-lookup": ({ grid, pressures, temperatures, options, format }) => {
+    if (format === "columns") {
+      const columns = runLookupColumns(
+        grid,
+        { pressures, temperatures },
+        options,
+      );
+      const { json, summary } = serialiseColumns(columns);
+      return {
+        methodDescription: columns.methodDescription,
+        degree: columns.degree,
+        units: {
+          pressure: columns.units.pressure.symbol,
+          temperature: columns.units.temperature.symbol,
+          value: columns.units.value.symbol,
+        },
+        summary,
+        resultsUtf8: new TextEncoder().encode(json),
+        csvCells: null,
+      };
+    }
     const result = runLookup(grid, { pressures, temperatures }, options);
     const head = {
       methodDescription: result.methodDescription,
@@ -146,10 +170,7 @@ const TASKS: {
         csvCells: cells,
       };
     }
-    const { json, summary } =
-      format === "columns"
-        ? serialiseColumns(result.results)
-        : serialiseResults(result.results);
+    const { json, summary } = serialiseResults(result.results);
     return {
       ...head,
       summary,
@@ -412,77 +433,107 @@ export function serialiseResults(results: readonly PointResult[]): {
 }
 
 /**
- * The columnar answer's members `"count":…,"columns":{…},"stencils":[…]` (no braces around them), and the
- * summary: one array per field, each point's stencil an index into `stencils`.
+ * Refusal codes of the engine's columnar form, in the order of its `refusals` (k = index + 1): the shared
+ * contract's LOOKUP_REFUSAL_CODES (app/core/lookup), and the API's list (app/.server/api/schemas.ts).
  */
-export function serialiseColumns(results: readonly PointResult[]): {
+const COLUMN_REFUSAL_CODES = [
+  "outside-measured-range",
+  "no-measured-values",
+  "extrapolation-too-far",
+  "impossible-value",
+] as const;
+
+/** The engine's columnar result, with the per-point refusals of the shared contract where it has them. */
+type ColumnsResult = LookupColumnsResult & {
+  refusals?: Uint8Array | null;
+  refusalMessages?: readonly (string | undefined)[] | null;
+};
+
+/**
+ * The columnar answer's members `"count":…,"columns":{…}` (no braces around them), and the summary, straight
+ * from the engine's typed arrays (runLookupColumns: no object per point). Numbers are written by
+ * JSON.stringify of plain arrays, which writes NaN (refused, or no estimate) as null. No stencils: the
+ * per-point form gives them.
+ */
+export function serialiseColumns(result: ColumnsResult): {
   json: string;
   summary: ApiLookupSummary;
 } {
-  const n = results.length;
-  const stencilIndex = new Map<object, number>();
-  const stencils: string[] = [];
-  const warningsJson = new Map<object, string>();
-  const listCounts = new Map<readonly string[], number>();
+  const n = result.count;
   const summary = emptySummary(n);
-  const value: string[] = new Array<string>(n);
-  const errorEstimate: string[] = new Array<string>(n);
-  const method: string[] = new Array<string>(n);
-  const warnings: string[] = new Array<string>(n);
+  const values = Array.from(result.values);
+  const errorEstimates = Array.from(result.errorEstimates);
+  const method: (string | null)[] = new Array<string | null>(n);
   const refused: string[] = new Array<string>(n);
-  const stencil: string[] = new Array<string>(n);
-  const branch: string[] = new Array<string>(n);
-  const bubble: string[] = new Array<string>(n);
-  let hasBranch = false;
-  let hasBubble = false;
+  const warnings: string[] = new Array<string>(n);
+  const maskJson = new Map<number, string>();
+  const maskCounts = new Map<number, number>();
+  const { refusals, refusalMessages } = result;
+  let anyRefused = false;
   for (let i = 0; i < n; i++) {
-    const r = results[i]!;
-    let w = warningsJson.get(r.warnings);
+    const mask = result.warnings[i]!;
+    let w = maskJson.get(mask);
     if (w === undefined) {
-      w = JSON.stringify(r.warnings);
-      warningsJson.set(r.warnings, w);
+      w = JSON.stringify(lookupWarningsFromFlags(mask));
+      maskJson.set(mask, w);
     }
     warnings[i] = w;
-    const why = refusalOf(r, i);
-    countPoint(summary, listCounts, r, why);
-    if (r.branch) hasBranch = true;
-    branch[i] = r.branch ? `"${r.branch}"` : "null";
-    if (r.bubblePointPressure !== null) hasBubble = true;
-    bubble[i] = finiteOrNull(r.bubblePointPressure);
+    if (mask !== 0) maskCounts.set(mask, (maskCounts.get(mask) ?? 0) + 1);
+    const k = refusals ? refusals[i]! : 0;
+    const v = values[i]!;
+    const why: ApiRefusal | undefined =
+      k > 0
+        ? {
+            code: COLUMN_REFUSAL_CODES[k - 1] ?? "impossible-value",
+            message: refusalMessages?.[i] ?? `Point ${i + 1} was refused.`,
+          }
+        : Number.isFinite(v)
+          ? undefined
+          : notFinite(i);
     if (why) {
-      value[i] = errorEstimate[i] = method[i] = stencil[i] = "null";
+      anyRefused = true;
+      values[i] = NaN;
+      errorEstimates[i] = NaN;
+      method[i] = null;
       refused[i] = JSON.stringify(why);
+      summary.refusedCount++;
+      summary.refusalCounts[why.code] =
+        (summary.refusalCounts[why.code] ?? 0) + 1;
       continue;
     }
-    value[i] = String(r.value);
-    errorEstimate[i] = finiteOrNull(r.errorEstimate);
-    method[i] = `"${r.method}"`;
+    const m = METHOD_CODES[result.methods[i]!]!;
+    method[i] = m;
+    summary.methodCounts[m] = (summary.methodCounts[m] ?? 0) + 1;
     refused[i] = "null";
-    if (!r.stencil) {
-      stencil[i] = "null";
-      continue;
-    }
-    let k = stencilIndex.get(r.stencil);
-    if (k === undefined) {
-      k = stencils.length;
-      stencils.push(stencilJsonOf(r.stencil));
-      stencilIndex.set(r.stencil, k);
-    }
-    stencil[i] = String(k);
   }
+  for (const [mask, c] of maskCounts)
+    for (const code of lookupWarningsFromFlags(mask))
+      summary.warningCounts[code] = (summary.warningCounts[code] ?? 0) + c;
   const columns = [
-    `"value":[${value.join(",")}]`,
-    `"errorEstimate":[${errorEstimate.join(",")}]`,
-    `"method":[${method.join(",")}]`,
+    `"value":${JSON.stringify(values)}`,
+    `"errorEstimate":${JSON.stringify(errorEstimates)}`,
+    `"method":${JSON.stringify(method)}`,
     `"warnings":[${warnings.join(",")}]`,
-    `"refused":[${refused.join(",")}]`,
-    `"stencil":[${stencil.join(",")}]`,
+    `"refused":${anyRefused ? `[${refused.join(",")}]` : JSON.stringify(new Array<null>(n).fill(null))}`,
   ];
-  if (hasBranch) columns.push(`"branch":[${branch.join(",")}]`);
-  if (hasBubble) columns.push(`"bubblePointPressure":[${bubble.join(",")}]`);
+  if (result.branches) {
+    const branch = new Array<string | null>(n);
+    for (let i = 0; i < n; i++)
+      branch[i] =
+        result.branches[i] === 1
+          ? "saturated"
+          : result.branches[i] === 2
+            ? "undersaturated"
+            : null;
+    columns.push(`"branch":${JSON.stringify(branch)}`);
+  }
+  if (result.bubblePointPressures)
+    columns.push(
+      `"bubblePointPressure":${JSON.stringify(Array.from(result.bubblePointPressures))}`,
+    );
   return {
-    json: `"count":${n},"columns":{${columns.join(",")}},"stencils":[${stencils.join(",")}]`,
-    summary: finishSummary(summary, listCounts),
+    json: `"count":${n},"columns":{${columns.join(",")}}`,
+    summary,
   };
 }
 

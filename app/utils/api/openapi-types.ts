@@ -191,7 +191,7 @@ export interface paths {
     put?: never;
     /**
      * Interpolate one or several properties at many conditions
-     * @description Up to 100,000 points per request. Give `property` for one property, or `properties` for several at the same points. **Every point is answered or refused on its own**: the answer is 200 with one result per point, in the order sent; a point that cannot be served (outside the measured range without extrapolation, no measured values around it, extrapolated too far, a physically impossible value) comes back in its place with `value`, `errorEstimate`, `method` and `stencil` null and `refused: { code, message }` (see `Refused`); the block's `summary` counts them (`refusedCount`, `refusalCounts`). Only a malformed request is refused whole: 400 `invalid_body` (the schema not met, a point that is not finite, an absolute pressure at or below zero, a temperature at or below absolute zero; `issues` give the JSON path, counting points from 0), 404 (sample, revision or a property's grid missing: nothing is computed), 413, 415. Messages count points from 1 (`Point 3` is the third point sent). Each result carries its error estimate (null where the table says nothing about the error: warning `estimate-unavailable`), warnings (computed on the server, including `near-bubble-point`), the method used and the data zone (stencil). **Shapes.** With `property` the answer is `LookupResponse`: the request's facts (sample, revision, approval, method) and the property's block (property, methodDescription, degree, units, results, summary) at the top level. With `properties` it is `LookupsResponse`: the same facts and `lookups`, one block per property in the order asked, each block exactly what a one-property request answers. **Large batches.** `format: "columns"` in the body, or `Accept: application/vnd.isopleth.columns+json`, answers arrays per field instead of an object per point (`LookupColumnsResponse` / `LookupsColumnsResponse`: `columns.value[i]`, `columns.errorEstimate[i]`, `columns.refused[i]` … for point i, each distinct stencil written once); `Accept: text/csv` answers CSV (UTF-8 with a byte-order mark; `#` comment lines with the revision and the caution, an unapproved draft marked on the first line; a header row with units; per point its conditions as sent and per property value, error estimate, method, warnings and refusal). The Server-Timing header gives the server's time (`app` in all, `read`, `compute`, `write`). No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). ETag derived from the revision, the request and the form. No query parameters. Token scope: `lookup`; the owner's current role (or the signed-in person's role) needs `read:samples`.
+     * @description Up to 100,000 points per request. Give `property` for one property, or `properties` for several at the same points. **Every point is answered or refused on its own**: the answer is 200 with one result per point, in the order sent; a point that cannot be served (outside the measured range without extrapolation, no measured values around it, extrapolated too far, a physically impossible value) comes back in its place with `value`, `errorEstimate`, `method` and `stencil` null and `refused: { code, message }` (see `Refused`); the block's `summary` counts them (`refusedCount`, `refusalCounts`). Only a malformed request is refused whole: 400 `invalid_body` (the schema not met, a point that is not finite, an absolute pressure at or below zero, a temperature at or below absolute zero; `issues` give the JSON path, counting points from 0), 404 (sample, revision or a property's grid missing: nothing is computed), 413, 415. Messages count points from 1 (`Point 3` is the third point sent). Each result carries its error estimate (null where the table says nothing about the error: warning `estimate-unavailable`), warnings (computed on the server, including `near-bubble-point`), the method used and the data zone (stencil). **Shapes.** With `property` the answer is `LookupResponse`: the request's facts (sample, revision, approval, method) and the property's block (property, methodDescription, degree, units, results, summary) at the top level. With `properties` it is `LookupsResponse`: the same facts and `lookups`, one block per property in the order asked, each block exactly what a one-property request answers. **Large batches.** `format: "columns"` in the body, or `Accept: application/vnd.isopleth.columns+json`, answers arrays per field instead of an object per point (`LookupColumnsResponse` / `LookupsColumnsResponse`: `columns.value[i]`, `columns.errorEstimate[i]`, `columns.refused[i]` … for point i; no stencils); `Accept: text/csv` answers CSV (UTF-8 with a byte-order mark; `#` comment lines with the revision and the caution, an unapproved draft marked on the first line; a header row with units; per point its conditions as sent and per property value, error estimate, method, warnings and refusal). The Server-Timing header gives the server's time (`app` in all, `read`, `compute`, `write`). No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). ETag derived from the revision, the request and the form. No query parameters. Token scope: `lookup`; the owner's current role (or the signed-in person's role) needs `read:samples`.
      */
     post: {
       parameters: {
@@ -454,17 +454,15 @@ export interface components {
         value: string;
       };
     };
-    /** @description The answer for one property as arrays per field (no object per point). */
+    /** @description The answer for one property as arrays per field (no object per point). It leaves out the stencils, for speed: the per-point form gives them. */
     LookupColumnsBlock: {
-      /** @description Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult`. */
+      /** @description Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult` (null where a point is refused, or where it has no error estimate). */
       columns: {
         branch?: ("saturated" | "undersaturated" | null)[];
         bubblePointPressure?: (number | null)[];
         errorEstimate: (number | null)[];
         method: ("newton" | "pchip" | "linear" | null)[];
         refused: ((components["schemas"]["Refused"] & unknown) | null)[];
-        /** @description Index into `stencils` of each point's stencil; null when refused. */
-        stencil: (number | null)[];
         value: (number | null)[];
         warnings: components["schemas"]["LookupWarning"][][];
       };
@@ -474,8 +472,6 @@ export interface components {
       /** @description The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`. */
       methodDescription: string;
       property: components["schemas"]["PropertyKey"];
-      /** @description The distinct stencils, each written once. */
-      stencils: components["schemas"]["Stencil"][];
       summary: components["schemas"]["LookupSummary"];
       units: {
         pressure: string;
@@ -488,15 +484,13 @@ export interface components {
     LookupColumnsResponse: {
       /** @description false for an unapproved (draft or rejected) revision, which only signed-in people may ask for. */
       approved: boolean;
-      /** @description Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult`. */
+      /** @description Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult` (null where a point is refused, or where it has no error estimate). */
       columns: {
         branch?: ("saturated" | "undersaturated" | null)[];
         bubblePointPressure?: (number | null)[];
         errorEstimate: (number | null)[];
         method: ("newton" | "pchip" | "linear" | null)[];
         refused: ((components["schemas"]["Refused"] & unknown) | null)[];
-        /** @description Index into `stencils` of each point's stencil; null when refused. */
-        stencil: (number | null)[];
         value: (number | null)[];
         warnings: components["schemas"]["LookupWarning"][][];
       };
@@ -516,8 +510,6 @@ export interface components {
        */
       revisionStatus: "draft" | "approved" | "rejected" | "superseded";
       sampleId: number;
-      /** @description The distinct stencils, each written once. */
-      stencils: components["schemas"]["Stencil"][];
       summary: components["schemas"]["LookupSummary"];
       units: {
         pressure: string;
