@@ -1,6 +1,6 @@
 import type { LookupWarning } from "~/core/lookup";
 
-/** Flagged in the browser, not by the engine: the point lies within NEAR_BUBBLE_POINT_FRACTION of pb. */
+/** Flagged by the server's lookup (app/core/lookup/warnings.ts), never computed in the browser. */
 export const NEAR_BUBBLE_POINT = "near-bubble-point" as const;
 type BadgeWarning = LookupWarning | typeof NEAR_BUBBLE_POINT;
 
@@ -36,6 +36,3 @@ export function warningLabel(code: string): string {
     ? WARNING_LABELS[code as BadgeWarning]
     : code;
 }
-
-/** Within this fraction of the bubble point a value is flagged: the kink is close. Common practice, not a standard. */
-export const NEAR_BUBBLE_POINT_FRACTION = 0.02;

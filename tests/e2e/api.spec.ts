@@ -293,18 +293,29 @@ test("invalid input, unknown samples, oversized bodies and unsupported types get
     413,
     "payload_too_large",
   );
-  const outside = await expectProblem(
-    await request.post("/api/v1/samples/1/lookup", {
-      headers: h,
-      data: {
-        property: "oil_fvf",
-        points: [{ pressure: 9000, temperature: 212 }],
-      },
-    }),
-    422,
-    "out_of_range",
-  );
-  expect(outside.detail).toMatch(/400 to 5400 psia/);
+  // A point outside the measured range is not a malformed request: 200, the point refused in place.
+  const outside = await request.post("/api/v1/samples/1/lookup", {
+    headers: h,
+    data: {
+      property: "oil_fvf",
+      points: [
+        { pressure: 3000, temperature: 212 },
+        { pressure: 9000, temperature: 212 },
+      ],
+    },
+  });
+  expect(outside.status()).toBe(200);
+  const answered = (await outside.json()) as {
+    results: {
+      value: number | null;
+      refused?: { code: string; message: string };
+    }[];
+  };
+  expect(answered.results[0]!.value).toBeGreaterThan(1);
+  expect(answered.results[1]!.value).toBeNull();
+  expect(answered.results[1]!.refused?.code).toBe("outside-measured-range");
+  expect(answered.results[1]!.refused?.message).toMatch(/Point 2\b/);
+  expect(answered.results[1]!.refused?.message).toMatch(/400 to 5400 psia/);
 });
 
 test("every response names its revision and carries an ETag; a conditional GET answers 304", async ({

@@ -7,9 +7,13 @@ import {
 } from "~/utils/api-scopes";
 import { MAX_JSON_DEPTH } from "./body";
 import { MAX_QUERY_STRING_CHARS } from "./request";
+import { LOOKUP_MEDIA_TYPES } from "./lookup";
 import {
   LookupBody,
+  LookupColumnsResponse,
   LookupResponse,
+  LookupsColumnsResponse,
+  LookupsResponse,
   ProblemSchema,
   registry,
   SampleDetailResponse,
@@ -22,7 +26,7 @@ import {
 
 /** Problem codes the API answers with, documented on the API page (anchors `#problem-<code>`). */
 export const PROBLEM_CODES: Record<string, string> = {
-  invalid_body: `400 — the JSON body does not match the schema, or nests deeper than ${MAX_JSON_DEPTH} levels; \`issues\` lists each field path and what is wrong.`,
+  invalid_body: `400 — the JSON body does not match the schema, or nests deeper than ${MAX_JSON_DEPTH} levels, or (lookup) a point is not a point (not finite, an absolute pressure at or below zero, a temperature at or below absolute zero); \`issues\` lists each field path (points counted from 0, as JSON indices) and what is wrong, \`detail\` names the first in words.`,
   invalid_query: `400 — the query string is not valid: an unknown parameter, a parameter given twice, a value too long, or a number not written as a plain decimal (ids: digits only, so \`0x1\`, \`1e0\`, \`+1\`, \`01\` are refused); \`issues\` names each parameter. At most ${MAX_QUERY_STRING_CHARS} characters in all.`,
   invalid_path:
     "400 — a path parameter is not valid (the sample id is a whole number in decimal digits).",
@@ -45,13 +49,14 @@ export const PROBLEM_CODES: Record<string, string> = {
   revision_not_found:
     "404 — the sample has no revision with that number that the caller may read. A draft or rejected revision answers the same to a token or a role that may not read drafts (unreleased work is neither served nor revealed).",
   no_approved_revision: "404 — the sample has no approved revision yet.",
-  property_not_measured: "404 — the revision has no grid for that property.",
+  property_not_measured:
+    "404 — the revision has no grid for that property (a lookup of several properties names each one missing and computes nothing).",
   payload_too_large:
     "413 — the body is larger than the API accepts (8 MB, about 100,000 points).",
   out_of_range:
-    "422 — a point lies outside the measured range and extrapolation was not allowed, or no valid data zone exists.",
+    "422 — (tables) the table's temperature or pressures lie outside the measured range and extrapolation was not allowed, or no valid data zone exists. Lookups never answer this: their points are refused one by one inside the 200 answer.",
   not_computable:
-    "422 — a table with no row (or no bubble point) that can be computed: interpolation gives no finite value there. Single lookup points that cannot be computed are refused inside a 200 answer instead (value null, `refusal`).",
+    "422 — a table with no row (or no bubble point) that can be computed: interpolation gives no finite value there. Lookup points are never refused this way: a point that cannot be served is refused in place inside the 200 answer (value null, `refused: { code, message }`).",
   internal_error:
     "500 — a fault of the server (logged); nothing computed wrongly is sent.",
   rate_limited:
@@ -131,9 +136,14 @@ registry.registerPath({
 registry.registerPath({
   method: "post",
   path: "/api/v1/samples/{sampleId}/lookup",
-  summary: "Interpolate a property at many conditions",
+  summary: "Interpolate one or several properties at many conditions",
   description:
-    "Up to 100,000 points per request. Each result carries its error estimate, warnings, the method used and the data zone (stencil). A point whose value cannot be computed (not a finite number, e.g. far beyond the data with extrapolation allowed) is refused on its own: `value` and `errorEstimate` are null and `refusal` says why; the other points are served. No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). No query parameters." +
+    "Up to 100,000 points per request. Give `property` for one property, or `properties` for several at the same points. " +
+    "**Every point is answered or refused on its own**: the answer is 200 with one result per point, in the order sent; a point that cannot be served (outside the measured range without extrapolation, no measured values around it, extrapolated too far, a physically impossible value) comes back in its place with `value`, `errorEstimate`, `method` and `stencil` null and `refused: { code, message }` (see `Refused`); the block's `summary` counts them (`refusedCount`, `refusalCounts`). Only a malformed request is refused whole: 400 `invalid_body` (the schema not met, a point that is not finite, an absolute pressure at or below zero, a temperature at or below absolute zero; `issues` give the JSON path, counting points from 0), 404 (sample, revision or a property's grid missing: nothing is computed), 413, 415. Messages count points from 1 (`Point 3` is the third point sent). " +
+    "Each result carries its error estimate (null where the table says nothing about the error: warning `estimate-unavailable`), warnings (computed on the server, including `near-bubble-point`), the method used and the data zone (stencil). " +
+    "**Shapes.** With `property` the answer is `LookupResponse`: the request's facts (sample, revision, approval, method) and the property's block (property, methodDescription, degree, units, results, summary) at the top level. With `properties` it is `LookupsResponse`: the same facts and `lookups`, one block per property in the order asked, each block exactly what a one-property request answers. " +
+    '**Large batches.** `format: "columns"` in the body, or `Accept: application/vnd.isopleth.columns+json`, answers arrays per field instead of an object per point (`LookupColumnsResponse` / `LookupsColumnsResponse`: `columns.value[i]`, `columns.errorEstimate[i]`, `columns.refused[i]` … for point i; no stencils); `Accept: text/csv` answers CSV (UTF-8 with a byte-order mark; `#` comment lines with the revision and the caution, an unapproved draft marked on the first line; a header row with units; per point its conditions as sent and per property value, error estimate, method, warnings and refusal). The Server-Timing header gives the server\'s time (`app` in all, `read`, `compute`, `write`). ' +
+    "No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). ETag derived from the revision, the request and the form. No query parameters." +
     access("lookup"),
   security,
   request: {
@@ -142,10 +152,23 @@ registry.registerPath({
   },
   responses: {
     200: {
-      description: "One result per point, in order.",
-      content: { "application/json": { schema: LookupResponse } },
+      description:
+        "One result per point, in order, refused points in place: one block (`property`) or one block per property (`properties`).",
+      content: {
+        "application/json": {
+          schema: z.union([LookupResponse, LookupsResponse]),
+        },
+        [LOOKUP_MEDIA_TYPES.columns]: {
+          schema: z.union([LookupColumnsResponse, LookupsColumnsResponse]),
+        },
+        [LOOKUP_MEDIA_TYPES.csv]: {
+          schema: z.string().openapi({
+            description: "CSV: comment lines, a header row, one row per point.",
+          }),
+        },
+      },
     },
-    ...problemResponses([400, 401, 403, 404, 413, 415, 422, 429]),
+    ...problemResponses([400, 401, 403, 404, 413, 415, 429, 503]),
   },
 });
 

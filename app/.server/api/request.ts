@@ -83,6 +83,23 @@ function summarise(
   return `\`${String(first.path[0] ?? "")}\`: ${first.message}${more}`;
 }
 
+/**
+ * The first issue of a JSON body in words — its field path as written in JSON (`properties[1]`, `degree`) and
+ * what is wrong — and how many more the issues list.
+ */
+export function describeIssues(
+  issues: { path: (string | number)[]; message: string }[],
+): string {
+  const first = issues[0];
+  if (!first) return "see issues.";
+  const where = first.path
+    .map((p, i) => (typeof p === "number" ? `[${p}]` : i ? `.${p}` : p))
+    .join("");
+  const more =
+    issues.length > 1 ? ` (and ${issues.length - 1} more; see issues)` : "";
+  return `${where ? `\`${where}\`: ` : ""}${first.message}${more}`;
+}
+
 /** Parses the route's path parameters with `schema`; throws a 400 `invalid_path` problem naming them. */
 export function parseApiPath<S extends z.ZodObject>(
   params: Record<string, string | undefined>,

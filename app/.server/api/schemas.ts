@@ -3,7 +3,11 @@ import {
   OpenAPIRegistry,
 } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
-import { pointColumns } from "~/core/lookup";
+import {
+  describeWarningCode,
+  LOOKUP_WARNING_CODES,
+  pointColumns,
+} from "~/core/lookup";
 import { REVISION_STATUSES } from "~/utils/sample-vocabulary";
 import {
   keyWithAbbreviation,
@@ -85,48 +89,114 @@ export const SampleQuery = z.object({
 });
 
 const MAX_LOOKUP_POINTS = 100_000;
-export const LookupBody = z
-  .object({
-    property: PropertyKeySchema,
-    points: z
-      .array(
-        z
-          .object({
-            pressure: z.number().finite(),
-            temperature: z.number().finite(),
-          })
-          .strict(),
-      )
-      .min(1)
-      .max(MAX_LOOKUP_POINTS)
-      .openapi({
-        description:
-          "Conditions in the chosen unit system (pressure absolute).",
-      }),
-    method: MethodSchema.default("auto"),
-    degree: Degree.optional(),
-    units: UnitsParam,
-    extrapolate: z.boolean().default(false).openapi({
+
+/** Forms of a lookup answer: one object per point (the default), or arrays per field (large batches). */
+export const LOOKUP_FORMATS = ["points", "columns"] as const;
+export type LookupFormat = (typeof LOOKUP_FORMATS)[number];
+
+/**
+ * Why a point was refused. The same list as the engine's LOOKUP_REFUSAL_CODES (app/core/lookup; a unit test
+ * keeps the two equal).
+ */
+export const API_REFUSAL_CODES = [
+  "outside-measured-range",
+  "no-measured-values",
+  "extrapolation-too-far",
+  "impossible-value",
+] as const;
+
+const LookupFields = z.object({
+  property: PropertyKeySchema.optional().openapi({
+    description:
+      "One property; the answer carries its `results` at the top level. Give `property` or `properties`, not both.",
+  }),
+  properties: z
+    .array(PropertyKeySchema)
+    .min(1)
+    .max(PROPERTY_KEYS.length)
+    .optional()
+    .openapi({
       description:
-        "Allow points outside the measured range; they are flagged `extrapolated`.",
+        "Several properties at the same points, each at most once; the answer lists one block per property under `lookups`, in this order, each block shaped as the answer to a one-property request (property, methodDescription, degree, units, results, summary).",
     }),
-    revision: z.number().int().positive().optional().openapi({
-      description: "Revision number; default the latest approved one.",
+  points: z
+    .array(
+      z
+        .object({
+          pressure: z.number().finite(),
+          temperature: z.number().finite(),
+        })
+        .strict(),
+    )
+    .min(1)
+    .max(MAX_LOOKUP_POINTS)
+    .openapi({
+      description:
+        "Conditions in the chosen unit system (pressure absolute). Messages count them from 1 (`Point 3` is the third point sent); the `issues` paths of a 400 count from 0, as JSON indices do.",
     }),
-  })
-  .strict()
-  .openapi("LookupRequest");
+  method: MethodSchema.default("auto"),
+  degree: Degree.optional(),
+  units: UnitsParam,
+  extrapolate: z.boolean().default(false).openapi({
+    description:
+      "Allow points outside the measured range; they are flagged `extrapolated`. Points too far out are still refused (`extrapolation-too-far`).",
+  }),
+  revision: z.number().int().positive().optional().openapi({
+    description: "Revision number; default the latest approved one.",
+  }),
+  format: z.enum(LOOKUP_FORMATS).optional().openapi({
+    description:
+      "`points` (default): one object per point. `columns`: arrays per field, for large batches (the same as `Accept: application/vnd.isopleth.columns+json`). CSV is asked for with `Accept: text/csv`.",
+  }),
+});
+
+type Issues = { path: (string | number)[]; message: string }[];
+
+/** Exactly one of `property` and `properties`, and no property twice. */
+function checkProperties(
+  body: { property?: string; properties?: string[] },
+  ctx: z.RefinementCtx,
+) {
+  if ((body.property === undefined) === (body.properties === undefined)) {
+    ctx.addIssue({
+      code: "custom",
+      path: body.property === undefined ? ["property"] : ["properties"],
+      message:
+        body.property === undefined
+          ? "Give `property` (one) or `properties` (a list)."
+          : "Give `property` or `properties`, not both.",
+    });
+  }
+  const seen = new Set<string>();
+  body.properties?.forEach((p, i) => {
+    if (seen.has(p))
+      ctx.addIssue({
+        code: "custom",
+        path: ["properties", i],
+        message: `${p} is listed twice; list each property once.`,
+      });
+    seen.add(p);
+  });
+}
+
+export const LookupBody = LookupFields.strict()
+  .superRefine(checkProperties)
+  .openapi("LookupRequest", {
+    description:
+      "Give `property` or `properties` (exactly one). A malformed request (this schema not met, or a point that is not a point: not finite, an absolute pressure at or below zero, a temperature at or below absolute zero) is refused whole with 400; a well-formed point that cannot be served is refused on its own inside the 200 answer.",
+  });
 export type LookupBody = z.infer<typeof LookupBody>;
 
 /*
  * The same contract, checked faster: zod validates everything but the points, and the points (up to 100,000)
  * are checked by a plain loop that reports the same field paths. LookupBody stays the documented schema.
  */
-const LookupHead = LookupBody.omit({ points: true }).extend({
-  points: z.array(z.unknown()).min(1).max(MAX_LOOKUP_POINTS),
-});
-
-type Issues = { path: (string | number)[]; message: string }[];
+const LookupHead = LookupFields.omit({ points: true })
+  .extend({
+    points: z.array(z.unknown()).min(1).max(MAX_LOOKUP_POINTS),
+  })
+  .strict()
+  .superRefine(checkProperties);
 
 /** Validates everything of a lookup body but its points (checked by pointColumns); `count` points were sent. */
 export function parseLookupHead(
@@ -154,80 +224,204 @@ export function parseLookupBody(
   return { success: true, data: head.data as LookupBody };
 }
 
-const StencilSchema = z.object({
-  pressure: z.array(z.number()).openapi({
-    description: "Measured pressures of the data zone used (output units).",
-  }),
-  temperature: z.array(z.number()).openapi({
-    description: "Measured temperatures of the data zone used (output units).",
-  }),
-});
+/*
+ * A registered schema made nullable is written by the OpenAPI generator as allOf [$ref, {type: null}], which no
+ * value can meet; a union with null is written anyOf [$ref, {type: "null"}], which says what we mean.
+ */
+const orNull = <T extends z.ZodType>(schema: T) => z.union([schema, z.null()]);
 
-const RefusalSchema = z
+/** The method that produced a value (`pchip` where the automatic method fell back). */
+const UsedMethodSchema = z.enum(["newton", "pchip", "linear"]);
+
+const StencilSchema = z
   .object({
-    code: z.literal("not_computable"),
-    message: z.string(),
+    pressure: z.array(z.number()).openapi({
+      description:
+        "Measured pressures of the data zone used (output units); on an oil grid it may include the bubble point itself.",
+    }),
+    temperature: z.array(z.number()).openapi({
+      description:
+        "Measured temperatures of the data zone used (output units).",
+    }),
+    columns: z
+      .array(
+        z.object({
+          temperature: z.number().int(),
+          pressure: z.array(z.number().int()),
+        }),
+      )
+      .optional()
+      .openapi({
+        description:
+          "When the temperature columns of the zone use different rows (missing cells): per column, its temperature index and the pressure indices (grid rows) it used. Every listed cell is a measured one.",
+      }),
   })
-  .openapi("Refusal", {
+  .openapi("Stencil");
+
+export const RefusedSchema = z
+  .object({
+    code: z.enum(API_REFUSAL_CODES),
+    message: z.string().openapi({
+      description:
+        "In plain words, numbers in the request's units; points are counted from 1 (`Point 3` is the third point sent).",
+    }),
+  })
+  .openapi("Refused", {
     description:
-      "Why a point has no value: the interpolation did not give a finite number (e.g. far beyond the measured range with extrapolation allowed). No NaN or Infinity is ever written; such a point gets value null, errorEstimate null and this refusal, and the other points are served.",
+      "Why a point has no value: `outside-measured-range` (outside the measured pressures or temperatures, extrapolation not allowed), `no-measured-values` (cells around it were not measured: a hole, or beyond the last measured pressure of the neighbouring temperatures), `extrapolation-too-far` (farther outside the measured range than the extrapolation limit allows), `impossible-value` (the interpolation gave a physically impossible value there, e.g. Bo, Bg, viscosity, density or z at or below zero, Rs below zero, or no finite number at all). No NaN or Infinity is ever written.",
   });
+
+const WarningSchema = z.enum(LOOKUP_WARNING_CODES).openapi("LookupWarning", {
+  description: LOOKUP_WARNING_CODES.map(
+    (c) => `\`${c}\`: ${describeWarningCode(c)}`,
+  ).join(" "),
+});
 
 const LookupResultSchema = z
   .object({
     value: z.number().nullable().openapi({
-      description:
-        "In the output unit; null only when the point is refused (see refusal).",
+      description: "In the output unit; null when the point is refused.",
     }),
     errorEstimate: z.number().nullable().openapi({
       description:
-        "Estimated interpolation error (same unit as value), never zero; see the engine's documentation. null when refused.",
+        "Estimated interpolation error (same unit as value); see the engine's documentation for what ± means. null when the point is refused, or when the table says nothing about the error at a served point (warning `estimate-unavailable`).",
     }),
-    refusal: RefusalSchema.optional(),
-    warnings: z.array(z.string()).openapi({
+    refused: RefusedSchema.optional().openapi({
       description:
-        "Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells.",
+        "Present only on a refused point (value, errorEstimate, method and stencil are then null).",
     }),
-    method: z
-      .string()
-      .openapi({ description: "Method that produced this value." }),
-    stencil: StencilSchema,
+    warnings: z.array(WarningSchema),
+    method: UsedMethodSchema.nullable().openapi({
+      description:
+        "Method that produced this value (`pchip` where the automatic method fell back); null when refused.",
+    }),
+    stencil: orNull(StencilSchema).openapi({
+      description: "The measured nodes behind the value; null when refused.",
+    }),
     branch: z.enum(["saturated", "undersaturated"]).optional(),
-    bubblePointPressure: z.number().optional(),
+    bubblePointPressure: z.number().optional().openapi({
+      description:
+        "Oil grids: the bubble-point pressure at the point's temperature (output unit).",
+    }),
   })
   .openapi("LookupResult");
 
-export const LookupResponse = z
+const SummarySchema = z
   .object({
-    sampleId: z.number(),
-    revision: z.number(),
-    revisionStatus: z.enum(REVISION_STATUSES).openapi({
-      description:
-        "Status of the revision used; anything but approved or superseded is an unapproved draft.",
-    }),
-    approved: z.boolean().openapi({
-      description:
-        "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for.",
-    }),
-    property: PropertyKeySchema,
-    method: MethodSchema,
-    methodDescription: z.string().openapi({
-      description:
-        "The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`.",
-    }),
-    degree: z.tuple([z.number().int(), z.number().int()]).nullable().openapi({
-      description:
-        "[along pressure, along temperature] degree of the polynomial method used; null for pchip.",
-    }),
-    units: z.object({
-      system: z.enum(OUTPUT_SYSTEMS),
-      pressure: z.string(),
-      temperature: z.string(),
-      value: z.string(),
-    }),
-    results: z.array(LookupResultSchema),
+    count: z.number().int(),
+    refusedCount: z.number().int(),
+    refusalCounts: z.partialRecord(z.enum(API_REFUSAL_CODES), z.number().int()),
+    methodCounts: z.partialRecord(UsedMethodSchema, z.number().int()),
+    warningCounts: z.partialRecord(WarningSchema, z.number().int()),
   })
-  .openapi("LookupResponse");
+  .openapi("LookupSummary", {
+    description:
+      "How many points were sent, how many were refused (and why), which methods served the others, and how many carry each warning.",
+  });
+
+const UnitsSchema = z.object({
+  system: z.enum(OUTPUT_SYSTEMS),
+  pressure: z.string(),
+  temperature: z.string(),
+  value: z.string(),
+});
+
+const RequestHead = {
+  sampleId: z.number(),
+  revision: z.number(),
+  revisionStatus: z.enum(REVISION_STATUSES).openapi({
+    description:
+      "Status of the revision used; anything but approved or superseded is an unapproved draft.",
+  }),
+  approved: z.boolean().openapi({
+    description:
+      "false for an unapproved (draft or rejected) revision, which only signed-in people may ask for.",
+  }),
+  method: MethodSchema,
+};
+
+const BlockHead = {
+  property: PropertyKeySchema,
+  methodDescription: z.string().openapi({
+    description:
+      "The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`.",
+  }),
+  degree: z.tuple([z.number().int(), z.number().int()]).nullable().openapi({
+    description:
+      "[along pressure, along temperature] degree of the polynomial method used; null for pchip.",
+  }),
+  units: UnitsSchema,
+};
+
+const LookupBlockSchema = z
+  .object({
+    ...BlockHead,
+    results: z.array(LookupResultSchema).openapi({
+      description:
+        "One result per point, in the order sent; refused points in place.",
+    }),
+    summary: SummarySchema,
+  })
+  .openapi("LookupBlock", {
+    description: "The answer for one property, one result per point.",
+  });
+
+export const LookupResponse = z
+  .object({ ...RequestHead, ...LookupBlockSchema.shape })
+  .openapi("LookupResponse", {
+    description:
+      "The answer to a request with `property`: the request's facts and the property's block.",
+  });
+
+export const LookupsResponse = z
+  .object({ ...RequestHead, lookups: z.array(LookupBlockSchema) })
+  .openapi("LookupsResponse", {
+    description:
+      "The answer to a request with `properties`: one block per property, in the order asked.",
+  });
+
+const LookupColumnsBlockSchema = z
+  .object({
+    ...BlockHead,
+    count: z.number().int(),
+    columns: z
+      .object({
+        value: z.array(z.number().nullable()),
+        errorEstimate: z.array(z.number().nullable()),
+        method: z.array(UsedMethodSchema.nullable()),
+        warnings: z.array(z.array(WarningSchema)),
+        refused: z.array(orNull(RefusedSchema)),
+        branch: z
+          .array(z.enum(["saturated", "undersaturated"]).nullable())
+          .optional(),
+        bubblePointPressure: z.array(z.number().nullable()).optional(),
+      })
+      .openapi({
+        description:
+          "Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult` (null where a point is refused, or where it has no error estimate).",
+      }),
+    summary: SummarySchema,
+  })
+  .openapi("LookupColumnsBlock", {
+    description:
+      "The answer for one property as arrays per field (no object per point). It leaves out the stencils, for speed: the per-point form gives them.",
+  });
+
+export const LookupColumnsResponse = z
+  .object({
+    ...RequestHead,
+    format: z.literal("columns"),
+    ...LookupColumnsBlockSchema.shape,
+  })
+  .openapi("LookupColumnsResponse");
+
+export const LookupsColumnsResponse = z
+  .object({
+    ...RequestHead,
+    format: z.literal("columns"),
+    lookups: z.array(LookupColumnsBlockSchema),
+  })
+  .openapi("LookupsColumnsResponse");
 
 const MAX_PRESSURES_CHARS = 6_000;
 const ABSOLUTE_ZERO = { field: -459.67, metric: -273.15 } as const;

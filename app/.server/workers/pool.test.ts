@@ -77,13 +77,45 @@ describe(
       }));
       const direct = runLookup(grid, metricPoints, options);
       const json = new TextDecoder().decode(worker.value.resultsUtf8);
-      expect(json).toBe(serialiseResults(direct.results));
+      expect(json).toBe(serialiseResults(direct.results).json);
       expect(JSON.parse(json)).toHaveLength(5_000);
       expect(worker.value.units).toStrictEqual({
         pressure: "bara",
         temperature: "°C",
         value: "rm³/sm³",
       });
+    });
+
+    test("API lookup, columnar and CSV forms: the worker's answer is the inline one, with the per-point form's numbers", async () => {
+      const input = (format: "columns" | "csv"): ApiLookupInput => ({
+        ...columns(),
+        format,
+      });
+      const worker = await pool.run("api-lookup", input("columns"));
+      const here = await inline.run("api-lookup", input("columns"));
+      expect(worker.where).toBe("worker");
+      expect(worker.value).toStrictEqual(here.value);
+      const perPoint = JSON.parse(
+        new TextDecoder().decode(
+          (await inline.run("api-lookup", columns())).value.resultsUtf8,
+        ),
+      ) as { value: number | null; errorEstimate: number | null }[];
+      const block = JSON.parse(
+        `{${new TextDecoder().decode(worker.value.resultsUtf8)}}`,
+      ) as {
+        count: number;
+        columns: { value: (number | null)[]; errorEstimate: (number | null)[] };
+      };
+      expect(block.count).toBe(5_000);
+      expect(block.columns.value).toEqual(perPoint.map((r) => r.value));
+      expect(block.columns.errorEstimate).toEqual(
+        perPoint.map((r) => r.errorEstimate),
+      );
+      const csv = await pool.run("api-lookup", input("csv"));
+      expect(csv.value.csvCells).toHaveLength(5_000);
+      expect(Number(csv.value.csvCells![0]!.split(",")[0])).toBe(
+        perPoint[0]!.value,
+      );
     });
 
     test("lookup: the full result object, plain data with the same shape and prototypes", async () => {

@@ -25,14 +25,20 @@ import {
 import {
   isLookupError,
   LookupError,
+  lookupWarningsFromFlags,
+  METHOD_CODES,
   readLookupText,
   runLookup,
+  runLookupColumns,
+  type LookupColumnsResult,
   type LookupErrorCode,
   type LookupOptions,
   type LookupPoints,
   type LookupResult,
+  type LookupStencil,
   type LookupText,
 } from "~/core/lookup";
+import { csvCell } from "~/core/csv";
 import {
   buildBlackOilTable,
   isTableError,
@@ -42,12 +48,17 @@ import {
   type TableErrorCode,
 } from "~/core/tables";
 
-/** The API lookup: points as two columns (Float64Array, transferred, not copied), the answer as JSON text. */
+/**
+ * The API lookup of one property: points as two columns (Float64Array, transferred, not copied), the answer as
+ * JSON text (per point or per field) or CSV cells.
+ */
 export type ApiLookupInput = {
   grid: Grid;
   pressures: Float64Array;
   temperatures: Float64Array;
   options: LookupOptions;
+  /** Default "points". */
+  format?: ApiLookupFormat;
 };
 
 export type ApiLookupOutput = {
@@ -55,11 +66,16 @@ export type ApiLookupOutput = {
   degree: LookupResult["degree"];
   /** Unit symbols of the output. */
   units: { pressure: string; temperature: string; value: string };
+  summary: ApiLookupSummary;
   /**
-   * The `results` array of the API response, serialised (see serialiseResults) and encoded as UTF-8 here, so
-   * the main thread sends the bytes as they are (encoding 15 MB of JSON for 100,000 points cost it ~300 ms).
+   * The property's answer as JSON, serialised (see serialiseResults, serialiseColumns) and encoded as UTF-8
+   * here, so the main thread sends the bytes as they are (encoding 15 MB of JSON for 100,000 points cost it
+   * ~300 ms): the `results` array (points), or the members count, columns and stencils (columns); empty for
+   * CSV.
    */
   resultsUtf8: Uint8Array;
+  /** CSV: the property's cells per point (csvCellsOf); null otherwise. */
+  csvCells: string[] | null;
 };
 
 export type CheckUploadInput = {
@@ -114,9 +130,29 @@ const TASKS: {
     input: HeavyInput<T>,
   ) => HeavyOutput<T> | Promise<HeavyOutput<T>>;
 } = {
-  "api-lookup": ({ grid, pressures, temperatures, options }) => {
+  "api-lookup": ({ grid, pressures, temperatures, options, format }) => {
+    if (format === "columns") {
+      const columns = runLookupColumns(
+        grid,
+        { pressures, temperatures },
+        options,
+      );
+      const { json, summary } = serialiseColumns(columns);
+      return {
+        methodDescription: columns.methodDescription,
+        degree: columns.degree,
+        units: {
+          pressure: columns.units.pressure.symbol,
+          temperature: columns.units.temperature.symbol,
+          value: columns.units.value.symbol,
+        },
+        summary,
+        resultsUtf8: new TextEncoder().encode(json),
+        csvCells: null,
+      };
+    }
     const result = runLookup(grid, { pressures, temperatures }, options);
-    return {
+    const head = {
       methodDescription: result.methodDescription,
       degree: result.degree,
       units: {
@@ -124,7 +160,22 @@ const TASKS: {
         temperature: result.units.temperature.symbol,
         value: result.units.value.symbol,
       },
-      resultsUtf8: new TextEncoder().encode(serialiseResults(result.results)),
+    };
+    if (format === "csv") {
+      const { cells, summary } = csvCellsOf(result.results);
+      return {
+        ...head,
+        summary,
+        resultsUtf8: new Uint8Array(0),
+        csvCells: cells,
+      };
+    }
+    const { json, summary } = serialiseResults(result.results);
+    return {
+      ...head,
+      summary,
+      resultsUtf8: new TextEncoder().encode(json),
+      csvCells: null,
     };
   },
   "read-lookup-body": ({ text, maxDepth }) => readLookupText(text, maxDepth),
@@ -229,52 +280,288 @@ export function decodeError(
 }
 
 /*
- * The API's results array, written by hand rather than through JSON.stringify of one object per point:
- * stencils and warning lists are shared between points (the engine reuses them), so each is serialised once.
- * For 10,000 points this is several times faster than building and stringifying 10,000 objects.
+ * The API's answer for one property, written by hand rather than through JSON.stringify of one object per
+ * point: stencils and warning lists are shared between points (the engine reuses them), so each is serialised
+ * once. For 10,000 points this is several times faster than building and stringifying 10,000 objects.
+ *
+ * A refused point (the engine's `refused`) is written in place: value, errorEstimate, method and stencil null,
+ * and `refused: { code, message }`. A served point whose value is not a finite number is refused here too
+ * (`impossible-value`), so no NaN or Infinity is ever written; an error estimate that is not a finite number
+ * is written null (the table says nothing about the error there).
  */
-/**
- * The refusal of a point whose value cannot be computed: value and errorEstimate null and this refusal; the
- * other points of the request are served as usual.
- */
-export const NOT_COMPUTABLE_REFUSAL = {
-  code: "not_computable",
-  message:
-    "The value at this point cannot be computed: the interpolation did not give a finite number (the point lies too far outside the measured data). Choose a point nearer the measured range.",
-} as const;
-const REFUSAL_JSON = JSON.stringify(NOT_COMPUTABLE_REFUSAL);
 
-export function serialiseResults(results: LookupResult["results"]): string {
+/** Forms of the API's lookup answer: JSON objects per point, JSON arrays per field, or CSV cells. */
+export type ApiLookupFormat = "points" | "columns" | "csv";
+
+/** A refusal as the API writes it. */
+export type ApiRefusal = { code: string; message: string };
+
+/** How many points were sent, refused (and why), served per method, and flagged per warning. */
+export type ApiLookupSummary = {
+  count: number;
+  refusedCount: number;
+  refusalCounts: Record<string, number>;
+  methodCounts: Record<string, number>;
+  warningCounts: Record<string, number>;
+};
+
+/**
+ * A point's result as the API reads it: today's engine result, and the per-point refusal of the shared
+ * contract (value, errorEstimate, method and stencil null, `refused` present) both fit.
+ */
+type PointResult = {
+  value: number | null;
+  errorEstimate: number | null;
+  warnings: readonly string[];
+  method: string | null;
+  stencil: LookupStencil | null;
+  branch: string | null;
+  bubblePointPressure: number | null;
+  refused?: ApiRefusal;
+};
+
+function notFinite(index: number): ApiRefusal {
+  return {
+    code: "impossible-value",
+    message: `Point ${index + 1}: the interpolation did not give a finite number here (the point lies too far outside the measured data). Choose a point nearer the measured range.`,
+  };
+}
+
+/** The point's refusal, if it is refused (by the engine, or here for a value that is not a finite number). */
+function refusalOf(r: PointResult, index: number): ApiRefusal | undefined {
+  if (r.refused) return r.refused;
+  return typeof r.value === "number" && Number.isFinite(r.value)
+    ? undefined
+    : notFinite(index);
+}
+
+const finiteOrNull = (x: number | null): string =>
+  x !== null && Number.isFinite(x) ? String(x) : "null";
+
+function stencilJsonOf(stencil: LookupStencil): string {
+  const columns = (stencil as { columns?: unknown }).columns;
+  return JSON.stringify(
+    columns === undefined
+      ? { pressure: stencil.pressures, temperature: stencil.temperatures }
+      : {
+          pressure: stencil.pressures,
+          temperature: stencil.temperatures,
+          columns,
+        },
+  );
+}
+
+function emptySummary(count: number): ApiLookupSummary {
+  return {
+    count,
+    refusedCount: 0,
+    refusalCounts: {},
+    methodCounts: {},
+    warningCounts: {},
+  };
+}
+
+/** Counts one point into the summary (warning lists are shared arrays: counted per list, expanded at the end). */
+function countPoint(
+  summary: ApiLookupSummary,
+  listCounts: Map<readonly string[], number>,
+  r: PointResult,
+  refused: ApiRefusal | undefined,
+) {
+  if (refused) {
+    summary.refusedCount++;
+    summary.refusalCounts[refused.code] =
+      (summary.refusalCounts[refused.code] ?? 0) + 1;
+  } else if (r.method !== null) {
+    summary.methodCounts[r.method] = (summary.methodCounts[r.method] ?? 0) + 1;
+  }
+  if (r.warnings.length)
+    listCounts.set(r.warnings, (listCounts.get(r.warnings) ?? 0) + 1);
+}
+
+function finishSummary(
+  summary: ApiLookupSummary,
+  listCounts: Map<readonly string[], number>,
+): ApiLookupSummary {
+  for (const [list, n] of listCounts)
+    for (const code of list)
+      summary.warningCounts[code] = (summary.warningCounts[code] ?? 0) + n;
+  return summary;
+}
+
+/** The `results` array of the per-point answer, and the summary. */
+export function serialiseResults(results: readonly PointResult[]): {
+  json: string;
+  summary: ApiLookupSummary;
+} {
   const stencilJson = new Map<object, string>();
   const warningsJson = new Map<object, string>();
-  const parts: string[] = new Array(results.length);
+  const listCounts = new Map<readonly string[], number>();
+  const summary = emptySummary(results.length);
+  const parts: string[] = new Array<string>(results.length);
   for (let i = 0; i < results.length; i++) {
     const r = results[i]!;
-    const s = r.stencil;
-    let stencil = s === null ? "null" : stencilJson.get(s);
-    if (stencil === undefined && s !== null) {
-      stencil = JSON.stringify({
-        pressure: s.pressures,
-        temperature: s.temperatures,
-      });
-      stencilJson.set(s, stencil);
-    }
     let warnings = warningsJson.get(r.warnings);
     if (warnings === undefined) {
       warnings = JSON.stringify(r.warnings);
       warningsJson.set(r.warnings, warnings);
     }
+    const refused = refusalOf(r, i);
+    countPoint(summary, listCounts, r, refused);
     const bubble =
       r.bubblePointPressure !== null && Number.isFinite(r.bubblePointPressure)
         ? `,"bubblePointPressure":${r.bubblePointPressure}`
         : "";
     const branch = r.branch ? `,"branch":"${r.branch}"` : "";
-    // A point whose value cannot be computed (NaN or ±Infinity, e.g. far outside the data with extrapolation
-    // allowed) is refused on its own; no non-finite number is ever written.
+    if (refused) {
+      parts[i] =
+        `{"value":null,"errorEstimate":null,"refused":${JSON.stringify(refused)},"warnings":${warnings},"method":null,"stencil":null${branch}${bubble}}`;
+      continue;
+    }
+    let stencil = r.stencil ? stencilJson.get(r.stencil) : "null";
+    if (stencil === undefined) {
+      stencil = stencilJsonOf(r.stencil!);
+      stencilJson.set(r.stencil!, stencil);
+    }
     parts[i] =
-      Number.isFinite(r.value) && Number.isFinite(r.errorEstimate)
-        ? `{"value":${r.value},"errorEstimate":${r.errorEstimate},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`
-        : `{"value":null,"errorEstimate":null,"refusal":${r.refused ? JSON.stringify(r.refused) : REFUSAL_JSON},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`;
+      `{"value":${r.value},"errorEstimate":${finiteOrNull(r.errorEstimate)},"warnings":${warnings},"method":"${r.method}","stencil":${stencil}${branch}${bubble}}`;
   }
-  return `[${parts.join(",")}]`;
+  return {
+    json: `[${parts.join(",")}]`,
+    summary: finishSummary(summary, listCounts),
+  };
+}
+
+/**
+ * Refusal codes of the engine's columnar form, in the order of its `refusals` (k = index + 1): the shared
+ * contract's LOOKUP_REFUSAL_CODES (app/core/lookup), and the API's list (app/.server/api/schemas.ts).
+ */
+const COLUMN_REFUSAL_CODES = [
+  "outside-measured-range",
+  "no-measured-values",
+  "extrapolation-too-far",
+  "impossible-value",
+] as const;
+
+/** The engine's columnar result, with the per-point refusals of the shared contract where it has them. */
+type ColumnsResult = LookupColumnsResult & {
+  refusals?: Uint8Array | null;
+  refusalMessages?: readonly (string | undefined)[] | null;
+};
+
+/**
+ * The columnar answer's members `"count":…,"columns":{…}` (no braces around them), and the summary, straight
+ * from the engine's typed arrays (runLookupColumns: no object per point). Numbers are written by
+ * JSON.stringify of plain arrays, which writes NaN (refused, or no estimate) as null. No stencils: the
+ * per-point form gives them.
+ */
+export function serialiseColumns(result: ColumnsResult): {
+  json: string;
+  summary: ApiLookupSummary;
+} {
+  const n = result.count;
+  const summary = emptySummary(n);
+  const values = Array.from(result.values);
+  const errorEstimates = Array.from(result.errorEstimates);
+  const method: (string | null)[] = new Array<string | null>(n);
+  const refused: string[] = new Array<string>(n);
+  const warnings: string[] = new Array<string>(n);
+  const maskJson = new Map<number, string>();
+  const maskCounts = new Map<number, number>();
+  const { refusals, refusalMessages } = result;
+  let anyRefused = false;
+  for (let i = 0; i < n; i++) {
+    const mask = result.warnings[i]!;
+    let w = maskJson.get(mask);
+    if (w === undefined) {
+      w = JSON.stringify(lookupWarningsFromFlags(mask));
+      maskJson.set(mask, w);
+    }
+    warnings[i] = w;
+    if (mask !== 0) maskCounts.set(mask, (maskCounts.get(mask) ?? 0) + 1);
+    const k = refusals ? refusals[i]! : 0;
+    const v = values[i]!;
+    const why: ApiRefusal | undefined =
+      k > 0
+        ? {
+            code: COLUMN_REFUSAL_CODES[k - 1] ?? "impossible-value",
+            message: refusalMessages?.[i] ?? `Point ${i + 1} was refused.`,
+          }
+        : Number.isFinite(v)
+          ? undefined
+          : notFinite(i);
+    if (why) {
+      anyRefused = true;
+      values[i] = NaN;
+      errorEstimates[i] = NaN;
+      method[i] = null;
+      refused[i] = JSON.stringify(why);
+      summary.refusedCount++;
+      summary.refusalCounts[why.code] =
+        (summary.refusalCounts[why.code] ?? 0) + 1;
+      continue;
+    }
+    const m = METHOD_CODES[result.methods[i]!]!;
+    method[i] = m;
+    summary.methodCounts[m] = (summary.methodCounts[m] ?? 0) + 1;
+    refused[i] = "null";
+  }
+  for (const [mask, c] of maskCounts)
+    for (const code of lookupWarningsFromFlags(mask))
+      summary.warningCounts[code] = (summary.warningCounts[code] ?? 0) + c;
+  const columns = [
+    `"value":${JSON.stringify(values)}`,
+    `"errorEstimate":${JSON.stringify(errorEstimates)}`,
+    `"method":${JSON.stringify(method)}`,
+    `"warnings":[${warnings.join(",")}]`,
+    `"refused":${anyRefused ? `[${refused.join(",")}]` : JSON.stringify(new Array<null>(n).fill(null))}`,
+  ];
+  if (result.branches) {
+    const branch = new Array<string | null>(n);
+    for (let i = 0; i < n; i++)
+      branch[i] =
+        result.branches[i] === 1
+          ? "saturated"
+          : result.branches[i] === 2
+            ? "undersaturated"
+            : null;
+    columns.push(`"branch":${JSON.stringify(branch)}`);
+  }
+  if (result.bubblePointPressures)
+    columns.push(
+      `"bubblePointPressure":${JSON.stringify(Array.from(result.bubblePointPressures))}`,
+    );
+  return {
+    json: `"count":${n},"columns":{${columns.join(",")}}`,
+    summary,
+  };
+}
+
+/**
+ * The CSV cells of one property, one string per point (value, error estimate, method, warnings, refusal;
+ * joined by commas, written by the one CSV cell writer), and the summary. The main thread puts the points'
+ * conditions and the properties side by side.
+ */
+export function csvCellsOf(results: readonly PointResult[]): {
+  cells: string[];
+  summary: ApiLookupSummary;
+} {
+  const warningsCell = new Map<object, string>();
+  const listCounts = new Map<readonly string[], number>();
+  const summary = emptySummary(results.length);
+  const cells: string[] = new Array<string>(results.length);
+  for (let i = 0; i < results.length; i++) {
+    const r = results[i]!;
+    let w = warningsCell.get(r.warnings);
+    if (w === undefined) {
+      w = csvCell(r.warnings.join(" "));
+      warningsCell.set(r.warnings, w);
+    }
+    const why = refusalOf(r, i);
+    countPoint(summary, listCounts, r, why);
+    cells[i] = why
+      ? `,,,${w},${csvCell(`${why.code}: ${why.message}`)}`
+      : `${r.value},${r.errorEstimate !== null && Number.isFinite(r.errorEstimate) ? r.errorEstimate : ""},${r.method},${w},`;
+  }
+  return { cells, summary: finishSummary(summary, listCounts) };
 }

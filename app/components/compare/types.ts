@@ -53,14 +53,20 @@ export type CompareView = {
 export type CompareCell =
   | {
       kind: "value";
-      /** null when the service refused the point (no finite value there). */
-      value: number | null;
+      value: number;
+      /** null where the table says nothing about the error (warning estimate-unavailable). */
       errorEstimate: number | null;
       warnings: string[];
       method: string;
       outsideRange: boolean;
     }
-  | { kind: "none"; reason: string };
+  | {
+      kind: "none";
+      /** The service's refusal code (e.g. outside-measured-range), when it refused the point. */
+      code?: string;
+      /** The service's message, in plain words. */
+      reason: string;
+    };
 
 /** The lookups of the table: cells per sample id, in the order of the conditions. */
 export type CompareLookups = {

@@ -50,7 +50,7 @@ export function useCompareLookups(
     const timer = setTimeout(() => {
       Promise.all(
         samples.map((s) =>
-          lookupSampleResendingWithoutRefused(
+          lookupSample(
             s,
             property,
             system,
@@ -93,11 +93,11 @@ export function useCompareLookups(
 }
 
 /**
- * One sample's values. A point the service refuses with 422 (outside the range without extrapolation, or no
- * measured values around it) is marked, and the batch is sent again without that point, so one point never
- * blanks the column: one more request per refused point.
+ * One sample's values: every condition in one request; the service answers each point or refuses it in place
+ * (outside the measured range without extrapolation, no measured values around it, …), so one point never
+ * blanks the column. A request refused whole (a malformed one) is an error of the table.
  */
-async function lookupSampleResendingWithoutRefused(
+async function lookupSample(
   sample: ComparedSample,
   property: PropertyKey,
   system: OutputSystem,
@@ -112,69 +112,43 @@ async function lookupSampleResendingWithoutRefused(
     c.pressure > P[P.length - 1]! ||
     c.temperature < T[0]! ||
     c.temperature > T[T.length - 1]!;
-  const cells: CompareCell[] = conditions.map((c) => ({
-    kind: "none",
-    reason: outside(c) ? "outside the measured range" : "not looked up",
-  }));
-  // without extrapolation, points outside the measured range are not even asked for
-  let remaining = conditions
-    .map((_, k) => k)
-    .filter((k) => extrapolate || !outside(conditions[k]!));
-  let revision: number | null = sample.revision;
-  while (remaining.length > 0) {
-    const { data, error, response } = await postLookup(
-      sample.id,
-      {
-        property,
-        points: remaining.map((k) => conditions[k]!),
-        method: "auto",
-        units: system,
-        extrapolate,
-      },
-      signal,
-    );
-    if (data) {
-      revision = data.revision;
-      data.results.forEach((r, i) => {
-        const k = remaining[i]!;
-        cells[k] = {
-          kind: "value",
-          value: r.value,
-          errorEstimate: r.errorEstimate,
-          warnings: r.warnings,
-          method: r.method,
-          outsideRange: outside(conditions[k]!),
-        };
-      });
-      break;
-    }
-    const problem = problemOf(error);
-    const index = problem.issues?.[0]?.path?.[1];
-    if (
-      response.status === 422 &&
-      typeof index === "number" &&
-      index >= 0 &&
-      index < remaining.length
-    ) {
-      const k = remaining[index]!;
-      cells[k] = {
-        kind: "none",
-        reason:
-          outside(conditions[k]!) && !extrapolate
-            ? "outside the measured range"
-            : "no measured values around this point",
-      };
-      remaining = remaining.filter((_, i) => i !== index);
-      continue;
-    }
+  const { data, error, response } = await postLookup(
+    sample.id,
+    {
+      property,
+      points: conditions,
+      method: "auto",
+      units: system,
+      extrapolate,
+    },
+    signal,
+  );
+  if (!data)
     throw new Error(
-      problem.detail ?? `the service answered ${response.status}`,
+      problemOf(error).detail ?? `the service answered ${response.status}`,
     );
-  }
-  return { cells, revision };
+  const cells = data.results.map((r, k): CompareCell => {
+    if (r.refused || r.value === null || r.method === null)
+      return {
+        kind: "none",
+        code: r.refused?.code,
+        reason: r.refused?.message ?? "The service gave no value here.",
+      };
+    return {
+      kind: "value",
+      value: r.value,
+      errorEstimate: r.errorEstimate,
+      warnings: r.warnings,
+      method: r.method,
+      outsideRange: outside(conditions[k]!),
+    };
+  });
+  return { cells, revision: data.revision };
 }
 
 /** The problem details of a refused request, as far as its body held them (a proxy's error page holds none). */
-function problemOf(error: Problem | undefined): Partial<Problem> {
-  return typeof error === "object" && error !== null ? error : {};
+function problemOf(error: unknown): Partial<Problem> {
+  return typeof error === "object" && error !== null
+    ? (error as Partial<Problem>)
+    : {};
 }

@@ -25,13 +25,14 @@ export function ValueCell({
     return (
       <td
         className="px-3 py-2 text-right align-top text-ink-muted"
-        title={`No value: ${cell.reason}.`}
+        title={`No value: ${cell.reason}`}
+        data-testid="compare-refused"
       >
         —
         <span className="block text-xs whitespace-nowrap">
-          {cell.reason === "outside the measured range"
+          {cell.code === "outside-measured-range"
             ? "outside the range"
-            : "no value"}
+            : "refused"}
         </span>
       </td>
     );
@@ -42,9 +43,11 @@ export function ValueCell({
       className="px-3 py-2 text-right align-top tabular-nums"
       data-testid="compare-value"
     >
-      <span className="font-semibold">{formatCompared(cell.value ?? NaN)}</span>
+      <span className="font-semibold">{formatCompared(cell.value)}</span>
       <span className="block text-xs whitespace-nowrap text-ink-muted">
-        ± {formatErrorEstimate(cell.errorEstimate ?? NaN)}
+        {cell.errorEstimate === null
+          ? "± not available"
+          : `± ${formatErrorEstimate(cell.errorEstimate)}`}
       </span>
       {cell.outsideRange || flags.length > 0 ? (
         <span className="mt-0.5 flex flex-wrap justify-end gap-1">

@@ -1,34 +1,26 @@
 import type { Method } from "~/core/interpolation";
 import type { OutputSystem, PropertyKey } from "~/core/units";
-import type { LookupResponse } from "~/utils/api/client";
+import type { LookupBlock, LookupsResponse } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
 
 /**
- * What the lookup page keeps of one property's answer: the fields of the lookup API's response (its generated
- * type), the value unit, and the server's own time from its Server-Timing header; or the reason it failed.
+ * What the lookup page keeps of one property's answer: the fields of the lookup API's response and of the
+ * property's block (their generated types), the value unit, and the server's own time from its Server-Timing
+ * header (one request answers every property). Points the service refused are in `results`, in place, with
+ * `refused`. A request refused whole leaves no run (the page shows its message instead).
  */
-type AnsweredRun = Pick<
-  LookupResponse,
-  | "revision"
-  | "revisionStatus"
-  | "approved"
-  | "methodDescription"
-  | "degree"
-  | "results"
-> & {
-  property: PropertyKey;
-  ok: true;
-  /** The value unit (`units.value` of the response). */
-  unit: string;
-  serverMs: number;
-};
-type FailedRun = {
-  property: PropertyKey;
-  ok: false;
-  error: string;
-  serverMs: number;
-};
-export type PropertyRun = AnsweredRun | FailedRun;
+export type PropertyRun = Pick<
+  LookupsResponse,
+  "revision" | "revisionStatus" | "approved"
+> &
+  Pick<LookupBlock, "methodDescription" | "results" | "summary"> & {
+    property: PropertyKey;
+    ok: true;
+    degree: [number, number] | null;
+    /** The value unit (`units.value` of the block). */
+    unit: string;
+    serverMs: number;
+  };
 
 /** One press of "Look up": the conditions, one run per property, and what they were asked with. */
 export type LookupRun = {
@@ -42,6 +34,4 @@ export type LookupRun = {
 };
 
 export const answeredRuns = (runs: readonly PropertyRun[]) =>
-  runs.filter((r): r is AnsweredRun => r.ok);
-export const failedRuns = (runs: readonly PropertyRun[]) =>
-  runs.filter((r): r is FailedRun => !r.ok);
+  runs.filter((r) => r.ok);

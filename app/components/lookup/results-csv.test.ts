@@ -21,10 +21,18 @@ const runs: PropertyRun[] = [
         value: -1.5,
         errorEstimate: 0.001,
         warnings: [],
-        method: "=1+1",
+        // not a method the API names: a hostile text cell, to see it neutralised
+        method: "=1+1" as "newton",
         stencil: { pressure: [], temperature: [] },
       },
     ],
+    summary: {
+      count: 1,
+      refusedCount: 0,
+      refusalCounts: {},
+      methodCounts: {},
+      warningCounts: {},
+    },
   },
 ];
 

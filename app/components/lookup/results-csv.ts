@@ -32,13 +32,13 @@ export function lookupResultsDelimited(
     const cells: (string | number)[] = [c.pressure, c.temperature];
     for (const r of ok) {
       const x = r.results[i]!;
-      // A point the server refused (e.g. not computable) has no value: empty cells and the reason.
+      // A point the server refused has no value: empty cells and the reason.
       cells.push(
         x.value ?? "",
         x.errorEstimate ?? "",
-        x.method,
-        x.refusal
-          ? `refused: ${x.refusal.message}`
+        x.method ?? "",
+        x.refused
+          ? `refused: ${x.refused.message}`
           : warningsOf(x, c.pressure).join(" "),
       );
     }

@@ -1,38 +1,23 @@
 import { useState } from "react";
-import { describeWarningCode, type LookupWarning } from "~/core/lookup";
+import { describeWarningCode, isLookupWarning } from "~/core/lookup";
 import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { LookupResult } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
-import { answeredRuns, failedRuns, type PropertyRun } from "./property-run";
+import { answeredRuns, type PropertyRun } from "./property-run";
 import { lookupResultsDelimited } from "./results-csv";
-import {
-  NEAR_BUBBLE_POINT,
-  NEAR_BUBBLE_POINT_FRACTION,
-  SERIOUS_WARNINGS,
-  warningLabel,
-} from "~/utils/warning-labels";
+import { SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
 import { formatMilliseconds, formatPlain } from "~/core/format";
 
 const CAUTION =
   "Interpolated and extrapolated properties are estimates. Check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.";
 
-/** Warnings of one result, plus "near the bubble point" when the point lies within 2 % of it. */
-function warningsOf(r: LookupResult, pressure: number): string[] {
-  const list = [...r.warnings];
-  if (
-    r.bubblePointPressure !== undefined &&
-    Math.abs(pressure - r.bubblePointPressure) <=
-      NEAR_BUBBLE_POINT_FRACTION * r.bubblePointPressure
-  ) {
-    list.push(NEAR_BUBBLE_POINT);
-  }
-  return list;
+/** Warnings of one result, as the server computed them (near-bubble-point included). */
+function warningsOf(r: LookupResult): string[] {
+  return [...r.warnings];
 }
 
 function describe(code: string): string {
-  if (code === NEAR_BUBBLE_POINT)
-    return "Within 2 % of the bubble point, where the property's slope changes abruptly: check the branch.";
-  return describeWarningCode(code as LookupWarning);
+  return isLookupWarning(code) ? describeWarningCode(code) : code;
 }
 
 export function LookupResultsTable({
@@ -54,7 +39,6 @@ export function LookupResultsTable({
 }) {
   const [copied, setCopied] = useState(false);
   const ok = answeredRuns(runs);
-  const failed = failedRuns(runs);
   const revisions = [...new Set(ok.map((r) => r.revision))];
   const meta = [
     `Isopleth lookup — sample ${sampleLabel}, revision ${revisions.join(", ")}, method ${ok[0]?.methodDescription ?? method}`,
@@ -66,13 +50,11 @@ export function LookupResultsTable({
     0,
   );
   const flagged = ok.reduce(
-    (n, r) =>
-      n +
-      r.results.filter(
-        (x, i) => warningsOf(x, conditions[i]!.pressure).length > 0,
-      ).length,
+    (n, r) => n + r.results.filter((x) => x.warnings.length > 0).length,
     0,
   );
+  // values the server refused (one per property and point)
+  const refused = ok.reduce((n, r) => n + r.summary.refusedCount, 0);
 
   function download() {
     const blob = new Blob(
@@ -114,6 +96,9 @@ export function LookupResultsTable({
             {flagged
               ? ` · ${flagged} value${flagged === 1 ? "" : "s"} flagged`
               : ""}
+            {refused
+              ? ` · ${refused} value${refused === 1 ? "" : "s"} refused`
+              : ""}
           </p>
         </div>
         <div className="flex gap-2">
@@ -133,15 +118,6 @@ export function LookupResultsTable({
           </button>
         </div>
       </div>
-      {failed.map((f) => (
-        <p
-          key={f.property}
-          role="alert"
-          className="mt-2 rounded border border-danger/40 bg-red-50 px-3 py-2 text-sm text-danger"
-        >
-          {PROPERTIES[f.property].phrase}: {f.error}
-        </p>
-      ))}
       {ok.length > 0 ? (
         <div className="relative mt-3 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
           <table className="w-full text-sm" data-testid="results-table">
@@ -168,8 +144,7 @@ export function LookupResultsTable({
               {conditions.map((c, i) => {
                 const codes = new Set<string>();
                 for (const r of ok)
-                  for (const w of warningsOf(r.results[i]!, c.pressure))
-                    codes.add(w);
+                  for (const w of warningsOf(r.results[i]!)) codes.add(w);
                 return (
                   <tr key={i} className="border-t border-line align-top">
                     <td className="px-3 py-1.5 text-right tabular-nums">
@@ -183,18 +158,19 @@ export function LookupResultsTable({
                       const serious = x.warnings.some((w) =>
                         SERIOUS_WARNINGS.has(w),
                       );
-                      if (x.value === null || x.errorEstimate === null) {
+                      if (x.value === null || x.refused) {
                         return (
                           <td
                             key={r.property}
                             className="max-w-64 px-3 py-1.5 text-right"
                             data-testid={`value-${r.property}-${i}`}
+                            data-refused={x.refused?.code ?? "no-value"}
                           >
                             <span className="font-semibold text-danger">
-                              not computed
+                              refused
                             </span>
                             <div className="text-xs text-danger">
-                              {x.refusal?.message ??
+                              {x.refused?.message ??
                                 "The server gave no value for this point."}
                             </div>
                           </td>
@@ -216,7 +192,10 @@ export function LookupResultsTable({
                             {formatPlain(x.value)}
                           </button>
                           <div className="text-xs text-ink-muted">
-                            ± {formatPlain(x.errorEstimate)} · {x.method}
+                            {x.errorEstimate === null
+                              ? "± not available"
+                              : `± ${formatPlain(x.errorEstimate)}`}{" "}
+                            · {x.method}
                             {x.branch ? ` · ${x.branch}` : ""}
                           </div>
                         </td>

@@ -1,9 +1,9 @@
 import { useState } from "react";
 import type { Method } from "~/core/interpolation";
 import type { OutputSystem, PropertyKey } from "~/core/units";
-import { postLookup, serverTimingMs } from "~/utils/api/client";
+import { postLookups, serverTimingMs } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
-import type { LookupRun, PropertyRun } from "./property-run";
+import type { LookupRun } from "./property-run";
 
 /** What "Look up" asks: one sample, its properties, the conditions and the method, in the units on screen. */
 export type LookupQuery = {
@@ -19,9 +19,10 @@ export type LookupQuery = {
 };
 
 /**
- * The lookup run on screen: `start` asks the lookup API once per property (in parallel) and keeps the answers
- * of all of them, a property the server refused carrying its reason. The run shown stays until the next one
- * has answered; `fail` shows a message instead (a form the page could not send).
+ * The lookup run on screen: `start` asks the lookup API once for all the properties (`properties`) and keeps
+ * the answer of each; the service answers every point or refuses it in place, so one point never voids a
+ * property. The run shown stays until the next one has answered; a request refused whole (or a form the page
+ * could not send, `fail`) shows a message instead.
  */
 export function useLookupRun() {
   const [run, setRun] = useState<LookupRun | null>(null);
@@ -33,12 +34,41 @@ export function useLookupRun() {
     setRunning(true);
     const started = performance.now();
     try {
-      const runs = await Promise.all(
-        query.properties.map((property) => lookUpProperty(query, property)),
-      );
+      const { data, error, response } = await postLookups(query.sampleId, {
+        properties: query.properties,
+        points: query.conditions,
+        method: query.method,
+        degree: query.method === "newton" ? query.degree : undefined,
+        units: query.units,
+        extrapolate: query.extrapolate,
+        revision: query.revision,
+      });
+      if (!data) {
+        setRun(null);
+        setError(
+          (typeof error === "object" && error !== null && "detail" in error
+            ? String(error.detail)
+            : "") ||
+            `The lookup failed (the server answered ${response.status}).`,
+        );
+        return;
+      }
+      const serverMs = serverTimingMs(response);
       setRun({
         conditions: query.conditions,
-        runs,
+        runs: data.lookups.map((block) => ({
+          property: block.property,
+          ok: true,
+          revision: data.revision,
+          revisionStatus: data.revisionStatus,
+          approved: data.approved,
+          unit: block.units.value,
+          methodDescription: block.methodDescription,
+          degree: pairOrNull(block.degree),
+          results: block.results,
+          summary: block.summary,
+          serverMs,
+        })),
         sampleId: query.sampleId,
         units: query.units,
         method: query.method,
@@ -58,41 +88,6 @@ export function useLookupRun() {
     start,
     fail: setError,
     clear: () => setRun(null),
-  };
-}
-
-async function lookUpProperty(
-  query: LookupQuery,
-  property: PropertyKey,
-): Promise<PropertyRun> {
-  const { data, error, response } = await postLookup(query.sampleId, {
-    property,
-    points: query.conditions,
-    method: query.method,
-    degree: query.method === "newton" ? query.degree : undefined,
-    units: query.units,
-    extrapolate: query.extrapolate,
-    revision: query.revision,
-  });
-  const serverMs = serverTimingMs(response);
-  if (!data)
-    return {
-      property,
-      ok: false,
-      error: error?.detail ?? "The lookup failed.",
-      serverMs,
-    };
-  return {
-    property,
-    ok: true,
-    revision: data.revision,
-    revisionStatus: data.revisionStatus,
-    approved: data.approved,
-    unit: data.units.value,
-    methodDescription: data.methodDescription,
-    degree: pairOrNull(data.degree),
-    results: data.results,
-    serverMs,
   };
 }
 

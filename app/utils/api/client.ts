@@ -9,6 +9,8 @@ import type { components, paths } from "./openapi-types";
 type Schemas = components["schemas"];
 type LookupRequest = Schemas["LookupRequest"];
 export type LookupResponse = Schemas["LookupResponse"];
+export type LookupsResponse = Schemas["LookupsResponse"];
+export type LookupBlock = Schemas["LookupBlock"];
 export type LookupResult = Schemas["LookupResult"];
 export type SampleDetail = Schemas["SampleDetail"];
 export type SampleSummary = Schemas["SampleSummary"];
@@ -26,17 +28,47 @@ export function serverTimingMs(response: Response): number {
   return Number(/dur=([\d.]+)/.exec(timing ?? "")?.[1] ?? NaN);
 }
 
-/** POST /api/v1/samples/{sampleId}/lookup. */
-export function postLookup(
+/**
+ * POST /api/v1/samples/{sampleId}/lookup of one property (`property`): one result per point, refused points in
+ * place. `data` is absent when the request was refused whole (`error` holds the problem, if the body had one).
+ */
+export async function postLookup(
   sampleId: number,
-  body: LookupRequest,
+  body: Omit<LookupRequest, "properties"> & {
+    property: LookupBlock["property"];
+  },
   signal?: AbortSignal,
 ) {
-  return api.POST("/api/v1/samples/{sampleId}/lookup", {
-    params: { path: { sampleId: String(sampleId) } },
-    body,
-    signal,
-  });
+  const { data, error, response } = await api.POST(
+    "/api/v1/samples/{sampleId}/lookup",
+    { params: { path: { sampleId: String(sampleId) } }, body, signal },
+  );
+  // the browser asks for JSON (the columnar and CSV forms are for other clients)
+  const block =
+    typeof data === "object" && "results" in data ? data : undefined;
+  return { data: block, error, response };
+}
+
+/**
+ * The same endpoint with several properties (`properties`) in one request: one block per property, in the
+ * order asked, each as postLookup's answer would give it.
+ */
+export async function postLookups(
+  sampleId: number,
+  body: Omit<LookupRequest, "property"> & {
+    properties: LookupBlock["property"][];
+  },
+  signal?: AbortSignal,
+) {
+  const { data, error, response } = await api.POST(
+    "/api/v1/samples/{sampleId}/lookup",
+    { params: { path: { sampleId: String(sampleId) } }, body, signal },
+  );
+  const blocks =
+    typeof data === "object" && "lookups" in data && !("format" in data)
+      ? data
+      : undefined;
+  return { data: blocks, error, response };
 }
 
 /** GET /api/v1/samples/{sampleId}: the measured grids of a revision in a unit system. */

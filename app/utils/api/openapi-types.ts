@@ -190,8 +190,8 @@ export interface paths {
     get?: never;
     put?: never;
     /**
-     * Interpolate a property at many conditions
-     * @description Up to 100,000 points per request. Each result carries its error estimate, warnings, the method used and the data zone (stencil). A point whose value cannot be computed (not a finite number, e.g. far beyond the data with extrapolation allowed) is refused on its own: `value` and `errorEstimate` are null and `refusal` says why; the other points are served. No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). No query parameters. Token scope: `lookup`; the owner's current role (or the signed-in person's role) needs `read:samples`.
+     * Interpolate one or several properties at many conditions
+     * @description Up to 100,000 points per request. Give `property` for one property, or `properties` for several at the same points. **Every point is answered or refused on its own**: the answer is 200 with one result per point, in the order sent; a point that cannot be served (outside the measured range without extrapolation, no measured values around it, extrapolated too far, a physically impossible value) comes back in its place with `value`, `errorEstimate`, `method` and `stencil` null and `refused: { code, message }` (see `Refused`); the block's `summary` counts them (`refusedCount`, `refusalCounts`). Only a malformed request is refused whole: 400 `invalid_body` (the schema not met, a point that is not finite, an absolute pressure at or below zero, a temperature at or below absolute zero; `issues` give the JSON path, counting points from 0), 404 (sample, revision or a property's grid missing: nothing is computed), 413, 415. Messages count points from 1 (`Point 3` is the third point sent). Each result carries its error estimate (null where the table says nothing about the error: warning `estimate-unavailable`), warnings (computed on the server, including `near-bubble-point`), the method used and the data zone (stencil). **Shapes.** With `property` the answer is `LookupResponse`: the request's facts (sample, revision, approval, method) and the property's block (property, methodDescription, degree, units, results, summary) at the top level. With `properties` it is `LookupsResponse`: the same facts and `lookups`, one block per property in the order asked, each block exactly what a one-property request answers. **Large batches.** `format: "columns"` in the body, or `Accept: application/vnd.isopleth.columns+json`, answers arrays per field instead of an object per point (`LookupColumnsResponse` / `LookupsColumnsResponse`: `columns.value[i]`, `columns.errorEstimate[i]`, `columns.refused[i]` … for point i; no stencils); `Accept: text/csv` answers CSV (UTF-8 with a byte-order mark; `#` comment lines with the revision and the caution, an unapproved draft marked on the first line; a header row with units; per point its conditions as sent and per property value, error estimate, method, warnings and refusal). The Server-Timing header gives the server's time (`app` in all, `read`, `compute`, `write`). No NaN or Infinity is ever written. `revisionStatus` and `approved` say whether the revision used is approved; `revision` in the body names one (drafts only for signed-in people whose role may read them). ETag derived from the revision, the request and the form. No query parameters. Token scope: `lookup`; the owner's current role (or the signed-in person's role) needs `read:samples`.
      */
     post: {
       parameters: {
@@ -208,13 +208,19 @@ export interface paths {
         };
       };
       responses: {
-        /** @description One result per point, in order. */
+        /** @description One result per point, in order, refused points in place: one block (`property`) or one block per property (`properties`). */
         200: {
           headers: {
             [name: string]: unknown;
           };
           content: {
-            "application/json": components["schemas"]["LookupResponse"];
+            "application/json":
+              | components["schemas"]["LookupResponse"]
+              | components["schemas"]["LookupsResponse"];
+            "application/vnd.isopleth.columns+json":
+              | components["schemas"]["LookupColumnsResponse"]
+              | components["schemas"]["LookupsColumnsResponse"];
+            "text/csv": string;
           };
         };
         /** @description Problem details (400) */
@@ -271,8 +277,8 @@ export interface paths {
             "application/problem+json": components["schemas"]["Problem"];
           };
         };
-        /** @description Problem details (422) */
-        422: {
+        /** @description Problem details (429) */
+        429: {
           headers: {
             [name: string]: unknown;
           };
@@ -280,8 +286,8 @@ export interface paths {
             "application/problem+json": components["schemas"]["Problem"];
           };
         };
-        /** @description Problem details (429) */
-        429: {
+        /** @description Problem details (503) */
+        503: {
           headers: {
             [name: string]: unknown;
           };
@@ -432,21 +438,112 @@ export interface components {
       /** @description values[i][j] at pressures[i], temperatures[j]; null = not measured. */
       values: (number | null)[][];
     };
+    /** @description The answer for one property, one result per point. */
+    LookupBlock: {
+      /** @description [along pressure, along temperature] degree of the polynomial method used; null for pchip. */
+      degree: [number, number] | null;
+      /** @description The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`. */
+      methodDescription: string;
+      property: components["schemas"]["PropertyKey"];
+      /** @description One result per point, in the order sent; refused points in place. */
+      results: components["schemas"]["LookupResult"][];
+      summary: components["schemas"]["LookupSummary"];
+      units: {
+        pressure: string;
+        /** @enum {string} */
+        system: "field" | "metric";
+        temperature: string;
+        value: string;
+      };
+    };
+    /** @description The answer for one property as arrays per field (no object per point). It leaves out the stencils, for speed: the per-point form gives them. */
+    LookupColumnsBlock: {
+      /** @description Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult` (null where a point is refused, or where it has no error estimate). */
+      columns: {
+        branch?: ("saturated" | "undersaturated" | null)[];
+        bubblePointPressure?: (number | null)[];
+        errorEstimate: (number | null)[];
+        method: ("newton" | "pchip" | "linear" | null)[];
+        refused: ((components["schemas"]["Refused"] & unknown) | null)[];
+        value: (number | null)[];
+        warnings: components["schemas"]["LookupWarning"][][];
+      };
+      count: number;
+      /** @description [along pressure, along temperature] degree of the polynomial method used; null for pchip. */
+      degree: [number, number] | null;
+      /** @description The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`. */
+      methodDescription: string;
+      property: components["schemas"]["PropertyKey"];
+      summary: components["schemas"]["LookupSummary"];
+      units: {
+        pressure: string;
+        /** @enum {string} */
+        system: "field" | "metric";
+        temperature: string;
+        value: string;
+      };
+    };
+    LookupColumnsResponse: {
+      /** @description false for an unapproved (draft or rejected) revision, which only signed-in people may ask for. */
+      approved: boolean;
+      /** @description Arrays of `count` entries, entry i for point i; the fields mean what they mean in a `LookupResult` (null where a point is refused, or where it has no error estimate). */
+      columns: {
+        branch?: ("saturated" | "undersaturated" | null)[];
+        bubblePointPressure?: (number | null)[];
+        errorEstimate: (number | null)[];
+        method: ("newton" | "pchip" | "linear" | null)[];
+        refused: ((components["schemas"]["Refused"] & unknown) | null)[];
+        value: (number | null)[];
+        warnings: components["schemas"]["LookupWarning"][][];
+      };
+      count: number;
+      /** @description [along pressure, along temperature] degree of the polynomial method used; null for pchip. */
+      degree: [number, number] | null;
+      /** @enum {string} */
+      format: "columns";
+      method: components["schemas"]["Method"];
+      /** @description The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`. */
+      methodDescription: string;
+      property: components["schemas"]["PropertyKey"];
+      revision: number;
+      /**
+       * @description Status of the revision used; anything but approved or superseded is an unapproved draft.
+       * @enum {string}
+       */
+      revisionStatus: "draft" | "approved" | "rejected" | "superseded";
+      sampleId: number;
+      summary: components["schemas"]["LookupSummary"];
+      units: {
+        pressure: string;
+        /** @enum {string} */
+        system: "field" | "metric";
+        temperature: string;
+        value: string;
+      };
+    };
+    /** @description Give `property` or `properties` (exactly one). A malformed request (this schema not met, or a point that is not a point: not finite, an absolute pressure at or below zero, a temperature at or below absolute zero) is refused whole with 400; a well-formed point that cannot be served is refused on its own inside the 200 answer. */
     LookupRequest: {
       /** @description Polynomial degree for newton: one number, or [along pressure, along temperature]. Default 3. */
       degree?: number | [number, number];
       /**
-       * @description Allow points outside the measured range; they are flagged `extrapolated`.
+       * @description Allow points outside the measured range; they are flagged `extrapolated`. Points too far out are still refused (`extrapolation-too-far`).
        * @default false
        */
       extrapolate: boolean;
+      /**
+       * @description `points` (default): one object per point. `columns`: arrays per field, for large batches (the same as `Accept: application/vnd.isopleth.columns+json`). CSV is asked for with `Accept: text/csv`.
+       * @enum {string}
+       */
+      format?: "points" | "columns";
       method?: components["schemas"]["Method"];
-      /** @description Conditions in the chosen unit system (pressure absolute). */
+      /** @description Conditions in the chosen unit system (pressure absolute). Messages count them from 1 (`Point 3` is the third point sent); the `issues` paths of a 400 count from 0, as JSON indices do. */
       points: {
         pressure: number;
         temperature: number;
       }[];
-      property: components["schemas"]["PropertyKey"];
+      /** @description Several properties at the same points, each at most once; the answer lists one block per property under `lookups`, in this order, each block shaped as the answer to a one-property request (property, methodDescription, degree, units, results, summary). */
+      properties?: components["schemas"]["PropertyKey"][];
+      property?: components["schemas"]["PropertyKey"] & unknown;
       /** @description Revision number; default the latest approved one. */
       revision?: number;
       /**
@@ -456,6 +553,7 @@ export interface components {
        */
       units: "field" | "metric";
     };
+    /** @description The answer to a request with `property`: the request's facts and the property's block. */
     LookupResponse: {
       /** @description false for an unapproved (draft or rejected) revision, which only signed-in people may ask for. */
       approved: boolean;
@@ -465,6 +563,7 @@ export interface components {
       /** @description The method in words, with its degree, e.g. `automatic: newton [3,3], pchip where newton overshoots`. */
       methodDescription: string;
       property: components["schemas"]["PropertyKey"];
+      /** @description One result per point, in the order sent; refused points in place. */
       results: components["schemas"]["LookupResult"][];
       revision: number;
       /**
@@ -473,6 +572,7 @@ export interface components {
        */
       revisionStatus: "draft" | "approved" | "rejected" | "superseded";
       sampleId: number;
+      summary: components["schemas"]["LookupSummary"];
       units: {
         pressure: string;
         /** @enum {string} */
@@ -484,23 +584,90 @@ export interface components {
     LookupResult: {
       /** @enum {string} */
       branch?: "saturated" | "undersaturated";
+      /** @description Oil grids: the bubble-point pressure at the point's temperature (output unit). */
       bubblePointPressure?: number;
-      /** @description Estimated interpolation error (same unit as value), never zero; see the engine's documentation. null when refused. */
+      /** @description Estimated interpolation error (same unit as value); see the engine's documentation for what ± means. null when the point is refused, or when the table says nothing about the error at a served point (warning `estimate-unavailable`). */
       errorEstimate: number | null;
-      /** @description Method that produced this value. */
-      method: string;
-      refusal?: components["schemas"]["Refusal"];
-      stencil: {
-        /** @description Measured pressures of the data zone used (output units). */
-        pressure: number[];
-        /** @description Measured temperatures of the data zone used (output units). */
-        temperature: number[];
-      };
-      /** @description In the output unit; null only when the point is refused (see refusal). */
+      /**
+       * @description Method that produced this value (`pchip` where the automatic method fell back); null when refused.
+       * @enum {string|null}
+       */
+      method: "newton" | "pchip" | "linear" | null;
+      refused?: components["schemas"]["Refused"];
+      /** @description The measured nodes behind the value; null when refused. */
+      stencil: components["schemas"]["Stencil"] | null;
+      /** @description In the output unit; null when the point is refused. */
       value: number | null;
-      /** @description Machine codes, e.g. extrapolated, overshoot, near-bubble-point, missing-cells. */
-      warnings: string[];
+      warnings: components["schemas"]["LookupWarning"][];
     };
+    LookupsColumnsResponse: {
+      /** @description false for an unapproved (draft or rejected) revision, which only signed-in people may ask for. */
+      approved: boolean;
+      /** @enum {string} */
+      format: "columns";
+      lookups: components["schemas"]["LookupColumnsBlock"][];
+      method: components["schemas"]["Method"];
+      revision: number;
+      /**
+       * @description Status of the revision used; anything but approved or superseded is an unapproved draft.
+       * @enum {string}
+       */
+      revisionStatus: "draft" | "approved" | "rejected" | "superseded";
+      sampleId: number;
+    };
+    /** @description The answer to a request with `properties`: one block per property, in the order asked. */
+    LookupsResponse: {
+      /** @description false for an unapproved (draft or rejected) revision, which only signed-in people may ask for. */
+      approved: boolean;
+      lookups: components["schemas"]["LookupBlock"][];
+      method: components["schemas"]["Method"];
+      revision: number;
+      /**
+       * @description Status of the revision used; anything but approved or superseded is an unapproved draft.
+       * @enum {string}
+       */
+      revisionStatus: "draft" | "approved" | "rejected" | "superseded";
+      sampleId: number;
+    };
+    /** @description How many points were sent, how many were refused (and why), which methods served the others, and how many carry each warning. */
+    LookupSummary: {
+      count: number;
+      methodCounts: {
+        linear?: number;
+        newton?: number;
+        pchip?: number;
+      };
+      refusalCounts: {
+        "extrapolation-too-far"?: number;
+        "impossible-value"?: number;
+        "no-measured-values"?: number;
+        "outside-measured-range"?: number;
+      };
+      refusedCount: number;
+      warningCounts: {
+        "branch-extrapolated"?: number;
+        "bubble-point-extrapolated"?: number;
+        "bubble-point-unknown"?: number;
+        "degree-reduced"?: number;
+        extrapolated?: number;
+        "missing-data"?: number;
+        overshoot?: number;
+        "pchip-fallback"?: number;
+      };
+    };
+    /**
+     * @description `extrapolated`: The point lies outside the measured values (outside the table, or beyond the last measured cell of a column). The number is an extrapolation; treat it with suspicion. `degree-reduced`: Fewer measured points were available than the requested degree needs, so a lower-degree polynomial was used on a smaller zone. `missing-data`: Cells that were not measured (empty) lie where the zone would normally be, so the zone was moved or made smaller to avoid them. `overshoot`: The polynomial left the range of its measured values although those values rise or fall steadily. The shape-preserving (pchip) value is given alongside; prefer it unless you know the property has a maximum or minimum here. `branch-extrapolated`: The bubble point moves with temperature, so at least one neighbouring temperature column had to be continued a little past its own bubble point on the branch of this point. `bubble-point-extrapolated`: The bubble-point pressure at this temperature was extrapolated, because bubble points are known only for temperatures on one side of it. `bubble-point-unknown`: Bubble points were supplied but none is known, so the table was interpolated as if it had no bubble point. A zone may straddle the bubble point. `pchip-fallback`: Newton interpolation overshot here: its value left the range of the measured values around the point, although those values rise or fall steadily. The automatic method therefore gives the shape-preserving (pchip) value instead.
+     * @enum {string}
+     */
+    LookupWarning:
+      | "extrapolated"
+      | "degree-reduced"
+      | "missing-data"
+      | "overshoot"
+      | "branch-extrapolated"
+      | "bubble-point-extrapolated"
+      | "bubble-point-unknown"
+      | "pchip-fallback";
     /**
      * @description auto = Newton divided differences of the given degree (default [3,3]), with the shape-preserving pchip value wherever Newton overshoots the data.
      * @enum {string}
@@ -530,10 +697,15 @@ export interface components {
       | "gas_fvf"
       | "gas_viscosity"
       | "z_factor";
-    /** @description Why a point has no value: the interpolation did not give a finite number (e.g. far beyond the measured range with extrapolation allowed). No NaN or Infinity is ever written; such a point gets value null, errorEstimate null and this refusal, and the other points are served. */
-    Refusal: {
+    /** @description Present only on a refused point (value, errorEstimate, method and stencil are then null). */
+    Refused: {
       /** @enum {string} */
-      code: "not_computable";
+      code:
+        | "outside-measured-range"
+        | "no-measured-values"
+        | "extrapolation-too-far"
+        | "impossible-value";
+      /** @description In plain words, numbers in the request's units; points are counted from 1 (`Point 3` is the third point sent). */
       message: string;
     };
     SampleDetail: {
@@ -580,6 +752,17 @@ export interface components {
       reservoirTemperature: number | null;
       sampleType: string;
       well: string;
+    };
+    Stencil: {
+      /** @description When the temperature columns of the zone use different rows (missing cells): per column, its temperature index and the pressure indices (grid rows) it used. Every listed cell is a measured one. */
+      columns?: {
+        pressure: number[];
+        temperature: number;
+      }[];
+      /** @description Measured pressures of the data zone used (output units); on an oil grid it may include the bubble point itself. */
+      pressure: number[];
+      /** @description Measured temperatures of the data zone used (output units). */
+      temperature: number[];
     };
   };
   responses: never;

@@ -1,7 +1,11 @@
 import { MAX_JSON_DEPTH, readJsonText } from "~/.server/api/body";
 import { requireApiCaller } from "~/.server/api/caller";
 import { lookupResponse } from "~/.server/api/lookup";
-import { parseApiPath, parseApiQuery } from "~/.server/api/request";
+import {
+  describeIssues,
+  parseApiPath,
+  parseApiQuery,
+} from "~/.server/api/request";
 import {
   NoQuery,
   parseLookupHead,
@@ -15,7 +19,10 @@ import { problem } from "~/.server/http";
 import { runHeavy } from "~/.server/workers/pool";
 import type { Route } from "./+types/lookup";
 
-/** POST /api/v1/samples/:sampleId/lookup — interpolate one property at up to 100,000 conditions. */
+/**
+ * POST /api/v1/samples/:sampleId/lookup — interpolate one property (or several) at up to 100,000 conditions;
+ * every point is answered or refused in place (app/.server/api/lookup.ts).
+ */
 export async function action(args: Route.ActionArgs) {
   const startedAt = performance.now();
   if (args.request.method !== "POST")
@@ -44,7 +51,7 @@ export async function action(args: Route.ActionArgs) {
     return problem(
       400,
       "invalid_body",
-      "The lookup request is not valid; see issues.",
+      `The lookup request is not valid: ${describeIssues(head.issues)}`,
       { issues: head.issues },
     );
   const sample = await requireSampleForCaller(caller, sampleId);
