@@ -130,6 +130,7 @@ export function useLookupForm({
       units,
       method,
       degree: method === "newton" ? degree : null,
+      extrapolate,
       conditions: conds,
     };
   }
@@ -139,6 +140,7 @@ export function useLookupForm({
     setProperties(set.properties);
     setMethod(set.method as LookupMethodChoice);
     if (Array.isArray(set.degree)) setDegree(set.degree);
+    setExtrapolate(set.extrapolate);
     setMode("list");
     setList(
       set.conditions
