@@ -14,7 +14,10 @@ const CAUTION = /Interpolated and extrapolated properties are estimates/;
 
 async function rowsOfXlsx(download: Download): Promise<unknown[][]> {
   const wb = new ExcelJS.Workbook();
-  await wb.xlsx.load(await readFile((await download.path())!));
+  const bytes = await readFile((await download.path())!);
+  await wb.xlsx.load(
+    bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength),
+  );
   return Array.from(wb.worksheets[0]!.getSheetValues(), (r) =>
     Array.isArray(r) ? r.slice(1) : [],
   );

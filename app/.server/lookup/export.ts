@@ -58,7 +58,7 @@ export const LookupExportSchema = z.object({
     .min(1, "There are no conditions to export.")
     .max(10_000, "At most 10,000 conditions can be exported at once."),
 });
-export type LookupExportInput = z.infer<typeof LookupExportSchema>;
+type LookupExportInput = z.infer<typeof LookupExportSchema>;
 
 /** The API's per-point results (its JSON) as a run keeps and an export writes them. */
 export function readLookupPoints(utf8: Uint8Array): LookupRunPoint[] {
@@ -115,7 +115,7 @@ export async function lookupExportSheet(
   );
   const notes: string[] = [];
   const properties: LookupSheetInput["properties"][number][] = [];
-  let description: string = input.method;
+  let description: string | null = null;
   for (const property of input.properties) {
     try {
       const run = await computeLookup(
@@ -151,7 +151,8 @@ export async function lookupExportSheet(
       );
     }
   }
-  if (!description) description = describeLookupMethod(input.method);
+  // No property answered: the method as asked, in words.
+  description ??= describeLookupMethod(input.method, input.degree ?? undefined);
   const draft = draftWarning(data, sample.id);
   const sheet = lookupSheet({
     about: [

@@ -274,7 +274,7 @@ function compareView(
 }
 
 /** Which runs the page shows: `?run=<id>` (default the latest) and `?compare=<id>,<id>` (default the last two). */
-export type SetPageChoice = { run?: number; compare?: [number, number] };
+type SetPageChoice = { run?: number; compare?: [number, number] };
 
 /** Reads the page's query string; anything unreadable is ignored (the defaults apply). */
 export function setPageChoice(url: URL): SetPageChoice {
