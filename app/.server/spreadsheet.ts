@@ -8,7 +8,7 @@ import { sheetToDelimited } from "~/core/tables";
  */
 
 export const EXPORT_FORMATS = ["csv", "xlsx"] as const;
-export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
 const XLSX_TYPE =
   "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";

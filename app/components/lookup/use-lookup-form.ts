@@ -137,6 +137,7 @@ export function useLookupForm({
       units,
       method,
       degree: method === "newton" ? degree : null,
+      extrapolate,
       conditions: conds,
     };
   }
@@ -147,6 +148,7 @@ export function useLookupForm({
       properties: set.properties,
       method: set.method as LookupChoices["method"],
       ...(Array.isArray(set.degree) ? { degree: set.degree } : {}),
+      extrapolate: set.extrapolate,
     });
     setMode("list");
     // saved in psia and °F: written in the page's units, which loading a set leaves as they are

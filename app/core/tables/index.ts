@@ -50,6 +50,7 @@ export { isTableError, TableError } from "./errors";
 export {
   DEFAULT_EXPORT_DIGITS,
   lookupSheet,
+  roundCondition,
   measuredDigits,
   roundEstimate,
   roundForExport,

@@ -30,7 +30,7 @@ export type Sheet = {
 /** Significant digits of a value when its grid does not say (the format module's rule for measured values). */
 export const DEFAULT_EXPORT_DIGITS = 6;
 /** Significant digits of an error estimate. */
-export const ESTIMATE_DIGITS = 2;
+const ESTIMATE_DIGITS = 2;
 /** Significant digits of a condition written back (drops the binary round-off of a unit conversion). */
 const CONDITION_DIGITS = 10;
 /** A value written with more digits than this in its laboratory unit is a conversion's round-off, not a reading. */
@@ -111,7 +111,7 @@ function clean(x: number): number {
 }
 
 /** "Oil formation volume factor (rb/STB)"; a dimensionless property says so. */
-export function propertyHeader(property: PropertyKey, unit: string): string {
+function propertyHeader(property: PropertyKey, unit: string): string {
   const name = PROPERTIES[property].name;
   return `${name} (${isDimensionless(unit) ? "dimensionless" : unit})`;
 }
@@ -268,7 +268,7 @@ export function tableSheet(
   return { name: "Black-oil table", about, header, rows };
 }
 
-export type DelimitedOptions = {
+type DelimitedOptions = {
   /** "," (CSV, the default) or "\t" (the clipboard). */
   delimiter?: "," | "\t";
   /** Start with the UTF-8 byte-order mark, so spreadsheets read °F and ft³ as written. Default true. */

@@ -212,6 +212,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
           sampleLabel={sampleLabel}
           onExplain={(index, property) => void openExplanation(index, property)}
           elapsedMs={run.elapsedMs}
+          exportQuery={run.query}
         />
       ) : null}
       {explain ? (
