@@ -262,10 +262,14 @@ describe("comparing samples", () => {
   });
 });
 
-test("paddedRange: 3 % either side; one value gets room of its own", () => {
+test("paddedRange: 3 % either side (or as asked), not below 0 for values that are not; one value gets room of its own", () => {
   expect(paddedRange([1, 2, 3])).toEqual([1 - 0.06, 3 + 0.06]);
   expect(paddedRange([200, 200])).toEqual([190, 210]);
-  expect(paddedRange([0])).toEqual([-1, 1]);
+  expect(paddedRange([0])).toEqual([0, 1]);
+  expect(paddedRange([15, 5500])).toEqual([0, 5500 + 0.03 * 5485]);
+  expect(paddedRange([15, 5500], 0)).toEqual([15, 5500]);
+  expect(paddedRange([210], 0)).toEqual([199.5, 220.5]);
+  expect(paddedRange([-10, 10])).toEqual([-10.6, 10.6]);
   expect(paddedRange([NaN])).toEqual([0, 1]);
 });
 

@@ -182,14 +182,20 @@ function sameTemperature(t: number, at: number, axis: readonly number[]) {
   return Math.abs(t - at) <= Math.max(span, Math.abs(at), 1) * 1e-6;
 }
 
-/** [min, max] of the finite values with 3 % of the span either side (5 % of the value, or 1, when they are one). */
-export function paddedRange(values: readonly number[]): [number, number] {
+/**
+ * [min, max] of the finite values with `room` (a fraction of the span) either side, or 5 % of the value (at least
+ * 1) when they are all one value; never below 0 for values that are not.
+ */
+export function paddedRange(
+  values: readonly number[],
+  room = 0.03,
+): [number, number] {
   const finite = values.filter(Number.isFinite);
   if (finite.length === 0) return [0, 1];
   const lo = Math.min(...finite);
   const hi = Math.max(...finite);
-  const pad = hi > lo ? (hi - lo) * 0.03 : Math.max(Math.abs(lo) * 0.05, 1);
-  return [lo - pad, hi + pad];
+  const pad = hi > lo ? (hi - lo) * room : Math.max(Math.abs(lo) * 0.05, 1);
+  return [lo >= 0 ? Math.max(lo - pad, 0) : lo - pad, hi + pad];
 }
 
 type SurfaceInput = Pick<
@@ -385,9 +391,10 @@ export function surfaceFigure(input: SurfaceInput): Figure {
     );
   });
 
+  // pressure and temperature exactly as measured (and asked), as Plotly's own ranges were; room for the values
   const ranges = {
-    x: paddedRange(extent.x),
-    y: paddedRange(extent.y),
+    x: paddedRange(extent.x, 0),
+    y: paddedRange(extent.y, 0),
     z: paddedRange(extent.z),
   };
   const narrow = input.narrow ?? false;
