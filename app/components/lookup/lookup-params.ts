@@ -20,7 +20,7 @@ const METHOD_CHOICES: readonly LookupMethodChoice[] = [
   "pchip",
   "linear",
 ];
-export const DEFAULT_PROPERTIES: readonly PropertyKey[] = [
+const DEFAULT_PROPERTIES: readonly PropertyKey[] = [
   "oil_fvf",
   "solution_gor",
   "oil_viscosity",

@@ -61,17 +61,34 @@ export function useLookupForm({
   accountUnits: OutputSystem;
 }) {
   const [params, setParams] = useSearchParams();
-  const choices = readLookupChoices(params, accountUnits);
+  // The choices as shown: read from the address, and set at once when the person chooses (the address follows a
+  // moment later; a controlled input waiting for it would lose keystrokes). A change of address from elsewhere
+  // (back, forward, a link) is read again while rendering.
+  const search = params.toString();
+  const [choices, setChoices] = useState(() =>
+    readLookupChoices(params, accountUnits),
+  );
+  // the address at the last render, and the one last written (which the router shows a moment later)
+  const [shown, setShown] = useState(search);
+  const [written, setWritten] = useState(search);
+  if (search !== shown) {
+    setShown(search);
+    if (search !== written) {
+      setWritten(search);
+      setChoices(readLookupChoices(params, accountUnits));
+    }
+  }
   const { properties, method, degree, units, extrapolate } = choices;
   const sampleId =
     choices.sampleId ||
     samples.find((s) => s.approvedRevision !== null)?.id ||
     null;
-  const choose = (patch: Partial<LookupChoices>) =>
-    setParams((current) => writeLookupChoices(current, patch), {
-      replace: true,
-      preventScrollReset: true,
-    });
+  const choose = (patch: Partial<LookupChoices>) => {
+    const next = writeLookupChoices(new URLSearchParams(written), patch);
+    setChoices({ ...choices, ...patch });
+    setWritten(next.toString());
+    setParams(next, { replace: true, preventScrollReset: true });
+  };
 
   const [mode, setMode] = useState<ConditionMode>("single");
   const [single, setSingle] = useState<SinglePoint>(SINGLE_DEFAULTS[units]);
