@@ -46,12 +46,12 @@ describe("standard conditions: from the report's to the output's", () => {
     const rebased = runLookup(rs, pts, opts({ standardConditions: US_GAS }));
     for (let i = 0; i < pts.length; i++) {
       // hand calculation: same temperature, V₂ = V₁ · 14.65/14.696
-      expect(rebased.results[i]!.value).toBeCloseTo(
-        (plain.results[i]!.value * 14.65) / 14.696,
+      expect(rebased.results[i]!.value!).toBeCloseTo(
+        (plain.results[i]!.value! * 14.65) / 14.696,
         9,
       );
-      expect(rebased.results[i]!.errorEstimate).toBeCloseTo(
-        (plain.results[i]!.errorEstimate * 14.65) / 14.696,
+      expect(rebased.results[i]!.errorEstimate!).toBeCloseTo(
+        (plain.results[i]!.errorEstimate! * 14.65) / 14.696,
         12,
       );
     }
@@ -64,7 +64,7 @@ describe("standard conditions: from the report's to the output's", () => {
       opts({ property: "gas_fvf", standardConditions: US_GAS }),
     );
     const g0 = runLookup(bg, pts, opts({ property: "gas_fvf" }));
-    expect(g.results[0]!.value / g0.results[0]!.value).toBeCloseTo(
+    expect(g.results[0]!.value! / g0.results[0]!.value!).toBeCloseTo(
       14.696 / 14.65,
       12,
     );
@@ -96,12 +96,12 @@ describe("standard conditions: from the report's to the output's", () => {
       [node],
       opts({ units: "metric", standardConditions: METRIC_REPORT }),
     );
-    expect(out.results[0]!.value).toBeCloseTo(stored / SCF_PER_STB_PER_SM3, 9);
+    expect(out.results[0]!.value!).toBeCloseTo(stored / SCF_PER_STB_PER_SM3, 9);
     expect(out.units.standardConditions).toBe("15 °C, 101.325 kPa");
     expect(out.units.reportStandardConditions).toBe("15 °C, 101.325 kPa");
     // read as if on 60 °F/14.696 psia it is 0.19 % low: × (14.696/14.695949)(518.67/519.67) = 0.998079
     const old = runLookup(rs, [node], opts({ units: "metric" }));
-    expect(old.results[0]!.value / out.results[0]!.value).toBeCloseTo(
+    expect(old.results[0]!.value! / out.results[0]!.value!).toBeCloseTo(
       0.99807918,
       7,
     );
@@ -126,13 +126,13 @@ describe("gauge pressures", () => {
     expect(gauge.units.pressureBasis).toBe("gauge");
     expect(gauge.units.barometricPressurePsia).toBe(14.696);
     for (let i = 0; i < pts.length; i++) {
-      expect(gauge.results[i]!.value).toBeCloseTo(abs.results[i]!.value, 9);
+      expect(gauge.results[i]!.value!).toBeCloseTo(abs.results[i]!.value!, 9);
       expect(gauge.results[i]!.bubblePointPressure!).toBeCloseTo(
         abs.results[i]!.bubblePointPressure! - 14.696,
         9,
       );
-      expect(gauge.results[i]!.stencil.pressures[0]!).toBeCloseTo(
-        abs.results[i]!.stencil.pressures[0]! - 14.696,
+      expect(gauge.results[i]!.stencil!.pressures[0]!).toBeCloseTo(
+        abs.results[i]!.stencil!.pressures[0]! - 14.696,
         9,
       );
     }
@@ -147,7 +147,7 @@ describe("gauge pressures", () => {
       [{ pressure: 2634.7, temperature: 180 }],
       opts({}),
     );
-    expect(lab.results[0]!.value).toBeCloseTo(same.results[0]!.value, 9);
+    expect(lab.results[0]!.value!).toBeCloseTo(same.results[0]!.value!, 9);
   });
 
   test("barg in metric: 100 barg = 100 × 14.5037738 + 14.696 psia", () => {
@@ -167,7 +167,7 @@ describe("gauge pressures", () => {
       opts({ units: "metric" }),
     );
     expect(a.units.pressure.id).toBe("barg");
-    expect(a.results[0]!.value).toBeCloseTo(b.results[0]!.value, 8);
+    expect(a.results[0]!.value!).toBeCloseTo(b.results[0]!.value!, 8);
   });
 
   test("a gauge pressure below a vacuum is refused, saying the barometric pressure was added", () => {
