@@ -16,9 +16,9 @@ export const REFUSAL_CODES = [
 
 export type RefusalCode = (typeof REFUSAL_CODES)[number];
 
-export const R_OUT_OF_RANGE = 1;
+const R_OUT_OF_RANGE = 1;
 export const R_NO_VALID_ZONE = 2;
-export const R_TOO_FAR = 3;
+const R_TOO_FAR = 3;
 
 /** Default `maxExtrapolation`: a quarter of the measured span of the axis. */
 export const DEFAULT_MAX_EXTRAPOLATION = 0.25;

@@ -158,6 +158,34 @@ describe("every point answered or refused on its own", () => {
     expect(cols.values[1]).toBe(out.results[1]!.value);
   });
 
+  test("Bo extrapolated far enough to go negative is refused impossible-value, not served", () => {
+    // with the limit raised to 10 spans, 40,000 psia is allowed as a distance; the cubic continued that far
+    // gives Bo < 0 (−2.4 rb/STB here), which no oil has
+    const grid = clean.grids.oil_fvf;
+    const pt = { pressure: 40_000, temperature: 180 };
+    expect(
+      interpolateGrid(grid, pt, {
+        method: "newton",
+        extrapolate: true,
+        maxExtrapolation: 10,
+      }).value,
+    ).toBeLessThan(0);
+    const r = runLookup(
+      grid,
+      [pt],
+      options("oil_fvf", {
+        method: "newton",
+        extrapolate: true,
+        maxExtrapolation: 10,
+      }),
+    ).results[0]!;
+    expect(r.value).toBeNull();
+    expect(r.refused!.code).toBe("impossible-value");
+    expect(r.refused!.message).toMatch(
+      /comes out at -2\.\d+ rb\/STB, which is physically impossible \(a volume factor is above zero\)/,
+    );
+  });
+
   test("missing cells: refused no-measured-values; the columns form gives codes, messages and the summary", () => {
     const holes: Grid = {
       pressures: [1000, 2000, 3000],
