@@ -3,11 +3,7 @@
  * pressure–temperature grid, curves along pressure at fixed temperatures, bubble points and query points.
  * Pure (no React, no Plotly), so it is unit-tested directly.
  */
-import {
-  InterpolationError,
-  WARNING_FLAGS,
-  type Grid,
-} from "~/core/interpolation";
+import { WARNING_FLAGS, type Grid } from "~/core/interpolation";
 import { bubblePointsAt, lookupCanonical } from "~/core/lookup";
 import type { PlotGrid, PlotMethod, QueryFlag, QueryPoint } from "./types";
 
@@ -49,9 +45,9 @@ function asGrid(grid: PlotGrid): Grid {
 }
 
 /**
- * Interpolates many points. Points the engine refuses are left NaN and marked `refused` instead of failing
- * the whole batch: the batch throws naming the first refused point, so the run is split around it and the
- * two halves are tried again. Bad grids or options still throw.
+ * Interpolates many points in one batch. Points the engine refuses (outside the range, no measured values
+ * around them, too far to extrapolate, an impossible value) are left NaN and marked `refused`; the others are
+ * served as usual. Bad grids or options still throw.
  */
 export function evaluatePoints(
   grid: PlotGrid,
@@ -62,36 +58,21 @@ export function evaluatePoints(
   extrapolate: boolean,
 ): Evaluation {
   const n = pressures.length;
-  const values = new Float64Array(n).fill(Number.NaN);
-  const flags = new Uint16Array(n);
+  const out = lookupCanonical(asGrid(grid), pressures, temperatures, {
+    method,
+    degree: normalizeDegree(degree),
+    extrapolate,
+  });
   const refused = new Uint8Array(n);
-  const g = asGrid(grid);
-  const options = { method, degree: normalizeDegree(degree), extrapolate };
-  const pending: [number, number][] = n > 0 ? [[0, n]] : [];
-  while (pending.length > 0) {
-    const [start, end] = pending.pop()!;
-    if (start >= end) continue;
-    try {
-      const out = lookupCanonical(
-        g,
-        pressures.subarray(start, end),
-        temperatures.subarray(start, end),
-        options,
-      );
-      values.set(out.values, start);
-      flags.set(out.flags, start);
-    } catch (error) {
-      const k =
-        error instanceof InterpolationError
-          ? error.details.pointIndex
-          : undefined;
-      const refusable =
-        error instanceof InterpolationError &&
-        (error.code === "out-of-range" || error.code === "no-valid-zone");
-      if (!refusable || typeof k !== "number" || k < 0 || k >= end - start)
-        throw error;
-      refused[start + k] = 1;
-      pending.push([start, start + k], [start + k + 1, end]);
+  const values = Float64Array.from(out.values);
+  const flags = Uint16Array.from(out.flags);
+  if (out.refusals) {
+    for (let i = 0; i < n; i++) {
+      if (out.refusals[i]! !== 0) {
+        refused[i] = 1;
+        values[i] = Number.NaN;
+        flags[i] = 0;
+      }
     }
   }
   return { values, flags, refused };
