@@ -51,8 +51,11 @@ export type BlackOilTableInput = {
 export type TableCell = {
   /** Canonical unit of the column; after any correction. */
   value: number;
-  /** The engine's estimate, plus the size of the correction where the value was corrected. */
-  errorEstimate: number;
+  /**
+   * The engine's estimate, plus the size of the correction where the value was corrected; null where the
+   * table says nothing about the error (warning estimate-unavailable).
+   */
+  errorEstimate: number | null;
   /** The interpolated value before any correction. */
   interpolated: number;
   method: UsedMethod;
@@ -489,15 +492,14 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
     }
   }
 
-  // Rows that cannot be computed (a value or its error estimate is NaN or ±Infinity, e.g. far beyond the
-  // measured data with extrapolation allowed) are left out and named in a note: no non-finite number enters
-  // the table, its order corrections or any output.
+  // Rows that cannot be computed (a value NaN or ±Infinity, e.g. far beyond the measured data with
+  // extrapolation allowed) are left out and named in a note: no non-finite number enters the table, its order
+  // corrections or any output. An estimate the table cannot give (NaN: the engine's estimate-unavailable) is
+  // null in the cell, never a small number.
   const bad = new Set<number>();
   for (const key of columns) {
     const r = raw.get(key)!;
-    for (let i = 0; i < n; i++)
-      if (!Number.isFinite(r.values[i]!) || !Number.isFinite(r.errors[i]!))
-        bad.add(i);
+    for (let i = 0; i < n; i++) if (!Number.isFinite(r.values[i]!)) bad.add(i);
   }
   if (bad.size === n) {
     throw new TableError(
@@ -622,7 +624,9 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
       const corrected = value !== original;
       rows[i]!.cells[key] = {
         value,
-        errorEstimate: r.errors[i]! + delta,
+        errorEstimate: Number.isFinite(r.errors[i]!)
+          ? r.errors[i]! + delta
+          : null,
         interpolated: original,
         method: METHOD_CODES[r.methods[i]!]!,
         warnings,

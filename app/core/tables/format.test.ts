@@ -264,7 +264,7 @@ describe("JSON", () => {
       expect(row.errorEstimates[key]).toBeGreaterThanOrEqual(0);
     const cell = table.rows[5]!.cells.gas_fvf!;
     expect(row.errorEstimates.gas_fvf).toBe(
-      Number((cell.errorEstimate * 5.614583333333333).toPrecision(2)),
+      Number((cell.errorEstimate! * 5.614583333333333).toPrecision(2)),
     );
   });
 });

@@ -285,7 +285,12 @@ function outValue(t: Prepared, key: TableColumnKey, canonical: number): number {
   return roundTo(fromCanonicalWith(c.a, canonical) * c.factor, c.digits);
 }
 
-function outError(t: Prepared, key: TableColumnKey, canonical: number): number {
+function outError(
+  t: Prepared,
+  key: TableColumnKey,
+  canonical: number | null,
+): number | null {
+  if (canonical === null) return null;
   const c = t.conversions.get(key)!;
   return roundTo((canonical / Math.abs(c.a.scale)) * c.factor, ERROR_DIGITS);
 }
@@ -313,7 +318,8 @@ export type BlackOilTableJsonRow = {
   branch: Branch | null;
   bubblePoint: boolean;
   requested: boolean;
-  errorEstimates: Partial<Record<TableColumnKey, number>>;
+  /** null where the table says nothing about the error (warning estimate-unavailable). */
+  errorEstimates: Partial<Record<TableColumnKey, number | null>>;
   /** Columns whose value was corrected to keep the order (see `corrections`). */
   corrected: TableColumnKey[];
   /** Warning codes per column, where there are any (see describeWarningCode in app/core/lookup). */
