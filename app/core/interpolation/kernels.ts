@@ -96,6 +96,7 @@ function runNewtonFast(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
@@ -168,7 +169,7 @@ function runNewtonFast(
       fac * (Math.abs(dP) + Math.abs(dT)) +
       share * floorOf[cell]! +
       eps4 * (scale + Math.abs(value));
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
@@ -259,6 +260,7 @@ function runNewton11(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
@@ -312,7 +314,7 @@ function runNewton11(
       fac * (Math.abs(dP) + Math.abs(dT)) +
       share * floorOf[cell]! +
       eps4 * (Math.abs(r0) + Math.abs(r1) + Math.abs(value));
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
@@ -366,6 +368,7 @@ function runNewton33(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
@@ -483,7 +486,7 @@ function runNewton33(
       fac * (Math.abs(dP) + Math.abs(dT)) +
       share * floorOf[cell]! +
       eps4 * scale;
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
@@ -546,6 +549,7 @@ function runPchipFast(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
   for (let idx = from; idx < to; idx++) {
     const p = ps[idx]!;
@@ -643,7 +647,7 @@ function runPchipFast(
       fac * (eP + Math.abs(eT)) +
       share * floorOf[cell]! +
       eps4 * (scale + Math.abs(value));
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
