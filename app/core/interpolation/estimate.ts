@@ -44,11 +44,9 @@ function quantum(v: number): number {
   if (!(v !== 0 && Number.isFinite(v))) return 0;
   const a = Math.abs(v);
   const top = Math.floor(Math.log10(a));
-  // a whole multiple of 10^k, to the round-off of the division (a few ulps of the quotient)
-  const whole = (k: number): boolean => {
-    const q = a / 10 ** k;
-    return Math.abs(q - Math.round(q)) <= 2 * Number.EPSILON * Math.max(1, q);
-  };
+  // v is N × 10^k as printed when the decimal "N e k" reads back as exactly this number
+  const whole = (k: number): boolean =>
+    Number(`${Math.round(a / 10 ** k)}e${k}`) === a;
   let k = top - MAX_DIGITS + 1;
   while (k <= top && !whole(k)) k++;
   if (k > top) return 0;
@@ -112,6 +110,8 @@ export type EstimateInfo = {
   floor: Float64Array;
   /** W_ESTIMATE_UNRELIABLE for cells whose zone may reach a kink no bubble point explains; else 0. */
   flags: Uint16Array;
+  /** Whether any cell has the kink flag (the fast kernels skip reading `flags` otherwise). */
+  kinks: boolean;
   /** Per-node resolution (for explanations and tests). */
   resolution: Float64Array;
 };
@@ -154,7 +154,13 @@ function buildInfo(prep: PreparedGrid): EstimateInfo {
   }
   const flags = new Uint16Array(cellsP * cellsT);
   if (prep.bubble === null) markKinks(prep, resolution, cellsP, cellsT, flags);
-  return { cellsP, floor, flags, resolution };
+  return {
+    cellsP,
+    floor,
+    flags,
+    kinks: flags.some((f) => f !== 0),
+    resolution,
+  };
 }
 
 /** Zones reach at most this many nodes beyond a point's cell (cubic plus the error-check node, and more). */

@@ -101,6 +101,7 @@ function runNewtonFast(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
@@ -180,7 +181,7 @@ function runNewtonFast(
       fac * (Math.abs(dP) + Math.abs(dT)) +
       share * floorOf[cell]! +
       eps4 * (scale + Math.abs(value));
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
@@ -271,6 +272,7 @@ function runNewton11(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
@@ -331,7 +333,7 @@ function runNewton11(
       fac * (Math.abs(dP) + Math.abs(dT)) +
       share * floorOf[cell]! +
       eps4 * (Math.abs(r0) + Math.abs(r1) + Math.abs(value));
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
@@ -385,6 +387,7 @@ function runNewton33(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
@@ -509,7 +512,7 @@ function runNewton33(
       fac * (Math.abs(dP) + Math.abs(dT)) +
       share * floorOf[cell]! +
       eps4 * scale;
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
@@ -572,6 +575,7 @@ function runPchipFast(
   const share = ESTIMATE_CALIBRATION.floor;
   const floorOf = est.floor;
   const cellFlags = est.flags;
+  const kinks = est.kinks;
   const cellsP = est.cellsP;
   for (let idx = from; idx < to; idx++) {
     let p = ps[idx]!;
@@ -676,7 +680,7 @@ function runPchipFast(
       fac * (eP + Math.abs(eT)) +
       share * floorOf[cell]! +
       eps4 * (scale + Math.abs(value));
-    flags |= cellFlags[cell]!;
+    if (kinks) flags |= cellFlags[cell]!;
     if (flags & W_EXTRAPOLATED) {
       err = extrapolatedEstimate(prep, err, p, t);
       flags |= extrapolationOut.flags;
