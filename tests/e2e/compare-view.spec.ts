@@ -76,8 +76,11 @@ test("a lab lead stores a sample measured at one temperature", async ({
   test.setTimeout(120_000);
   await signIn(page, "lab_lead");
   await page.goto("/samples/new");
-  await page.getByLabel("Field", { exact: true }).fill("Calder Shelf (demo)");
-  await page.getByLabel("Well", { exact: true }).fill("CS-1");
+  await page
+    .getByLabel("Field", { exact: true })
+    .fill(`Invented E2E Field ${RUN}`);
+  await page.getByLabel("Region (for a new field)").fill("Invented basin");
+  await page.getByLabel("Well", { exact: true }).fill(`E2E-T${RUN}`);
   await page.getByLabel("Sample label").fill(LABEL);
   await page.getByLabel("Sample type").selectOption("bottomhole");
   await page.getByLabel("Sampling date").fill("2025-11-03");
