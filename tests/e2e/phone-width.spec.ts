@@ -43,14 +43,33 @@ function pageRoutes(): string[] {
 
 type Visit = { file: string; path: string; role: DemoRoleName | null };
 
+/** Pages that show more to a higher role (review and edit controls, token creation): measured for it too. */
+const MORE_FOR: Visit[] = [
+  { file: "routes/_app/samples/index.tsx", path: "/samples", role: "lab_lead" },
+  {
+    file: "routes/_app/samples/$sampleId/index.tsx",
+    path: "/samples/1",
+    role: "lab_lead",
+  },
+  {
+    file: "routes/_app/samples/$sampleId/revisions/$number.tsx",
+    path: "/samples/1/revisions/1",
+    role: "lab_lead",
+  },
+  { file: "routes/_app/tokens/index.tsx", path: "/tokens", role: "engineer" },
+];
+
 function visits(): Visit[] {
-  return pageRoutes().map((file) => {
-    const rule = RULES[file];
-    if (!rule || !("path" in rule))
-      throw new Error(`${file} has no access rule with a path`);
-    const role = rule.kind === "page" ? rule.allowed[0]! : null;
-    return { file, path: PATHS[file] ?? rule.path, role };
-  });
+  return [
+    ...pageRoutes().map((file) => {
+      const rule = RULES[file];
+      if (!rule || !("path" in rule))
+        throw new Error(`${file} has no access rule with a path`);
+      const role = rule.kind === "page" ? rule.allowed[0]! : null;
+      return { file, path: PATHS[file] ?? rule.path, role };
+    }),
+    ...MORE_FOR,
+  ];
 }
 
 /** The page's width and the elements that stick out past the screen's right edge (for the message). */
@@ -134,6 +153,14 @@ test("every page fits a 390 px wide phone screen without sideways scrolling", as
         await expect(page.getByRole("table").first()).toBeVisible();
         try {
           await expectFits(page, `${name}-results`);
+        } catch (error) {
+          failures.push((error as Error).message.split("\n")[0]!);
+        }
+        // and how a value was obtained
+        await page.getByTestId("value-oil_fvf-0").click();
+        await expect(page.getByTestId("explanation-grid")).toBeVisible();
+        try {
+          await expectFits(page, `${name}-explanation`);
         } catch (error) {
           failures.push((error as Error).message.split("\n")[0]!);
         }

@@ -111,7 +111,7 @@ function ExplanationBody({
     1e-9 * Math.max(1, Math.abs(target.serverValue));
   return (
     <div className="mt-4 space-y-6 text-sm">
-      <div className="grid gap-3 sm:grid-cols-4">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-4">
         <Figure
           label={`Value (${units.value})`}
           value={formatDetail(e.value)}
@@ -211,7 +211,7 @@ function ExplanationBody({
           Step one — along pressure to {formatDetail(e.point.pressure)}{" "}
           {units.pressure}, one value per temperature of the zone
         </h3>
-        <div className="mt-2 grid gap-3 lg:grid-cols-2">
+        <div className="mt-2 grid grid-cols-1 gap-3 lg:grid-cols-2">
           {e.stepOne
             .filter((s) => s.role === "zone")
             .map((s) => (
@@ -272,7 +272,7 @@ function StepCard({
   const dd = step.dividedDifferences;
   return (
     <div
-      className="rounded border border-line p-3"
+      className="relative overflow-x-auto rounded border border-line p-3"
       data-testid="explanation-step"
     >
       <div className="flex justify-between">
