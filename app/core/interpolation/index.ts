@@ -45,11 +45,8 @@ export {
 } from "./warnings";
 export type { Warning } from "./warnings";
 export { DEFAULT_DEGREE, MAX_DEGREE } from "./validate";
-export {
-  DEFAULT_MAX_EXTRAPOLATION,
-  REFUSAL_CODES,
-  SNAP_RELATIVE,
-} from "./range";
+export { REFUSAL_CODES } from "./range";
+export { DEFAULT_MAX_EXTRAPOLATION, SNAP_RELATIVE } from "./tolerance";
 export type { RefusalCode } from "./range";
 export { explainInterpolation } from "./explain";
 export type { Explanation, ExplanationNode, ExplanationStep } from "./explain";

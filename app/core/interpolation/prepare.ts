@@ -2,7 +2,7 @@
 // Indices are in range by construction.
 import { AxisIndex } from "./axis";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
-import { snapTolerance } from "./range";
+import { snapTolerance } from "./tolerance";
 import type { Grid } from "./types";
 import { validateGrid } from "./validate";
 

@@ -20,32 +20,6 @@ const R_OUT_OF_RANGE = 1;
 export const R_NO_VALID_ZONE = 2;
 const R_TOO_FAR = 3;
 
-/** Default `maxExtrapolation`: a quarter of the measured span of the axis. */
-export const DEFAULT_MAX_EXTRAPOLATION = 0.25;
-
-/**
- * Relative tolerance under which a coordinate is taken to be an axis node (see README, "Snapping"): far
- * above the round-off of converting units (bara → psia, °C → °F: a few 1e-16 relative), far below any
- * difference a laboratory reports.
- */
-export const SNAP_RELATIVE = 1e-9;
-
-/**
- * How close to a node of this axis a coordinate must be to be that node: SNAP_RELATIVE of the axis span
- * (of the node's magnitude, at least 1, for a one-node axis) plus 8 machine epsilons of the largest end.
- */
-export function snapTolerance(nodes: Float64Array): number {
-  const n = nodes.length;
-  const lo = nodes[0]!;
-  const hi = nodes[n - 1]!;
-  const span = hi - lo;
-  const size = Math.max(Math.abs(lo), Math.abs(hi));
-  return (
-    SNAP_RELATIVE * (span > 0 ? span : Math.max(1, size)) +
-    8 * Number.EPSILON * size
-  );
-}
-
 /** The snapped coordinates of the last point checked by `checkRange` (written only when it was outside). */
 export const snapped = { p: 0, t: 0 };
 

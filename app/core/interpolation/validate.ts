@@ -1,4 +1,4 @@
-import { DEFAULT_MAX_EXTRAPOLATION } from "./range";
+import { DEFAULT_MAX_EXTRAPOLATION } from "./tolerance";
 import { formatInMessage } from "../format";
 import { describeBadNumber, InterpolationError } from "./errors";
 import type { Grid, Method, Options } from "./types";
