@@ -246,14 +246,22 @@ const StencilSchema = z
     columns: z
       .array(
         z.object({
-          temperature: z.number().int(),
-          pressure: z.array(z.number().int()),
+          temperature: z.number().int().openapi({
+            description: "Index of the grid's temperature column.",
+          }),
+          pressure: z.array(z.number().int()).openapi({
+            description: "Indices of the grid rows this column used.",
+          }),
+          bubblePointNode: z.literal(true).optional().openapi({
+            description:
+              "The column's zone also used its bubble point (a node between two grid rows, not a grid cell).",
+          }),
         }),
       )
       .optional()
       .openapi({
         description:
-          "When the temperature columns of the zone use different rows (missing cells): per column, its temperature index and the pressure indices (grid rows) it used. Every listed cell is a measured one.",
+          "Present when the temperature columns of the zone used different rows (missing cells, bubble points): per column, its index and the grid rows it used, as indices into the sample's grid (`GET /api/v1/samples/{sampleId}`). Every listed cell is a measured one.",
       }),
   })
   .openapi("Stencil");

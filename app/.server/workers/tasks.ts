@@ -338,16 +338,43 @@ function refusalOf(r: PointResult, index: number): ApiRefusal | undefined {
 const finiteOrNull = (x: number | null): string =>
   x !== null && Number.isFinite(x) ? String(x) : "null";
 
+/** The engine's exact cells per column (the shared contract's LookupStencil.columns), where it gives them. */
+type StencilColumns = readonly {
+  temperatureIndex: number;
+  pressureIndices: readonly number[];
+  bubblePointNode?: true;
+}[];
+
+/**
+ * A stencil as the API writes it: the measured pressures and temperatures of the zone (output units) and, when
+ * its temperature columns used different rows (missing cells, bubble points), `columns`: per column its grid
+ * column index and the grid rows it used (every listed cell a measured one), `bubblePointNode: true` where the
+ * column's zone also used its bubble point.
+ */
 function stencilJsonOf(stencil: LookupStencil): string {
-  const columns = (stencil as { columns?: unknown }).columns;
+  const zone = {
+    pressure: stencil.pressures,
+    temperature: stencil.temperatures,
+  };
+  const columns = (stencil as { columns?: StencilColumns }).columns;
+  const all = stencil.pressureIndices;
+  const differ = columns?.some(
+    (c) =>
+      c.bubblePointNode === true ||
+      c.pressureIndices.length !== all.length ||
+      c.pressureIndices.some((r, k) => r !== all[k]),
+  );
   return JSON.stringify(
-    columns === undefined
-      ? { pressure: stencil.pressures, temperature: stencil.temperatures }
-      : {
-          pressure: stencil.pressures,
-          temperature: stencil.temperatures,
-          columns,
-        },
+    differ
+      ? {
+          ...zone,
+          columns: columns!.map((c) => ({
+            temperature: c.temperatureIndex,
+            pressure: c.pressureIndices,
+            ...(c.bubblePointNode ? { bubblePointNode: true } : {}),
+          })),
+        }
+      : zone,
   );
 }
 

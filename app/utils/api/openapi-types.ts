@@ -752,9 +752,16 @@ export interface components {
       well: string;
     };
     Stencil: {
-      /** @description When the temperature columns of the zone use different rows (missing cells): per column, its temperature index and the pressure indices (grid rows) it used. Every listed cell is a measured one. */
+      /** @description Present when the temperature columns of the zone used different rows (missing cells, bubble points): per column, its index and the grid rows it used, as indices into the sample's grid (`GET /api/v1/samples/{sampleId}`). Every listed cell is a measured one. */
       columns?: {
+        /**
+         * @description The column's zone also used its bubble point (a node between two grid rows, not a grid cell).
+         * @enum {boolean}
+         */
+        bubblePointNode?: true;
+        /** @description Indices of the grid rows this column used. */
         pressure: number[];
+        /** @description Index of the grid's temperature column. */
         temperature: number;
       }[];
       /** @description Measured pressures of the data zone used (output units); on an oil grid it may include the bubble point itself. */
