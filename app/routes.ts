@@ -43,6 +43,9 @@ export default [
   route("sign-out", "routes/sign-out.ts"),
   route("metrics", "routes/metrics.ts"),
   route("upload-templates/:file", "routes/upload-templates/$file.ts"),
+  // downloads of lookups and of saved sets' runs (CSV, XLSX): resource routes
+  route("lookup/export", "routes/lookup/export.ts"),
+  route("lookup/sets/:setId/export", "routes/lookup/sets/$setId/export.ts"),
   // the first address of the upload templates, a permanent redirect to the one above
   route("templates/:file", "routes/templates/$file.ts"),
   ...prefix("api", [

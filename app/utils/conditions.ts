@@ -21,8 +21,59 @@ export function parseNumber(text: string): number | null {
 }
 
 /**
+ * "3,250" (one to three digits, then groups of exactly three after commas, no decimal point): a thousands
+ * separator or a decimal comma? 3250 or 3.25. A pasted list refuses it rather than guess.
+ */
+const AMBIGUOUS_COMMA = /^[-+]?\d{1,3}(,\d{3})+$/;
+
+/** One cell of a pasted list: a number, or why not. */
+function readCell(cell: string): number | "ambiguous" | null {
+  if (AMBIGUOUS_COMMA.test(cell.replace(/\s/g, ""))) return "ambiguous";
+  return parseNumber(cell);
+}
+
+/** A plain number without a comma, as the cells of a comma-separated line are ("3250", "-1.5e3"). */
+const PLAIN_NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
+/**
+ * The cells of one line: split on tabs when there is one, else on semicolons, else on a comma that separates
+ * two plain numbers ("3250,212", "3250, 212"), else on spaces (where a cell may hold a decimal comma:
+ * "3250,5 212"). Null for a line whose commas could both separate and group ("3,250,212", "3,250, 212").
+ */
+function cellsOf(line: string): string[] | null {
+  let parts: string[];
+  if (line.includes("\t")) parts = line.split("\t");
+  else if (line.includes(";")) parts = line.split(";");
+  else {
+    const byComma = line.split(",");
+    if (
+      byComma.length === 2 &&
+      byComma.every((p) => PLAIN_NUMBER.test(p.trim()))
+    )
+      parts = byComma;
+    else if (
+      byComma.length > 2 &&
+      byComma.every((p) => /^\s*[-+]?[\d.]+\s*$/.test(p))
+    )
+      return null;
+    else parts = line.split(/\s+/);
+  }
+  return parts.map((p) => p.trim()).filter((p) => p !== "");
+}
+
+/** "3,250": 3250 with a thousands separator, or 3.25 with a decimal comma (only when there is one comma). */
+function readings(cell: string): string {
+  const grouped = cell.replace(/,/g, "");
+  return (cell.match(/,/g) ?? []).length === 1
+    ? `${grouped} (a thousands separator) or ${cell.replace(",", ".")} (a decimal comma)`
+    : `${grouped} (thousands separators)`;
+}
+
+/**
  * Lines of "pressure, temperature" separated by a tab, semicolon, comma or spaces; a header line of words is
- * skipped. Decimal commas are accepted when the separator is a tab or semicolon.
+ * skipped. Decimal commas ("224,1") are accepted in cells separated by tabs, semicolons or spaces. A comma that
+ * could be a thousands separator ("3,250" in a cell, "3,250,212" on a line) is refused with the line (counted
+ * from 1) and its text, rather than read as 3250 or 3.25 by a guess.
  */
 export function parseConditionList(text: string): ParsedConditions {
   const conditions: Condition[] = [];
@@ -30,24 +81,32 @@ export function parseConditionList(text: string): ParsedConditions {
   for (const [i, raw] of lines.entries()) {
     const line = raw.trim();
     if (!line) continue;
-    const parts = line.includes("\t")
-      ? line.split("\t")
-      : line.includes(";")
-        ? line.split(";")
-        : /\d,\s*\d/.test(line) && !/\d,\d{3}\b/.test(line)
-          ? line.split(",")
-          : line.split(/\s+/);
-    const cells = parts.map((p) => p.trim()).filter((p) => p !== "");
+    const where = `Line ${i + 1} (“${line}”)`;
+    const cells = cellsOf(line);
+    if (cells === null)
+      return {
+        ok: false,
+        error: `${where}: its commas could separate the two numbers or group thousands. Write each number without a thousands separator and separate the two with one comma, a tab or a semicolon (e.g. “3250, 212”).`,
+      };
     if (
       conditions.length === 0 &&
       cells.length > 0 &&
-      cells.every((c) => /[a-z]/i.test(c) && parseNumber(c) === null)
+      cells.every(
+        (c) =>
+          /[a-z]/i.test(c) && !/^[-+.\d]/.test(c) && parseNumber(c) === null,
+      )
     )
       continue; // header
+    const ambiguous = cells.find((c) => readCell(c) === "ambiguous");
+    if (ambiguous !== undefined)
+      return {
+        ok: false,
+        error: `${where}: “${ambiguous}” could be ${readings(ambiguous)}. Write it without a thousands separator, or with a decimal point.`,
+      };
     if (cells.length !== 2)
       return {
         ok: false,
-        error: `Line ${i + 1} (“${line}”) should hold two numbers: pressure and temperature.`,
+        error: `${where} should hold two numbers: pressure and temperature.`,
       };
     const pressure = parseNumber(cells[0]!);
     const temperature = parseNumber(cells[1]!);

@@ -16,6 +16,8 @@ export const WARNING_LABELS: Record<BadgeWarning, string> = {
   "branch-extrapolated": "past a column's bubble point",
   "bubble-point-extrapolated": "bubble point extrapolated",
   "bubble-point-unknown": "bubble point unknown",
+  "estimate-unavailable": "no error estimate",
+  "estimate-unreliable": "estimate unreliable",
   "pchip-fallback": "pchip used (overshoot)",
   [NEAR_BUBBLE_POINT]: "near the bubble point",
 };

@@ -232,12 +232,14 @@ test("compare: the 3D surface renders (the plot area is not blank), side by side
   await expect.poll(scenes, { timeout: 60_000 }).toBe(2);
   await expect(surface.getByText("CS-1 BH-01").first()).toBeVisible();
 
-  // the 2D slices: curves, measured markers and the bubble point labelled
+  // the 2D slices: curves, measured markers and the bubble point named in the legend
   const slices = page.locator(
     '[data-testid="property-slices"][data-state="drawn"]',
   );
   await expect(slices).toBeVisible({ timeout: 60_000 });
-  await expect(slices.getByText(/^pb [\d,]+ psia$/).first()).toBeVisible();
+  await expect(
+    slices.getByText(/^pb [\d,.]+ psia \(.+\)$/).first(),
+  ).toBeVisible();
   await expect(slices.getByText("Pressure (psia)")).toBeVisible();
 
   expect(errors).toEqual([]);

@@ -177,7 +177,8 @@ registry.registerPath({
   path: "/api/v1/samples/{sampleId}/table",
   summary: "A black-oil table at one temperature, resampled on given pressures",
   description:
-    "Pressure, Rs, Bo, oil viscosity (and Bg, gas viscosity, Z where measured); the bubble point is a row of its own; pressure strictly increasing, Rs non-decreasing, Bo decreasing above the bubble point; values corrected to keep that order are flagged. Formats: json, csv, text (comment lines starting with #, then whitespace-separated columns). " +
+    "Pressure, Rs, Bo, oil viscosity (and Bg, gas viscosity, Z where measured); the bubble point is a row of its own; pressure strictly increasing, Rs non-decreasing, Bo decreasing above the bubble point; values corrected to keep that order are flagged. Formats: json, csv, text (comment lines starting with #, then whitespace-separated columns), xlsx (a spreadsheet download: headers in words with units, error estimates to two significant digits, the notes and the caution above the header). " +
+    "Every parameter may be left out: `GET …/table?format=text` gives the table at the sample's reservoir temperature on the measured pressures of its grids (those every grid covers unless extrapolate=true) plus the bubble point. A refusal names the parameter at fault in plain words (`detail` starts with it, `issues[].path` holds it), e.g. a sample without a reservoir temperature and no `temperature` given. " +
     "A row that cannot be computed (interpolation gives no finite value, e.g. far beyond the data with extrapolation allowed) is left out, and a note `rows-not-computable` names its pressure (JSON `notes`, a `# note:` line in text and at the top of CSV); if no row can be computed the answer is 422 `not_computable`. No NaN or Infinity is ever written. " +
     "An unapproved revision (asked for by a signed-in engineer, lab lead or administrator) is marked: JSON `revisionStatus`, `approved: false` and `draftWarning`; CSV and text start with a line `# UNAPPROVED DRAFT: …`; header Isopleth-Revision-Status. " +
     "ETag: weak, derived from the revision and its status, the normalised query (pressures as parsed, defaults filled in), the format and the units — not from the bytes, which name their generation time — so repeating a request with If-None-Match answers 304 without building the table." +
@@ -192,6 +193,9 @@ registry.registerPath({
         "application/json": { schema: z.object({}).passthrough() },
         "text/csv": { schema: z.string() },
         "text/plain": { schema: z.string() },
+        "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet": {
+          schema: z.string().openapi({ format: "binary" }),
+        },
       },
     },
     304: { description: "Not modified." },

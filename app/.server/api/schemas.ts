@@ -434,36 +434,75 @@ export const LookupsColumnsResponse = z
 const MAX_PRESSURES_CHARS = 6_000;
 const ABSOLUTE_ZERO = { field: -459.67, metric: -273.15 } as const;
 
+/*
+ * The table's query. Every parameter may be left out: the temperature defaults to the sample's reservoir
+ * temperature and the pressures to the measured ones (app/.server/api/table.ts). Each refusal names the
+ * parameter and says in plain words what was expected.
+ */
+const TABLE_FORMATS = ["json", "csv", "text", "xlsx"] as const;
+const TABLE_METHODS = ["auto", "newton", "pchip", "linear"] as const;
+const quotedValue = (input: unknown) =>
+  typeof input === "string" ? `“${input.slice(0, 40)}”` : "nothing";
 export const TableQuery = z
   .object({
-    temperature: DecimalParam.openapi({
+    temperature: DecimalParam.optional().openapi({
       example: "212",
       description:
-        "Temperature of the table (°F field, °C metric), a plain decimal above absolute zero.",
+        "Temperature of the table (°F field, °C metric), a plain decimal above absolute zero. Default: the sample's reservoir temperature (a 400 `invalid_query` names the parameter when the sample has none on record).",
     }),
     pressures: z
       .string()
-      .min(1)
+      .min(1, "Give at least one pressure, e.g. 500,1000,1500 or 500:5000:250.")
       .max(
         MAX_PRESSURES_CHARS,
         `At most ${MAX_PRESSURES_CHARS} characters; use a range start:stop:step for long tables.`,
       )
+      .optional()
       .openapi({
         example: "500:5000:250",
-        description: "A list `a,b,c` or `start:stop:step` (absolute pressure).",
+        description:
+          "A list `a,b,c` or `start:stop:step` (absolute pressure). Default: the measured pressures of the table's grids (without extrapolation, those every grid covers), plus the bubble point as always.",
       }),
-    units: UnitsParam,
-    format: z.enum(["json", "csv", "text"]).default("json"),
-    method: MethodSchema.default("auto"),
+    units: z
+      .enum(OUTPUT_SYSTEMS, {
+        error: (i) => `Choose field or metric; got ${quotedValue(i.input)}.`,
+      })
+      .default("field")
+      .openapi({
+        description:
+          "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s.",
+      }),
+    format: z
+      .enum(TABLE_FORMATS, {
+        error: (i) =>
+          `Choose json, csv, text or xlsx; got ${quotedValue(i.input)}.`,
+      })
+      .default("json")
+      .openapi({
+        description:
+          "json (default), csv (ASCII headers for scripts), text (our plain layout) or xlsx (a spreadsheet download: headers in words with units, the notes and the caution above them).",
+      }),
+    method: z
+      .enum(TABLE_METHODS, {
+        error: (i) =>
+          `Choose auto, newton, pchip or linear; got ${quotedValue(i.input)}.`,
+      })
+      .default("auto")
+      .openapi({
+        description:
+          "auto = Newton divided differences (degree 3), with the shape-preserving pchip value wherever Newton overshoots the data; or newton, pchip, linear.",
+      }),
     revision: RevisionParam,
     extrapolate: z
-      .enum(["true", "false"])
+      .enum(["true", "false"], {
+        error: (i) => `Write true or false; got ${quotedValue(i.input)}.`,
+      })
       .default("false")
       .transform((v) => v === "true"),
   })
   .superRefine((q, ctx) => {
     const zero = ABSOLUTE_ZERO[q.units];
-    if (!(q.temperature > zero)) {
+    if (q.temperature !== undefined && !(q.temperature > zero)) {
       ctx.addIssue({
         code: "custom",
         path: ["temperature"],

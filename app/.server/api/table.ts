@@ -1,4 +1,5 @@
 import { problem } from "~/.server/http";
+import { sheetDownload } from "~/.server/spreadsheet";
 import type { RevisionData } from "~/.server/samples/revision-data";
 import { runHeavy } from "~/.server/workers/pool";
 import {
@@ -6,13 +7,22 @@ import {
   formatTableJson,
   formatTableText,
   isTableError,
+  measuredTablePressures,
   parsePressureSpec,
+  tableSheet,
+  type TableError,
   type TableErrorCode,
 } from "~/core/tables";
 import { etagOf, json, notModified, respondWithEtag } from "./respond";
 import { draftWarning, isApprovedStatus } from "./samples";
 import type { TableQuery } from "./schemas";
-import { fromInputPressure, fromInputTemperature } from "~/core/units";
+import {
+  fromInputPressure,
+  fromInputTemperature,
+  toOutputTemperature,
+  unitLabel,
+} from "~/core/units";
+import { formatSignificant } from "~/core/format";
 
 const STATUS: Record<TableErrorCode, [number, string]> = {
   MALFORMED_PRESSURES: [400, "invalid_pressures"],
@@ -38,7 +48,59 @@ type SampleForTable = {
   label: string;
   wellName: string;
   fieldName: string;
+  /** °F; the table's temperature when the query names none. */
+  reservoirTemperatureF: number | null;
 };
+
+/** The query parameter a table error is about, for the problem's `issues`. */
+function parameterOf(error: TableError): "pressures" | "temperature" | null {
+  if (STATUS[error.code]?.[1] === "invalid_pressures") return "pressures";
+  const d = error.details as { field?: unknown; axis?: unknown };
+  if (d.field === "temperature" || d.axis === "temperature")
+    return "temperature";
+  if (d.field === "pressures" || d.axis === "pressure") return "pressures";
+  return null;
+}
+
+/**
+ * The table's conditions in canonical units: the query's, or the defaults — the sample's reservoir
+ * temperature and the measured pressures of the table's grids (app/core/tables/defaults.ts). A sample without
+ * a reservoir temperature and a query without one is refused with a message that says what to give.
+ */
+function tableConditions(
+  sample: SampleForTable,
+  data: RevisionData,
+  q: TableQuery,
+):
+  | { ok: true; temperatureF: number; pressuresPsia: number[]; key: string }
+  | { ok: false; response: Response } {
+  let temperatureF: number;
+  if (q.temperature !== undefined)
+    temperatureF = fromInputTemperature(q.temperature, q.units);
+  else if (sample.reservoirTemperatureF !== null)
+    temperatureF = sample.reservoirTemperatureF;
+  else {
+    const message = `No temperature was given and sample ${sample.id} has no reservoir temperature on record; give one, e.g. temperature=${q.units === "metric" ? "100" : "212"} (${unitLabel(q.units, "temperature")}).`;
+    return {
+      ok: false,
+      response: problem(400, "invalid_query", `\`temperature\`: ${message}`, {
+        issues: [{ path: ["temperature"], message }],
+      }),
+    };
+  }
+  const pressuresPsia =
+    q.pressures === undefined
+      ? measuredTablePressures(data.grids, q.extrapolate)
+      : parsePressureSpec(q.pressures).pressures.map((p) =>
+          fromInputPressure(p, q.units),
+        );
+  return {
+    ok: true,
+    temperatureF,
+    pressuresPsia,
+    key: `${temperatureF}|${pressuresPsia.join(",")}`,
+  };
+}
 
 /**
  * GET …/table: a black-oil table of a revision on the requested pressures, as JSON, CSV or text.
@@ -53,17 +115,19 @@ export async function tableResponse(
   data: RevisionData,
   q: TableQuery,
 ): Promise<Response> {
+  const defaulted = q.temperature === undefined;
   try {
-    const spec = parsePressureSpec(q.pressures);
-    const etag = `W/${etagOf("table", data.revisionId, data.status, q.format, q.units, q.method, String(q.extrapolate), q.temperature, spec.pressures.join(","))}`;
+    const conditions = tableConditions(sample, data, q);
+    if (!conditions.ok) return conditions.response;
+    const etag = `W/${etagOf("table", data.revisionId, data.status, q.format, q.units, q.method, String(q.extrapolate), conditions.key)}`;
     const revision = { number: data.number, status: data.status };
     const unchanged = notModified(request, etag, { revision });
     if (unchanged) return unchanged;
     // Large tables are built in a worker thread (app/.server/workers), small ones inline.
     const table = await runHeavy("table", {
       grids: data.grids,
-      temperature: fromInputTemperature(q.temperature, q.units),
-      pressures: spec.pressures.map((p) => fromInputPressure(p, q.units)),
+      temperature: conditions.temperatureF,
+      pressures: conditions.pressuresPsia,
       method: q.method,
       extrapolate: q.extrapolate,
       messageUnits: q.units,
@@ -94,6 +158,19 @@ export async function tableResponse(
         },
       });
     }
+    if (q.format === "xlsx") {
+      const json = formatTableJson(table, options);
+      return sheetDownload(
+        tableSheet(json, draft ? [draft] : []),
+        "xlsx",
+        `isopleth-sample-${sample.id}-rev-${data.number}-table`,
+        {
+          "Isopleth-Revision": String(data.number),
+          "Isopleth-Revision-Status": data.status,
+          ETag: etag,
+        },
+      );
+    }
     if (q.format === "text") {
       const body =
         (draft ? `# ${draft}\n` : "") + formatTableText(table, options);
@@ -118,7 +195,19 @@ export async function tableResponse(
   } catch (error) {
     if (isTableError(error)) {
       const [status, code] = STATUS[error.code] ?? [400, "invalid_query"];
-      return problem(status, code, error.message);
+      const parameter = parameterOf(error);
+      const message =
+        defaulted &&
+        parameter === "temperature" &&
+        sample.reservoirTemperatureF !== null
+          ? `No temperature was given, so the sample's reservoir temperature (${formatSignificant(toOutputTemperature(sample.reservoirTemperatureF, q.units), 6)} ${unitLabel(q.units, "temperature")}) was used: ${error.message}`
+          : error.message;
+      return problem(
+        status,
+        code,
+        parameter ? `\`${parameter}\`: ${message}` : message,
+        parameter ? { issues: [{ path: [parameter], message }] } : undefined,
+      );
     }
     throw error;
   }

@@ -3,6 +3,8 @@ import {
   fromInputPressure,
   fromInputTemperature,
   STANDARD_CONDITIONS_PRESETS,
+  standardConditionsLabel,
+  standardConditionsPreset,
   toOutputDepth,
   toOutputPressure,
   toOutputTemperature,
@@ -28,20 +30,18 @@ type StoredStandard = {
   standardTemperatureF: number;
 };
 
+const baseOf = (stored: StoredStandard) => ({
+  pressurePsia: stored.standardPressurePsia,
+  temperatureF: stored.standardTemperatureF,
+});
+
 /** The preset matching recorded standard conditions, if any. */
 export function standardPresetOf(stored: StoredStandard) {
-  return STANDARD_CONDITIONS_PRESETS.find(
-    (p) =>
-      Math.abs(p.pressurePsia - stored.standardPressurePsia) < 1e-3 &&
-      Math.abs(p.temperatureF - stored.standardTemperatureF) < 1e-3,
-  );
+  return standardConditionsPreset(baseOf(stored));
 }
 
 export function standardLabel(stored: StoredStandard): string {
-  return (
-    standardPresetOf(stored)?.label ??
-    `${formatPlain(stored.standardTemperatureF)} °F, ${formatPlain(stored.standardPressurePsia)} psia`
-  );
+  return standardConditionsLabel(baseOf(stored));
 }
 
 export function recordInputFromForm(

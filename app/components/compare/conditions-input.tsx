@@ -35,8 +35,8 @@ export function ConditionsInput({
       />
       <span id="conditions-hint" className="mt-1 block text-xs text-ink-muted">
         One per line: pressure ({units.pressure}) and temperature (
-        {units.temperature}), separated by a comma, tab or space. Pasting from a
-        spreadsheet works.
+        {units.temperature}), separated by a comma, tab or space, without
+        thousands separators. Pasting from a spreadsheet works.
       </span>
       {!parsed.ok && invalid ? (
         <span

@@ -9,20 +9,24 @@ export const MAX_TABLE_CONDITIONS = 50;
 
 /**
  * The conditions box: its text, what it parses to, and the conditions the table and plots use (at most
- * MAX_TABLE_CONDITIONS, labelled Q1, Q2, … on the plots). When the unit system changes, the conditions the
- * person typed are converted instead of dropped.
+ * MAX_TABLE_CONDITIONS, labelled Q1, Q2, … on the plots). Until the person types, the box holds `defaultText`
+ * (the chosen samples' reservoir conditions), so it follows the samples as they are chosen. When the unit
+ * system changes, the conditions the person typed are converted instead of dropped.
  */
 export function useCompareConditions(
-  initialText: () => string,
+  defaultText: string,
   system: OutputSystem,
 ) {
-  const [text, setText] = useState(initialText);
-  // the unit system the text is written in; adjusted while rendering, before anything uses the text
-  const [textSystem, setTextSystem] = useState(system);
-  if (textSystem !== system) {
-    setTextSystem(system);
-    setText(convertConditionsText(text, textSystem, system));
+  // null until the person types: the box then shows the defaults of the samples chosen now
+  const [typed, setTyped] = useState<string | null>(null);
+  // the unit system the typed text is written in; adjusted while rendering, before anything uses the text
+  const [typedSystem, setTypedSystem] = useState(system);
+  if (typedSystem !== system) {
+    setTypedSystem(system);
+    if (typed !== null)
+      setTyped(convertConditionsText(typed, typedSystem, system));
   }
+  const text = typed ?? defaultText;
 
   const parsed = useMemo(() => parseConditionList(text), [text]);
   // the same conditions keep the same array, so an edit that changes no number neither redraws the plots nor
@@ -35,5 +39,5 @@ export function useCompareConditions(
     () => conditions.map((c, k) => ({ ...c, label: `Q${k + 1}` })),
     [conditions],
   );
-  return { text, setText, parsed, conditions, queryPoints };
+  return { text, setText: setTyped, parsed, conditions, queryPoints };
 }

@@ -73,7 +73,7 @@ export function ConditionsInput({ form }: { form: LookupFormState }) {
           />
           <span className="text-xs text-ink-muted">
             Paste two columns from a spreadsheet; tabs, semicolons, commas or
-            spaces.
+            spaces. No thousands separators (3250, not 3,250).
           </span>
         </label>
       ) : (

@@ -12,6 +12,7 @@ export function LookupForm({
   samples,
   onSampleChange,
   onUnitsChange,
+  onMakeDefault,
   onSubmit,
   running,
   onSave,
@@ -22,6 +23,8 @@ export function LookupForm({
   samples: readonly SampleSummary[];
   onSampleChange: (sampleId: number) => void;
   onUnitsChange: (units: OutputSystem) => void;
+  /** "Make this my default" (the page's unit system becomes the account's); null while it is being saved. */
+  onMakeDefault: (() => void) | null;
   onSubmit: (event: React.FormEvent) => void;
   running: boolean;
   /** "Save as set", offered only when given. */
@@ -33,7 +36,7 @@ export function LookupForm({
   return (
     <form
       onSubmit={onSubmit}
-      className="grid gap-4 rounded-lg border border-line bg-panel p-5 lg:grid-cols-3"
+      className="grid gap-4 rounded-lg border border-line bg-panel p-5 lg:grid-cols-3 [&>fieldset]:min-w-0"
       aria-label="Lookup"
     >
       <SamplePicker
@@ -42,7 +45,11 @@ export function LookupForm({
         onChange={onSampleChange}
         units={form.unitLabels}
       />
-      <LookupOptions form={form} onUnitsChange={onUnitsChange} />
+      <LookupOptions
+        form={form}
+        onUnitsChange={onUnitsChange}
+        onMakeDefault={onMakeDefault}
+      />
       <fieldset className="space-y-3">
         <legend className="text-sm font-semibold">Conditions</legend>
         <ConditionsInput form={form} />

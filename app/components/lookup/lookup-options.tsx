@@ -10,9 +10,11 @@ import type { LookupFormState, LookupMethodChoice } from "./use-lookup-form";
 export function LookupOptions({
   form,
   onUnitsChange,
+  onMakeDefault,
 }: {
   form: LookupFormState;
   onUnitsChange: (units: OutputSystem) => void;
+  onMakeDefault: (() => void) | null;
 }) {
   const { sample, properties, method, degree, units } = form;
   return (
@@ -41,14 +43,14 @@ export function LookupOptions({
         ))}
       </div>
       <div className="flex flex-wrap gap-4 text-sm">
-        <label className="flex flex-col gap-1">
+        <label className="flex max-w-full min-w-0 flex-col gap-1">
           <span className="font-semibold">Method</span>
           <select
             value={method}
             onChange={(e) =>
               form.setMethod(e.target.value as LookupMethodChoice)
             }
-            className="rounded border border-line px-2 py-1"
+            className="max-w-full rounded border border-line px-2 py-1"
           >
             <option value="auto">
               Automatic (Newton [3,3], pchip where it overshoots)
@@ -111,6 +113,7 @@ export function LookupOptions({
             {`Metric (${systemUnits("metric")})`}
           </label>
         </div>
+        <DefaultUnits form={form} onMakeDefault={onMakeDefault} />
       </fieldset>
       <label className="flex items-center gap-2 text-sm">
         <input
@@ -121,6 +124,34 @@ export function LookupOptions({
         Allow extrapolation beyond the measured range (flagged)
       </label>
     </fieldset>
+  );
+}
+
+/**
+ * The page's unit system is its own (in its address); the account's changes only here, when asked: "Your
+ * default", or a button that makes the page's system the default.
+ */
+function DefaultUnits({
+  form,
+  onMakeDefault,
+}: {
+  form: LookupFormState;
+  onMakeDefault: (() => void) | null;
+}) {
+  if (form.units === form.accountUnits)
+    return <p className="mt-1 text-xs text-ink-muted">Your default units.</p>;
+  return (
+    <p className="mt-1 flex flex-wrap items-center gap-2 text-xs text-ink-muted">
+      Your default is {form.accountUnits}.
+      <button
+        type="button"
+        onClick={onMakeDefault ?? undefined}
+        disabled={!onMakeDefault}
+        className="rounded border border-line px-2 py-0.5 font-semibold text-ink hover:border-accent disabled:opacity-60"
+      >
+        Make {form.units} my default
+      </button>
+    </p>
   );
 }
 

@@ -2,6 +2,7 @@ import type { Method } from "~/core/interpolation";
 import type { OutputSystem, PropertyKey } from "~/core/units";
 import type { LookupBlock, LookupsResponse } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
+import type { LookupQuery } from "./use-lookup-run";
 
 /**
  * What the lookup page keeps of one property's answer: the fields of the lookup API's response and of the
@@ -31,6 +32,8 @@ export type LookupRun = {
   method: "auto" | Method;
   /** Time in the browser from the press to the last answer (ms). */
   elapsedMs: number;
+  /** What was asked (the export asks the server for the same lookup). */
+  query: LookupQuery;
 };
 
 export const answeredRuns = (runs: readonly PropertyRun[]) =>

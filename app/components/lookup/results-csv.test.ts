@@ -1,5 +1,6 @@
-// The lookup export (OWASP "CSV Injection"): a sample label that is a formula stays inside its "# …" line's one
-// cell, text cells are neutralised, numbers (negative ones too) stay numbers. Parsed back with csv-parse.
+// The lookup's CSV and clipboard forms (OWASP "CSV Injection"): a sample label that is a formula stays inside its
+// "# …" line's one cell, text cells are neutralised, numbers (negative ones too) stay numbers; headers in words
+// with units, a byte-order mark on the CSV. Parsed back with csv-parse.
 import { parse } from "csv-parse/sync";
 import { expect, test } from "vitest";
 import { lookupResultsDelimited } from "./results-csv";
@@ -46,9 +47,21 @@ test("a formula in the label or in a text cell is written as text; numbers stay 
     [`Isopleth lookup — sample ${label}, revision 1`, label],
     () => [],
   );
-  const rows = parse(csv, { relax_column_count: true }) as string[][];
+  expect(csv.startsWith("\uFEFF")).toBe(true);
+  const rows = parse(csv, {
+    bom: true,
+    relax_column_count: true,
+  }) as string[][];
   expect(rows[0]).toEqual([`# Isopleth lookup — sample ${label}, revision 1`]);
   expect(rows[1]).toEqual([`# ${label}`]);
+  expect(rows[2]).toEqual([
+    "Pressure (psia)",
+    "Temperature (degF)",
+    "Oil formation volume factor (rb/STB)",
+    "Oil formation volume factor error estimate (rb/STB)",
+    "Oil formation volume factor method",
+    "Oil formation volume factor warnings",
+  ]);
   expect(rows[3]).toEqual(["3000", "-10", "-1.5", "0.001", "'=1+1", ""]);
   // No cell a spreadsheet would run: only numbers may start with "-".
   for (const cell of rows.flat())
@@ -64,5 +77,6 @@ test("the clipboard form (tab-separated) neutralises too", () => {
     [],
     () => [],
   );
-  expect(tsv.split("\n")[1]).toBe('3000\t200\t-1.5\t0.001\t"\'=1+1"\t');
+  expect(tsv.startsWith("Pressure (psia)\t")).toBe(true);
+  expect(tsv.split("\r\n")[1]).toBe('3000\t200\t-1.5\t0.001\t"\'=1+1"\t');
 });

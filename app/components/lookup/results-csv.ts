@@ -1,12 +1,13 @@
-import { csvCommentLine, csvRow } from "~/core/csv";
+import { lookupSheet, sheetToDelimited } from "~/core/tables";
 import type { LookupResult } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
 import { answeredRuns, type PropertyRun } from "./property-run";
 
 /**
- * The lookup results as delimited text (CSV for "Export CSV", tab-separated for the clipboard). Every cell goes
- * through the product's CSV cell writer (app/core/csv): numbers stay numbers, text that a spreadsheet would run
- * as a formula is neutralised, and each "# …" line is one cell, whatever the sample label holds.
+ * The lookup results as delimited text: the product's lookup sheet (app/core/tables/sheet.ts: headers in
+ * words with units, values to six significant digits or fewer where the estimate says so, estimates to two,
+ * flags and refusals per value), CSV with its "# …" lines and a byte-order mark, or tab-separated without
+ * either for the clipboard. Every cell goes through the product's CSV cell writer (app/core/csv).
  */
 export function lookupResultsDelimited(
   conditions: readonly Condition[],
@@ -16,39 +17,28 @@ export function lookupResultsDelimited(
   meta: readonly string[],
   warningsOf: (r: LookupResult, pressure: number) => string[],
 ): string {
-  const ok = answeredRuns(runs);
-  const header: string[] = [
-    `pressure (${units.pressure})`,
-    `temperature (${units.temperature})`,
-  ];
-  for (const r of ok)
-    header.push(
-      `${r.property} (${r.unit})`,
-      `${r.property} error estimate (${r.unit})`,
-      `${r.property} method`,
-      `${r.property} warnings`,
-    );
-  const lines = conditions.map((c, i) => {
-    const cells: (string | number)[] = [c.pressure, c.temperature];
-    for (const r of ok) {
-      const x = r.results[i]!;
-      // A point the server refused has no value: empty cells and the reason.
-      cells.push(
-        x.value ?? "",
-        x.errorEstimate ?? "",
-        x.method ?? "",
-        x.refused
-          ? `refused: ${x.refused.message}`
-          : warningsOf(x, c.pressure).join(" "),
-      );
-    }
-    return csvRow(cells, { delimiter });
+  const sheet = lookupSheet({
+    about: meta,
+    pressureUnit: units.pressure,
+    temperatureUnit: units.temperature,
+    conditions,
+    properties: answeredRuns(runs).map((r) => ({
+      property: r.property,
+      unit: r.unit,
+      digits: null,
+      points: r.results.map((x, i) => ({
+        value: x.value,
+        errorEstimate: x.errorEstimate,
+        method: x.method,
+        warnings: warningsOf(x, conditions[i]!.pressure),
+        refused: x.refused ?? null,
+      })),
+    })),
   });
-  return (
-    [
-      ...meta.map((m) => csvCommentLine(m, { delimiter })),
-      csvRow(header, { delimiter }),
-      ...lines,
-    ].join("\n") + "\n"
-  );
+  const clipboard = delimiter === "\t";
+  return sheetToDelimited(sheet, {
+    delimiter,
+    bom: !clipboard,
+    about: !clipboard,
+  });
 }

@@ -4,12 +4,11 @@ import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { LookupResult } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
 import { answeredRuns, type PropertyRun } from "./property-run";
+import { LookupExportButtons } from "./export-buttons";
 import { lookupResultsDelimited } from "./results-csv";
+import type { LookupQuery } from "./use-lookup-run";
 import { SERIOUS_WARNINGS, warningLabel } from "~/utils/warning-labels";
 import { formatMilliseconds, formatPlain } from "~/core/format";
-
-const CAUTION =
-  "Interpolated and extrapolated properties are estimates. Check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.";
 
 /** Warnings of one result, as the server computed them (near-bubble-point included). */
 function warningsOf(r: LookupResult): string[] {
@@ -28,6 +27,7 @@ export function LookupResultsTable({
   sampleLabel,
   onExplain,
   elapsedMs,
+  exportQuery,
 }: {
   conditions: Condition[];
   runs: PropertyRun[];
@@ -36,15 +36,12 @@ export function LookupResultsTable({
   sampleLabel: string;
   onExplain: (conditionIndex: number, property: PropertyKey) => void;
   elapsedMs: number;
+  /** The lookup as asked, for the server's export (CSV, XLSX). */
+  exportQuery?: LookupQuery;
 }) {
   const [copied, setCopied] = useState(false);
   const ok = answeredRuns(runs);
   const revisions = [...new Set(ok.map((r) => r.revision))];
-  const meta = [
-    `Isopleth lookup — sample ${sampleLabel}, revision ${revisions.join(", ")}, method ${ok[0]?.methodDescription ?? method}`,
-    `generated ${new Date().toISOString()}`,
-    CAUTION,
-  ];
   const serverMs = ok.reduce(
     (m, r) => Math.max(m, Number.isFinite(r.serverMs) ? r.serverMs : 0),
     0,
@@ -56,19 +53,6 @@ export function LookupResultsTable({
   // values the server refused (one per property and point)
   const refused = ok.reduce((n, r) => n + r.summary.refusedCount, 0);
 
-  function download() {
-    const blob = new Blob(
-      [lookupResultsDelimited(conditions, runs, units, ",", meta, warningsOf)],
-      { type: "text/csv" },
-    );
-    const url = URL.createObjectURL(blob);
-    const a = Object.assign(document.createElement("a"), {
-      href: url,
-      download: `isopleth-lookup-${sampleLabel.replace(/\W+/g, "-")}.csv`,
-    });
-    a.click();
-    URL.revokeObjectURL(url);
-  }
   async function copy() {
     await navigator.clipboard.writeText(
       lookupResultsDelimited(conditions, runs, units, "\t", [], warningsOf),
@@ -102,13 +86,7 @@ export function LookupResultsTable({
           </p>
         </div>
         <div className="flex gap-2">
-          <button
-            type="button"
-            onClick={download}
-            className="rounded border border-line bg-panel px-3 py-1.5 text-sm font-semibold hover:border-accent"
-          >
-            Export CSV
-          </button>
+          {exportQuery ? <LookupExportButtons query={exportQuery} /> : null}
           <button
             type="button"
             onClick={() => void copy()}
@@ -119,7 +97,7 @@ export function LookupResultsTable({
         </div>
       </div>
       {ok.length > 0 ? (
-        <div className="mt-3 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
+        <div className="relative mt-3 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
           <table className="w-full text-sm" data-testid="results-table">
             <thead className="sticky top-0 bg-surface text-ink-muted">
               <tr>

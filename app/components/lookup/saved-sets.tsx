@@ -1,8 +1,8 @@
 import { Form } from "react-router";
 import { Button } from "~/components/form";
-import type { PropertyKey } from "~/core/units";
+import type { OutputSystem, PropertyKey } from "~/core/units";
 
-/** A saved lookup set as this list shows and loads it (conditions in canonical units, psia and °F). */
+/** A saved lookup set as this list shows and loads it (conditions in canonical units, psia and °F; its settings). */
 export type SavedLookupSet = {
   id: number;
   name: string;
@@ -12,6 +12,9 @@ export type SavedLookupSet = {
   conditions: { pressurePsia: number; temperatureF: number }[];
   method: string;
   degree: number | [number, number] | null;
+  /** The unit system it was saved in; its runs are shown in it. */
+  units: OutputSystem;
+  extrapolate: boolean;
 };
 
 /** "Your lookup sets": each with Load (into the form), its runs and Delete. Nothing when there are none. */
@@ -37,7 +40,8 @@ export function SavedSets({
             <span className="font-semibold">{s.name}</span>
             <span className="text-ink-muted">
               {s.sampleLabel} · {s.conditions.length} conditions ·{" "}
-              {s.properties.length} properties · {s.method}
+              {s.properties.length} properties · {s.method} · extrapolation{" "}
+              {s.extrapolate ? "on" : "off"} · {s.units}
             </span>
             <span className="ml-auto flex gap-2">
               <Button

@@ -1,6 +1,12 @@
 import { useState } from "react";
-import type { Method } from "~/core/interpolation";
-import { type OutputSystem, type PropertyKey, unitLabel } from "~/core/units";
+import { useSearchParams } from "react-router";
+import {
+  type OutputSystem,
+  toOutputPressure,
+  toOutputTemperature,
+  unitLabel,
+} from "~/core/units";
+import { roundSignificant } from "~/core/format";
 import type { SampleSummary } from "~/utils/api/client";
 import {
   depletionPath,
@@ -8,18 +14,19 @@ import {
   parseNumber,
   type Condition,
 } from "~/utils/conditions";
+import {
+  readLookupChoices,
+  writeLookupChoices,
+  type LookupChoices,
+} from "./lookup-params";
 import type { SavedLookupSet } from "./saved-sets";
 import type { LookupQuery } from "./use-lookup-run";
 
+export type { LookupMethodChoice } from "./lookup-params";
+
 /** How the conditions are entered: one pair, a pasted list, or a depletion path. */
 export type ConditionMode = "single" | "list" | "path";
-export type LookupMethodChoice = "auto" | Method;
 
-const DEFAULT_PROPERTIES: PropertyKey[] = [
-  "oil_fvf",
-  "solution_gor",
-  "oil_viscosity",
-];
 /** The conditions offered at first, in each unit system (switching systems offers the other's). */
 const SINGLE_DEFAULTS: Record<OutputSystem, SinglePoint> = {
   field: { pressure: "3250", temperature: "212" },
@@ -39,46 +46,63 @@ type PathFields = {
 };
 
 /**
- * The state of the lookup form, as typed: the sample, the properties, the conditions in one of three modes, the
- * method (with the Newton degree), the unit system and whether to extrapolate. `query` reads it into a lookup
- * (or says what is missing); `changeUnits` offers the other system's example conditions; `applySet` fills the
- * form from a saved set (its conditions are in field units: the caller switches to field units too).
+ * The state of the lookup form. The choices (sample, properties, method and Newton degree, unit system,
+ * extrapolation) live in the page's address (lookup-params.ts), starting from the account's unit system where
+ * it names none; choosing never changes the account. The conditions, in one of three modes, are typed state.
+ * `query` reads it into a lookup (or says what is missing); a change of unit system offers the other system's
+ * example conditions; `applySet` fills the form from a saved set, its conditions converted to the page's units.
  */
 export function useLookupForm({
   samples,
-  requestedSampleId,
-  unitSystem,
+  accountUnits,
 }: {
   samples: readonly SampleSummary[];
-  /** ?sample=N, when given. */
-  requestedSampleId: number | null;
-  unitSystem: OutputSystem;
+  /** The account's unit system: the page's while its address names none. */
+  accountUnits: OutputSystem;
 }) {
-  const [sampleId, setSampleId] = useState<number | null>(
-    requestedSampleId ||
-      samples.find((s) => s.approvedRevision !== null)?.id ||
-      null,
+  const [params, setParams] = useSearchParams();
+  // The choices as shown: read from the address, and set at once when the person chooses (the address follows a
+  // moment later; a controlled input waiting for it would lose keystrokes). A change of address from elsewhere
+  // (back, forward, a link) is read again while rendering.
+  const search = params.toString();
+  const [choices, setChoices] = useState(() =>
+    readLookupChoices(params, accountUnits),
   );
-  const [properties, setProperties] =
-    useState<PropertyKey[]>(DEFAULT_PROPERTIES);
-  const [mode, setMode] = useState<ConditionMode>("single");
-  const [single, setSingle] = useState<SinglePoint>(SINGLE_DEFAULTS.field);
-  const [list, setList] = useState("");
-  const [path, setPath] = useState<PathFields>(PATH_DEFAULTS.field);
-  const [method, setMethod] = useState<LookupMethodChoice>("auto");
-  const [degree, setDegree] = useState<[number, number]>([3, 3]);
-  const [units, setUnits] = useState<OutputSystem>(unitSystem);
-  const [extrapolate, setExtrapolate] = useState(false);
-
-  const sample = samples.find((s) => s.id === sampleId) ?? null;
-
-  function changeUnits(next: OutputSystem) {
-    setUnits(next);
-    if (next !== units) {
-      setSingle(SINGLE_DEFAULTS[next]);
-      setPath(PATH_DEFAULTS[next]);
+  // the address at the last render, and the one last written (which the router shows a moment later)
+  const [shown, setShown] = useState(search);
+  const [written, setWritten] = useState(search);
+  if (search !== shown) {
+    setShown(search);
+    if (search !== written) {
+      setWritten(search);
+      setChoices(readLookupChoices(params, accountUnits));
     }
   }
+  const { properties, method, degree, units, extrapolate } = choices;
+  const sampleId =
+    choices.sampleId ||
+    samples.find((s) => s.approvedRevision !== null)?.id ||
+    null;
+  const choose = (patch: Partial<LookupChoices>) => {
+    const next = writeLookupChoices(new URLSearchParams(written), patch);
+    setChoices({ ...choices, ...patch });
+    setWritten(next.toString());
+    setParams(next, { replace: true, preventScrollReset: true });
+  };
+
+  const [mode, setMode] = useState<ConditionMode>("single");
+  const [single, setSingle] = useState<SinglePoint>(SINGLE_DEFAULTS[units]);
+  const [list, setList] = useState("");
+  const [path, setPath] = useState<PathFields>(PATH_DEFAULTS[units]);
+  // the unit system the example conditions were offered in; adjusted while rendering when the address changes it
+  const [typedUnits, setTypedUnits] = useState(units);
+  if (typedUnits !== units) {
+    setTypedUnits(units);
+    setSingle(SINGLE_DEFAULTS[units]);
+    setPath(PATH_DEFAULTS[units]);
+  }
+
+  const sample = samples.find((s) => s.id === sampleId) ?? null;
 
   /** The conditions as entered, or what is wrong with them. */
   function conditions(): Condition[] | string {
@@ -130,19 +154,27 @@ export function useLookupForm({
       units,
       method,
       degree: method === "newton" ? degree : null,
+      extrapolate,
       conditions: conds,
     };
   }
 
   function applySet(set: SavedLookupSet) {
-    setSampleId(set.sampleId);
-    setProperties(set.properties);
-    setMethod(set.method as LookupMethodChoice);
-    if (Array.isArray(set.degree)) setDegree(set.degree);
+    choose({
+      sampleId: set.sampleId,
+      properties: set.properties,
+      method: set.method as LookupChoices["method"],
+      ...(Array.isArray(set.degree) ? { degree: set.degree } : {}),
+      extrapolate: set.extrapolate,
+    });
     setMode("list");
+    // saved in psia and °F: written in the page's units, which loading a set leaves as they are
     setList(
       set.conditions
-        .map((c) => `${c.pressurePsia}\t${c.temperatureF}`)
+        .map(
+          (c) =>
+            `${roundSignificant(toOutputPressure(c.pressurePsia, units), 10)}\t${roundSignificant(toOutputTemperature(c.temperatureF, units), 10)}`,
+        )
         .join("\n"),
     );
   }
@@ -150,9 +182,10 @@ export function useLookupForm({
   return {
     sample,
     sampleId,
-    setSampleId,
+    setSampleId: (id: number) => choose({ sampleId: id }),
     properties,
-    setProperties,
+    setProperties: (next: LookupChoices["properties"]) =>
+      choose({ properties: next }),
     mode,
     setMode,
     single,
@@ -162,13 +195,16 @@ export function useLookupForm({
     path,
     setPath,
     method,
-    setMethod,
+    setMethod: (next: LookupChoices["method"]) => choose({ method: next }),
     degree,
-    setDegree,
+    setDegree: (next: [number, number]) => choose({ degree: next }),
     units,
-    changeUnits,
+    /** The page's unit system (in its address); the example conditions follow. */
+    changeUnits: (next: OutputSystem) => choose({ units: next }),
     extrapolate,
-    setExtrapolate,
+    setExtrapolate: (next: boolean) => choose({ extrapolate: next }),
+    /** The account's unit system, for "Make this my default". */
+    accountUnits,
     unitLabels: {
       pressure: unitLabel(units, "pressure"),
       temperature: unitLabel(units, "temperature"),

@@ -73,6 +73,7 @@ export function useLookupRun() {
         units: query.units,
         method: query.method,
         elapsedMs: performance.now() - started,
+        query,
       });
     } catch {
       setError("The server could not be reached. Try again.");

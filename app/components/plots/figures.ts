@@ -173,6 +173,31 @@ function queryTraces3d(
   return out;
 }
 
+/** A sample measured at one temperature only: a curve, not a surface. */
+const oneTemperature = (s: PlotSeries) => s.grid.temperatures.length === 1;
+
+/** Whether temperature `t` is `at` (a measured temperature of axis `axis`), to display precision. */
+function sameTemperature(t: number, at: number, axis: readonly number[]) {
+  const span = Math.abs(axis[axis.length - 1]! - axis[0]!);
+  return Math.abs(t - at) <= Math.max(span, Math.abs(at), 1) * 1e-6;
+}
+
+/**
+ * [min, max] of the finite values with `room` (a fraction of the span) either side, or 5 % of the value (at least
+ * 1) when they are all one value; never below 0 for values that are not.
+ */
+export function paddedRange(
+  values: readonly number[],
+  room = 0.03,
+): [number, number] {
+  const finite = values.filter(Number.isFinite);
+  if (finite.length === 0) return [0, 1];
+  const lo = Math.min(...finite);
+  const hi = Math.max(...finite);
+  const pad = hi > lo ? (hi - lo) * room : Math.max(Math.abs(lo) * 0.05, 1);
+  return [lo >= 0 ? Math.max(lo - pad, 0) : lo - pad, hi + pad];
+}
+
 type SurfaceInput = Pick<
   PropertySurfaceProps,
   | "series"
@@ -195,12 +220,37 @@ export function surfaceFigure(input: SurfaceInput): Figure {
     series.length > 1 ? (input.arrangement ?? "overlaid") : "side-by-side";
   const titles = axisTitles(input.units, input.valueLabel);
   const resolution = input.resolution ?? DEFAULT_SURFACE_RESOLUTION;
+  // a sample measured at one temperature has no surface: it is drawn as its curve, a line at that temperature
   const surfaces = series.map((s) =>
-    surfaceOf(s.grid, method, input.degree, resolution),
+    oneTemperature(s)
+      ? null
+      : surfaceOf(s.grid, method, input.degree, resolution),
   );
-  const cmin = Math.min(...surfaces.map((s) => s.min));
-  const cmax = Math.max(...surfaces.map((s) => s.max));
+  const lines = series.map((s) =>
+    oneTemperature(s)
+      ? curveOf(
+          s.grid,
+          s.grid.temperatures[0]!,
+          method,
+          input.degree,
+          resolution.pressures * 2,
+        )
+      : null,
+  );
+  const lineValues = lines.flatMap((l) =>
+    l ? l.values.filter((v): v is number => v !== null) : [],
+  );
+  const cmin = Math.min(
+    ...surfaces.map((s) => s?.min ?? Infinity),
+    ...lineValues,
+  );
+  const cmax = Math.max(
+    ...surfaces.map((s) => s?.max ?? -Infinity),
+    ...lineValues,
+  );
   const queries = input.queryPoints ?? [];
+  // every scene of the figure shows the same pressure, temperature and value ranges, so side-by-side panels compare
+  const extent = { x: [] as number[], y: [] as number[], z: [cmin, cmax] };
   const data: Data[] = [];
   const overlaid = arrangement === "overlaid";
   const sceneCount = overlaid ? 1 : series.length;
@@ -209,21 +259,49 @@ export function surfaceFigure(input: SurfaceInput): Figure {
   const hover = hoverLines(input.units, input.valueLabel);
 
   series.forEach((s, k) => {
-    const surface = surfaces[k]!;
+    const surface = surfaces[k];
+    const line = lines[k];
     const colour = pick(SERIES_COLOURS, k);
     const scene = sceneId(k);
-    const trace: Partial<SurfaceData> = {
-      type: "surface",
-      name: plotText(s.label),
-      scene,
-      x: surface.pressures,
-      y: surface.temperatures,
-      z: surface.z,
-      connectgaps: false,
-      hovertemplate: `<b>${plotText(s.label)}</b><br>${hover.join("<br>")}<extra>interpolated</extra>`,
-      contours: { z: { show: false } },
-    };
-    if (overlaid) {
+    const { pressures: P, temperatures: T } = s.grid;
+    extent.x.push(P[0]!, P[P.length - 1]!);
+    extent.y.push(T[0]!, T[T.length - 1]!);
+    if (line) {
+      data.push({
+        type: "scatter3d",
+        mode: "lines",
+        name: plotText(
+          `${s.label} (measured at ${formatPlotValue(T[0]!)} ${input.units.temperature} only)`,
+        ),
+        scene,
+        x: line.pressures,
+        y: line.pressures.map(() => T[0]!),
+        z: line.values,
+        connectgaps: false,
+        hovertemplate: `<b>${plotText(s.label)}</b><br>${hover.join("<br>")}<extra>interpolated</extra>`,
+        line: overlaid
+          ? { color: colour, width: 6, dash: pick(DASHES, k) }
+          : { color: line.values, colorscale: "Cividis", cmin, cmax, width: 7 },
+        showlegend: overlaid || sceneCount === 1,
+        legendgroup: overlaid ? `series-${k}` : `line-${k}`,
+      } as Partial<Scatter3dData>);
+    }
+    const trace: Partial<SurfaceData> | null = surface
+      ? {
+          type: "surface",
+          name: plotText(s.label),
+          scene,
+          x: surface.pressures,
+          y: surface.temperatures,
+          z: surface.z,
+          connectgaps: false,
+          hovertemplate: `<b>${plotText(s.label)}</b><br>${hover.join("<br>")}<extra>interpolated</extra>`,
+          contours: { z: { show: false } },
+        }
+      : null;
+    if (!trace) {
+      // no surface: nothing to add
+    } else if (overlaid) {
       Object.assign(trace, {
         colorscale: [
           [0, colour],
@@ -256,9 +334,10 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         },
       });
     }
-    data.push(trace);
+    if (trace) data.push(trace);
 
     const measured = measuredPoints(s.grid);
+    extent.z.push(...measured.map((m) => m.value));
     const markers: Partial<Scatter3dData> = {
       type: "scatter3d",
       mode: "markers",
@@ -285,7 +364,21 @@ export function surfaceFigure(input: SurfaceInput): Figure {
       showlegend: overlaid ? false : k === 0,
     };
     data.push(markers);
-    const evaluated = evaluateQueries(s.grid, queries, method, input.degree);
+    // on a line, only the points at its temperature: the others have no surface to sit on
+    const evaluated = evaluateQueries(
+      s.grid,
+      line
+        ? queries.filter((q) => sameTemperature(q.temperature, T[0]!, T))
+        : queries,
+      method,
+      input.degree,
+    );
+    for (const q of evaluated)
+      if (q.value !== null) {
+        extent.x.push(q.pressure);
+        extent.y.push(q.temperature);
+        extent.z.push(q.value);
+      }
     data.push(
       ...queryTraces3d(
         evaluated,
@@ -298,6 +391,12 @@ export function surfaceFigure(input: SurfaceInput): Figure {
     );
   });
 
+  // pressure and temperature exactly as measured (and asked), as Plotly's own ranges were; room for the values
+  const ranges = {
+    x: paddedRange(extent.x, 0),
+    y: paddedRange(extent.y, 0),
+    z: paddedRange(extent.z),
+  };
   const narrow = input.narrow ?? false;
   const { columns, rows } = sceneGrid(sceneCount, narrow);
   const sceneLayout = (k: number) => {
@@ -318,6 +417,8 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         backgroundcolor: "#ffffff",
         showbackground: true,
         hoverformat: NUM,
+        range: ranges.x,
+        autorange: false,
       },
       yaxis: {
         title: { text: plotText(titles.temperature) },
@@ -325,6 +426,8 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         backgroundcolor: "#ffffff",
         showbackground: true,
         hoverformat: NUM,
+        range: ranges.y,
+        autorange: false,
       },
       zaxis: {
         title: { text: plotText(titles.value) },
@@ -332,6 +435,8 @@ export function surfaceFigure(input: SurfaceInput): Figure {
         backgroundcolor: "#f6f7f5",
         showbackground: true,
         hoverformat: NUM,
+        range: ranges.z,
+        autorange: false,
       },
       aspectmode: "manual",
       aspectratio: { x: 1.35, y: 1, z: 0.75 },
@@ -371,8 +476,11 @@ export function surfaceFigure(input: SurfaceInput): Figure {
   if (sceneCount > 1) {
     const annotations: Partial<Annotation>[] = series.map((s, k) => {
       const domain = sceneLayout(k).domain;
+      const only = oneTemperature(s)
+        ? ` · measured at ${formatPlotValue(s.grid.temperatures[0]!)} ${input.units.temperature} only`
+        : "";
       return {
-        text: `<b>${plotText(s.label)}</b>`,
+        text: `<b>${plotText(s.label)}</b>${plotText(only)}`,
         xref: "paper",
         yref: "paper",
         x: (domain.x[0]! + domain.x[1]!) / 2,
@@ -424,24 +532,27 @@ export function slicesFigure(input: SlicesInput): Figure {
   const annotations: Partial<Annotation>[] = [];
   const hover = hoverLines(units, input.valueLabel);
   const tUnit = units.temperature;
+  // a sample measured at one temperature has its one curve, whatever temperatures the others are cut at
   const curves = series.flatMap((s, k) =>
-    temperatures.map((t, j) => ({
-      s,
-      k,
-      t,
-      j,
-      curve: curveOf(
-        s.grid,
+    (oneTemperature(s) ? [s.grid.temperatures[0]!] : temperatures).map(
+      (t, j) => ({
+        s,
+        k,
         t,
-        method,
-        input.degree,
-        input.resolution ?? DEFAULT_CURVE_RESOLUTION,
-      ),
-    })),
+        j,
+        curve: curveOf(
+          s.grid,
+          t,
+          method,
+          input.degree,
+          input.resolution ?? DEFAULT_CURVE_RESOLUTION,
+        ),
+      }),
+    ),
   );
-  // with many curves the dashed lines and labels would bury the data: the hollow diamonds remain
+  // with many curves the dashed lines and legend entries would bury the data: the hollow diamonds remain, with
+  // one legend entry for all of them
   const annotateBubble = curves.filter((c) => c.curve.bubblePoint).length <= 6;
-  let bubbleIndex = 0;
   let anyBubble = false;
 
   for (const { s, k, t, j, curve } of curves) {
@@ -502,13 +613,19 @@ export function slicesFigure(input: SlicesInput): Figure {
           line: { color: colour, width: 1.5, dash: "dash" },
           opacity: 0.75,
         });
-      if (pb.value !== null) {
+      // each bubble point is named in the legend (its pressure beside its curve's name), never as text on the
+      // axes, where close bubble points' labels would overlap each other and the curves
+      if (pb.value !== null || annotateBubble) {
         data.push({
           type: "scatter",
           mode: "markers",
-          name: "Bubble point",
+          name: annotateBubble
+            ? plotText(
+                `pb ${formatPlotValue(pb.pressure)} ${units.pressure} (${name})`,
+              )
+            : "Bubble point",
           legendgroup: group,
-          showlegend: false,
+          showlegend: annotateBubble,
           x: [pb.pressure],
           y: [pb.value],
           marker: {
@@ -522,27 +639,9 @@ export function slicesFigure(input: SlicesInput): Figure {
             `<br>pb ${formatPlotValue(pb.pressure)} ${plotText(units.pressure)}<br>${tLine}<br>${plotText(input.valueLabel)} %{y:${NUM}} ${plotText(units.value)}<extra></extra>`,
         } satisfies Partial<ScatterData>);
       }
-      if (annotateBubble) {
-        annotations.push({
-          text: plotText(
-            `pb ${formatPlotValue(pb.pressure)} ${units.pressure}`,
-          ),
-          xref: "x",
-          yref: "paper",
-          x: pb.pressure,
-          y: 1 - 0.075 * bubbleIndex,
-          xanchor: "left",
-          yanchor: "top",
-          xshift: 3,
-          showarrow: false,
-          font: { size: 11, color: many ? colour : INK, family: FONT.family },
-          bgcolor: "rgba(255,255,255,0.85)",
-        });
-        bubbleIndex++;
-      }
     }
   }
-  if (anyBubble) {
+  if (anyBubble && !annotateBubble) {
     data.push({
       type: "scatter",
       mode: "markers",
@@ -563,13 +662,18 @@ export function slicesFigure(input: SlicesInput): Figure {
   const queries: QueryPoint[] = input.queryPoints ?? [];
   if (queries.length > 0) {
     // labelled once (on the first sample's curve); the other samples' markers say which point they are on hover
-    const all = series.flatMap((s, k) =>
-      evaluateQueries(s.grid, queries, method, input.degree).map((q) => ({
+    // each point sits only on its own slice: a series' curve at the point's temperature (none when no curve is)
+    const all = series.flatMap((s, k) => {
+      const cut = curves.filter((c) => c.k === k).map((c) => c.t);
+      const own = queries.filter((q) =>
+        cut.some((t) => sameTemperature(q.temperature, t, s.grid.temperatures)),
+      );
+      return evaluateQueries(s.grid, own, method, input.degree).map((q) => ({
         q,
         s,
         labelled: k === 0,
-      })),
-    );
+      }));
+    });
     const shown = all.filter(({ q }) => q.value !== null);
     const groups = [
       {

@@ -22,7 +22,7 @@ export function DiffByPropertyTable({
   byProperty: DisplayRevisionDiff["byProperty"];
 }) {
   return (
-    <div className="mt-3 inline-block overflow-x-auto rounded-lg border border-line bg-panel">
+    <div className="relative mt-3 inline-block overflow-x-auto rounded-lg border border-line bg-panel">
       <table className="text-sm" data-testid="diff-summary">
         <caption className="sr-only">Differences by property</caption>
         <thead className="bg-surface text-left text-ink-muted">
@@ -90,7 +90,7 @@ export function DiffCellTable({
           <summary className="cursor-pointer text-sm text-accent">
             {total <= OPEN_LIMIT ? "Cells" : `Show all ${total} cells`}
           </summary>
-          <div className="mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
+          <div className="relative mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
             <table className="w-full text-sm" data-testid={`diff-${kind}`}>
               <thead className="bg-surface text-left text-ink-muted">
                 <tr>

@@ -71,7 +71,7 @@ export function GridTable({
   const flagged = Object.keys(grid.marks).length;
   return (
     <div
-      className="overflow-x-auto rounded-lg border border-line bg-panel"
+      className="relative overflow-x-auto rounded-lg border border-line bg-panel"
       data-testid={`grid-${grid.property}`}
     >
       <table className="w-full text-sm">
@@ -184,7 +184,7 @@ export function BubblePointTable({
   }
   return (
     <div
-      className="inline-block overflow-x-auto rounded-lg border border-line bg-panel"
+      className="relative inline-block overflow-x-auto rounded-lg border border-line bg-panel"
       data-testid="bubble-points"
     >
       <table className="text-sm">

@@ -79,7 +79,7 @@ export function GuideBlocks({ blocks }: { blocks: GuideBlock[] }) {
             return (
               <pre
                 key={k}
-                className="overflow-x-auto rounded border border-line bg-surface p-3 font-mono text-xs leading-relaxed"
+                className="relative overflow-x-auto rounded border border-line bg-surface p-3 font-mono text-xs leading-relaxed"
               >
                 {b.text}
               </pre>
@@ -88,7 +88,7 @@ export function GuideBlocks({ blocks }: { blocks: GuideBlock[] }) {
             return (
               <div
                 key={k}
-                className="overflow-x-auto rounded border border-line"
+                className="relative overflow-x-auto rounded border border-line"
               >
                 <table className="w-full text-left text-xs">
                   <thead className="bg-surface">

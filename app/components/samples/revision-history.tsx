@@ -31,7 +31,7 @@ export function RevisionHistory({
         Every upload is a new revision; revisions never change. The current
         tables are those of the latest approved one.
       </p>
-      <div className="mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
+      <div className="relative mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
         <table className="w-full text-sm">
           <caption className="sr-only">
             Revisions of {sampleLabel}, newest first

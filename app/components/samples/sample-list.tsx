@@ -139,7 +139,7 @@ export function SampleListTable({
   units,
 }: Pick<SampleListView, "query" | "rows" | "units">) {
   return (
-    <div className="mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
+    <div className="relative mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
       <table className="w-full text-sm">
         <caption className="sr-only">Samples, sortable by each column</caption>
         <thead className="bg-surface text-left text-ink-muted">

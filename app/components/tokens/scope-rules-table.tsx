@@ -3,7 +3,7 @@ import { API_SCOPE_RULES } from "~/utils/api-scopes";
 /** The one table of scope rules (app/utils/api-scopes.ts), as the API enforces it. */
 export function ScopeRulesTable() {
   return (
-    <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
+    <div className="relative mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
       <table className="w-full text-sm">
         <caption className="px-3 pt-3 text-left font-semibold">
           What each scope allows

@@ -27,7 +27,7 @@ export function TokenTable({
   seeAll: boolean;
 }) {
   return (
-    <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
+    <div className="relative mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
       <table className="w-full text-sm">
         <caption className="sr-only">
           {seeAll ? "All API tokens" : "Your API tokens"}

@@ -25,7 +25,9 @@ export type InterpolationErrorCode =
   /** the point lies outside the measured range and `extrapolate` is not set */
   | "out-of-range"
   /** missing cells (null) or an empty branch leave no measured values around the point */
-  | "no-valid-zone";
+  | "no-valid-zone"
+  /** extrapolation is allowed, but the point lies farther outside the range than `maxExtrapolation` */
+  | "extrapolation-too-far";
 
 export class InterpolationError extends Error {
   readonly code: InterpolationErrorCode;

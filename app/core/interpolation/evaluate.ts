@@ -5,7 +5,13 @@ import { evaluateGeneral, stencilLists } from "./general";
 import { fastKernel } from "./kernels";
 import type { Plan } from "./plan";
 import { finishAlternatives } from "./plan";
-import type { BatchResult, Point, Result, Stencil } from "./types";
+import type {
+  BatchResult,
+  Point,
+  Result,
+  Stencil,
+  StencilColumn,
+} from "./types";
 import { W_OVERSHOOT, warningsFromFlags } from "./warnings";
 
 /** Evaluates points [from, to) of ps/ts into `out` from index outOffset. */
@@ -15,7 +21,7 @@ export function evaluateRange(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -23,7 +29,7 @@ export function evaluateRange(
   let kernel = plan.kernel;
   if (kernel === undefined) kernel = plan.kernel = fastKernel(plan);
   if (kernel) {
-    kernel(plan, ps, ts, from, to, extrapolate, out, outOffset, batch);
+    kernel(plan, ps, ts, from, to, reach, out, outOffset, batch);
     const tb = plan.newton;
     if (tb) {
       // zone sizes are the same for every point on a complete grid
@@ -42,6 +48,14 @@ export function evaluateRange(
           outOffset + to - from,
         );
       }
+      const refused = out.refusals;
+      if (refused) {
+        for (let o = outOffset; o < outOffset + to - from; o++)
+          if (refused[o] !== 0) {
+            out.pressureCount[o] = 0;
+            out.temperatureCount[o] = 0;
+          }
+      }
     }
   } else {
     for (let idx = from; idx < to; idx++) {
@@ -49,7 +63,7 @@ export function evaluateRange(
         plan,
         ps[idx]!,
         ts[idx]!,
-        extrapolate,
+        reach,
         out,
         outOffset + idx - from,
         batch ? idx : -1,
@@ -98,7 +112,7 @@ function badPoint(
 export function evaluatePoint(
   plan: Plan,
   point: Point,
-  extrapolate: boolean,
+  reach: number,
   pointIndex: number,
 ): Result {
   checkPoint(point, pointIndex);
@@ -109,7 +123,7 @@ export function evaluatePoint(
     plan.singleT[0] = point.temperature;
     const out = plan.single;
     out.alternatives = null;
-    kernel(plan, plan.singleP, plan.singleT, 0, 1, extrapolate, out, 0, false);
+    kernel(plan, plan.singleP, plan.singleT, 0, 1, reach, out, 0, false);
     const tb = plan.newton;
     if (tb) {
       out.pressureCount[0] = tb.p.valueTerms;
@@ -125,7 +139,7 @@ export function evaluatePoint(
     plan.singleT,
     0,
     1,
-    extrapolate,
+    reach,
     plan.single,
     0,
     false,
@@ -156,13 +170,19 @@ function span(start: number, count: number): number[] {
 function toResult(plan: Plan): Result {
   const buf = plan.single;
   const flags = buf.warnings[0]!;
-  const stencil: Stencil =
-    plan.kernel !== null
-      ? {
-          pressure: span(buf.pressureStart[0]!, buf.pressureCount[0]!),
-          temperature: span(buf.temperatureStart[0]!, buf.temperatureCount[0]!),
-        }
-      : stencilLists(plan);
+  let stencil: Stencil;
+  if (plan.kernel !== null) {
+    // complete grid, no bubble points: every column of the zone uses the same rows
+    const pressure = span(buf.pressureStart[0]!, buf.pressureCount[0]!);
+    const temperature = span(
+      buf.temperatureStart[0]!,
+      buf.temperatureCount[0]!,
+    );
+    const columns = new Array<StencilColumn>(temperature.length);
+    for (let c = 0; c < temperature.length; c++)
+      columns[c] = { temperature: temperature[c]!, pressure };
+    stencil = { pressure, temperature, columns };
+  } else stencil = stencilLists(plan);
   const result: Result = {
     value: buf.values[0]!,
     errorEstimate: buf.errorEstimates[0]!,

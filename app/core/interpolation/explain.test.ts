@@ -53,7 +53,10 @@ describe("explanation (reference: from memory — the divided differences of x²
     expect(e.stepTwo.dividedDifferences).toEqual([[2.25, 3.25], [1]]);
     expect(e.value).toBe(2.75);
     expect(e.errorParts.pressure).toBe(0);
-    expect(e.stencil).toEqual({ pressure: [0, 1, 2], temperature: [0, 1] });
+    expect(e.stencil).toMatchObject({
+      pressure: [0, 1, 2],
+      temperature: [0, 1],
+    });
   });
 
   test("the explanation agrees with interpolateGrid", () => {
@@ -65,11 +68,15 @@ describe("explanation (reference: from memory — the divided differences of x²
       expect(e.errorEstimate).toBeCloseTo(r.errorEstimate, 13);
       expect(e.warnings).toEqual(r.warnings);
       expect(e.stencil).toEqual(r.stencil);
-      // the error estimate is the sum of its parts
+      // the error estimate is made of its parts (README "Error estimate")
+      const parts = e.errorParts;
+      expect(parts.growth).toBe(1);
+      expect(parts.factor).toBeGreaterThanOrEqual(2);
       expect(
-        e.errorParts.pressure +
-          e.errorParts.temperature +
-          e.errorParts.rounding,
+        parts.growth *
+          (parts.factor * (parts.pressure + parts.temperature) +
+            parts.floor +
+            parts.rounding),
       ).toBeCloseTo(e.errorEstimate, 15);
       expect(e.errorParts.rounding).toBeGreaterThan(0);
       expect(isPlainData(e)).toBe(true);

@@ -57,7 +57,20 @@ export type Explanation = {
   stepTwo: ExplanationStep;
   value: number;
   errorEstimate: number;
-  errorParts: { pressure: number; temperature: number; rounding: number };
+  /**
+   * errorEstimate = growth × (factor × (pressure + temperature) + floor + rounding): the raw corrections
+   * along each axis, the method's safety factor, the floor from the data's printed resolution, the
+   * rounding of the arithmetic, and the growth outside the table (1 inside). NaN estimate and growth when
+   * the table says nothing in a direction (`estimate-unavailable`). README "Error estimate".
+   */
+  errorParts: {
+    pressure: number;
+    temperature: number;
+    factor: number;
+    floor: number;
+    rounding: number;
+    growth: number;
+  };
   warnings: Warning[];
   stencil: Stencil;
   alternative: { method: "pchip"; value: number } | null;
@@ -116,12 +129,16 @@ export function explainInterpolation(
     stepTwo: null,
     errorPressure: 0,
     errorTemperature: 0,
+    errorFactor: 0,
+    errorFloor: 0,
+    errorRounding: 0,
+    errorGrowth: 1,
   };
   evaluateGeneral(
     plan,
     point.pressure,
     point.temperature,
-    opts.extrapolate,
+    opts.reach,
     plan.single,
     0,
     -1,
@@ -159,7 +176,10 @@ export function explainInterpolation(
     errorParts: {
       pressure,
       temperature,
-      rounding: errorEstimate - pressure - temperature,
+      factor: trace.errorFactor,
+      floor: trace.errorFloor,
+      rounding: trace.errorRounding,
+      growth: trace.errorGrowth,
     },
     warnings: warningsFromFlags(flags),
     stencil: stencilLists(plan),

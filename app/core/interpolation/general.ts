@@ -8,14 +8,29 @@ import { InterpolationError } from "./errors";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
 import { pchipCell, pchipOut } from "./pchip";
 import type { Plan } from "./plan";
-import { alternativesOf, getPlan, overshootTolerance, STRIDE } from "./plan";
+import {
+  alternativesOf,
+  getPlan,
+  overshootTolerance,
+  refusePoint,
+  STRIDE,
+} from "./plan";
 import type { BranchNodes, PreparedGrid } from "./prepare";
-import { checkRange } from "./range";
-import type { BatchResult } from "./types";
+import { checkRange, R_NO_VALID_ZONE, snapped } from "./range";
+import {
+  ESTIMATE_CALIBRATION,
+  estimateFactor,
+  estimateInfo,
+  extrapolatedEstimate,
+  extrapolationOut,
+} from "./estimate";
+import type { BatchResult, Stencil, StencilColumn } from "./types";
 import {
   W_BRANCH_EXTRAPOLATED,
   W_BUBBLE_POINT_EXTRAPOLATED,
   W_DEGREE_REDUCED,
+  W_ESTIMATE_UNAVAILABLE,
+  W_ESTIMATE_UNRELIABLE,
   W_EXTRAPOLATED,
   W_MISSING_DATA,
   W_OVERSHOOT,
@@ -54,16 +69,25 @@ export type Trace = {
   stepTwo: TraceStep | null;
   errorPressure: number;
   errorTemperature: number;
+  /** The calibration applied to the raw parts (README "Error estimate"). */
+  errorFactor: number;
+  errorFloor: number;
+  errorRounding: number;
+  errorGrowth: number;
 };
 
 const STATUS = ["inside", "branch-extrapolated", "extrapolated"] as const;
 
-/** Evaluates one point; writes entry `o` of `out`. pointIndex < 0 for a single point. */
+/**
+ * Evaluates one point; writes entry `o` of `out`. pointIndex < 0 for a single point (a point that cannot
+ * be served throws); pointIndex ≥ 0 in the typed batch path (such a point is refused: see `refusePoint`).
+ * `reach` as in range.ts `checkRange`.
+ */
 export function evaluateGeneral(
   plan: Plan,
-  p: number,
-  t: number,
-  extrapolate: boolean,
+  p0: number,
+  t0: number,
+  reach: number,
   out: BatchResult,
   o: number,
   pointIndex: number,
@@ -72,7 +96,20 @@ export function evaluateGeneral(
   const prep = plan.prep;
   const sc = plan.scratch;
   const { M, T } = prep;
-  let flags = plan.constFlags | checkRange(prep, p, t, extrapolate, pointIndex);
+  const refuse = pointIndex >= 0;
+  const extrapolate = reach > 0;
+  const range = checkRange(prep, p0, t0, reach, pointIndex, refuse);
+  if (range < 0) {
+    refusePoint(out, o, -range);
+    return;
+  }
+  let flags = plan.constFlags | range;
+  // snapping (README, "Snapping"): a coordinate within the tolerance of an axis end is that end (done by
+  // checkRange); within the tolerance of a column's first or last measured node, of the first or last
+  // usable column, or of the bubble point, it counts as on that node (inside, on the node's branch)
+  const p = snapped.p;
+  const t = snapped.t;
+  const pTol = prep.pSnap;
 
   let b = 0;
   sc.pbStar = NaN;
@@ -81,7 +118,7 @@ export function evaluateGeneral(
     sc.pbStar = pb;
     if (t < prep.bubble.knownLo || t > prep.bubble.knownHi)
       flags |= W_BUBBLE_POINT_EXTRAPOLATED;
-    b = p <= pb ? 1 : 2;
+    b = p <= pb + pTol ? 1 : 2;
   }
   sc.branch = b;
   const br = prep.branches[b]!;
@@ -93,11 +130,11 @@ export function evaluateGeneral(
     const cnt = br.off[j + 1]! - off;
     if (cnt === 0) continue;
     let status = 0;
-    if (p < br.x[off]!) {
+    if (p < br.x[off]! - pTol) {
       if (br.bubbleFirst[j]) status = 1;
       else if (extrapolate) status = 2;
       else continue;
-    } else if (p > br.x[off + cnt - 1]!) {
+    } else if (p > br.x[off + cnt - 1]! + pTol) {
       if (br.bubbleLast[j]) status = 1;
       else if (extrapolate) status = 2;
       else continue;
@@ -107,10 +144,21 @@ export function evaluateGeneral(
     sc.status[nu] = status;
     nu++;
   }
-  if (nu === 0 || ((t < sc.ux[0]! || t > sc.ux[nu - 1]!) && !extrapolate)) {
+  const tTol = prep.tSnap;
+  const tOutside =
+    nu > 0 && (t < sc.ux[0]! - tTol || t > sc.ux[nu - 1]! + tTol);
+  if (nu === 0 || (tOutside && !extrapolate)) {
+    if (refuse) {
+      if (out.branches) out.branches[o] = b;
+      refusePoint(out, o, R_NO_VALID_ZONE);
+      return;
+    }
     throw noValidZone(prep, br, b, p, t, nu, sc.ux, pointIndex);
   }
-  if (t < sc.ux[0]! || t > sc.ux[nu - 1]!) flags |= W_EXTRAPOLATED;
+  if (tOutside) flags |= W_EXTRAPOLATED;
+  // one usable column and another temperature, or (below) a zone column with a single node on this
+  // branch and another pressure: the table says nothing about the error in that direction
+  let silent = nu === 1 && Math.abs(t - sc.ux[0]!) > tTol;
 
   const isNewton = plan.method !== "pchip";
   let value: number;
@@ -130,6 +178,7 @@ export function evaluateGeneral(
       sc.tx[c] = sc.ux[u]!;
       const zone = c < vT;
       if (zone) flags |= statusFlag(sc.status[u]!);
+      if (zone && singleNodeElsewhere(br, j, p)) silent = true;
       flags |= newtonColumn(plan, br, j, p, c, zone);
       if (zone) scale += Math.abs(sc.r[c]!);
       if (trace)
@@ -182,6 +231,7 @@ export function evaluateGeneral(
     for (let u = uLo; u <= uHi; u++) {
       const j = sc.usable[u]!;
       flags |= statusFlag(sc.status[u]!);
+      if (singleNodeElsewhere(br, j, p)) silent = true;
       const c = u - uLo;
       const off = br.off[j]!;
       const cnt = br.off[j + 1]! - off;
@@ -218,15 +268,36 @@ export function evaluateGeneral(
   if (!prep.complete && idealZoneHasGap(plan, br, p, t))
     flags |= W_MISSING_DATA;
 
+  // the calibrated estimate (estimate.ts): factor × raw parts + rounding floor, grown outside the table
+  const info = estimateInfo(prep);
+  const cell = prep.pAxis.cell(p) + prep.tAxis.cell(t) * info.cellsP;
+  const factor = estimateFactor(plan.method, plan.m);
+  const floor = ESTIMATE_CALIBRATION.floor * info.floor[cell]!;
+  const rounding = 4 * Number.EPSILON * (scale + Math.abs(value));
+  let err = factor * (Math.abs(errP) + Math.abs(errT)) + floor + rounding;
+  let growth = 1;
+  flags |= info.flags[cell]!;
+  if (flags & W_MISSING_DATA) flags |= W_ESTIMATE_UNRELIABLE;
+  if (silent) {
+    err = NaN;
+    growth = NaN;
+    flags |= W_ESTIMATE_UNAVAILABLE;
+  } else if (flags & W_EXTRAPOLATED) {
+    const inside = err;
+    err = extrapolatedEstimate(prep, err, p, t);
+    flags |= extrapolationOut.flags;
+    growth = err / inside;
+  }
   if (trace) {
     trace.errorPressure = errP;
     trace.errorTemperature = errT;
+    trace.errorFactor = factor;
+    trace.errorFloor = floor;
+    trace.errorRounding = rounding;
+    trace.errorGrowth = growth;
   }
   out.values[o] = value;
-  out.errorEstimates[o] =
-    Math.abs(errP) +
-    Math.abs(errT) +
-    4 * Number.EPSILON * (scale + Math.abs(value));
+  out.errorEstimates[o] = err;
   out.warnings[o] = flags;
   if (out.branches) out.branches[o] = b;
   writeStencilSpan(plan, br, out, o);
@@ -237,9 +308,15 @@ export function evaluateGeneral(
       plan.pchipPlan = pp;
     }
     // the pchip plan has its own scratch; the stencil of this plan's scratch stays intact
-    evaluateGeneral(pp, p, t, true, pp.single, 0, -1, null);
+    evaluateGeneral(pp, p, t, Infinity, pp.single, 0, -1, null);
     alternativesOf(out)[o] = pp.single.values[0]!;
   }
+}
+
+/** Column j has a single node on this branch and p is not at it. */
+function singleNodeElsewhere(br: BranchNodes, j: number, p: number): boolean {
+  const off = br.off[j]!;
+  return br.off[j + 1]! - off === 1 && p !== br.x[off]!;
 }
 
 function statusFlag(status: number): number {
@@ -470,26 +547,36 @@ function writeStencilSpan(
   out.temperatureCount[o] = cHi - cLo + 1;
 }
 
-/** Grid rows and columns whose measured values make up the last result (for `Result.stencil`). */
-export function stencilLists(plan: Plan): {
-  pressure: number[];
-  temperature: number[];
-} {
+/**
+ * Grid rows and columns whose measured values make up the last result, and the exact cells column by
+ * column (for `Result.stencil`).
+ */
+export function stencilLists(plan: Plan): Stencil {
   const sc = plan.scratch;
   const br = plan.prep.branches[sc.branch]!;
   const rows = new Set<number>();
-  const cols: number[] = [];
+  const columns: StencilColumn[] = [];
   for (let c = 0; c < sc.nCols; c++) {
-    cols.push(sc.cols[c]!);
     const off = sc.colOff[c]!;
+    const pressure: number[] = [];
+    let bubble = false;
     for (let li = sc.vFrom[c]!; li <= sc.vTo[c]!; li++) {
       const row = br.row[off + li]!;
-      if (row >= 0) rows.add(row);
+      if (row >= 0) {
+        rows.add(row);
+        pressure.push(row);
+      } else bubble = true;
     }
+    pressure.sort((a, b) => a - b);
+    const column: StencilColumn = { temperature: sc.cols[c]!, pressure };
+    if (bubble) column.bubblePointNode = true;
+    columns.push(column);
   }
+  columns.sort((a, b) => a.temperature - b.temperature);
   return {
     pressure: [...rows].sort((a, b) => a - b),
-    temperature: cols.sort((a, b) => a - b),
+    temperature: columns.map((c) => c.temperature),
+    columns,
   };
 }
 

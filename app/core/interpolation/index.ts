@@ -20,6 +20,7 @@ const scratchOptions: NormalizedOptions = {
   m: 1,
   n: 1,
   extrapolate: false,
+  reach: 0,
 };
 
 export type {
@@ -32,6 +33,7 @@ export type {
   PointColumns,
   Result,
   Stencil,
+  StencilColumn,
 } from "./types";
 export { InterpolationError } from "./errors";
 export type { InterpolationErrorCode } from "./errors";
@@ -43,6 +45,12 @@ export {
 } from "./warnings";
 export type { Warning } from "./warnings";
 export { DEFAULT_DEGREE, MAX_DEGREE } from "./validate";
+export {
+  DEFAULT_MAX_EXTRAPOLATION,
+  REFUSAL_CODES,
+  SNAP_RELATIVE,
+} from "./range";
+export type { RefusalCode } from "./range";
 export { explainInterpolation } from "./explain";
 export type { Explanation, ExplanationNode, ExplanationStep } from "./explain";
 
@@ -54,7 +62,7 @@ export function interpolateGrid(
 ): Result {
   const opts = normalizeOptions(options, scratchOptions);
   const plan = getPlan(prepareGrid(grid), opts.method, opts.m, opts.n);
-  return evaluatePoint(plan, point, opts.extrapolate, -1);
+  return evaluatePoint(plan, point, opts.reach, -1);
 }
 
 /**
@@ -90,7 +98,7 @@ export function interpolateGridMany(
     const list: readonly Point[] = points;
     return list.map((point, i) => {
       try {
-        return evaluatePoint(plan, point, opts.extrapolate, i);
+        return evaluatePoint(plan, point, opts.reach, i);
       } catch (e) {
         // name the point in errors raised without its index (range, missing data)
         if (
@@ -141,6 +149,7 @@ export function interpolateGridMany(
     }
     out = reuse;
     out.alternatives = null;
+    out.refusals = null;
   }
   evaluateRange(
     plan,
@@ -148,7 +157,7 @@ export function interpolateGridMany(
     temperatures,
     0,
     pressures.length,
-    opts.extrapolate,
+    opts.reach,
     out,
     0,
     true,

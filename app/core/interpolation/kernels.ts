@@ -6,10 +6,22 @@
 import type { AxisIndex } from "./axis";
 import { pchipCell, pchipOut } from "./pchip";
 import type { Kernel, Plan } from "./plan";
-import { alternativesOf, getPlan, overshootTolerance } from "./plan";
-import { checkRange } from "./range";
+import {
+  alternativesOf,
+  getPlan,
+  overshootTolerance,
+  refusePoint,
+} from "./plan";
+import { checkRange, snapped } from "./range";
 import type { BatchResult } from "./types";
 import { W_EXTRAPOLATED, W_OVERSHOOT } from "./warnings";
+import {
+  ESTIMATE_CALIBRATION,
+  estimateFactor,
+  estimateInfo,
+  extrapolatedEstimate,
+  extrapolationOut,
+} from "./estimate";
 
 /**
  * The fast kernel for a plan, or null when the general evaluator must be used. The Newton kernels leave
@@ -57,7 +69,7 @@ function runNewtonFast(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -84,13 +96,26 @@ function runNewtonFast(
   const eps4 = 4 * Number.EPSILON;
   const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
     out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = plan.constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     // overshoot is judged between the zone's nodes only; outside the table a steady rise continues
     const checkOvershoot = newton && (flags & W_EXTRAPOLATED) === 0;
@@ -150,8 +175,17 @@ function runNewtonFast(
 
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] =
-      Math.abs(dP) + Math.abs(dT) + eps4 * (scale + Math.abs(value));
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (Math.abs(dP) + Math.abs(dT)) +
+      share * floorOf[cell]! +
+      eps4 * (scale + Math.abs(value));
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
@@ -204,7 +238,7 @@ function runNewton11(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -232,13 +266,26 @@ function runNewton11(
   const eps4 = 4 * Number.EPSILON;
   const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
     out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     let b = Math.floor((p - pLo) * pScale);
     b = b < 0 ? 0 : b > pLast ? pLast : b;
@@ -279,10 +326,17 @@ function runNewton11(
 
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] =
-      Math.abs(dP) +
-      Math.abs(dT) +
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (Math.abs(dP) + Math.abs(dT)) +
+      share * floorOf[cell]! +
       eps4 * (Math.abs(r0) + Math.abs(r1) + Math.abs(value));
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
@@ -296,7 +350,7 @@ function runNewton33(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -326,13 +380,26 @@ function runNewton33(
   const eps4 = 4 * Number.EPSILON;
   const { values, errorEstimates, warnings, pressureStart, temperatureStart } =
     out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
 
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     let b = Math.floor((p - pLo) * pScale);
     b = b < 0 ? 0 : b > pLast ? pLast : b;
@@ -437,7 +504,17 @@ function runNewton33(
       Math.abs(value);
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = Math.abs(dP) + Math.abs(dT) + eps4 * scale;
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (Math.abs(dP) + Math.abs(dT)) +
+      share * floorOf[cell]! +
+      eps4 * scale;
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     pressureStart[o] = pStart[varP]!;
     temperatureStart[o] = tStart[varT]!;
@@ -455,7 +532,7 @@ function pchipAt(plan: Plan, p: number, t: number): BatchResult {
   }
   pp.singleP[0] = p;
   pp.singleT[0] = t;
-  runPchipFast(pp, pp.singleP, pp.singleT, 0, 1, true, pp.single, 0, false);
+  runPchipFast(pp, pp.singleP, pp.singleT, 0, 1, Infinity, pp.single, 0, false);
   return pp.single;
 }
 
@@ -466,7 +543,7 @@ function runPchipFast(
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -490,12 +567,25 @@ function runPchipFast(
     temperatureStart,
     temperatureCount,
   } = out;
+  const est = estimateInfo(prep);
+  const fac = estimateFactor(plan.method, plan.m);
+  const share = ESTIMATE_CALIBRATION.floor;
+  const floorOf = est.floor;
+  const cellFlags = est.flags;
+  const cellsP = est.cellsP;
   for (let idx = from; idx < to; idx++) {
-    const p = ps[idx]!;
-    const t = ts[idx]!;
+    let p = ps[idx]!;
+    let t = ts[idx]!;
     let flags = plan.constFlags;
     if (!(p >= pLo && p <= pHi && t >= tLo && t <= tHi)) {
-      flags |= checkRange(prep, p, t, extrapolate, batch ? idx : -1);
+      const f = checkRange(prep, p, t, reach, batch ? idx : -1, batch);
+      if (f < 0) {
+        refusePoint(out, outOffset + idx - from, -f);
+        continue;
+      }
+      flags |= f;
+      p = snapped.p;
+      t = snapped.t;
     }
     const kp = cellIn(pAxis, p);
     const kt = cellIn(tAxis, t);
@@ -581,7 +671,17 @@ function runPchipFast(
     }
     const o = outOffset + idx - from;
     values[o] = value;
-    errorEstimates[o] = eP + Math.abs(eT) + eps4 * (scale + Math.abs(value));
+    const cell = kp + kt * cellsP;
+    let err =
+      fac * (eP + Math.abs(eT)) +
+      share * floorOf[cell]! +
+      eps4 * (scale + Math.abs(value));
+    flags |= cellFlags[cell]!;
+    if (flags & W_EXTRAPOLATED) {
+      err = extrapolatedEstimate(prep, err, p, t);
+      flags |= extrapolationOut.flags;
+    }
+    errorEstimates[o] = err;
     warnings[o] = flags;
     const pS = kp > 0 ? kp - 1 : 0;
     pressureStart[o] = pS;

@@ -137,14 +137,18 @@ type Scratch = {
   idealCol: Int32Array;
 };
 
-/** A fast evaluator of points [from, to) into `out` from index outOffset (see kernels.ts). */
+/**
+ * A fast evaluator of points [from, to) into `out` from index outOffset (see kernels.ts). `reach` as in
+ * range.ts `checkRange`; `batch`: the typed batch path, where a point that cannot be served is refused
+ * (see `refusePoint`) instead of throwing.
+ */
 export type Kernel = (
   plan: Plan,
   ps: Float64Array,
   ts: Float64Array,
   from: number,
   to: number,
-  extrapolate: boolean,
+  reach: number,
   out: BatchResult,
   outOffset: number,
   batch: boolean,
@@ -228,6 +232,22 @@ export function finishAlternatives(
     if ((out.warnings[k]! & W_OVERSHOOT) === 0) alt[k] = out.values[k]!;
 }
 
+/**
+ * Marks entry o of a batch as refused with `code` (range.ts REFUSAL_CODES, 1-based); the refusals array
+ * is created on the first refusal, so a batch where every point is served never allocates it.
+ */
+export function refusePoint(out: BatchResult, o: number, code: number): void {
+  (out.refusals ??= new Uint8Array(out.count))[o] = code;
+  out.values[o] = NaN;
+  out.errorEstimates[o] = NaN;
+  out.warnings[o] = 0;
+  out.pressureStart[o] = 0;
+  out.pressureCount[o] = 0;
+  out.temperatureStart[o] = 0;
+  out.temperatureCount[o] = 0;
+  if (out.branches && code !== 2) out.branches[o] = 0;
+}
+
 export function allocateBatch(
   count: number,
   withBranches: boolean,
@@ -236,13 +256,14 @@ export function allocateBatch(
     count,
     values: new Float64Array(count),
     errorEstimates: new Float64Array(count),
-    warnings: new Uint8Array(count),
+    warnings: new Uint16Array(count),
     alternatives: null,
     pressureStart: new Int32Array(count),
     pressureCount: new Uint8Array(count),
     temperatureStart: new Int32Array(count),
     temperatureCount: new Uint8Array(count),
     branches: withBranches ? new Uint8Array(count) : null,
+    refusals: null,
   };
 }
 

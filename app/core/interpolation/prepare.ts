@@ -2,6 +2,7 @@
 // Indices are in range by construction.
 import { AxisIndex } from "./axis";
 import { dividedDifferences, newtonOut, newtonTerms } from "./newton";
+import { snapTolerance } from "./range";
 import type { Grid } from "./types";
 import { validateGrid } from "./validate";
 
@@ -49,6 +50,9 @@ export type PreparedGrid = {
   readonly complete: boolean;
   readonly pAxis: AxisIndex;
   readonly tAxis: AxisIndex;
+  /** Snap tolerances of the two axes (see range.ts, `snapTolerance`). */
+  readonly pSnap: number;
+  readonly tSnap: number;
   readonly bubble: BubbleInfo | null;
   /** Bubble points were given, but every entry is null. */
   readonly bubbleUnknown: boolean;
@@ -135,6 +139,8 @@ function buildPrepared(grid: Grid): PreparedGrid {
     complete,
     pAxis: new AxisIndex(P),
     tAxis: new AxisIndex(T),
+    pSnap: snapTolerance(P),
+    tSnap: snapTolerance(T),
     bubble,
     bubbleUnknown,
     branches,

@@ -28,16 +28,42 @@ export type Options = {
   degree?: number | [number, number];
   /** Allow points outside the measured range; the result then carries the `extrapolated` warning. */
   extrapolate?: boolean;
+  /**
+   * With `extrapolate`: the farthest a point may lie outside the measured range, per axis, as a fraction
+   * of that axis' measured span (default 0.25; Infinity = no limit). Farther points are refused with
+   * `extrapolation-too-far`. An axis with a single node has no span: only the other axis is limited.
+   */
+  maxExtrapolation?: number;
 };
 
-/** Grid indices of the measured nodes whose values make up the result (see README, "Stencil"). */
-export type Stencil = { pressure: number[]; temperature: number[] };
+/**
+ * Grid indices of the measured nodes whose values make up the result (see README, "Stencil"):
+ * `pressure` every grid row used by some column, `temperature` every grid column used, and `columns` the
+ * exact cells, column by column (ascending temperature index): with missing cells or bubble points a
+ * column may use its own rows. Every listed cell (pressure[i], temperature j) was measured. A column whose
+ * zone includes an inserted bubble-point node (pb between two grid rows: not a grid cell) says so with
+ * `bubblePointNode: true`. Arrays may be shared between the fields of one result: treat them as read-only.
+ */
+export type Stencil = {
+  pressure: number[];
+  temperature: number[];
+  columns: StencilColumn[];
+};
+
+export type StencilColumn = {
+  /** Grid column index. */
+  temperature: number;
+  /** Grid row indices of the measured cells of this column that were used, ascending. */
+  pressure: number[];
+  /** Present when this column also used its bubble-point node inserted between grid rows. */
+  bubblePointNode?: true;
+};
 
 export type Branch = "saturated" | "undersaturated";
 
 export type Result = {
   value: number;
-  /** Always ≥ 0 and finite; see README, "Error estimate". */
+  /** ≥ 0; NaN only with the `estimate-unavailable` warning (the table says nothing that way). README "Error estimate". */
   errorEstimate: number;
   stencil: Stencil;
   warnings: Warning[];
@@ -67,16 +93,21 @@ export type PointColumns = {
  *   is exactly the zone of the zone rule. With missing cells or bubble points a column may use its own
  *   nodes inside that span; ask `interpolateGrid` for the exact list of one point.
  * - `branches`: with bubble points, 1 = saturated, 2 = undersaturated per point; otherwise null.
+ * - `refusals`: null when every point was served; otherwise per point 0 = served, k = the code
+ *   REFUSAL_CODES[k − 1] ("out-of-range", "no-valid-zone", "extrapolation-too-far"). A refused point has
+ *   value and error estimate NaN, no warnings, a stencil of count 0 and (with bubble points) the branch it
+ *   was on when the refusal concerns a branch, else 0.
  */
 export type BatchResult = {
   count: number;
   values: Float64Array;
   errorEstimates: Float64Array;
-  warnings: Uint8Array;
+  warnings: Uint16Array;
   alternatives: Float64Array | null;
   pressureStart: Int32Array;
   pressureCount: Uint8Array;
   temperatureStart: Int32Array;
   temperatureCount: Uint8Array;
   branches: Uint8Array | null;
+  refusals: Uint8Array | null;
 };

@@ -1,3 +1,4 @@
+import { DEFAULT_MAX_EXTRAPOLATION } from "./range";
 import { formatInMessage } from "../format";
 import { describeBadNumber, InterpolationError } from "./errors";
 import type { Grid, Method, Options } from "./types";
@@ -142,6 +143,8 @@ export type NormalizedOptions = {
   m: number;
   n: number;
   extrapolate: boolean;
+  /** 0 without `extrapolate`; otherwise `maxExtrapolation` (see range.ts, `checkRange`). */
+  reach: number;
 };
 
 function checkDegree(d: unknown, what: string): number {
@@ -168,6 +171,7 @@ export function normalizeOptions(
     m: 1,
     n: 1,
     extrapolate: false,
+    reach: 0,
   },
 ): NormalizedOptions {
   if (typeof options !== "object" || options === null) {
@@ -206,10 +210,25 @@ export function normalizeOptions(
       `extrapolate must be true or false; got ${describeBadNumber(extrapolate)}.`,
     );
   }
+  const max: unknown = options.maxExtrapolation;
+  if (
+    max !== undefined &&
+    (typeof max !== "number" || Number.isNaN(max) || !(max > 0))
+  ) {
+    throw new InterpolationError(
+      "invalid-options",
+      `maxExtrapolation must be a number above 0 (a fraction of the axis span, Infinity for no limit); got ${describeBadNumber(max)}.`,
+      { maxExtrapolation: max },
+    );
+  }
   if (method === "linear") m = n = 1;
   into.method = method;
   into.m = m;
   into.n = n;
   into.extrapolate = extrapolate === true;
+  into.reach =
+    extrapolate === true
+      ? ((max as number | undefined) ?? DEFAULT_MAX_EXTRAPOLATION)
+      : 0;
   return into;
 }

@@ -10,11 +10,13 @@ export const WARNING_CODES = [
   "branch-extrapolated",
   "bubble-point-extrapolated",
   "bubble-point-unknown",
+  "estimate-unavailable",
+  "estimate-unreliable",
 ] as const;
 
 export type Warning = (typeof WARNING_CODES)[number];
 
-/** Bit of each warning in `BatchResult.warnings`. */
+/** Bit of each warning in `BatchResult.warnings` (a Uint16Array; engine bits stay below 1 << 12). */
 export const WARNING_FLAGS = {
   extrapolated: 1,
   "degree-reduced": 2,
@@ -23,6 +25,8 @@ export const WARNING_FLAGS = {
   "branch-extrapolated": 16,
   "bubble-point-extrapolated": 32,
   "bubble-point-unknown": 64,
+  "estimate-unavailable": 128,
+  "estimate-unreliable": 256,
 } as const satisfies Record<Warning, number>;
 
 export const W_EXTRAPOLATED = WARNING_FLAGS.extrapolated;
@@ -33,6 +37,8 @@ export const W_BRANCH_EXTRAPOLATED = WARNING_FLAGS["branch-extrapolated"];
 export const W_BUBBLE_POINT_EXTRAPOLATED =
   WARNING_FLAGS["bubble-point-extrapolated"];
 export const W_BUBBLE_POINT_UNKNOWN = WARNING_FLAGS["bubble-point-unknown"];
+export const W_ESTIMATE_UNAVAILABLE = WARNING_FLAGS["estimate-unavailable"];
+export const W_ESTIMATE_UNRELIABLE = WARNING_FLAGS["estimate-unreliable"];
 
 const DESCRIPTIONS: Record<Warning, string> = {
   extrapolated:
@@ -49,6 +55,10 @@ const DESCRIPTIONS: Record<Warning, string> = {
     "The bubble-point pressure at this temperature was extrapolated, because bubble points are known only for temperatures on one side of it.",
   "bubble-point-unknown":
     "Bubble points were supplied but none is known, so the table was interpolated as if it had no bubble point. A zone may straddle the bubble point.",
+  "estimate-unavailable":
+    "The table says nothing about how the property changes in this direction (for example a single temperature column and a different temperature, or a point above the bubble point where no undersaturated values were measured), so no error estimate can be given. The value is a guess; do not rely on it.",
+  "estimate-unreliable":
+    "The error estimate may understate the real error here: the point is extrapolated, lies next to cells that were not measured, or the values change slope sharply (a kink, such as an unmarked bubble point). Treat the value and its estimate with caution.",
 };
 
 export function describeWarning(warning: Warning): string {

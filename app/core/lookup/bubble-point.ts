@@ -86,6 +86,9 @@ export function bubblePointsAt(
       method,
       degree: [1, method === "linear" ? 1 : temperatureDegree],
       extrapolate: true,
+      // the engine extrapolates pb(T) along temperature without limit: a point's own distance from the
+      // measured temperatures is judged by the lookup itself
+      maxExtrapolation: Infinity,
     },
   );
   return out.values;

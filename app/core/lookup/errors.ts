@@ -1,5 +1,8 @@
 /**
- * The one error type the lookup throws. `code` is stable and machine-readable (for API problem details and
+ * The one error type the lookup throws. runLookup and runLookupColumns throw it only for a malformed request
+ * (options, points, too many points) or an unusable grid; a point that cannot be served is refused in place
+ * (`refused` on its result), and OUT_OF_RANGE, NO_VALID_ZONE and EXTRAPOLATION_TOO_FAR describe such a
+ * point (`toLookupError`, used for the refusal messages and by the tables). `code` is stable and machine-readable (for API problem details and
  * tests); `message` is written for a person and gives numbers in the caller's units.
  */
 export type LookupErrorCode =
@@ -16,7 +19,9 @@ export type LookupErrorCode =
   /** a point lies outside the measured pressure or temperature range and extrapolation was not asked for */
   | "OUT_OF_RANGE"
   /** missing cells or an empty branch leave no measured values around a point */
-  | "NO_VALID_ZONE";
+  | "NO_VALID_ZONE"
+  /** a point lies farther outside the measured range than `maxExtrapolation` allows */
+  | "EXTRAPOLATION_TOO_FAR";
 
 export class LookupError extends Error {
   readonly code: LookupErrorCode;

@@ -2,6 +2,7 @@
 // Pure TypeScript (no framework, no I/O). See README.md in this folder.
 export {
   describeLookupMethod,
+  MAX_EXTRAPOLATION_LIMIT,
   MAX_LOOKUP_POINTS,
   normalizeLookupOptions,
   runLookup,
@@ -16,14 +17,33 @@ export type {
   LookupPointColumns,
   LookupPointResult,
   LookupPoints,
+  LookupRefusal,
   LookupResult,
   LookupStencil,
+  LookupStencilColumn,
   LookupSummary,
   LookupUnitLabels,
   NormalizedLookupOptions,
   UnitContext,
 } from "./run-lookup";
-export { LOOKUP_METHODS, lookupCanonical, METHOD_CODES } from "./compute";
+export {
+  engineOptions,
+  LOOKUP_METHODS,
+  lookupCanonical,
+  METHOD_CODES,
+} from "./compute";
+export {
+  engineRefusal,
+  isPossible,
+  LOOKUP_REFUSAL_CODES,
+  PHYSICAL_LIMITS,
+  refusalCode,
+  REFUSED_IMPOSSIBLE,
+  REFUSED_NO_VALUES,
+  REFUSED_OUTSIDE,
+  REFUSED_TOO_FAR,
+} from "./refusals";
+export type { LookupRefusalCode } from "./refusals";
 export type {
   CanonicalLookup,
   CanonicalOptions,
@@ -37,9 +57,14 @@ export {
   describeWarningCode,
   expandWarningFlags,
   isLookupWarning,
+  LOOKUP_ONLY_WARNING_CODES,
   LOOKUP_WARNING_CODES,
+  LOOKUP_WARNING_FLAGS,
   lookupWarningsFromFlags,
+  NEAR_BUBBLE_POINT,
+  NEAR_BUBBLE_POINT_FRACTION,
   PCHIP_FALLBACK,
+  W_NEAR_BUBBLE_POINT,
   W_PCHIP_FALLBACK,
 } from "./warnings";
 export type { LookupWarning } from "./warnings";
@@ -48,7 +73,7 @@ export {
   fromCanonicalWith,
   toCanonicalWith,
 } from "./unit-map";
-export type { Affine } from "./unit-map";
+export type { Affine, UnitBasis } from "./unit-map";
 export {
   describeValue,
   nestedDeeperThan,

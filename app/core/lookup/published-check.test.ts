@@ -44,8 +44,8 @@ describe("lookup vs the correlations behind the sample (oil #1, Ahmed Table 2-1)
         // measured worst ratios: under 3 two grid steps or more from pb, 10 near it (the kink makes the local
         // polynomial's own estimate less sure there); the floor covers values exact by definition (Rs above pb)
         const allowed =
-          (near ? 15 : 5) * r.errorEstimate + 1e-9 * Math.abs(truth);
-        expect(Math.abs(r.value - truth)).toBeLessThanOrEqual(allowed);
+          (near ? 15 : 5) * r.errorEstimate! + 1e-9 * Math.abs(truth);
+        expect(Math.abs(r.value! - truth)).toBeLessThanOrEqual(allowed);
       });
     },
   );
@@ -59,8 +59,8 @@ describe("lookup vs the correlations behind the sample (oil #1, Ahmed Table 2-1)
     ).results[0]!;
     // pb(T) is interpolated along temperature through the columns' bubble points: 250 °F is off the grid
     expect(Math.abs(r.bubblePointPressure! - pb)).toBeLessThan(0.01);
-    expect(Math.abs(r.value - 1.506)).toBeLessThanOrEqual(
-      0.002 + r.errorEstimate,
+    expect(Math.abs(r.value! - 1.506)).toBeLessThanOrEqual(
+      0.002 + r.errorEstimate!,
     );
   });
 
@@ -78,6 +78,6 @@ describe("lookup vs the correlations behind the sample (oil #1, Ahmed Table 2-1)
       { method: "auto", property: "solution_gor", units: "field" },
     ).results[0]!;
     expect(r.branch).toBe("saturated");
-    expect(Math.abs(r.value - 838)).toBeLessThanOrEqual(2 + r.errorEstimate);
+    expect(Math.abs(r.value! - 838)).toBeLessThanOrEqual(2 + r.errorEstimate!);
   });
 });

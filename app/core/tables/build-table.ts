@@ -8,11 +8,14 @@ import type { Branch, Grid } from "../interpolation";
 import {
   bubblePointsAt,
   describeLookupMethod,
+  engineOptions,
+  engineRefusal,
   expandWarningFlags,
   isLookupError,
   lookupCanonical,
   METHOD_CODES,
   normalizeLookupOptions,
+  refusalCode,
   toLookupError,
   unitContext,
   type LookupMethod,
@@ -449,9 +452,32 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
       methods: Uint8Array;
     }
   >();
+  // The table keeps its own rules for values beyond the data (order corrections, Rs ≥ 0, positive values)
+  // and extrapolates without the lookup's distance limit; a refused row (outside the range without
+  // extrapolation, or no measured values around it) refuses the table with the engine's reason, as before.
+  const canonical = {
+    ...opts,
+    maxExtrapolation: Infinity,
+    property: undefined,
+  };
   for (const key of columns) {
     try {
-      const r = lookupCanonical(grids[key]!, ps, ts, opts);
+      const r = lookupCanonical(grids[key]!, ps, ts, canonical);
+      const refused = r.refusals ? r.refusals.findIndex((k) => k !== 0) : -1;
+      if (refused >= 0) {
+        throw (
+          engineRefusal(
+            grids[key]!,
+            ps[refused]!,
+            ts[refused]!,
+            engineOptions(canonical),
+            refused,
+          ) ??
+          new Error(
+            `Row ${refused + 1} of ${COLUMN_INFO[key].name} was refused (${refusalCode(r.refusals![refused]!)}) although the engine serves it on its own.`,
+          )
+        );
+      }
       raw.set(key, {
         values: Array.from(r.values),
         errors: r.errorEstimates,

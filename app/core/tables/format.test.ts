@@ -258,13 +258,13 @@ describe("JSON", () => {
     expect(metric.rows[c.row]!.corrected).toContain(c.column);
   });
 
-  test("error estimates are given per value, in the value's unit (3 significant digits)", () => {
+  test("error estimates are given per value, in the value's unit (2 significant digits)", () => {
     const row = json.rows[5]!;
     for (const key of TABLE_COLUMNS)
       expect(row.errorEstimates[key]).toBeGreaterThanOrEqual(0);
     const cell = table.rows[5]!.cells.gas_fvf!;
     expect(row.errorEstimates.gas_fvf).toBe(
-      Number((cell.errorEstimate * 5.614583333333333).toPrecision(3)),
+      Number((cell.errorEstimate * 5.614583333333333).toPrecision(2)),
     );
   });
 });

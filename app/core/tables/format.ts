@@ -50,7 +50,8 @@ export const TABLE_CAUTION =
 /** Significant digits of every value unless a column needs more to keep neighbouring rows apart. */
 export const BASE_DIGITS = 7;
 const MAX_DIGITS = 17;
-const ERROR_DIGITS = 3;
+/** Error estimates carry two significant digits (the format module's rule). */
+const ERROR_DIGITS = 2;
 
 /** Plain ASCII unit labels for CSV headers and the text layout (the catalogue ids, except temperatures). */
 function asciiUnit(id: string): string {

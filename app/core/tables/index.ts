@@ -1,5 +1,6 @@
 // Black-oil style tables at one temperature, resampled on requested pressures, in the order simulators
-// need, and written as JSON, CSV or our own plain text layout. Pure TypeScript; see README.md.
+// need, and written as JSON, CSV or our own plain text layout; lookups and tables as spreadsheet sheets
+// (sheet.ts). Pure TypeScript; see README.md.
 export {
   MAX_TABLE_ROWS,
   parsePressureSpec,
@@ -33,6 +34,7 @@ export type {
   BlackOilTableJsonRow,
   TableFormatOptions,
 } from "./format";
+export { measuredTablePressures } from "./defaults";
 export { COLUMN_INFO, OIL_COLUMNS, TABLE_COLUMNS } from "./columns";
 export type { ColumnInfo, TableColumnKey } from "./columns";
 export { findOrderViolations } from "./check-order";
@@ -45,4 +47,16 @@ export {
 } from "./order";
 export type { OrderOptions } from "./order";
 export { isTableError, TableError } from "./errors";
+export {
+  DEFAULT_EXPORT_DIGITS,
+  lookupSheet,
+  roundCondition,
+  measuredDigits,
+  roundEstimate,
+  roundForExport,
+  sheetToDelimited,
+  tableSheet,
+  UTF8_BOM,
+} from "./sheet";
+export type { ExportPoint, LookupSheetInput, Sheet, SheetCell } from "./sheet";
 export type { TableErrorCode } from "./errors";

@@ -7,12 +7,14 @@ import {
   defineStandardConditions,
   gasVolumeRebaseFactor,
   rebaseStandardVolume,
+  standardConditionsLabel,
 } from "./standard-conditions";
 import { convert } from "./catalogue";
 import {
   CANONICAL_UNIT_SYSTEM,
   FIELD_UNIT_SYSTEM,
   METRIC_UNIT_SYSTEM,
+  canonicalUnitSystemOn,
   convertBetweenSystems,
   propertyUnit,
 } from "./unit-systems";
@@ -144,4 +146,31 @@ test("unit systems: canonical, field and metric presets map every property; conv
       METRIC_UNIT_SYSTEM,
     ),
   ).toBe(1.474);
+});
+
+test("a recorded base is named by its preset, else in °F and psia; the canonical units can sit on any base", () => {
+  expect(
+    standardConditionsLabel({ pressurePsia: 14.65, temperatureF: 60 }),
+  ).toBe("60 °F, 14.65 psia");
+  expect(
+    standardConditionsLabel({
+      pressurePsia: 101.325 / 6.894757293168,
+      temperatureF: 59,
+    }),
+  ).toBe("15 °C, 101.325 kPa");
+  expect(
+    standardConditionsLabel({ pressurePsia: 14.5, temperatureF: 68 }),
+  ).toBe("68 °F, 14.5 psia");
+  expect(canonicalUnitSystemOn(FIELD_STANDARD_CONDITIONS)).toBe(
+    CANONICAL_UNIT_SYSTEM,
+  );
+  const on1465 = canonicalUnitSystemOn({
+    pressurePsia: 14.65,
+    temperatureF: 60,
+  });
+  expect(on1465.units).toBe(CANONICAL_UNIT_SYSTEM.units);
+  // 768 scf/STB at 14.65 psia = 768 × 14.65/14.696 at 14.696 psia (ideal gas, same temperature)
+  expect(
+    convertBetweenSystems(768, "gas_oil_ratio", on1465, FIELD_UNIT_SYSTEM),
+  ).toBeCloseTo((768 * 14.65) / 14.696, 10);
 });

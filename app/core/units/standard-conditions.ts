@@ -12,9 +12,16 @@
  *   V₂ = V₁ · (p₁/p₂) · (T₂/T₁)   (absolute p and T).
  * The oil-volume reference shift (60 °F vs 15 °C stock-tank oil) is neglected, as is usual.
  */
+import { formatPlain } from "../format";
 import { RANKINE_OFFSET } from "./definitions";
 import { UnitError } from "./errors";
 import { toCanonical, type UnitId } from "./catalogue";
+
+/** The two numbers of a base: absolute pressure (psia) and temperature (°F). A sample records these. */
+export type ReferenceConditions = {
+  readonly pressurePsia: number;
+  readonly temperatureF: number;
+};
 
 export interface StandardConditions {
   readonly id: string;
@@ -103,7 +110,9 @@ export function defineStandardConditions(input: {
   });
 }
 
-export function assertStandardConditions(sc: StandardConditions): void {
+export function assertStandardConditions(
+  sc: ReferenceConditions & { readonly id?: string; readonly label?: string },
+): void {
   if (!Number.isFinite(sc.pressurePsia) || sc.pressurePsia <= 0) {
     throw new UnitError(
       "INVALID_STANDARD_CONDITIONS",
@@ -127,8 +136,8 @@ export function assertStandardConditions(sc: StandardConditions): void {
  * conditions (ideal gas): V_to = V_from × factor.
  */
 export function gasVolumeRebaseFactor(
-  from: StandardConditions,
-  to: StandardConditions,
+  from: ReferenceConditions,
+  to: ReferenceConditions,
 ): number {
   assertStandardConditions(from);
   assertStandardConditions(to);
@@ -147,8 +156,8 @@ export function gasVolumeRebaseFactor(
 export function rebaseStandardVolume(
   value: number,
   quantity: "gas_oil_ratio" | "gas_fvf",
-  from: StandardConditions,
-  to: StandardConditions,
+  from: ReferenceConditions,
+  to: ReferenceConditions,
 ): number {
   if (!Number.isFinite(value)) {
     throw new UnitError(
@@ -159,4 +168,23 @@ export function rebaseStandardVolume(
   }
   const f = gasVolumeRebaseFactor(from, to);
   return quantity === "gas_oil_ratio" ? value * f : value / f;
+}
+
+/** The preset a recorded base matches (within 0.001 psi and 0.001 °F), if any. */
+export function standardConditionsPreset(
+  sc: ReferenceConditions,
+): StandardConditions | undefined {
+  return STANDARD_CONDITIONS_PRESETS.find(
+    (p) =>
+      Math.abs(p.pressurePsia - sc.pressurePsia) < 1e-3 &&
+      Math.abs(p.temperatureF - sc.temperatureF) < 1e-3,
+  );
+}
+
+/** How a base is named to people: its preset's label ("15 °C, 101.325 kPa"), else "60 °F, 14.5 psia". */
+export function standardConditionsLabel(sc: ReferenceConditions): string {
+  return (
+    standardConditionsPreset(sc)?.label ??
+    `${formatPlain(sc.temperatureF)} °F, ${formatPlain(sc.pressurePsia)} psia`
+  );
 }

@@ -16,6 +16,8 @@ import {
   FIELD_STANDARD_CONDITIONS,
   METRIC_STANDARD_CONDITIONS,
   rebaseStandardVolume,
+  standardConditionsLabel,
+  type ReferenceConditions,
   type StandardConditions,
 } from "./standard-conditions";
 
@@ -35,6 +37,32 @@ export const CANONICAL_UNIT_SYSTEM: UnitSystem = Object.freeze({
   units: CANONICAL_UNITS,
   standardConditions: FIELD_STANDARD_CONDITIONS,
 });
+
+/**
+ * The canonical units with the gas volumes referred to another base: how a sample's stored values read. Rs and
+ * Bg are stored in scf/STB and rb/scf but on the report's own standard conditions (an upload converts units,
+ * never the base), so converting them out starts from this system, not from CANONICAL_UNIT_SYSTEM.
+ */
+export function canonicalUnitSystemOn(base: ReferenceConditions): UnitSystem {
+  const sc = CANONICAL_UNIT_SYSTEM.standardConditions;
+  if (
+    base.pressurePsia === sc.pressurePsia &&
+    base.temperatureF === sc.temperatureF
+  )
+    return CANONICAL_UNIT_SYSTEM;
+  const label = standardConditionsLabel(base);
+  return Object.freeze({
+    id: "canonical",
+    label: `${CANONICAL_UNIT_SYSTEM.label} (${label})`,
+    units: CANONICAL_UNITS,
+    standardConditions: Object.freeze({
+      id: `report_${base.temperatureF}f_${base.pressurePsia}psia`,
+      label,
+      pressurePsia: base.pressurePsia,
+      temperatureF: base.temperatureF,
+    }),
+  });
+}
 
 export const FIELD_UNIT_SYSTEM: UnitSystem = Object.freeze({
   id: "field",

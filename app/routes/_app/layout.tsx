@@ -1,4 +1,5 @@
-import { Form, href, NavLink, Outlet } from "react-router";
+import { useState } from "react";
+import { Form, href, NavLink, Outlet, useLocation } from "react-router";
 import { requireUser } from "~/.server/auth/guards";
 import { getEnv } from "~/.server/env";
 import { EstimateCaution } from "~/components/estimate-caution";
@@ -19,6 +20,10 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
 
 export default function AppLayout({ loaderData }: Route.ComponentProps) {
   const { user, mailCapture } = loaderData;
+  // Phones: the menu is folded behind a button, and folds again on the next page (it is open for one pathname).
+  const { pathname } = useLocation();
+  const [menuOpenAt, setMenuOpenAt] = useState<string | null>(null);
+  const menuOpen = menuOpenAt === pathname;
   const nav = [
     { to: href("/samples"), label: "Samples" },
     { to: href("/lookup"), label: "Lookup" },
@@ -50,43 +55,58 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
             <img src="/favicon.svg" alt="" className="h-6 w-6" />
             Isopleth
           </NavLink>
-          <nav aria-label="Main" className="flex flex-wrap gap-1">
-            {nav.map((item) => (
-              <NavLink key={item.to} to={item.to} className={linkClass}>
-                {item.label}
-              </NavLink>
-            ))}
-          </nav>
-          {admin.length > 0 ? (
-            <nav
-              aria-label="Administration"
-              className="flex flex-wrap gap-1 border-l border-line pl-4"
-            >
-              {admin.map((item) => (
+          <button
+            type="button"
+            aria-expanded={menuOpen}
+            aria-controls="site-menu"
+            onClick={() => setMenuOpenAt(menuOpen ? null : pathname)}
+            className="ml-auto rounded border border-line px-3 py-1.5 text-sm font-semibold text-ink-muted hover:border-accent hover:text-ink sm:hidden"
+          >
+            Menu
+          </button>
+          {/* on wider screens the wrapper is not a box: its parts sit in the header's row as they always did */}
+          <div
+            id="site-menu"
+            className={`${menuOpen ? "flex" : "hidden"} w-full flex-col gap-3 pb-1 sm:contents`}
+          >
+            <nav aria-label="Main" className="flex flex-wrap gap-1">
+              {nav.map((item) => (
                 <NavLink key={item.to} to={item.to} className={linkClass}>
                   {item.label}
                 </NavLink>
               ))}
             </nav>
-          ) : null}
-          <div className="ml-auto flex items-center gap-3 text-sm">
-            <NavLink
-              to={href("/account")}
-              className="text-right leading-tight hover:underline"
-            >
-              <span className="block font-semibold">{user.name}</span>
-              <span className="block text-xs text-ink-muted">
-                {ROLE_LABELS[user.role]}
-              </span>
-            </NavLink>
-            <Form method="post" action={href("/sign-out")}>
-              <button
-                type="submit"
-                className="rounded border border-line px-3 py-1.5 font-semibold text-ink-muted hover:border-accent hover:text-ink"
+            {admin.length > 0 ? (
+              <nav
+                aria-label="Administration"
+                className="flex flex-wrap gap-1 border-line max-sm:border-t max-sm:pt-2 sm:border-l sm:pl-4"
               >
-                Sign out
-              </button>
-            </Form>
+                {admin.map((item) => (
+                  <NavLink key={item.to} to={item.to} className={linkClass}>
+                    {item.label}
+                  </NavLink>
+                ))}
+              </nav>
+            ) : null}
+            <div className="flex items-center gap-3 text-sm max-sm:border-t max-sm:border-line max-sm:pt-3 sm:ml-auto">
+              <NavLink
+                to={href("/account")}
+                className="text-right leading-tight hover:underline"
+              >
+                <span className="block font-semibold">{user.name}</span>
+                <span className="block text-xs text-ink-muted">
+                  {ROLE_LABELS[user.role]}
+                </span>
+              </NavLink>
+              <Form method="post" action={href("/sign-out")}>
+                <button
+                  type="submit"
+                  className="rounded border border-line px-3 py-1.5 font-semibold text-ink-muted hover:border-accent hover:text-ink"
+                >
+                  Sign out
+                </button>
+              </Form>
+            </div>
           </div>
         </div>
       </header>

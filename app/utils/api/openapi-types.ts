@@ -312,22 +312,23 @@ export interface paths {
     };
     /**
      * A black-oil table at one temperature, resampled on given pressures
-     * @description Pressure, Rs, Bo, oil viscosity (and Bg, gas viscosity, Z where measured); the bubble point is a row of its own; pressure strictly increasing, Rs non-decreasing, Bo decreasing above the bubble point; values corrected to keep that order are flagged. Formats: json, csv, text (comment lines starting with #, then whitespace-separated columns). A row that cannot be computed (interpolation gives no finite value, e.g. far beyond the data with extrapolation allowed) is left out, and a note `rows-not-computable` names its pressure (JSON `notes`, a `# note:` line in text and at the top of CSV); if no row can be computed the answer is 422 `not_computable`. No NaN or Infinity is ever written. An unapproved revision (asked for by a signed-in engineer, lab lead or administrator) is marked: JSON `revisionStatus`, `approved: false` and `draftWarning`; CSV and text start with a line `# UNAPPROVED DRAFT: …`; header Isopleth-Revision-Status. ETag: weak, derived from the revision and its status, the normalised query (pressures as parsed, defaults filled in), the format and the units — not from the bytes, which name their generation time — so repeating a request with If-None-Match answers 304 without building the table. Token scope: `tables:read`; the owner's current role (or the signed-in person's role) needs `export:tables`. Query strings are strict: unknown or repeated parameters and numbers not written as plain decimals are refused with 400 `invalid_query`.
+     * @description Pressure, Rs, Bo, oil viscosity (and Bg, gas viscosity, Z where measured); the bubble point is a row of its own; pressure strictly increasing, Rs non-decreasing, Bo decreasing above the bubble point; values corrected to keep that order are flagged. Formats: json, csv, text (comment lines starting with #, then whitespace-separated columns), xlsx (a spreadsheet download: headers in words with units, error estimates to two significant digits, the notes and the caution above the header). Every parameter may be left out: `GET …/table?format=text` gives the table at the sample's reservoir temperature on the measured pressures of its grids (those every grid covers unless extrapolate=true) plus the bubble point. A refusal names the parameter at fault in plain words (`detail` starts with it, `issues[].path` holds it), e.g. a sample without a reservoir temperature and no `temperature` given. A row that cannot be computed (interpolation gives no finite value, e.g. far beyond the data with extrapolation allowed) is left out, and a note `rows-not-computable` names its pressure (JSON `notes`, a `# note:` line in text and at the top of CSV); if no row can be computed the answer is 422 `not_computable`. No NaN or Infinity is ever written. An unapproved revision (asked for by a signed-in engineer, lab lead or administrator) is marked: JSON `revisionStatus`, `approved: false` and `draftWarning`; CSV and text start with a line `# UNAPPROVED DRAFT: …`; header Isopleth-Revision-Status. ETag: weak, derived from the revision and its status, the normalised query (pressures as parsed, defaults filled in), the format and the units — not from the bytes, which name their generation time — so repeating a request with If-None-Match answers 304 without building the table. Token scope: `tables:read`; the owner's current role (or the signed-in person's role) needs `export:tables`. Query strings are strict: unknown or repeated parameters and numbers not written as plain decimals are refused with 400 `invalid_query`.
      */
     get: {
       parameters: {
-        query: {
+        query?: {
           extrapolate?: "true" | "false";
-          format?: "json" | "csv" | "text";
-          /** @description auto = Newton divided differences of the given degree (default [3,3]), with the shape-preserving pchip value wherever Newton overshoots the data. */
-          method?: components["schemas"]["Method"];
-          /** @description A list `a,b,c` or `start:stop:step` (absolute pressure). */
-          pressures: string;
+          /** @description json (default), csv (ASCII headers for scripts), text (our plain layout) or xlsx (a spreadsheet download: headers in words with units, the notes and the caution above them). */
+          format?: "json" | "csv" | "text" | "xlsx";
+          /** @description auto = Newton divided differences (degree 3), with the shape-preserving pchip value wherever Newton overshoots the data; or newton, pchip, linear. */
+          method?: "auto" | "newton" | "pchip" | "linear";
+          /** @description A list `a,b,c` or `start:stop:step` (absolute pressure). Default: the measured pressures of the table's grids (without extrapolation, those every grid covers), plus the bubble point as always. */
+          pressures?: string;
           /** @description Revision number; default the latest approved one. Tokens (and people whose role may not read drafts) get approved revisions only (approved or superseded): a draft or rejected revision answers 404 `revision_not_found`, exactly as a number that does not exist, so unreleased work is neither served nor revealed. A signed-in engineer, lab lead or administrator may name a draft; the output then says it is unapproved (`revision.status`/`revisionStatus`, `approved: false`, the header Isopleth-Revision-Status, and a first line `# UNAPPROVED DRAFT: …` in CSV and text). */
           revision?: string;
-          /** @description Temperature of the table (°F field, °C metric), a plain decimal above absolute zero. */
-          temperature: string;
-          /** @description Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³. */
+          /** @description Temperature of the table (°F field, °C metric), a plain decimal above absolute zero. Default: the sample's reservoir temperature (a 400 `invalid_query` names the parameter when the sample has none on record). */
+          temperature?: string;
+          /** @description Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s. */
           units?: "field" | "metric";
         };
         header?: never;
@@ -347,6 +348,7 @@ export interface paths {
             "application/json": {
               [key: string]: unknown;
             };
+            "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet": string;
             "text/csv": string;
             "text/plain": string;
           };

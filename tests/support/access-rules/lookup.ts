@@ -16,6 +16,22 @@ export const LOOKUP_RULES: Record<string, Rule> = {
     allowed: ENGINEER_UP,
     okStatus: 404,
   },
+  // The lookup page's export (a resource route, POST): the API's rules; a body that is not the export form is a 400.
+  "routes/lookup/export.ts": {
+    kind: "api",
+    path: "/lookup/export",
+    method: "POST",
+    body: {},
+    allowed: ALL,
+    okStatus: 400,
+  },
+  // A run's export: like the set page, 404 in plain words for a set that is not the caller's.
+  "routes/lookup/sets/$setId/export.ts": {
+    kind: "page",
+    path: "/lookup/sets/999999/export?run=1&format=csv",
+    allowed: ENGINEER_UP,
+    okStatus: 404,
+  },
   "routes/_app/compare/index.tsx": {
     kind: "page",
     path: "/compare",

@@ -1,5 +1,5 @@
 import { and, desc, eq } from "drizzle-orm";
-import type { PropertyKey } from "~/core/units";
+import type { OutputSystem, PropertyKey } from "~/core/units";
 import { getDb, type Executor } from "../client";
 import { lookupRuns, lookupSets, samples } from "../schema";
 
@@ -16,6 +16,8 @@ export async function listLookupSets(userId: number, db: Executor = getDb()) {
       conditions: lookupSets.conditions,
       method: lookupSets.method,
       degree: lookupSets.degree,
+      units: lookupSets.units,
+      extrapolate: lookupSets.extrapolate,
       updatedAt: lookupSets.updatedAt,
     })
     .from(lookupSets)
@@ -45,6 +47,8 @@ export async function createLookupSet(
     conditions: { pressurePsia: number; temperatureF: number }[];
     method: string;
     degree: number | [number, number] | null;
+    units: OutputSystem;
+    extrapolate: boolean;
   },
   db: Executor = getDb(),
 ): Promise<number> {
@@ -63,7 +67,7 @@ export async function deleteLookupSet(
     .where(and(eq(lookupSets.id, id), eq(lookupSets.userId, userId)));
 }
 
-/** A run's values per property and condition (field units). */
+/** A run's values per property and condition (in the run's unit system). */
 export type LookupRunResults = (typeof lookupRuns.$inferSelect)["results"];
 
 export async function createLookupRun(
@@ -72,23 +76,59 @@ export async function createLookupRun(
     revisionId: number;
     revisionNumber: number;
     method: string;
+    degree: number | [number, number] | null;
+    extrapolate: boolean;
+    units: OutputSystem;
+    valueUnits: Record<string, string>;
     results: LookupRunResults;
     createdBy: number;
   },
   db: Executor = getDb(),
-) {
-  await db.insert(lookupRuns).values(input);
+): Promise<number> {
+  const [row] = await db.insert(lookupRuns).values(input).$returningId();
+  if (!row) throw new Error("lookup run insert returned no id");
+  return row.id;
 }
 
+const RUN_COLUMNS = {
+  id: lookupRuns.id,
+  setId: lookupRuns.setId,
+  revisionId: lookupRuns.revisionId,
+  revisionNumber: lookupRuns.revisionNumber,
+  method: lookupRuns.method,
+  degree: lookupRuns.degree,
+  extrapolate: lookupRuns.extrapolate,
+  units: lookupRuns.units,
+  valueUnits: lookupRuns.valueUnits,
+  results: lookupRuns.results,
+  createdAt: lookupRuns.createdAt,
+};
+
+/** The set's last runs, newest first. */
 export async function listLookupRuns(
   setId: number,
-  limit = 10,
+  limit = 20,
   db: Executor = getDb(),
 ) {
   return db
-    .select()
+    .select(RUN_COLUMNS)
     .from(lookupRuns)
     .where(eq(lookupRuns.setId, setId))
     .orderBy(desc(lookupRuns.createdAt), desc(lookupRuns.id))
     .limit(limit);
+}
+
+export type LookupRunRow = Awaited<ReturnType<typeof listLookupRuns>>[number];
+
+/** One run of the set, or null. */
+export async function getLookupRun(
+  setId: number,
+  runId: number,
+  db: Executor = getDb(),
+): Promise<LookupRunRow | null> {
+  const [row] = await db
+    .select(RUN_COLUMNS)
+    .from(lookupRuns)
+    .where(and(eq(lookupRuns.setId, setId), eq(lookupRuns.id, runId)));
+  return row ?? null;
 }

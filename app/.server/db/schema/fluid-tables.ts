@@ -1,4 +1,5 @@
 import {
+  boolean,
   date,
   double,
   index,
@@ -16,6 +17,7 @@ import {
   PROPERTY_KEYS,
   type PropertyKey,
 } from "../../../core/units/properties";
+import { OUTPUT_SYSTEMS } from "../../../core/units/output";
 import {
   REVISION_STATUSES,
   SAMPLE_TYPES,
@@ -241,13 +243,31 @@ export const lookupSets = mysqlTable(
       .notNull(),
     method: varchar("method", { length: 16 }).notNull(),
     degree: json("degree").$type<number | [number, number] | null>(),
+    /** The unit system the set was saved in: its runs are computed and shown in it. */
+    units: mysqlEnum("units", OUTPUT_SYSTEMS).notNull().default("field"),
+    /** Whether its runs may extrapolate; sets saved before this was recorded are off (their points outside the data are refused). */
+    extrapolate: boolean("extrapolate").notNull().default(false),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
   (t) => [index("lookup_sets_user_id_idx").on(t.userId)],
 );
 
-/** One run of a lookup set: which revision and method produced which values (canonical units). */
+/** One point of a recorded run, as the lookup answered it (a refused point: no value, and why). */
+export type LookupRunPoint = {
+  value: number | null;
+  errorEstimate: number | null;
+  warnings: string[];
+  /** The method used at this point (absent in runs recorded before it was kept). */
+  method?: string | null;
+  refused?: { code: string; message: string } | null;
+};
+
+/**
+ * One run of a lookup set: which revision, with which settings (method, degree, extrapolation, unit system),
+ * produced which values, in that unit system. Runs recorded before the settings were kept ran in field units
+ * with extrapolation on, which is what the defaults of those columns say.
+ */
 export const lookupRuns = mysqlTable(
   "lookup_runs",
   {
@@ -260,18 +280,14 @@ export const lookupRuns = mysqlTable(
     }),
     revisionNumber: int("revision_number", { unsigned: true }).notNull(),
     method: varchar("method", { length: 16 }).notNull(),
-    /** Per property, per condition: null where the value could not be computed (far outside the data). */
+    degree: json("degree").$type<number | [number, number] | null>(),
+    extrapolate: boolean("extrapolate").notNull().default(true),
+    units: mysqlEnum("units", OUTPUT_SYSTEMS).notNull().default("field"),
+    /** Per property, the unit of its values as the lookup named it (null in runs recorded before). */
+    valueUnits: json("value_units").$type<Record<string, string>>(),
+    /** Per property, per condition: value null where the point was refused or could not be computed. */
     results: json("results")
-      .$type<
-        Record<
-          string,
-          {
-            value: number | null;
-            errorEstimate: number | null;
-            warnings: string[];
-          }[]
-        >
-      >()
+      .$type<Record<string, LookupRunPoint[]>>()
       .notNull(),
     createdBy: ref("created_by").references(() => users.id, {
       onDelete: "set null",

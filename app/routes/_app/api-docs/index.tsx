@@ -51,7 +51,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
       </PageHeader>
       <section className="rounded-lg border border-line bg-panel p-5 text-sm">
         <h2 className="font-semibold">Example</h2>
-        <pre className="mt-2 overflow-x-auto rounded bg-surface p-3 text-xs">{`curl -H "Authorization: Bearer $TOKEN" "${base}/api/v1/samples"
+        <pre className="relative mt-2 overflow-x-auto rounded bg-surface p-3 text-xs">{`curl -H "Authorization: Bearer $TOKEN" "${base}/api/v1/samples"
 curl -H "Authorization: Bearer $TOKEN" "${base}/api/v1/samples/1/table?temperature=212&pressures=500:5000:250&format=text"
 curl -H "Authorization: Bearer $TOKEN" -H "Content-Type: application/json" \\
      -d '{"property":"oil_fvf","points":[{"pressure":3250,"temperature":212}]}' "${base}/api/v1/samples/1/lookup"`}</pre>
@@ -73,36 +73,39 @@ curl -H "Authorization: Bearer $TOKEN" -H "Content-Type: application/json" \\
               <p className="mt-1 text-ink-muted">{op.description}</p>
             ) : null}
             {op.parameters?.length ? (
-              <table className="mt-3 w-full">
-                <thead className="text-left text-ink-muted">
-                  <tr>
-                    <th className="py-1 pr-3 font-semibold">Parameter</th>
-                    <th className="py-1 pr-3 font-semibold">In</th>
-                    <th className="py-1 pr-3 font-semibold">Type</th>
-                    <th className="py-1 font-semibold">Description</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {op.parameters.map((p) => (
-                    <tr
-                      key={`${p.in}-${p.name}`}
-                      className="border-t border-line align-top"
-                    >
-                      <td className="py-1 pr-3 font-mono">
-                        {p.name}
-                        {p.required ? " *" : ""}
-                      </td>
-                      <td className="py-1 pr-3">{p.in}</td>
-                      <td className="py-1 pr-3 font-mono text-xs">
-                        {p.schema?.enum
-                          ? p.schema.enum.join(" | ")
-                          : (p.schema?.type ?? "")}
-                      </td>
-                      <td className="py-1">{p.description ?? ""}</td>
+              <div className="relative mt-3 overflow-x-auto">
+                {" "}
+                <table className="w-full">
+                  <thead className="text-left text-ink-muted">
+                    <tr>
+                      <th className="py-1 pr-3 font-semibold">Parameter</th>
+                      <th className="py-1 pr-3 font-semibold">In</th>
+                      <th className="py-1 pr-3 font-semibold">Type</th>
+                      <th className="py-1 font-semibold">Description</th>
                     </tr>
-                  ))}
-                </tbody>
-              </table>
+                  </thead>
+                  <tbody>
+                    {op.parameters.map((p) => (
+                      <tr
+                        key={`${p.in}-${p.name}`}
+                        className="border-t border-line align-top"
+                      >
+                        <td className="py-1 pr-3 font-mono">
+                          {p.name}
+                          {p.required ? " *" : ""}
+                        </td>
+                        <td className="py-1 pr-3">{p.in}</td>
+                        <td className="py-1 pr-3 font-mono text-xs">
+                          {p.schema?.enum
+                            ? p.schema.enum.join(" | ")
+                            : (p.schema?.type ?? "")}
+                        </td>
+                        <td className="py-1">{p.description ?? ""}</td>
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+              </div>
             ) : null}
             {op.requestBody ? (
               <details className="mt-3">

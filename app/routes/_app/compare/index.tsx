@@ -34,7 +34,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
   const compared = useMemo(() => selected.filter(isCompared), [selected]);
   const { slicesMayDraw, surfaceDrawn } = usePlotSequence(compared.length);
   const conditions = useCompareConditions(
-    () => defaultConditionsText(loaderData),
+    defaultConditionsText(loaderData),
     units.system,
   );
   const slices = useSliceTemperatures(

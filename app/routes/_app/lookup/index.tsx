@@ -1,5 +1,9 @@
 import { useMemo, useState } from "react";
-import { useFetcher, useSearchParams } from "react-router";
+import {
+  type ShouldRevalidateFunctionArgs,
+  useFetcher,
+  useSearchParams,
+} from "react-router";
 import { z } from "zod";
 import { requirePermission } from "~/.server/auth/guards";
 import { deleteLookupSet } from "~/.server/db/queries/lookup-sets";
@@ -15,6 +19,7 @@ import {
   type ExplainTarget,
 } from "~/components/lookup/explanation-panel";
 import { LookupForm } from "~/components/lookup/lookup-form";
+import { unitsInAddress } from "~/components/lookup/lookup-params";
 import { LookupPlots } from "~/components/lookup/lookup-plots";
 import { answeredRuns } from "~/components/lookup/property-run";
 import { LookupResultsTable } from "~/components/lookup/results-table";
@@ -37,7 +42,24 @@ const SetIdSchema = z.coerce.number().int().positive();
 
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "read:samples");
-  return getLookupWorkspace(user);
+  const units = unitsInAddress(new URL(args.request.url).searchParams);
+  return getLookupWorkspace(user, units ?? user.unitSystem);
+}
+
+/** The page's other choices live in its address too, but only the unit system changes what the loader lists. */
+export function shouldRevalidate({
+  currentUrl,
+  nextUrl,
+  formMethod,
+  defaultShouldRevalidate,
+}: ShouldRevalidateFunctionArgs) {
+  if (
+    !formMethod &&
+    currentUrl.pathname === nextUrl.pathname &&
+    currentUrl.searchParams.get("units") === nextUrl.searchParams.get("units")
+  )
+    return false;
+  return defaultShouldRevalidate;
 }
 
 export async function action(args: Route.ActionArgs) {
@@ -49,7 +71,8 @@ export async function action(args: Route.ActionArgs) {
       : Object.fromEntries(await readFormData(args.request))
   ) as Record<string, unknown>;
   const intent = readIntent(payload);
-  if (intent === "units") {
+  // "Make this my default": the one way this page changes the account's unit system
+  if (intent === "default-units") {
     const units = z.enum(OUTPUT_SYSTEMS).safeParse(payload.units);
     if (!units.success)
       return badRequest({ errors: { units: ["Choose field or metric."] } });
@@ -80,11 +103,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   const revision = /^[1-9][0-9]{0,14}$/.test(params.get("revision") ?? "")
     ? Number(params.get("revision"))
     : undefined;
-  const form = useLookupForm({
-    samples,
-    requestedSampleId: Number(params.get("sample")) || null,
-    unitSystem: user.unitSystem,
-  });
+  const form = useLookupForm({ samples, accountUnits: user.unitSystem });
   const lookup = useLookupRun();
   const loadGrids = useRevisionGrids();
   const [explain, setExplain] = useState<ExplainTarget | null>(null);
@@ -97,7 +116,13 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     form.changeUnits(next);
     lookup.clear();
     setExplain(null);
-    unitsFetcher.submit({ intent: "units", units: next }, { method: "post" });
+  }
+
+  function makeDefault() {
+    unitsFetcher.submit(
+      { intent: "default-units", units: form.units },
+      { method: "post" },
+    );
   }
 
   function lookUp(event: React.FormEvent) {
@@ -130,7 +155,8 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
 
   function loadSet(set: SavedLookupSet) {
     form.applySet(set);
-    changeUnits("field");
+    lookup.clear();
+    setExplain(null);
   }
 
   function saveSet() {
@@ -164,6 +190,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
           setExplain(null);
         }}
         onUnitsChange={changeUnits}
+        onMakeDefault={unitsFetcher.state === "idle" ? makeDefault : null}
         onSubmit={lookUp}
         running={lookup.running}
         onSave={canSave ? saveSet : null}
@@ -185,6 +212,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
           sampleLabel={sampleLabel}
           onExplain={(index, property) => void openExplanation(index, property)}
           elapsedMs={run.elapsedMs}
+          exportQuery={run.query}
         />
       ) : null}
       {explain ? (

@@ -121,7 +121,7 @@ export default function AuditLog({ loaderData }: Route.ComponentProps) {
         <Button type="submit">Filter</Button>
       </Form>
       <p className="mt-4 text-sm text-ink-muted">{total} entries</p>
-      <div className="mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
+      <div className="relative mt-2 overflow-x-auto rounded-lg border border-line bg-panel">
         <table className="w-full text-sm">
           <thead className="bg-surface text-left text-ink-muted">
             <tr>

@@ -160,7 +160,7 @@ export default function People({
           </Button>
         </Form>
       </section>
-      <div className="mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
+      <div className="relative mt-6 overflow-x-auto rounded-lg border border-line bg-panel">
         <table className="w-full text-sm">
           <caption className="sr-only">People with an account</caption>
           <thead className="bg-surface text-left text-ink-muted">

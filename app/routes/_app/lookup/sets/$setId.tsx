@@ -1,12 +1,21 @@
 import { Form, href, Link, useNavigation } from "react-router";
 import { requirePermission } from "~/.server/auth/guards";
 import { invariantResponse } from "~/.server/http";
-import { getLookupSetPage, runLookupSet } from "~/.server/lookup/sets";
+import {
+  getLookupSetPage,
+  runLookupSet,
+  setPageChoice,
+} from "~/.server/lookup/sets";
+import { EstimateCaution } from "~/components/estimate-caution";
 import { Button, FormAlert } from "~/components/form";
+import {
+  ComparePicker,
+  RunList,
+  SetRunCompare,
+  SetRunTable,
+} from "~/components/lookup/set-runs";
 import { PageHeader } from "~/components/page-header";
-import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { Route } from "./+types/$setId";
-import { formatDecimals, formatPlain, formatPrecision } from "~/core/format";
 
 export const meta: Route.MetaFunction = () => [
   { title: "Lookup set · Isopleth" },
@@ -24,14 +33,19 @@ function setIdFrom(params: { setId?: string }): number {
   return Number(raw);
 }
 
+/** ?run=<id> shows that run (default the latest); ?a=<id>&b=<id> compares two (default the last two). */
 export async function loader(args: Route.LoaderArgs) {
   const user = requirePermission(args, "save:lookup-sets");
-  const page = await getLookupSetPage(setIdFrom(args.params), user.id);
+  const page = await getLookupSetPage(
+    setIdFrom(args.params),
+    user.id,
+    setPageChoice(new URL(args.request.url)),
+  );
   invariantResponse(page, NO_SUCH_SET);
   return page;
 }
 
-/** Runs the set against the sample's current approved revision and records the run (values in field units). */
+/** Runs the set against the sample's current approved revision with the set's own settings, and records the run. */
 export async function action(args: Route.ActionArgs) {
   const user = requirePermission(args, "save:lookup-sets");
   const outcome = await runLookupSet(setIdFrom(args.params), user.id);
@@ -43,18 +57,18 @@ export default function LookupSetRuns({
   loaderData,
   actionData,
 }: Route.ComponentProps) {
-  const { set, sampleLabel, runs, currentRevision } = loaderData;
+  const { set, sampleLabel, runs, run, compare, currentRevision } = loaderData;
   const navigation = useNavigation();
-  const [latest, previous] = runs;
+  const setHref = href("/lookup/sets/:setId", { setId: String(set.id) });
+  const exportHref = href("/lookup/sets/:setId/export", {
+    setId: String(set.id),
+  });
   return (
     <>
       <PageHeader title={`Lookup set: ${set.name}`}>
-        {sampleLabel} · {set.conditions.length} conditions ·{" "}
-        {set.properties
-          .map((p) => PROPERTIES[p as PropertyKey].phrase)
-          .join(", ")}{" "}
-        · method {set.method}. Each run records the revision and method used;
-        values in field units (psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³).
+        {sampleLabel} · {set.conditionCount} conditions ·{" "}
+        {set.properties.join(", ")} · {set.settings.text}. Each run uses and
+        records these settings, with the revision it ran against.
       </PageHeader>
       <div className="flex flex-wrap items-center gap-3">
         <Form method="post">
@@ -77,80 +91,27 @@ export default function LookupSetRuns({
         </div>
       ) : null}
       <h2 className="mt-6 font-semibold">Runs</h2>
-      <ul className="mt-2 text-sm">
-        {runs.map((r) => (
-          <li key={r.id} className="tabular-nums">
-            {new Date(r.createdAt).toISOString().replace("T", " ").slice(0, 19)}{" "}
-            UTC — revision {r.revisionNumber}, method {r.method}
-          </li>
-        ))}
-        {runs.length === 0 ? (
-          <li className="text-ink-muted">Not run yet.</li>
-        ) : null}
-      </ul>
-      {latest ? (
-        <section className="mt-6" aria-labelledby="changes-title">
-          <h2 id="changes-title" className="font-semibold">
-            {previous
-              ? `What changed: revision ${previous.revisionNumber} → ${latest.revisionNumber}`
-              : `Latest run (revision ${latest.revisionNumber})`}
-          </h2>
-          <div className="mt-2 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
-            <table
-              className="w-full text-sm tabular-nums"
-              data-testid="set-run-table"
-            >
-              <thead className="sticky top-0 bg-surface text-ink-muted">
-                <tr>
-                  <th className="px-3 py-2 text-right font-semibold">
-                    p (psia)
-                  </th>
-                  <th className="px-3 py-2 text-right font-semibold">T (°F)</th>
-                  {Object.keys(latest.results).map((p) => (
-                    <th key={p} className="px-3 py-2 text-right font-semibold">
-                      {PROPERTIES[p as PropertyKey].phrase}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {set.conditions.map((c, i) => (
-                  <tr key={i} className="border-t border-line">
-                    <td className="px-3 py-1 text-right">
-                      {formatPrecision(c.pressurePsia, 6)}
-                    </td>
-                    <td className="px-3 py-1 text-right">
-                      {formatPrecision(c.temperatureF, 5)}
-                    </td>
-                    {Object.entries(latest.results).map(([p, values]) => {
-                      const now = values[i]?.value;
-                      const before = previous?.results[p]?.[i]?.value;
-                      const change =
-                        now != null && before != null && before !== 0
-                          ? ((now - before) / Math.abs(before)) * 100
-                          : null;
-                      return (
-                        <td key={p} className="px-3 py-1 text-right">
-                          {now === undefined || now === null
-                            ? "—"
-                            : formatPlain(now)}
-                          {change !== null ? (
-                            <span
-                              className={`ml-2 text-xs ${Math.abs(change) > 1 ? "text-caution" : "text-ink-muted"}`}
-                            >
-                              {change >= 0 ? "+" : ""}
-                              {formatDecimals(change, 2)} %
-                            </span>
-                          ) : null}
-                        </td>
-                      );
-                    })}
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
-        </section>
+      <RunList
+        runs={runs}
+        shownId={run?.id ?? null}
+        hrefOf={(id) => `${setHref}?run=${id}`}
+      />
+      {run ? (
+        <SetRunTable
+          run={run}
+          exportHref={(format) =>
+            `${exportHref}?run=${run.id}&format=${format}`
+          }
+        />
+      ) : null}
+      <ComparePicker
+        runs={runs}
+        a={compare?.a.id ?? null}
+        b={compare?.b.id ?? null}
+      />
+      {compare ? <SetRunCompare compare={compare} /> : null}
+      {run ? (
+        <EstimateCaution className="mt-4 rounded border border-caution/30 bg-caution-soft p-3 text-sm text-caution" />
       ) : null}
     </>
   );
