@@ -5,6 +5,7 @@ import {
 import { z } from "zod";
 import {
   describeWarningCode,
+  LOOKUP_REFUSAL_CODES,
   LOOKUP_WARNING_CODES,
   pointColumns,
 } from "~/core/lookup";
@@ -93,17 +94,6 @@ const MAX_LOOKUP_POINTS = 100_000;
 /** Forms of a lookup answer: one object per point (the default), or arrays per field (large batches). */
 export const LOOKUP_FORMATS = ["points", "columns"] as const;
 export type LookupFormat = (typeof LOOKUP_FORMATS)[number];
-
-/**
- * Why a point was refused. The same list as the engine's LOOKUP_REFUSAL_CODES (app/core/lookup; a unit test
- * keeps the two equal).
- */
-export const API_REFUSAL_CODES = [
-  "outside-measured-range",
-  "no-measured-values",
-  "extrapolation-too-far",
-  "impossible-value",
-] as const;
 
 const LookupFields = z.object({
   property: PropertyKeySchema.optional().openapi({
@@ -268,7 +258,7 @@ const StencilSchema = z
 
 export const RefusedSchema = z
   .object({
-    code: z.enum(API_REFUSAL_CODES),
+    code: z.enum(LOOKUP_REFUSAL_CODES),
     message: z.string().openapi({
       description:
         "In plain words, numbers in the request's units; points are counted from 1 (`Point 3` is the third point sent).",
@@ -318,7 +308,10 @@ const SummarySchema = z
   .object({
     count: z.number().int(),
     refusedCount: z.number().int(),
-    refusalCounts: z.partialRecord(z.enum(API_REFUSAL_CODES), z.number().int()),
+    refusalCounts: z.partialRecord(
+      z.enum(LOOKUP_REFUSAL_CODES),
+      z.number().int(),
+    ),
     methodCounts: z.partialRecord(UsedMethodSchema, z.number().int()),
     warningCounts: z.partialRecord(WarningSchema, z.number().int()),
   })

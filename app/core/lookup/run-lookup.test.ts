@@ -546,7 +546,7 @@ describe("errors: typed, with codes and plain messages", () => {
     ).toMatch(message);
   });
 
-  test("bad points name their index and unit", () => {
+  test("bad points name their place (counted from 1) and unit", () => {
     expect(
       code(() =>
         runLookup(
@@ -559,7 +559,7 @@ describe("errors: typed, with codes and plain messages", () => {
         ),
       ),
     ).toBe(
-      "INVALID_POINT: Point 1 has pressure NaN psia: a finite number is needed.",
+      "INVALID_POINT: Point 2 has pressure NaN psia: a finite number is needed.",
     );
     expect(
       code(() =>
@@ -570,7 +570,7 @@ describe("errors: typed, with codes and plain messages", () => {
         ),
       ),
     ).toBe(
-      "INVALID_POINT: Point 0 has pressure -5 bara: pressures are absolute and must be above zero.",
+      "INVALID_POINT: Point 1 has pressure -5 bara: pressures are absolute and must be above zero.",
     );
     expect(
       code(() =>
@@ -581,13 +581,13 @@ describe("errors: typed, with codes and plain messages", () => {
         ),
       ),
     ).toMatch(
-      /^INVALID_POINT: Point 0 has temperature -300 °C: that is at or below absolute zero\./,
+      /^INVALID_POINT: Point 1 has temperature -300 °C: that is at or below absolute zero\./,
     );
     expect(
       code(() =>
         runLookup(grid, [null as unknown as LookupPoint], options("oil_fvf")),
       ),
-    ).toMatch(/^INVALID_POINTS: Point 0 must be an object/);
+    ).toMatch(/^INVALID_POINTS: Point 1 must be an object/);
     expect(
       code(() =>
         runLookup(

@@ -450,7 +450,8 @@ function badPoint(
       : ctx.labels.temperature.symbol;
   return new LookupError(
     "INVALID_POINT",
-    `Point ${index} has ${axis} ${describe(value)} ${unit}: ${why}`,
+    // counted from 1 as the user typed them; details.pointIndex stays 0-based
+    `Point ${index + 1} has ${axis} ${describe(value)} ${unit}: ${why}`,
     {
       pointIndex: index,
       axis,
@@ -528,7 +529,7 @@ function canonicalPoints(
       if (typeof pt !== "object" || pt === null) {
         throw new LookupError(
           "INVALID_POINTS",
-          `Point ${i} must be an object { pressure, temperature }; got ${describe(pt)}.`,
+          `Point ${i + 1} must be an object { pressure, temperature }; got ${describe(pt)}.`,
           {
             pointIndex: i,
           },
