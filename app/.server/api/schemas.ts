@@ -92,7 +92,7 @@ export const SampleQuery = z.object({
 const MAX_LOOKUP_POINTS = 100_000;
 
 /** Forms of a lookup answer: one object per point (the default), or arrays per field (large batches). */
-export const LOOKUP_FORMATS = ["points", "columns"] as const;
+const LOOKUP_FORMATS = ["points", "columns"] as const;
 export type LookupFormat = (typeof LOOKUP_FORMATS)[number];
 
 const LookupFields = z.object({
@@ -256,7 +256,7 @@ const StencilSchema = z
   })
   .openapi("Stencil");
 
-export const RefusedSchema = z
+const RefusedSchema = z
   .object({
     code: z.enum(LOOKUP_REFUSAL_CODES),
     message: z.string().openapi({
