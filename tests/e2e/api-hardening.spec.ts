@@ -500,7 +500,14 @@ test.describe("item 5: no NaN or Infinity leaves the server", () => {
     await expect(page.getByText("The server could not be reached")).toHaveCount(
       0,
     );
-    await expect(page.getByText(/cannot be computed/).first()).toBeVisible();
+    // the second point, refused in its cell with the server's message (points counted from 1)
+    const refused = page
+      .getByTestId("results-table")
+      .locator("[data-refused]")
+      .first();
+    await expect(refused).toBeVisible();
+    await expect(refused).toContainText("refused");
+    await expect(refused).toContainText(/Point 2\b/);
   });
 });
 

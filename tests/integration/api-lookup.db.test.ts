@@ -8,7 +8,6 @@ import { issueApiToken } from "~/.server/api/tokens";
 import { callerContext } from "~/.server/auth/context";
 import type { Database } from "~/.server/db/client";
 import { seedDemo } from "~/.server/db/seed";
-import * as lookupLibrary from "~/core/lookup";
 import { action } from "~/routes/api/v1/samples/$sampleId/lookup";
 import { useFreshMigratedDatabase } from "../support/app-database";
 
@@ -66,9 +65,6 @@ function expectValid(validate: ValidateFunction, body: unknown) {
   const ok = validate(body);
   expect(ok ? [] : validate.errors).toEqual([]);
 }
-
-/** The engine answers refused points in place once it has per-point refusals (the shared contract). */
-const perPointRefusals = "LOOKUP_REFUSAL_CODES" in lookupLibrary;
 
 beforeAll(async () => {
   const fresh = await useFreshMigratedDatabase();
@@ -271,51 +267,44 @@ test("CSV by Accept: a byte-order mark, comment lines, a header with units and t
   });
 });
 
-test.runIf(perPointRefusals)(
-  "a point outside the measured range is refused in place; the others are served (200, not 422)",
-  async () => {
-    const points = [
-      inside[0]!,
-      { pressure: 9000, temperature: 212 },
-      inside[1]!,
-    ];
-    const response = await post({
-      properties: ["oil_fvf", "solution_gor"],
-      points,
+test("a point outside the measured range is refused in place; the others are served (200, not 422)", async () => {
+  const points = [inside[0]!, { pressure: 9000, temperature: 212 }, inside[1]!];
+  const response = await post({
+    properties: ["oil_fvf", "solution_gor"],
+    points,
+  });
+  expect(response.status).toBe(200);
+  const body = (await response.json()) as { lookups: Block[] };
+  expectValid(validJson, body);
+  for (const block of body.lookups) {
+    const [a, refused, c] = block.results;
+    expect(a!.value).not.toBeNull();
+    expect(c!.value).not.toBeNull();
+    expect(refused).toMatchObject({
+      value: null,
+      errorEstimate: null,
+      method: null,
+      stencil: null,
+      refused: { code: "outside-measured-range" },
     });
-    expect(response.status).toBe(200);
-    const body = (await response.json()) as { lookups: Block[] };
-    expectValid(validJson, body);
-    for (const block of body.lookups) {
-      const [a, refused, c] = block.results;
-      expect(a!.value).not.toBeNull();
-      expect(c!.value).not.toBeNull();
-      expect(refused).toMatchObject({
-        value: null,
-        errorEstimate: null,
-        method: null,
-        stencil: null,
-        refused: { code: "outside-measured-range" },
-      });
-      // messages count points from 1: the second point sent is "Point 2"
-      expect(refused!.refused!.message).toMatch(/Point 2\b/);
-      expect(block.summary).toMatchObject({ count: 3, refusedCount: 1 });
-    }
-    const columns = await post({
-      property: "oil_fvf",
-      points,
-      format: "columns",
-    });
-    const block = (await columns.json()) as {
-      columns: { value: unknown[]; refused: unknown[] };
-    };
-    expectValid(validColumns, block);
-    expect(block.columns.value[1]).toBeNull();
-    expect(block.columns.refused[1]).toMatchObject({
-      code: "outside-measured-range",
-    });
-  },
-);
+    // messages count points from 1: the second point sent is "Point 2"
+    expect(refused!.refused!.message).toMatch(/Point 2\b/);
+    expect(block.summary).toMatchObject({ count: 3, refusedCount: 1 });
+  }
+  const columns = await post({
+    property: "oil_fvf",
+    points,
+    format: "columns",
+  });
+  const block = (await columns.json()) as {
+    columns: { value: unknown[]; refused: unknown[] };
+  };
+  expectValid(validColumns, block);
+  expect(block.columns.value[1]).toBeNull();
+  expect(block.columns.refused[1]).toMatchObject({
+    code: "outside-measured-range",
+  });
+});
 
 test("malformed requests are refused whole with 400 and a message naming the field", async () => {
   const cases: [unknown, RegExp, (string | number)[]][] = [
@@ -373,7 +362,7 @@ test("an absolute pressure at or below zero is a malformed point: 400 naming the
   };
   expectValid(validProblem, problem);
   expect(problem.issues[0]!.path).toEqual(["points", 2]);
-  if (perPointRefusals) expect(problem.detail).toMatch(/Point 3\b/);
+  expect(problem.detail).toMatch(/Point 3\b/);
 });
 
 test("a property the revision did not measure: 404 naming it, nothing computed", async () => {

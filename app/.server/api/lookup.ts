@@ -27,7 +27,7 @@ export type LookupRequest = Omit<
 };
 
 /** A validated lookup request as the API receives it: one property or several. */
-export type ApiLookupRequest = Omit<LookupBody, "points"> & {
+type ApiLookupRequest = Omit<LookupBody, "points"> & {
   pressures: Float64Array;
   temperatures: Float64Array;
 };

@@ -5,6 +5,7 @@ import {
 import { z } from "zod";
 import {
   describeWarningCode,
+  LOOKUP_REFUSAL_CODES,
   LOOKUP_WARNING_CODES,
   pointColumns,
 } from "~/core/lookup";
@@ -91,19 +92,8 @@ export const SampleQuery = z.object({
 const MAX_LOOKUP_POINTS = 100_000;
 
 /** Forms of a lookup answer: one object per point (the default), or arrays per field (large batches). */
-export const LOOKUP_FORMATS = ["points", "columns"] as const;
+const LOOKUP_FORMATS = ["points", "columns"] as const;
 export type LookupFormat = (typeof LOOKUP_FORMATS)[number];
-
-/**
- * Why a point was refused. The same list as the engine's LOOKUP_REFUSAL_CODES (app/core/lookup; a unit test
- * keeps the two equal).
- */
-export const API_REFUSAL_CODES = [
-  "outside-measured-range",
-  "no-measured-values",
-  "extrapolation-too-far",
-  "impossible-value",
-] as const;
 
 const LookupFields = z.object({
   property: PropertyKeySchema.optional().openapi({
@@ -246,21 +236,29 @@ const StencilSchema = z
     columns: z
       .array(
         z.object({
-          temperature: z.number().int(),
-          pressure: z.array(z.number().int()),
+          temperature: z.number().int().openapi({
+            description: "Index of the grid's temperature column.",
+          }),
+          pressure: z.array(z.number().int()).openapi({
+            description: "Indices of the grid rows this column used.",
+          }),
+          bubblePointNode: z.literal(true).optional().openapi({
+            description:
+              "The column's zone also used its bubble point (a node between two grid rows, not a grid cell).",
+          }),
         }),
       )
       .optional()
       .openapi({
         description:
-          "When the temperature columns of the zone use different rows (missing cells): per column, its temperature index and the pressure indices (grid rows) it used. Every listed cell is a measured one.",
+          "Present when the temperature columns of the zone used different rows (missing cells, bubble points): per column, its index and the grid rows it used, as indices into the sample's grid (`GET /api/v1/samples/{sampleId}`). Every listed cell is a measured one.",
       }),
   })
   .openapi("Stencil");
 
-export const RefusedSchema = z
+const RefusedSchema = z
   .object({
-    code: z.enum(API_REFUSAL_CODES),
+    code: z.enum(LOOKUP_REFUSAL_CODES),
     message: z.string().openapi({
       description:
         "In plain words, numbers in the request's units; points are counted from 1 (`Point 3` is the third point sent).",
@@ -310,7 +308,10 @@ const SummarySchema = z
   .object({
     count: z.number().int(),
     refusedCount: z.number().int(),
-    refusalCounts: z.partialRecord(z.enum(API_REFUSAL_CODES), z.number().int()),
+    refusalCounts: z.partialRecord(
+      z.enum(LOOKUP_REFUSAL_CODES),
+      z.number().int(),
+    ),
     methodCounts: z.partialRecord(UsedMethodSchema, z.number().int()),
     warningCounts: z.partialRecord(WarningSchema, z.number().int()),
   })

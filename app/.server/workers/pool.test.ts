@@ -190,14 +190,17 @@ describe(
     });
 
     test("a core error thrown in the worker is rethrown as its own class with code and details", async () => {
-      const far = {
+      // a malformed point (a point outside the range is refused in place, not thrown)
+      const negative = {
         ...columns(),
-        pressures: Float64Array.of(1, 2),
+        pressures: Float64Array.of(-1, 2),
         temperatures: Float64Array.of(100, 100),
-      }; // bara, below the grid's 34 bara
-      const error = await pool.run("api-lookup", far).catch((e: unknown) => e);
+      }; // bara: absolute pressures are above zero
+      const error = await pool
+        .run("api-lookup", negative)
+        .catch((e: unknown) => e);
       expect(error).toBeInstanceOf(LookupError);
-      expect(isLookupError(error) && error.code).toBe("OUT_OF_RANGE");
+      expect(isLookupError(error) && error.code).toBe("INVALID_POINT");
       expect(isLookupError(error) && error.details.pointIndex).toBe(0);
       const table = await pool
         .run("table", {

@@ -30,6 +30,7 @@ import {
   readLookupText,
   runLookup,
   runLookupColumns,
+  LOOKUP_REFUSAL_CODES,
   type LookupColumnsResult,
   type LookupErrorCode,
   type LookupOptions,
@@ -338,16 +339,36 @@ function refusalOf(r: PointResult, index: number): ApiRefusal | undefined {
 const finiteOrNull = (x: number | null): string =>
   x !== null && Number.isFinite(x) ? String(x) : "null";
 
+/**
+ * A stencil as the API writes it: the measured pressures and temperatures of the zone (output units) and, when
+ * its temperature columns used different rows (missing cells, bubble points), `columns`: per column its grid
+ * column index and the grid rows it used (every listed cell a measured one), `bubblePointNode: true` where the
+ * column's zone also used its bubble point.
+ */
 function stencilJsonOf(stencil: LookupStencil): string {
-  const columns = (stencil as { columns?: unknown }).columns;
+  const zone = {
+    pressure: stencil.pressures,
+    temperature: stencil.temperatures,
+  };
+  const { columns } = stencil;
+  const all = stencil.pressureIndices;
+  const differ = columns.some(
+    (c) =>
+      c.bubblePointNode === true ||
+      c.pressureIndices.length !== all.length ||
+      c.pressureIndices.some((r, k) => r !== all[k]),
+  );
   return JSON.stringify(
-    columns === undefined
-      ? { pressure: stencil.pressures, temperature: stencil.temperatures }
-      : {
-          pressure: stencil.pressures,
-          temperature: stencil.temperatures,
-          columns,
-        },
+    differ
+      ? {
+          ...zone,
+          columns: columns.map((c) => ({
+            temperature: c.temperatureIndex,
+            pressure: c.pressureIndices,
+            ...(c.bubblePointNode ? { bubblePointNode: true } : {}),
+          })),
+        }
+      : zone,
   );
 }
 
@@ -433,29 +454,12 @@ export function serialiseResults(results: readonly PointResult[]): {
 }
 
 /**
- * Refusal codes of the engine's columnar form, in the order of its `refusals` (k = index + 1): the shared
- * contract's LOOKUP_REFUSAL_CODES (app/core/lookup), and the API's list (app/.server/api/schemas.ts).
- */
-const COLUMN_REFUSAL_CODES = [
-  "outside-measured-range",
-  "no-measured-values",
-  "extrapolation-too-far",
-  "impossible-value",
-] as const;
-
-/** The engine's columnar result, with the per-point refusals of the shared contract where it has them. */
-type ColumnsResult = LookupColumnsResult & {
-  refusals?: Uint8Array | null;
-  refusalMessages?: readonly (string | undefined)[] | null;
-};
-
-/**
  * The columnar answer's members `"count":…,"columns":{…}` (no braces around them), and the summary, straight
  * from the engine's typed arrays (runLookupColumns: no object per point). Numbers are written by
  * JSON.stringify of plain arrays, which writes NaN (refused, or no estimate) as null. No stencils: the
  * per-point form gives them.
  */
-export function serialiseColumns(result: ColumnsResult): {
+export function serialiseColumns(result: LookupColumnsResult): {
   json: string;
   summary: ApiLookupSummary;
 } {
@@ -484,7 +488,7 @@ export function serialiseColumns(result: ColumnsResult): {
     const why: ApiRefusal | undefined =
       k > 0
         ? {
-            code: COLUMN_REFUSAL_CODES[k - 1] ?? "impossible-value",
+            code: LOOKUP_REFUSAL_CODES[k - 1] ?? "impossible-value",
             message: refusalMessages?.[i] ?? `Point ${i + 1} was refused.`,
           }
         : Number.isFinite(v)

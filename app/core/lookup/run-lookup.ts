@@ -450,6 +450,7 @@ function badPoint(
       : ctx.labels.temperature.symbol;
   return new LookupError(
     "INVALID_POINT",
+    // counted from 1 as the user typed them; details.pointIndex stays 0-based
     `Point ${index + 1} has ${axis} ${describe(value)} ${unit}: ${why}`,
     {
       pointIndex: index,

@@ -8,7 +8,6 @@ import type { components, paths } from "./openapi-types";
 
 type Schemas = components["schemas"];
 type LookupRequest = Schemas["LookupRequest"];
-export type LookupResponse = Schemas["LookupResponse"];
 export type LookupsResponse = Schemas["LookupsResponse"];
 export type LookupBlock = Schemas["LookupBlock"];
 export type LookupResult = Schemas["LookupResult"];

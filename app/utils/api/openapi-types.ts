@@ -649,14 +649,17 @@ export interface components {
         "bubble-point-extrapolated"?: number;
         "bubble-point-unknown"?: number;
         "degree-reduced"?: number;
+        "estimate-unavailable"?: number;
+        "estimate-unreliable"?: number;
         extrapolated?: number;
         "missing-data"?: number;
+        "near-bubble-point"?: number;
         overshoot?: number;
         "pchip-fallback"?: number;
       };
     };
     /**
-     * @description `extrapolated`: The point lies outside the measured values (outside the table, or beyond the last measured cell of a column). The number is an extrapolation; treat it with suspicion. `degree-reduced`: Fewer measured points were available than the requested degree needs, so a lower-degree polynomial was used on a smaller zone. `missing-data`: Cells that were not measured (empty) lie where the zone would normally be, so the zone was moved or made smaller to avoid them. `overshoot`: The polynomial left the range of its measured values although those values rise or fall steadily. The shape-preserving (pchip) value is given alongside; prefer it unless you know the property has a maximum or minimum here. `branch-extrapolated`: The bubble point moves with temperature, so at least one neighbouring temperature column had to be continued a little past its own bubble point on the branch of this point. `bubble-point-extrapolated`: The bubble-point pressure at this temperature was extrapolated, because bubble points are known only for temperatures on one side of it. `bubble-point-unknown`: Bubble points were supplied but none is known, so the table was interpolated as if it had no bubble point. A zone may straddle the bubble point. `pchip-fallback`: Newton interpolation overshot here: its value left the range of the measured values around the point, although those values rise or fall steadily. The automatic method therefore gives the shape-preserving (pchip) value instead.
+     * @description `extrapolated`: The point lies outside the measured values (outside the table, or beyond the last measured cell of a column). The number is an extrapolation; treat it with suspicion. `degree-reduced`: Fewer measured points were available than the requested degree needs, so a lower-degree polynomial was used on a smaller zone. `missing-data`: Cells that were not measured (empty) lie where the zone would normally be, so the zone was moved or made smaller to avoid them. `overshoot`: The polynomial left the range of its measured values although those values rise or fall steadily. The shape-preserving (pchip) value is given alongside; prefer it unless you know the property has a maximum or minimum here. `branch-extrapolated`: The bubble point moves with temperature, so at least one neighbouring temperature column had to be continued a little past its own bubble point on the branch of this point. `bubble-point-extrapolated`: The bubble-point pressure at this temperature was extrapolated, because bubble points are known only for temperatures on one side of it. `bubble-point-unknown`: Bubble points were supplied but none is known, so the table was interpolated as if it had no bubble point. A zone may straddle the bubble point. `estimate-unavailable`: The table says nothing about how the property changes in this direction (for example a single temperature column and a different temperature, or a point above the bubble point where no undersaturated values were measured), so no error estimate can be given. The value is a guess; do not rely on it. `estimate-unreliable`: The error estimate may understate the real error here: the point is extrapolated, lies next to cells that were not measured, or the values change slope sharply (a kink, such as an unmarked bubble point). Treat the value and its estimate with caution. `pchip-fallback`: Newton interpolation overshot here: its value left the range of the measured values around the point, although those values rise or fall steadily. The automatic method therefore gives the shape-preserving (pchip) value instead. `near-bubble-point`: The point lies close to the bubble point at its temperature (within 2 % of it and within one pressure step of the table). The property has a kink there, so the value is sensitive to the exact bubble-point pressure.
      * @enum {string}
      */
     LookupWarning:
@@ -667,7 +670,10 @@ export interface components {
       | "branch-extrapolated"
       | "bubble-point-extrapolated"
       | "bubble-point-unknown"
-      | "pchip-fallback";
+      | "estimate-unavailable"
+      | "estimate-unreliable"
+      | "pchip-fallback"
+      | "near-bubble-point";
     /**
      * @description auto = Newton divided differences of the given degree (default [3,3]), with the shape-preserving pchip value wherever Newton overshoots the data.
      * @enum {string}
@@ -754,9 +760,16 @@ export interface components {
       well: string;
     };
     Stencil: {
-      /** @description When the temperature columns of the zone use different rows (missing cells): per column, its temperature index and the pressure indices (grid rows) it used. Every listed cell is a measured one. */
+      /** @description Present when the temperature columns of the zone used different rows (missing cells, bubble points): per column, its index and the grid rows it used, as indices into the sample's grid (`GET /api/v1/samples/{sampleId}`). Every listed cell is a measured one. */
       columns?: {
+        /**
+         * @description The column's zone also used its bubble point (a node between two grid rows, not a grid cell).
+         * @enum {boolean}
+         */
+        bubblePointNode?: true;
+        /** @description Indices of the grid rows this column used. */
         pressure: number[];
+        /** @description Index of the grid's temperature column. */
         temperature: number;
       }[];
       /** @description Measured pressures of the data zone used (output units); on an oil grid it may include the bubble point itself. */
