@@ -20,7 +20,7 @@ import type { Grid, Options } from "./types";
 import { WARNING_FLAGS } from "./warnings";
 
 /** How a laboratory prints each property (canonical units: rb/STB, scf/STB, cP, lb/ft³, rb/scf). */
-export const LAB_ROUNDING: Readonly<
+const LAB_ROUNDING: Readonly<
   Record<PropertyKey, { decimals?: number; significant?: number }>
 > = {
   oil_fvf: { decimals: 4 },
@@ -32,21 +32,21 @@ export const LAB_ROUNDING: Readonly<
   gas_viscosity: { decimals: 4 },
 };
 
-export function roundAsLab(key: PropertyKey, v: number): number {
+function roundAsLab(key: PropertyKey, v: number): number {
   const r = LAB_ROUNDING[key];
   if (r.decimals !== undefined) return Number(v.toFixed(r.decimals));
   return Number(v.toPrecision(r.significant));
 }
 
 /** Invented fluids (not measured data). */
-export const FLUIDS = [
+const FLUIDS = [
   { name: "A 35 °API", apiGravity: 35, gasGravity: 0.75, rsb: 600 },
   { name: "B 28 °API", apiGravity: 28, gasGravity: 0.85, rsb: 350 },
   { name: "C 42 °API", apiGravity: 42, gasGravity: 0.7, rsb: 1000 },
 ] as const;
 
-export const PRESSURE_STEPS = [250, 500, 1000] as const;
-export const TEMPERATURE_LAYOUTS: readonly (readonly number[])[] = [
+const PRESSURE_STEPS = [250, 500, 1000] as const;
+const TEMPERATURE_LAYOUTS: readonly (readonly number[])[] = [
   [180],
   [150, 200, 250],
   [140, 180, 220, 260],
@@ -55,7 +55,7 @@ export const TEMPERATURE_LAYOUTS: readonly (readonly number[])[] = [
 
 export type TableKind = "with-bubble-points" | "one-branch" | "gas" | "kink";
 
-export type ReferenceTable = {
+type ReferenceTable = {
   label: string;
   kind: TableKind;
   key: PropertyKey;
@@ -230,7 +230,7 @@ export const CALIBRATION_METHODS: readonly {
   { name: "pchip", options: { method: "pchip" } },
 ];
 
-export type CoverageRow = {
+type CoverageRow = {
   method: string;
   points: number;
   /** Share of points with actual error ≤ estimate, and ≤ 3 × estimate. */

@@ -103,7 +103,7 @@ export function valueResolution(V: Float64Array): Float64Array {
   return out;
 }
 
-export type EstimateInfo = {
+type EstimateInfo = {
   /** Number of pressure cells (max(1, N − 1)); cell index = kp + kt × cellsP. */
   cellsP: number;
   /** The largest resolution of a cell's measured corners (the floor is ESTIMATE_CALIBRATION.floor × it). */
@@ -252,11 +252,7 @@ function scanTurns(
  * like the node polynomial ∏|t − x_i|; this factor makes every method's estimate grow at least in
  * proportion to the distance. An axis with a single node has no width: the caller reports NaN there.
  */
-export function extrapolationGrowth(
-  prep: PreparedGrid,
-  p: number,
-  t: number,
-): number {
+function extrapolationGrowth(prep: PreparedGrid, p: number, t: number): number {
   return axisGrowth(prep.P, prep.N, p) * axisGrowth(prep.T, prep.M, t);
 }
 
@@ -268,7 +264,7 @@ function axisGrowth(x: Float64Array, n: number, v: number): number {
 }
 
 /** True when a one-node axis is asked about another coordinate: the table says nothing that way. */
-export function silentAxis(prep: PreparedGrid, p: number, t: number): boolean {
+function silentAxis(prep: PreparedGrid, p: number, t: number): boolean {
   return (prep.N === 1 && p !== prep.P[0]) || (prep.M === 1 && t !== prep.T[0]);
 }
 
