@@ -210,6 +210,7 @@ export function sampleDetailForOutput(
         pressurePsia: sample.standardPressurePsia,
         temperatureF: sample.standardTemperatureF,
       },
+      barometricPressurePsia: sample.barometricPressurePsia,
       laboratory: sample.laboratory,
       reportReference: sample.reportReference,
     },

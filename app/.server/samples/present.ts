@@ -68,6 +68,7 @@ type SampleConditions = {
   reservoirTemperatureF: number | null;
   standardPressurePsia?: number;
   standardTemperatureF?: number;
+  barometricPressurePsia?: number;
 };
 
 /** A sample's conditions in the reader's unit system, with the unit symbols beside them. */
@@ -76,6 +77,8 @@ type SampleInOutputUnits = {
   samplingDepth: number | null;
   reservoirPressure: number | null;
   reservoirTemperature: number | null;
+  /** The barometric pressure that makes the report's gauge readings absolute, in the output (absolute) unit. */
+  barometricPressure: number | null;
   /**
    * Standard conditions are a fact of the laboratory report, not a reading: they keep their canonical values
    * (the API names them in psia and °F) and are shown by their preset's name.
@@ -124,6 +127,7 @@ export function presentSample(
     ),
     reservoirPressure: orNull(sample.reservoirPressurePsia, pressure),
     reservoirTemperature: orNull(reservoirT, temperature),
+    barometricPressure: orNull(sample.barometricPressurePsia ?? null, pressure),
     standardConditions:
       sample.standardPressurePsia === undefined ||
       sample.standardTemperatureF === undefined

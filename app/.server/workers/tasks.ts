@@ -131,7 +131,13 @@ const TASKS: {
   lookup: ({ grid, points, options }) => runLookup(grid, points, options),
   table: (input) => buildBlackOilTable(input),
   "check-upload": async ({ filename, bytes, meta }) => {
-    const parsed = await parseUpload({ filename, bytes });
+    // gauge pressures are made absolute with the sample's barometric pressure (QcMeta.barometricPsia)
+    const parsed = await parseUpload(
+      { filename, bytes },
+      meta.barometricPsia !== undefined
+        ? { barometricPsia: meta.barometricPsia }
+        : {},
+    );
     if (!parsed.ok)
       return { ok: false, errors: parsed.errors, warnings: parsed.warnings };
     const findings = runQc(parsed.dataset, meta);
