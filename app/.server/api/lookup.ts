@@ -12,12 +12,47 @@ import { BUILD_ID, finiteJson, refuseNonFinite } from "./respond";
 import { isApprovedStatus } from "./samples";
 import type { LookupBody } from "./schemas";
 import { formatMilliseconds } from "~/core/format";
+import { outputUnitSystem, standardConditionsLabel } from "~/core/units";
+
+/** What a lookup needs to know of the sample: its report's standard conditions and barometric pressure. */
+export type SampleBasis = {
+  standardPressurePsia: number;
+  standardTemperatureF: number;
+  barometricPressurePsia: number;
+};
 
 /** A validated lookup request: the body's fields, its points as two columns (pressure, temperature). */
-export type LookupRequest = Omit<LookupBody, "points"> & {
+export type LookupRequest = Omit<LookupBody, "points" | "pressureBasis"> & {
   pressures: Float64Array;
   temperatures: Float64Array;
+  /** Points and pressures out as absolute (default) or gauge, with the sample's barometric pressure. */
+  pressureBasis?: LookupBody["pressureBasis"];
+  /** Rs and Bg are rebased from the sample's standard conditions to those of `units`. */
+  sample: SampleBasis;
 };
+
+/** The lookup options that come from the sample (and the request's pressure basis). */
+function sampleBasisOptions(body: LookupRequest) {
+  return {
+    standardConditions: {
+      pressurePsia: body.sample.standardPressurePsia,
+      temperatureF: body.sample.standardTemperatureF,
+    },
+    pressureBasis: body.pressureBasis ?? "absolute",
+    barometricPressurePsia: body.sample.barometricPressurePsia,
+  };
+}
+
+/** The bases of a lookup's numbers, named in the response's units block. */
+function basisLabels(body: LookupRequest) {
+  const o = sampleBasisOptions(body);
+  return {
+    standardConditions: outputUnitSystem(body.units).standardConditions.label,
+    reportStandardConditions: standardConditionsLabel(o.standardConditions),
+    pressureBasis: o.pressureBasis,
+    barometricPressurePsia: o.barometricPressurePsia,
+  };
+}
 
 /**
  * The one lookup computation: a validated request against a revision, in a worker thread when large
@@ -46,6 +81,7 @@ export async function computeLookup(
         extrapolate: body.extrapolate,
         units: body.units,
         messages: false,
+        ...sampleBasisOptions(body),
       },
     },
     options,
@@ -126,6 +162,7 @@ export async function lookupResponse(
         pressure: result.units.pressure,
         temperature: result.units.temperature,
         value: result.units.value,
+        ...basisLabels(body),
       },
     });
   } catch (error) {
@@ -140,7 +177,12 @@ export async function lookupResponse(
   ]);
   const writeMs = performance.now() - writeStarted;
   const etagStarted = performance.now();
-  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${data.status}|`).update(bodyText).digest("base64url")}"`;
+  const etag = `"${createHash("sha1")
+    .update(
+      `${BUILD_ID}|${data.revisionId}|${data.status}|${JSON.stringify(sampleBasisOptions(body))}|`,
+    )
+    .update(bodyText)
+    .digest("base64url")}"`;
   const etagMs = performance.now() - etagStarted;
   return new Response(payload, {
     status: 200,

@@ -8,6 +8,7 @@ import { REVISION_STATUSES } from "~/utils/sample-vocabulary";
 import {
   keyWithAbbreviation,
   OUTPUT_SYSTEMS,
+  PRESSURE_BASES,
   PROPERTY_KEYS,
   unitLabel,
 } from "~/core/units";
@@ -20,6 +21,10 @@ export const registry = new OpenAPIRegistry();
 const UnitsParam = z.enum(OUTPUT_SYSTEMS).default("field").openapi({
   description:
     "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
+});
+const PressureBasisParam = z.enum(PRESSURE_BASES).default("absolute").openapi({
+  description:
+    "Pressures in and out as absolute (psia, bara) or gauge (psig in field, barg in metric units). Gauge pressures are made absolute with the sample's recorded barometric pressure (`barometricPressurePsia` of the sample; default one atmosphere, 14.696 psia), named in the response's `units`.",
 });
 const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
   description: PROPERTY_KEYS.map(keyWithAbbreviation).join(", "),
@@ -101,11 +106,12 @@ export const LookupBody = z
       .max(MAX_LOOKUP_POINTS)
       .openapi({
         description:
-          "Conditions in the chosen unit system (pressure absolute).",
+          "Conditions in the chosen unit system; pressures absolute, or gauge with `pressureBasis: gauge`.",
       }),
     method: MethodSchema.default("auto"),
     degree: Degree.optional(),
     units: UnitsParam,
+    pressureBasis: PressureBasisParam,
     extrapolate: z.boolean().default(false).openapi({
       description:
         "Allow points outside the measured range; they are flagged `extrapolated`.",
@@ -197,6 +203,23 @@ const LookupResultSchema = z
   })
   .openapi("LookupResult");
 
+/** The bases of the numbers of a lookup or a table (units block). */
+const BasisLabels = {
+  standardConditions: z.string().openapi({
+    description:
+      "Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa).",
+  }),
+  reportStandardConditions: z.string().openapi({
+    description:
+      "The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased).",
+  }),
+  pressureBasis: z.enum(PRESSURE_BASES),
+  barometricPressurePsia: z.number().openapi({
+    description:
+      "The sample's barometric pressure, psia: gauge pressure + this = absolute pressure.",
+  }),
+};
+
 export const LookupResponse = z
   .object({
     sampleId: z.number(),
@@ -221,9 +244,12 @@ export const LookupResponse = z
     }),
     units: z.object({
       system: z.enum(OUTPUT_SYSTEMS),
-      pressure: z.string(),
+      pressure: z.string().openapi({
+        description: "psia or bara; psig or barg with `pressureBasis: gauge`.",
+      }),
       temperature: z.string(),
       value: z.string(),
+      ...BasisLabels,
     }),
     results: z.array(LookupResultSchema),
   })

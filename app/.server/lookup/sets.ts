@@ -14,9 +14,10 @@ import {
 } from "~/.server/samples/revision-data";
 import { isLookupError } from "~/core/lookup";
 import {
-  fromInputPressure,
+  fromInputPressureOn,
   fromInputTemperature,
   OUTPUT_SYSTEMS,
+  PRESSURE_BASES,
   PROPERTIES,
   PROPERTY_KEYS,
 } from "~/core/units";
@@ -40,6 +41,8 @@ export const SaveLookupSetSchema = z.object({
   sampleId: z.coerce.number().int().positive(),
   properties: z.array(z.enum(PROPERTY_KEYS)).min(1),
   units: z.enum(OUTPUT_SYSTEMS),
+  /** Gauge conditions are made absolute with the sample's barometric pressure before they are saved. */
+  pressureBasis: z.enum(PRESSURE_BASES).default("absolute"),
   method: z.enum(["auto", "newton", "pchip", "linear"]),
   degree: z
     .tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])
@@ -61,6 +64,16 @@ export async function saveLookupSet(
   userId: number,
   input: SaveLookupSetInput,
 ): Promise<string> {
+  const sample =
+    input.pressureBasis === "gauge"
+      ? await getSampleWithPlace(input.sampleId)
+      : null;
+  const basis = {
+    pressureBasis: input.pressureBasis,
+    ...(sample
+      ? { barometricPressurePsia: sample.barometricPressurePsia }
+      : {}),
+  };
   await createLookupSet({
     userId,
     sampleId: input.sampleId,
@@ -69,7 +82,7 @@ export async function saveLookupSet(
     method: input.method,
     degree: input.degree,
     conditions: input.conditions.map((c) => ({
-      pressurePsia: fromInputPressure(c.pressure, input.units),
+      pressurePsia: fromInputPressureOn(c.pressure, input.units, basis),
       temperatureF: fromInputTemperature(c.temperature, input.units),
     })),
   });
@@ -108,7 +121,11 @@ export async function runLookupSet(
   const revision = await resolveRevision(set.sampleId);
   if (!revision)
     return { error: "The sample has no approved revision to run against." };
-  const data = await getRevisionData(revision);
+  const [data, sample] = await Promise.all([
+    getRevisionData(revision),
+    getSampleWithPlace(set.sampleId),
+  ]);
+  if (!sample) return { error: "The sample no longer exists." };
   const pressures = Float64Array.from(set.conditions, (c) => c.pressurePsia);
   const temperatures = Float64Array.from(set.conditions, (c) => c.temperatureF);
   const results: LookupRunResults = {};
@@ -124,6 +141,7 @@ export async function runLookupSet(
           degree: set.degree ?? undefined,
           extrapolate: true,
           units: "field",
+          sample,
         },
         { surface: "page" },
       );

@@ -129,6 +129,7 @@ async function lookupSampleResendingWithoutRefused(
         points: remaining.map((k) => conditions[k]!),
         method: "auto",
         units: system,
+        pressureBasis: "absolute",
         extrapolate,
       },
       signal,

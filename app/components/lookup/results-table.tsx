@@ -3,7 +3,12 @@ import { describeWarningCode, type LookupWarning } from "~/core/lookup";
 import { PROPERTIES, type PropertyKey } from "~/core/units";
 import type { LookupResult } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
-import { answeredRuns, failedRuns, type PropertyRun } from "./property-run";
+import {
+  answeredRuns,
+  failedRuns,
+  type AnsweredRun,
+  type PropertyRun,
+} from "./property-run";
 import { lookupResultsDelimited } from "./results-csv";
 import {
   NEAR_BUBBLE_POINT,
@@ -35,6 +40,19 @@ function describe(code: string): string {
   return describeWarningCode(code as LookupWarning);
 }
 
+/** The export's line naming the bases of its numbers. */
+function basesLine(bases: AnsweredRun["bases"]): string {
+  const rebased =
+    bases.reportStandardConditions === bases.standardConditions
+      ? ""
+      : ` (rebased from the report's ${bases.reportStandardConditions})`;
+  const pressures =
+    bases.pressureBasis === "gauge"
+      ? `gauge pressures: absolute = gauge + ${formatPlain(bases.barometricPressurePsia)} psia (the sample's barometric pressure)`
+      : "absolute pressures";
+  return `gas volumes (Rs, Bg) at ${bases.standardConditions}${rebased}; ${pressures}`;
+}
+
 export function LookupResultsTable({
   conditions,
   runs,
@@ -59,6 +77,7 @@ export function LookupResultsTable({
   const meta = [
     `Isopleth lookup — sample ${sampleLabel}, revision ${revisions.join(", ")}, method ${ok[0]?.methodDescription ?? method}`,
     `generated ${new Date().toISOString()}`,
+    ...(ok[0] ? [basesLine(ok[0].bases)] : []),
     CAUTION,
   ];
   const serverMs = ok.reduce(

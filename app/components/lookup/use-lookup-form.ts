@@ -1,6 +1,12 @@
 import { useState } from "react";
 import type { Method } from "~/core/interpolation";
-import { type OutputSystem, type PropertyKey, unitLabel } from "~/core/units";
+import {
+  outputPressureUnit,
+  type OutputSystem,
+  type PressureBasis,
+  type PropertyKey,
+  unitLabel,
+} from "~/core/units";
 import type { SampleSummary } from "~/utils/api/client";
 import {
   depletionPath,
@@ -69,6 +75,7 @@ export function useLookupForm({
   const [degree, setDegree] = useState<[number, number]>([3, 3]);
   const [units, setUnits] = useState<OutputSystem>(unitSystem);
   const [extrapolate, setExtrapolate] = useState(false);
+  const [pressureBasis, setPressureBasis] = useState<PressureBasis>("absolute");
 
   const sample = samples.find((s) => s.id === sampleId) ?? null;
 
@@ -114,6 +121,7 @@ export function useLookupForm({
       method,
       degree,
       units,
+      pressureBasis,
       extrapolate,
       revision,
     };
@@ -128,6 +136,7 @@ export function useLookupForm({
       sampleId: sample.id,
       properties,
       units,
+      pressureBasis,
       method,
       degree: method === "newton" ? degree : null,
       conditions: conds,
@@ -169,8 +178,10 @@ export function useLookupForm({
     changeUnits,
     extrapolate,
     setExtrapolate,
+    pressureBasis,
+    setPressureBasis,
     unitLabels: {
-      pressure: unitLabel(units, "pressure"),
+      pressure: outputPressureUnit(units, pressureBasis).symbol,
       temperature: unitLabel(units, "temperature"),
     },
     query,

@@ -1,9 +1,15 @@
 import { useState } from "react";
 import type { Method } from "~/core/interpolation";
-import type { OutputSystem, PropertyKey } from "~/core/units";
+import {
+  fromInputPressureOn,
+  toOutputPressure,
+  type OutputSystem,
+  type PressureBasis,
+  type PropertyKey,
+} from "~/core/units";
 import { postLookup, serverTimingMs } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
-import type { LookupRun, PropertyRun } from "./property-run";
+import { answeredRuns, type LookupRun, type PropertyRun } from "./property-run";
 
 /** What "Look up" asks: one sample, its properties, the conditions and the method, in the units on screen. */
 export type LookupQuery = {
@@ -13,6 +19,8 @@ export type LookupQuery = {
   method: "auto" | Method;
   degree: [number, number];
   units: OutputSystem;
+  /** Conditions typed as absolute or gauge pressures (psig, barg). */
+  pressureBasis: PressureBasis;
   extrapolate: boolean;
   /** A named revision (?revision=N); default the approved one. */
   revision: number | undefined;
@@ -38,6 +46,7 @@ export function useLookupRun() {
       );
       setRun({
         conditions: query.conditions,
+        absoluteConditions: absoluteConditions(query, runs),
         runs,
         sampleId: query.sampleId,
         units: query.units,
@@ -71,6 +80,7 @@ async function lookUpProperty(
     method: query.method,
     degree: query.method === "newton" ? query.degree : undefined,
     units: query.units,
+    pressureBasis: query.pressureBasis,
     extrapolate: query.extrapolate,
     revision: query.revision,
   });
@@ -89,11 +99,36 @@ async function lookUpProperty(
     revisionStatus: data.revisionStatus,
     approved: data.approved,
     unit: data.units.value,
+    bases: {
+      standardConditions: data.units.standardConditions,
+      reportStandardConditions: data.units.reportStandardConditions,
+      pressureBasis: data.units.pressureBasis,
+      barometricPressurePsia: data.units.barometricPressurePsia,
+    },
     methodDescription: data.methodDescription,
     degree: pairOrNull(data.degree),
     results: data.results,
     serverMs,
   };
+}
+
+/** Gauge conditions made absolute with the barometric pressure the server used (the sample's). */
+function absoluteConditions(
+  query: LookupQuery,
+  runs: readonly PropertyRun[],
+): Condition[] {
+  const barometricPressurePsia =
+    answeredRuns(runs)[0]?.bases.barometricPressurePsia;
+  if (query.pressureBasis !== "gauge" || barometricPressurePsia === undefined)
+    return query.conditions;
+  const basis = { pressureBasis: "gauge", barometricPressurePsia } as const;
+  return query.conditions.map((c) => ({
+    ...c,
+    pressure: toOutputPressure(
+      fromInputPressureOn(c.pressure, query.units, basis),
+      query.units,
+    ),
+  }));
 }
 
 /** The response's degree, a pair in the schema, reaches us typed number[] (openapi-fetch reads tuples as arrays). */

@@ -439,11 +439,17 @@ export interface components {
        */
       extrapolate: boolean;
       method?: components["schemas"]["Method"];
-      /** @description Conditions in the chosen unit system (pressure absolute). */
+      /** @description Conditions in the chosen unit system; pressures absolute, or gauge with `pressureBasis: gauge`. */
       points: {
         pressure: number;
         temperature: number;
       }[];
+      /**
+       * @description Pressures in and out as absolute (psia, bara) or gauge (psig in field, barg in metric units). Gauge pressures are made absolute with the sample's recorded barometric pressure (`barometricPressurePsia` of the sample; default one atmosphere, 14.696 psia), named in the response's `units`.
+       * @default absolute
+       * @enum {string}
+       */
+      pressureBasis: "absolute" | "gauge";
       property: components["schemas"]["PropertyKey"];
       /** @description Revision number; default the latest approved one. */
       revision?: number;
@@ -472,7 +478,16 @@ export interface components {
       revisionStatus: "draft" | "approved" | "rejected" | "superseded";
       sampleId: number;
       units: {
+        /** @description The sample's barometric pressure, psia: gauge pressure + this = absolute pressure. */
+        barometricPressurePsia: number;
+        /** @description psia or bara; psig or barg with `pressureBasis: gauge`. */
         pressure: string;
+        /** @enum {string} */
+        pressureBasis: "absolute" | "gauge";
+        /** @description The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased). */
+        reportStandardConditions: string;
+        /** @description Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa). */
+        standardConditions: string;
         /** @enum {string} */
         system: "field" | "metric";
         temperature: string;
