@@ -376,6 +376,8 @@ export const SampleDetailResponse = z
       system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
+      standardConditions: BasisLabels.standardConditions,
+      reportStandardConditions: BasisLabels.reportStandardConditions,
     }),
     bubblePoints: z.array(
       z.object({ temperature: z.number(), pressure: z.number() }),

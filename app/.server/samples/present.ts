@@ -6,6 +6,7 @@ import {
   PROPERTY_KEYS,
   PROPERTY_QUANTITIES,
   type PropertyKey,
+  type ReferenceConditions,
   toOutputDepth,
   toOutputPressure,
   toOutputTemperature,
@@ -148,13 +149,28 @@ export function presentSample(
   };
 }
 
-/** A grid's axes and values in output units (the API's grids and the pages' grids). */
+/** The standard conditions a sample's report gives its gas volumes on (Rs and Bg are stored on them). */
+export function reportBaseOf(sample: {
+  standardPressurePsia: number;
+  standardTemperatureF: number;
+}): ReferenceConditions {
+  return {
+    pressurePsia: sample.standardPressurePsia,
+    temperatureF: sample.standardTemperatureF,
+  };
+}
+
+/**
+ * A grid's axes and values in output units (the API's grids and the pages' grids). Rs and Bg are rebased from
+ * the report's standard conditions (`reported`, the sample's; default 60 °F, 14.696 psia) to the output's.
+ */
 export function gridInOutputUnits(
   grid: Pick<
     CanonicalGrid,
     "property" | "pressures" | "temperatures" | "values"
   >,
   system: OutputSystem,
+  reported?: ReferenceConditions,
 ) {
   return {
     pressures: grid.pressures.map((v) => outputPressure(v, system)),
@@ -163,7 +179,7 @@ export function gridInOutputUnits(
       row.map((v) =>
         v === null
           ? null
-          : outputNumber(toOutputValue(v, grid.property, system)),
+          : outputNumber(toOutputValue(v, grid.property, system, reported)),
       ),
     ),
   };
@@ -258,6 +274,7 @@ export function presentGrids(
   findings: readonly Finding[],
   system: OutputSystem,
   firstNumber = 1,
+  reported?: ReferenceConditions,
 ): DisplayGrid[] {
   const ordered = PROPERTY_KEYS.map((key) =>
     grids.find((g) => g.property === key),
@@ -271,7 +288,7 @@ export function presentGrids(
       sourceUnit: source && source !== unit ? source : null,
       pressureUnit: unitLabel(system, "pressure"),
       temperatureUnit: unitLabel(system, "temperature"),
-      ...gridInOutputUnits(g, system),
+      ...gridInOutputUnits(g, system, reported),
       bubblePoints: g.temperatures.map((temperature) => {
         const b = bubblePoints.find(
           (bp) =>

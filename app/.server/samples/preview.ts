@@ -40,7 +40,14 @@ export function buildPreview(
     },
     summary: summarizeFindings(findings),
     findings: presentFindings(findings, system),
-    grids: presentGrids(grids, bubblePoints, findings, system),
+    grids: presentGrids(
+      grids,
+      bubblePoints,
+      findings,
+      system,
+      1,
+      checked.meta.standardConditions,
+    ),
     bubblePoints: presentBubblePoints(bubblePoints, findings, system),
   };
 }

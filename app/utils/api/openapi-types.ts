@@ -567,6 +567,10 @@ export interface components {
       };
       units: {
         pressure: string;
+        /** @description The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased). */
+        reportStandardConditions: string;
+        /** @description Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa). */
+        standardConditions: string;
         /** @enum {string} */
         system: "field" | "metric";
         temperature: string;
