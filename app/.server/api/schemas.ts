@@ -274,9 +274,11 @@ export const TableQuery = z
       )
       .openapi({
         example: "500:5000:250",
-        description: "A list `a,b,c` or `start:stop:step` (absolute pressure).",
+        description:
+          "A list `a,b,c` or `start:stop:step` (absolute pressure; gauge with `pressureBasis=gauge`, then above 0 psig/barg).",
       }),
     units: UnitsParam,
+    pressureBasis: PressureBasisParam,
     format: z.enum(["json", "csv", "text"]).default("json"),
     method: MethodSchema.default("auto"),
     revision: RevisionParam,

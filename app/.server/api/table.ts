@@ -7,12 +7,14 @@ import {
   formatTableText,
   isTableError,
   parsePressureSpec,
+  tableBasisLines,
   type TableErrorCode,
 } from "~/core/tables";
 import { etagOf, json, notModified, respondWithEtag } from "./respond";
 import { draftWarning, isApprovedStatus } from "./samples";
 import type { TableQuery } from "./schemas";
-import { fromInputPressure, fromInputTemperature } from "~/core/units";
+import { fromInputPressureOn, fromInputTemperature } from "~/core/units";
+import { reportBaseOf } from "~/.server/samples/present";
 
 const STATUS: Record<TableErrorCode, [number, string]> = {
   MALFORMED_PRESSURES: [400, "invalid_pressures"],
@@ -38,6 +40,10 @@ type SampleForTable = {
   label: string;
   wellName: string;
   fieldName: string;
+  /** The report's base of Rs and Bg, and its barometric pressure (gauge pressures). */
+  standardPressurePsia: number;
+  standardTemperatureF: number;
+  barometricPressurePsia: number;
 };
 
 /**
@@ -55,7 +61,12 @@ export async function tableResponse(
 ): Promise<Response> {
   try {
     const spec = parsePressureSpec(q.pressures);
-    const etag = `W/${etagOf("table", data.revisionId, data.status, q.format, q.units, q.method, String(q.extrapolate), q.temperature, spec.pressures.join(","))}`;
+    const basis = {
+      reportStandardConditions: reportBaseOf(sample),
+      pressureBasis: q.pressureBasis,
+      barometricPressurePsia: sample.barometricPressurePsia,
+    };
+    const etag = `W/${etagOf("table", data.revisionId, data.status, q.format, q.units, q.method, String(q.extrapolate), q.temperature, spec.pressures.join(","), JSON.stringify(basis))}`;
     const revision = { number: data.number, status: data.status };
     const unchanged = notModified(request, etag, { revision });
     if (unchanged) return unchanged;
@@ -63,7 +74,9 @@ export async function tableResponse(
     const table = await runHeavy("table", {
       grids: data.grids,
       temperature: fromInputTemperature(q.temperature, q.units),
-      pressures: spec.pressures.map((p) => fromInputPressure(p, q.units)),
+      pressures: spec.pressures.map((p) =>
+        fromInputPressureOn(p, q.units, basis),
+      ),
       method: q.method,
       extrapolate: q.extrapolate,
       messageUnits: q.units,
@@ -73,12 +86,14 @@ export async function tableResponse(
       sampleLabel: `${sample.label} (${sample.wellName}, ${sample.fieldName}; sample id ${sample.id})`,
       revision: data.number,
       generatedAt: new Date(),
+      ...basis,
     };
     const draft = draftWarning(data, sample.id);
     if (q.format === "csv") {
       // Comment lines before the header: the draft warning, and rows left out (CSV has no notes of its own).
       const lead = [
         draft,
+        ...tableBasisLines(options),
         ...table.notes
           .filter((n) => n.code === "rows-not-computable")
           .map((n) => `note: ${n.message}`),

@@ -26,6 +26,7 @@ export {
   formatTableCsv,
   formatTableJson,
   formatTableText,
+  tableBasisLines,
   TABLE_CAUTION,
 } from "./format";
 export type {

@@ -315,7 +315,9 @@ export interface paths {
           format?: "json" | "csv" | "text";
           /** @description auto = Newton divided differences of the given degree (default [3,3]), with the shape-preserving pchip value wherever Newton overshoots the data. */
           method?: components["schemas"]["Method"];
-          /** @description A list `a,b,c` or `start:stop:step` (absolute pressure). */
+          /** @description Pressures in and out as absolute (psia, bara) or gauge (psig in field, barg in metric units). Gauge pressures are made absolute with the sample's recorded barometric pressure (`barometricPressurePsia` of the sample; default one atmosphere, 14.696 psia), named in the response's `units`. */
+          pressureBasis?: "absolute" | "gauge";
+          /** @description A list `a,b,c` or `start:stop:step` (absolute pressure; gauge with `pressureBasis=gauge`, then above 0 psig/barg). */
           pressures: string;
           /** @description Revision number; default the latest approved one. Tokens (and people whose role may not read drafts) get approved revisions only (approved or superseded): a draft or rejected revision answers 404 `revision_not_found`, exactly as a number that does not exist, so unreleased work is neither served nor revealed. A signed-in engineer, lab lead or administrator may name a draft; the output then says it is unapproved (`revision.status`/`revisionStatus`, `approved: false`, the header Isopleth-Revision-Status, and a first line `# UNAPPROVED DRAFT: …` in CSV and text). */
           revision?: string;
