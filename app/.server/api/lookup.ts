@@ -15,7 +15,7 @@ import { formatMilliseconds } from "~/core/format";
 import { outputUnitSystem, standardConditionsLabel } from "~/core/units";
 
 /** What a lookup needs to know of the sample: its report's standard conditions and barometric pressure. */
-export type SampleBasis = {
+type SampleBasis = {
   standardPressurePsia: number;
   standardTemperatureF: number;
   barometricPressurePsia: number;
