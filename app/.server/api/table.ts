@@ -80,6 +80,7 @@ export async function tableResponse(
       method: q.method,
       extrapolate: q.extrapolate,
       messageUnits: q.units,
+      messageBasis: basis,
     });
     const options = {
       units: q.units,

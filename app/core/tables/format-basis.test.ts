@@ -118,3 +118,15 @@ test("gauge pressures: the pressure column in psig (absolute − 14.7 here), nam
     "pressures: gauge (barg); absolute = gauge + 14.696 psia (the sample's barometric pressure)",
   );
 });
+
+test("a refused row names its pressure on the caller's basis (psig with messageBasis gauge)", () => {
+  expect(() =>
+    buildBlackOilTable({
+      grids: sample.grids,
+      temperature: 212,
+      pressures: [1000, 7014.696],
+      method: "linear",
+      messageBasis: { pressureBasis: "gauge", barometricPressurePsia: 14.696 },
+    }),
+  ).toThrow(/pressure 7000 psig lies outside/);
+});
