@@ -12,6 +12,7 @@ import {
   revisionFromUpload,
 } from "~/.server/samples/check-upload";
 import { getRevisionData } from "~/.server/samples/revision-data";
+import { buildPreview } from "~/.server/samples/preview";
 import { getRevisionByNumber } from "~/.server/db/queries/revisions";
 import type { PropertyKey } from "~/core/units";
 import { useFreshMigratedDatabase } from "../support/app-database";
@@ -121,7 +122,7 @@ async function sampleWithReport(
   });
   if (!stored.ok) throw new Error("revision not stored");
   const revision = (await getRevisionByNumber(sample.id, stored.number))!;
-  return { sample, data: await getRevisionData(revision) };
+  return { sample, checked, data: await getRevisionData(revision) };
 }
 
 /** The API's lookup (computeLookup, as POST …/lookup runs it) at the given points; values per point. */
@@ -173,7 +174,10 @@ describe("a metric report (15 °C, 101.325 kPa; barg with 14.5 psia barometric)"
     );
   });
 
-  test("the sample records its barometric pressure; the upload made barg absolute with it", () => {
+  test("the sample records its barometric pressure; the upload made barg absolute with it, and its preview says so", () => {
+    expect(buildPreview(ctx.checked, "metric").gaugeNote).toMatch(
+      /^Gauge pressures \(barg\) were made absolute with the sample's barometric pressure, 14\.5 psia/,
+    );
     expect(ctx.sample.barometricPressurePsia).toBe(14.5);
     // 100 barg = 100 × 14.503773773 + 14.5 psia (hand calculation above)
     expect(ctx.data.grids.solution_gor!.pressures).toContainEqual(
