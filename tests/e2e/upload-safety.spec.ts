@@ -218,8 +218,13 @@ test("the lookup export writes the formula-like sample name as text (OWASP CSV I
   );
   // No line has a cell that starts like a formula outside quotes.
   for (const line of lines) expect(line, line).not.toMatch(/(^|,)[=+@]/);
-  // Numbers stay numbers.
-  expect(lines[4]).toMatch(/^3000,200,\d/);
+  // The export names the bases of its numbers (a comment line of its own).
+  expect(lines).toContain(
+    '"# gas volumes (Rs, Bg) at 60 °F, 14.696 psia; absolute pressures"',
+  );
+  // Numbers stay numbers: the first line under the header.
+  const header = lines.findIndex((l) => l.startsWith("pressure (psia),"));
+  expect(lines[header + 1]).toMatch(/^3000,200,\d/);
 });
 
 test("a confirm the database refuses says nothing was stored, keeps file and comment, and the retry stores it", async ({

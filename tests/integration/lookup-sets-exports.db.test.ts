@@ -65,6 +65,7 @@ async function saveSet(
     intent: "save-set",
     name,
     sampleId: 1,
+    pressureBasis: "absolute",
     properties: ["oil_fvf", "gas_fvf"],
     method: "newton",
     degree: [2, 2],

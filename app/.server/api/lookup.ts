@@ -16,21 +16,49 @@ import { BUILD_ID, finiteJson, refuseNonFinite } from "./respond";
 import { draftWarning, isApprovedStatus } from "./samples";
 import type { LookupBody, LookupFormat } from "./schemas";
 
+/** What a lookup needs to know of the sample: its report's standard conditions and barometric pressure. */
+type SampleBasis = {
+  standardPressurePsia: number;
+  standardTemperatureF: number;
+  barometricPressurePsia: number;
+};
+
 /** A validated lookup request of one property: the body's fields, its points as two columns. */
 export type LookupRequest = Omit<
   LookupBody,
-  "points" | "property" | "properties" | "format"
+  "points" | "property" | "properties" | "format" | "pressureBasis"
 > & {
   property: PropertyKey;
   pressures: Float64Array;
   temperatures: Float64Array;
+  /** Points and pressures out as absolute (default) or gauge, with the sample's barometric pressure. */
+  pressureBasis?: LookupBody["pressureBasis"];
+  /** Rs and Bg are rebased from the sample's standard conditions to those of `units`. */
+  sample: SampleBasis;
 };
 
 /** A validated lookup request as the API receives it: one property or several. */
-type ApiLookupRequest = Omit<LookupBody, "points"> & {
+type ApiLookupRequest = Omit<LookupBody, "points" | "pressureBasis"> & {
   pressures: Float64Array;
   temperatures: Float64Array;
+  pressureBasis?: LookupBody["pressureBasis"];
+  sample: SampleBasis;
 };
+
+/** The lookup options that come from the sample (and the request's pressure basis). */
+function sampleBasisOptions(body: {
+  sample: SampleBasis;
+  pressureBasis?: LookupBody["pressureBasis"];
+}) {
+  return {
+    standardConditions: {
+      pressurePsia: body.sample.standardPressurePsia,
+      temperatureF: body.sample.standardTemperatureF,
+    },
+    pressureBasis: body.pressureBasis ?? "absolute",
+    barometricPressurePsia: body.sample.barometricPressurePsia,
+  };
+}
 
 /** Media types of the lookup's answers. */
 export const LOOKUP_MEDIA_TYPES = {
@@ -69,6 +97,7 @@ export async function computeLookup(
         extrapolate: body.extrapolate,
         units: body.units,
         messages: false,
+        ...sampleBasisOptions(body),
       },
       format: options.format ?? "points",
     },
@@ -176,6 +205,8 @@ export async function lookupResponse(
             extrapolate: body.extrapolate,
             units: body.units,
             revision: body.revision,
+            pressureBasis: body.pressureBasis,
+            sample: body.sample,
           },
           { format },
         ))!,
@@ -204,7 +235,12 @@ export async function lookupResponse(
   }
   const writeMs = performance.now() - writeStarted;
   const etagStarted = performance.now();
-  const etag = `"${createHash("sha1").update(`${BUILD_ID}|${data.revisionId}|${data.status}|${format}|`).update(bodyText).digest("base64url")}"`;
+  const etag = `"${createHash("sha1")
+    .update(
+      `${BUILD_ID}|${data.revisionId}|${data.status}|${format}|${JSON.stringify(sampleBasisOptions(body))}|`,
+    )
+    .update(bodyText)
+    .digest("base64url")}"`;
   const etagMs = performance.now() - etagStarted;
   const where = computed
     .map(({ run }) =>
@@ -296,7 +332,7 @@ function lookupCsv(
   if (draft) lines.push(csvCommentLine(draft));
   lines.push(
     csvCommentLine(
-      `Isopleth lookup: sample ${sampleId}, revision ${data.number} (${data.status}), ${first.methodDescription}, ${body.units} units, pressures absolute.`,
+      `Isopleth lookup: sample ${sampleId}, revision ${data.number} (${data.status}), ${first.methodDescription}, ${body.units} units, pressures ${body.pressureBasis === "gauge" ? `gauge (barometric pressure ${body.sample.barometricPressurePsia} psia)` : "absolute"}.`,
     ),
     csvCommentLine(`caution: ${CAUTION}`),
   );

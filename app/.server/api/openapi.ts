@@ -203,6 +203,10 @@ registry.registerPath({
   },
 });
 
+/** How numbers are expressed: unit systems, standard conditions, gauge pressures. */
+const UNITS_AND_BASES =
+  "\n\nUnits and bases: `units=field` answers in psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³ with gas volumes at 60 °F and 14.696 psia; `units=metric` in bara, °C, rm³/sm³, sm³/sm³, mPa·s, kg/m³ at 15 °C and 101.325 kPa. Rs and Bg are stored on the laboratory report's own standard conditions (recorded with the sample) and rebased to those of the output as an ideal gas (V ∝ T/p at standard conditions); the stock-tank oil volume is not rebased (the difference between 60 °F and 15 °C stock-tank oil is neglected, as is usual). A lookup's `units` and a table name both bases (`standardConditions`, `reportStandardConditions`). Pressures are absolute unless `pressureBasis=gauge` (psig in field, barg in metric units), made absolute with the sample's recorded barometric pressure (`barometricPressurePsia`, default 14.696 psia).";
+
 let cached: object | undefined;
 
 export function openApiDocument(serverUrl: string): object {
@@ -217,6 +221,7 @@ export function openApiDocument(serverUrl: string): object {
           (r) =>
             `- ${r.method} ${r.path}: scope ${r.scopes.join(" or ")}; role permission ${r.permission}. ${r.description}`,
         ).join("\n") +
+        UNITS_AND_BASES +
         "\n\nTokens read approved revisions only; a draft asked for with a token answers 404 `revision_not_found`, the same as a revision that does not exist, so a token learns nothing about unreleased work. Problem details never quote more than a short piece of the request.\n\n" +
         "Approved reservoir fluid-property tables and interpolation for simulators and scripts. Interpolated and extrapolated values are estimates: check them against the laboratory report, and follow local regulations and licensed engineering practice for well control, facility design and reserves.",
     },

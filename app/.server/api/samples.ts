@@ -16,8 +16,16 @@ import {
   gridInOutputUnits,
   outputPressure,
   presentSample,
+  reportBaseOf,
 } from "~/.server/samples/present";
-import { type OutputSystem, type PropertyKey, unitLabel } from "~/core/units";
+import { standardLabel } from "~/.server/samples/sample-input";
+import {
+  outputUnitSystem,
+  type OutputSystem,
+  type PropertyKey,
+  type ReferenceConditions,
+  unitLabel,
+} from "~/core/units";
 import type { RevisionStatus } from "~/utils/sample-vocabulary";
 import {
   callerMayReadDrafts,
@@ -165,14 +173,19 @@ export function draftWarning(
   return `UNAPPROVED ${data.status.toUpperCase()}: revision ${data.number} of sample ${sampleId} has not been approved (status ${data.status}); its checks may have failed. Do not use it for decisions.`;
 }
 
-export function gridsForOutput(data: RevisionData, system: OutputSystem) {
+/** The revision's grids in output units; Rs and Bg rebased from the report's base (`reported`) to the output's. */
+export function gridsForOutput(
+  data: RevisionData,
+  system: OutputSystem,
+  reported: ReferenceConditions,
+) {
   return Object.entries(data.grids).map(([key, grid]) => {
     const property = key as PropertyKey;
     return {
       property,
       unit: unitLabel(system, property),
       laboratoryUnit: grid.sourceUnit,
-      ...gridInOutputUnits({ ...grid, property }, system),
+      ...gridInOutputUnits({ ...grid, property }, system, reported),
       ...(grid.bubblePoints
         ? {
             bubblePoints: grid.bubblePoints.map((b) =>
@@ -210,6 +223,7 @@ export function sampleDetailForOutput(
         pressurePsia: sample.standardPressurePsia,
         temperatureF: sample.standardTemperatureF,
       },
+      barometricPressurePsia: sample.barometricPressurePsia,
       laboratory: sample.laboratory,
       reportReference: sample.reportReference,
     },
@@ -218,8 +232,12 @@ export function sampleDetailForOutput(
       status: data.status,
       approved: isApprovedStatus(data.status),
     },
-    units: unitsBlock(system),
+    units: {
+      ...unitsBlock(system),
+      standardConditions: outputUnitSystem(system).standardConditions.label,
+      reportStandardConditions: standardLabel(sample),
+    },
     bubblePoints: shown.bubblePoints,
-    grids: gridsForOutput(data, system),
+    grids: gridsForOutput(data, system, reportBaseOf(sample)),
   };
 }

@@ -13,6 +13,7 @@ import { REVISION_STATUSES } from "~/utils/sample-vocabulary";
 import {
   keyWithAbbreviation,
   OUTPUT_SYSTEMS,
+  PRESSURE_BASES,
   PROPERTY_KEYS,
   unitLabel,
 } from "~/core/units";
@@ -25,6 +26,10 @@ export const registry = new OpenAPIRegistry();
 const UnitsParam = z.enum(OUTPUT_SYSTEMS).default("field").openapi({
   description:
     "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP, lb/ft³. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s, kg/m³.",
+});
+const PressureBasisParam = z.enum(PRESSURE_BASES).default("absolute").openapi({
+  description:
+    "Pressures in and out as absolute (psia, bara) or gauge (psig in field, barg in metric units). Gauge pressures are made absolute with the sample's recorded barometric pressure (`barometricPressurePsia` of the sample; default one atmosphere, 14.696 psia), named in the response's `units`.",
 });
 const PropertyKeySchema = z.enum(PROPERTY_KEYS).openapi("PropertyKey", {
   description: PROPERTY_KEYS.map(keyWithAbbreviation).join(", "),
@@ -122,11 +127,12 @@ const LookupFields = z.object({
     .max(MAX_LOOKUP_POINTS)
     .openapi({
       description:
-        "Conditions in the chosen unit system (pressure absolute). Messages count them from 1 (`Point 3` is the third point sent); the `issues` paths of a 400 count from 0, as JSON indices do.",
+        "Conditions in the chosen unit system; pressures absolute, or gauge with `pressureBasis: gauge`. Messages count them from 1 (`Point 3` is the third point sent); the `issues` paths of a 400 count from 0, as JSON indices do.",
     }),
   method: MethodSchema.default("auto"),
   degree: Degree.optional(),
   units: UnitsParam,
+  pressureBasis: PressureBasisParam,
   extrapolate: z.boolean().default(false).openapi({
     description:
       "Allow points outside the measured range; they are flagged `extrapolated`. Points too far out are still refused (`extrapolation-too-far`).",
@@ -320,11 +326,31 @@ const SummarySchema = z
       "How many points were sent, how many were refused (and why), which methods served the others, and how many carry each warning.",
   });
 
+/** The bases of the numbers of a lookup or a table (units block). */
+const BasisLabels = {
+  standardConditions: z.string().openapi({
+    description:
+      "Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa).",
+  }),
+  reportStandardConditions: z.string().openapi({
+    description:
+      "The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased).",
+  }),
+  pressureBasis: z.enum(PRESSURE_BASES),
+  barometricPressurePsia: z.number().openapi({
+    description:
+      "The sample's barometric pressure, psia: gauge pressure + this = absolute pressure.",
+  }),
+};
+
 const UnitsSchema = z.object({
   system: z.enum(OUTPUT_SYSTEMS),
-  pressure: z.string(),
+  pressure: z.string().openapi({
+    description: "psia or bara; psig or barg with `pressureBasis: gauge`.",
+  }),
   temperature: z.string(),
   value: z.string(),
+  ...BasisLabels,
 });
 
 const RequestHead = {
@@ -454,7 +480,7 @@ export const TableQuery = z
       .openapi({
         example: "500:5000:250",
         description:
-          "A list `a,b,c` or `start:stop:step` (absolute pressure). Default: the measured pressures of the table's grids (without extrapolation, those every grid covers), plus the bubble point as always.",
+          "A list `a,b,c` or `start:stop:step` (absolute pressure; gauge with `pressureBasis=gauge`, then above 0 psig/barg). Default: the measured pressures of the table's grids (without extrapolation, those every grid covers), plus the bubble point as always.",
       }),
     units: z
       .enum(OUTPUT_SYSTEMS, {
@@ -465,6 +491,7 @@ export const TableQuery = z
         description:
           "Unit system of inputs and outputs. field: psia, °F, rb/STB, scf/STB, ft³/scf, cP. metric: bara, °C, rm³/sm³, sm³/sm³ (15 °C, 101.325 kPa), mPa·s.",
       }),
+    pressureBasis: PressureBasisParam,
     format: z
       .enum(TABLE_FORMATS, {
         error: (i) =>
@@ -584,6 +611,8 @@ export const SampleDetailResponse = z
       system: z.enum(OUTPUT_SYSTEMS),
       pressure: z.string(),
       temperature: z.string(),
+      standardConditions: BasisLabels.standardConditions,
+      reportStandardConditions: BasisLabels.reportStandardConditions,
     }),
     bubblePoints: z.array(
       z.object({ temperature: z.number(), pressure: z.number() }),

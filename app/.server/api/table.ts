@@ -11,18 +11,20 @@ import {
   parsePressureSpec,
   tableSheet,
   type TableError,
+  tableBasisLines,
   type TableErrorCode,
 } from "~/core/tables";
 import { etagOf, json, notModified, respondWithEtag } from "./respond";
 import { draftWarning, isApprovedStatus } from "./samples";
 import type { TableQuery } from "./schemas";
 import {
-  fromInputPressure,
+  fromInputPressureOn,
   fromInputTemperature,
   toOutputTemperature,
   unitLabel,
 } from "~/core/units";
 import { formatSignificant } from "~/core/format";
+import { reportBaseOf } from "~/.server/samples/present";
 
 const STATUS: Record<TableErrorCode, [number, string]> = {
   MALFORMED_PRESSURES: [400, "invalid_pressures"],
@@ -50,6 +52,10 @@ type SampleForTable = {
   fieldName: string;
   /** °F; the table's temperature when the query names none. */
   reservoirTemperatureF: number | null;
+  /** The report's base of Rs and Bg, and its barometric pressure (gauge pressures). */
+  standardPressurePsia: number;
+  standardTemperatureF: number;
+  barometricPressurePsia: number;
 };
 
 /** The query parameter a table error is about, for the problem's `issues`. */
@@ -71,6 +77,7 @@ function tableConditions(
   sample: SampleForTable,
   data: RevisionData,
   q: TableQuery,
+  basis: Parameters<typeof fromInputPressureOn>[2],
 ):
   | { ok: true; temperatureF: number; pressuresPsia: number[]; key: string }
   | { ok: false; response: Response } {
@@ -92,7 +99,7 @@ function tableConditions(
     q.pressures === undefined
       ? measuredTablePressures(data.grids, q.extrapolate)
       : parsePressureSpec(q.pressures).pressures.map((p) =>
-          fromInputPressure(p, q.units),
+          fromInputPressureOn(p, q.units, basis),
         );
   return {
     ok: true,
@@ -117,9 +124,14 @@ export async function tableResponse(
 ): Promise<Response> {
   const defaulted = q.temperature === undefined;
   try {
-    const conditions = tableConditions(sample, data, q);
+    const basis = {
+      reportStandardConditions: reportBaseOf(sample),
+      pressureBasis: q.pressureBasis,
+      barometricPressurePsia: sample.barometricPressurePsia,
+    };
+    const conditions = tableConditions(sample, data, q, basis);
     if (!conditions.ok) return conditions.response;
-    const etag = `W/${etagOf("table", data.revisionId, data.status, q.format, q.units, q.method, String(q.extrapolate), conditions.key)}`;
+    const etag = `W/${etagOf("table", data.revisionId, data.status, q.format, q.units, q.method, String(q.extrapolate), conditions.key, JSON.stringify(basis))}`;
     const revision = { number: data.number, status: data.status };
     const unchanged = notModified(request, etag, { revision });
     if (unchanged) return unchanged;
@@ -131,18 +143,21 @@ export async function tableResponse(
       method: q.method,
       extrapolate: q.extrapolate,
       messageUnits: q.units,
+      messageBasis: basis,
     });
     const options = {
       units: q.units,
       sampleLabel: `${sample.label} (${sample.wellName}, ${sample.fieldName}; sample id ${sample.id})`,
       revision: data.number,
       generatedAt: new Date(),
+      ...basis,
     };
     const draft = draftWarning(data, sample.id);
     if (q.format === "csv") {
       // Comment lines before the header: the draft warning, and rows left out (CSV has no notes of its own).
       const lead = [
         draft,
+        ...tableBasisLines(options),
         ...table.notes
           .filter((n) => n.code === "rows-not-computable")
           .map((n) => `note: ${n.message}`),

@@ -128,6 +128,7 @@ export async function lookupExportSheet(
           degree: input.degree ?? undefined,
           extrapolate: input.extrapolate,
           units: input.units,
+          sample,
         },
         { surface: "page" },
       );

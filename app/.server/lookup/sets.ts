@@ -31,10 +31,11 @@ import {
   type Sheet,
 } from "~/core/tables";
 import {
-  fromInputPressure,
+  fromInputPressureOn,
   fromInputTemperature,
   isPropertyKey,
   OUTPUT_SYSTEMS,
+  PRESSURE_BASES,
   PROPERTIES,
   PROPERTY_KEYS,
   toOutputPressure,
@@ -65,6 +66,8 @@ export const SaveLookupSetSchema = z.object({
   sampleId: z.coerce.number().int().positive(),
   properties: z.array(z.enum(PROPERTY_KEYS)).min(1),
   units: z.enum(OUTPUT_SYSTEMS),
+  /** Gauge conditions are made absolute with the sample's barometric pressure before they are saved. */
+  pressureBasis: z.enum(PRESSURE_BASES).default("absolute"),
   method: z.enum(["auto", "newton", "pchip", "linear"]),
   degree: z
     .tuple([z.number().int().min(1).max(6), z.number().int().min(1).max(6)])
@@ -88,6 +91,16 @@ export async function saveLookupSet(
   userId: number,
   input: SaveLookupSetInput,
 ): Promise<string> {
+  const sample =
+    input.pressureBasis === "gauge"
+      ? await getSampleWithPlace(input.sampleId)
+      : null;
+  const basis = {
+    pressureBasis: input.pressureBasis,
+    ...(sample
+      ? { barometricPressurePsia: sample.barometricPressurePsia }
+      : {}),
+  };
   await createLookupSet({
     userId,
     sampleId: input.sampleId,
@@ -98,7 +111,7 @@ export async function saveLookupSet(
     units: input.units,
     extrapolate: input.extrapolate,
     conditions: input.conditions.map((c) => ({
-      pressurePsia: fromInputPressure(c.pressure, input.units),
+      pressurePsia: fromInputPressureOn(c.pressure, input.units, basis),
       temperatureF: fromInputTemperature(c.temperature, input.units),
     })),
   });
@@ -343,7 +356,11 @@ export async function runLookupSet(
   const revision = await resolveRevision(set.sampleId);
   if (!revision)
     return { error: "The sample has no approved revision to run against." };
-  const data = await getRevisionData(revision);
+  const [data, sample] = await Promise.all([
+    getRevisionData(revision),
+    getSampleWithPlace(set.sampleId),
+  ]);
+  if (!sample) return { error: "The sample no longer exists." };
   const units = set.units;
   const pressures = Float64Array.from(set.conditions, (c) =>
     toOutputPressure(c.pressurePsia, units),
@@ -365,6 +382,7 @@ export async function runLookupSet(
           degree: set.degree ?? undefined,
           extrapolate: set.extrapolate,
           units,
+          sample,
         },
         { surface: "page" },
       );

@@ -23,6 +23,8 @@ export type SampleForQc = {
   gasSpecificGravity: number | null;
   standardPressurePsia: number;
   standardTemperatureF: number;
+  /** Makes the file's gauge pressures (psig, barg…) absolute; default one atmosphere. */
+  barometricPressurePsia?: number;
 };
 
 export type CheckedUpload =
@@ -60,6 +62,9 @@ export function qcMetaOf(sample: SampleForQc): QcMeta {
       pressurePsia: sample.standardPressurePsia,
       temperatureF: sample.standardTemperatureF,
     },
+    ...(sample.barometricPressurePsia !== undefined
+      ? { barometricPsia: sample.barometricPressurePsia }
+      : {}),
   };
 }
 

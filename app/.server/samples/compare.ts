@@ -1,6 +1,8 @@
 import { z } from "zod";
 import { gridsForOutput, listSamplesForCaller } from "~/.server/api/samples";
 import type { SessionUser } from "~/.server/auth/session";
+import { getSampleWithPlace } from "~/.server/db/queries/samples";
+import { reportBaseOf } from "~/.server/samples/present";
 import {
   getRevisionData,
   resolveRevision,
@@ -65,9 +67,14 @@ export async function buildCompareView(
         s.approvedRevision === null ? null : await resolveRevision(s.id);
       if (!revision)
         return { id: s.id, label: s.label, revision: null, grid: null };
-      const data = await getRevisionData(revision);
+      const [data, record] = await Promise.all([
+        getRevisionData(revision),
+        getSampleWithPlace(s.id),
+      ]);
+      if (!record)
+        return { id: s.id, label: s.label, revision: null, grid: null };
       const grid =
-        gridsForOutput(data, system).find(
+        gridsForOutput(data, system, reportBaseOf(record)).find(
           (g) => g.property === query.property,
         ) ?? null;
       return { id: s.id, label: s.label, revision: data.number, grid };

@@ -1,6 +1,7 @@
 import { expect, test } from "vitest";
 import {
   gridInOutputUnits,
+  reportBaseOf,
   OUTPUT_SIGNIFICANT_DIGITS,
   outputNumber,
   presentSample,
@@ -108,4 +109,30 @@ test("a grid in output units follows the same rule", () => {
   expect(grid.pressures).toEqual([320.6062141]);
   expect(grid.temperatures).toEqual([95.55555556]);
   expect(grid.values).toEqual([[1.23456789], [null]]);
+});
+
+test("a grid's Rs comes out on the output's base, rebased from the report's (hand calculation, ideal gas)", () => {
+  // A metric report (15 °C, 101.325 kPa) with Rs 100 sm³/sm³ is stored as 100 × 5.614583 scf/STB (unit
+  // factor only, 1 bbl = 5.614583 ft³): in metric units it is 100 again. A 14.65 psia report's 768 scf/STB
+  // is 768 × 14.65/14.696 = 765.5960806 scf/STB on the field base (60 °F, 14.696 psia).
+  const metricReport = reportBaseOf({
+    standardPressurePsia: 101.325 / 6.894757293168,
+    standardTemperatureF: 59,
+  });
+  const rs = (v: number) => ({
+    property: "solution_gor" as const,
+    pressures: [3000],
+    temperatures: [200],
+    values: [[v]],
+  });
+  expect(
+    gridInOutputUnits(rs(100 * 5.614583333333333), "metric", metricReport)
+      .values,
+  ).toEqual([[100]]);
+  expect(
+    gridInOutputUnits(rs(768), "field", {
+      pressurePsia: 14.65,
+      temperatureF: 60,
+    }).values,
+  ).toEqual([[765.5960806]]);
 });

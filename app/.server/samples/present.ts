@@ -6,6 +6,7 @@ import {
   PROPERTY_KEYS,
   PROPERTY_QUANTITIES,
   type PropertyKey,
+  type ReferenceConditions,
   toOutputDepth,
   toOutputPressure,
   toOutputTemperature,
@@ -68,6 +69,7 @@ type SampleConditions = {
   reservoirTemperatureF: number | null;
   standardPressurePsia?: number;
   standardTemperatureF?: number;
+  barometricPressurePsia?: number;
 };
 
 /** A sample's conditions in the reader's unit system, with the unit symbols beside them. */
@@ -76,6 +78,8 @@ type SampleInOutputUnits = {
   samplingDepth: number | null;
   reservoirPressure: number | null;
   reservoirTemperature: number | null;
+  /** The barometric pressure that makes the report's gauge readings absolute, in the output (absolute) unit. */
+  barometricPressure: number | null;
   /**
    * Standard conditions are a fact of the laboratory report, not a reading: they keep their canonical values
    * (the API names them in psia and °F) and are shown by their preset's name.
@@ -124,6 +128,7 @@ export function presentSample(
     ),
     reservoirPressure: orNull(sample.reservoirPressurePsia, pressure),
     reservoirTemperature: orNull(reservoirT, temperature),
+    barometricPressure: orNull(sample.barometricPressurePsia ?? null, pressure),
     standardConditions:
       sample.standardPressurePsia === undefined ||
       sample.standardTemperatureF === undefined
@@ -144,13 +149,28 @@ export function presentSample(
   };
 }
 
-/** A grid's axes and values in output units (the API's grids and the pages' grids). */
+/** The standard conditions a sample's report gives its gas volumes on (Rs and Bg are stored on them). */
+export function reportBaseOf(sample: {
+  standardPressurePsia: number;
+  standardTemperatureF: number;
+}): ReferenceConditions {
+  return {
+    pressurePsia: sample.standardPressurePsia,
+    temperatureF: sample.standardTemperatureF,
+  };
+}
+
+/**
+ * A grid's axes and values in output units (the API's grids and the pages' grids). Rs and Bg are rebased from
+ * the report's standard conditions (`reported`, the sample's; default 60 °F, 14.696 psia) to the output's.
+ */
 export function gridInOutputUnits(
   grid: Pick<
     CanonicalGrid,
     "property" | "pressures" | "temperatures" | "values"
   >,
   system: OutputSystem,
+  reported?: ReferenceConditions,
 ) {
   return {
     pressures: grid.pressures.map((v) => outputPressure(v, system)),
@@ -159,7 +179,7 @@ export function gridInOutputUnits(
       row.map((v) =>
         v === null
           ? null
-          : outputNumber(toOutputValue(v, grid.property, system)),
+          : outputNumber(toOutputValue(v, grid.property, system, reported)),
       ),
     ),
   };
@@ -254,6 +274,7 @@ export function presentGrids(
   findings: readonly Finding[],
   system: OutputSystem,
   firstNumber = 1,
+  reported?: ReferenceConditions,
 ): DisplayGrid[] {
   const ordered = PROPERTY_KEYS.map((key) =>
     grids.find((g) => g.property === key),
@@ -267,7 +288,7 @@ export function presentGrids(
       sourceUnit: source && source !== unit ? source : null,
       pressureUnit: unitLabel(system, "pressure"),
       temperatureUnit: unitLabel(system, "temperature"),
-      ...gridInOutputUnits(g, system),
+      ...gridInOutputUnits(g, system, reported),
       bubblePoints: g.temperatures.map((temperature) => {
         const b = bubblePoints.find(
           (bp) =>

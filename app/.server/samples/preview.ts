@@ -1,5 +1,10 @@
 import type { UploadPreview } from "~/components/samples/types";
-import type { OutputSystem } from "~/core/units";
+import {
+  DEFAULT_BAROMETRIC_PSIA,
+  getUnit,
+  type OutputSystem,
+} from "~/core/units";
+import { formatPlain } from "~/core/format";
 import {
   bubblePointsOf,
   canonicalGridsOf,
@@ -40,7 +45,30 @@ export function buildPreview(
     },
     summary: summarizeFindings(findings),
     findings: presentFindings(findings, system),
-    grids: presentGrids(grids, bubblePoints, findings, system),
+    grids: presentGrids(
+      grids,
+      bubblePoints,
+      findings,
+      system,
+      1,
+      checked.meta.standardConditions,
+    ),
     bubblePoints: presentBubblePoints(bubblePoints, findings, system),
+    gaugeNote: gaugeNoteOf(checked),
   };
+}
+
+/** The file's gauge pressure units, if any, and the barometric pressure that made them absolute. */
+function gaugeNoteOf(checked: Extract<CheckedUpload, { ok: true }>) {
+  const gauge = [
+    ...new Set(
+      Object.values(checked.dataset.properties)
+        .map((g) => g.pressureUnit)
+        .filter((u) => getUnit("pressure", u.id).gauge)
+        .map((u) => u.symbol),
+    ),
+  ];
+  if (gauge.length === 0) return null;
+  const barometric = checked.meta.barometricPsia ?? DEFAULT_BAROMETRIC_PSIA;
+  return `Gauge pressures (${gauge.join(", ")}) were made absolute with the sample's barometric pressure, ${formatPlain(barometric)} psia; change it on the sample's record if the report states another.`;
 }

@@ -11,6 +11,7 @@ import {
   presentBubblePoints,
   presentFindings,
   presentGrids,
+  reportBaseOf,
   type CanonicalGrid,
 } from "./present";
 import {
@@ -82,7 +83,14 @@ export async function loadRevisionView(
     reportOrigin: report ? ("stored" as const) : ("checked-now" as const),
     summary: summarizeFindings(findings),
     findings: presentFindings(findings, system),
-    grids: presentGrids(grids, data.bubblePoints, findings, system),
+    grids: presentGrids(
+      grids,
+      data.bubblePoints,
+      findings,
+      system,
+      1,
+      reportBaseOf(sample),
+    ),
     bubblePoints: presentBubblePoints(data.bubblePoints, findings, system),
   };
 }

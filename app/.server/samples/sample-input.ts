@@ -1,4 +1,5 @@
 import {
+  DEFAULT_SAMPLE_BAROMETRIC_PSIA,
   fromInputDepth,
   fromInputPressure,
   fromInputTemperature,
@@ -44,10 +45,28 @@ export function standardLabel(stored: StoredStandard): string {
   return standardConditionsLabel(baseOf(stored));
 }
 
+/**
+ * The barometric pressure to store: the default (one atmosphere, 14.696 psia) when the field is left empty;
+ * the recorded value when the form shows it back unchanged (so an edit in bara keeps 14.696 psia exactly).
+ */
+function barometricFromForm(
+  value: number | null,
+  system: FormSystem,
+  current: number | undefined,
+): number {
+  if (value === null) return DEFAULT_SAMPLE_BAROMETRIC_PSIA;
+  if (
+    current !== undefined &&
+    formatPlain(value) === formatPlain(toOutputPressure(current, system))
+  )
+    return current;
+  return round(fromInputPressure(value, system));
+}
+
 export function recordInputFromForm(
   values: SampleFormValues,
   system: FormSystem,
-  current?: StoredStandard,
+  current?: StoredStandard & { barometricPressurePsia?: number },
 ): { ok: true; input: SampleRecordInput } | { ok: false; errors: FieldErrors } {
   let standard: StoredStandard | undefined;
   if (values.standardConditions === "current" && current) standard = current;
@@ -95,6 +114,11 @@ export function recordInputFromForm(
       stockTankApi: values.stockTankApi,
       gasSpecificGravity: values.gasSpecificGravity,
       ...standard,
+      barometricPressurePsia: barometricFromForm(
+        values.barometricPressure,
+        system,
+        current?.barometricPressurePsia,
+      ),
       laboratory: values.laboratory || null,
       reportReference: values.reportReference || null,
       notes: values.notes || null,
@@ -131,6 +155,9 @@ export function formDefaultsFromRecord(
     stockTankApi: show(record.stockTankApi),
     gasSpecificGravity: show(record.gasSpecificGravity),
     standardConditions: preset?.id ?? "current",
+    barometricPressure: show(record.barometricPressurePsia ?? null, (p) =>
+      toOutputPressure(p, system),
+    ),
     laboratory: record.laboratory ?? "",
     reportReference: record.reportReference ?? "",
     notes: record.notes ?? "",

@@ -53,6 +53,7 @@ export async function loadSamplePage(
     stockTankApi: sample.stockTankApi,
     gasSpecificGravity: sample.gasSpecificGravity,
     standardConditions: shown.standardConditions?.label ?? null,
+    barometricPressure: shown.barometricPressure,
     laboratory: sample.laboratory,
     reportReference: sample.reportReference,
     notes: sample.notes,

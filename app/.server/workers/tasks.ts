@@ -66,7 +66,15 @@ export type ApiLookupOutput = {
   methodDescription: string;
   degree: LookupResult["degree"];
   /** Unit symbols of the output. */
-  units: { pressure: string; temperature: string; value: string };
+  units: {
+    pressure: string;
+    temperature: string;
+    value: string;
+    standardConditions: string;
+    reportStandardConditions: string;
+    pressureBasis: "absolute" | "gauge";
+    barometricPressurePsia: number;
+  };
   summary: ApiLookupSummary;
   /**
    * The property's answer as JSON, serialised (see serialiseResults, serialiseColumns) and encoded as UTF-8
@@ -146,6 +154,10 @@ const TASKS: {
           pressure: columns.units.pressure.symbol,
           temperature: columns.units.temperature.symbol,
           value: columns.units.value.symbol,
+          standardConditions: columns.units.standardConditions,
+          reportStandardConditions: columns.units.reportStandardConditions,
+          pressureBasis: columns.units.pressureBasis,
+          barometricPressurePsia: columns.units.barometricPressurePsia,
         },
         summary,
         resultsUtf8: new TextEncoder().encode(json),
@@ -160,6 +172,10 @@ const TASKS: {
         pressure: result.units.pressure.symbol,
         temperature: result.units.temperature.symbol,
         value: result.units.value.symbol,
+        standardConditions: result.units.standardConditions,
+        reportStandardConditions: result.units.reportStandardConditions,
+        pressureBasis: result.units.pressureBasis,
+        barometricPressurePsia: result.units.barometricPressurePsia,
       },
     };
     if (format === "csv") {
@@ -183,7 +199,13 @@ const TASKS: {
   lookup: ({ grid, points, options }) => runLookup(grid, points, options),
   table: (input) => buildBlackOilTable(input),
   "check-upload": async ({ filename, bytes, meta }) => {
-    const parsed = await parseUpload({ filename, bytes });
+    // gauge pressures are made absolute with the sample's barometric pressure (QcMeta.barometricPsia)
+    const parsed = await parseUpload(
+      { filename, bytes },
+      meta.barometricPsia !== undefined
+        ? { barometricPsia: meta.barometricPsia }
+        : {},
+    );
     if (!parsed.ok)
       return { ok: false, errors: parsed.errors, warnings: parsed.warnings };
     const findings = runQc(parsed.dataset, meta);

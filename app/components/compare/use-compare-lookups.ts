@@ -119,6 +119,7 @@ async function lookupSample(
       points: conditions,
       method: "auto",
       units: system,
+      pressureBasis: "absolute",
       extrapolate,
     },
     signal,

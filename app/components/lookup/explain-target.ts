@@ -26,7 +26,7 @@ export async function explainTargetOf(
   const propertyRun = run.runs.find((r) => r.property === property);
   if (!propertyRun?.ok) return null;
   const result = propertyRun.results[conditionIndex];
-  const condition = run.conditions[conditionIndex];
+  const condition = run.absoluteConditions[conditionIndex];
   if (!result || !condition || result.value === null) return null;
   const data = await context.loadGrids(
     run.sampleId,

@@ -1,5 +1,7 @@
 import {
+  outputPressureUnit,
   type OutputSystem,
+  type PressureBasis,
   PROPERTIES,
   PROPERTY_KEYS,
   unitLabel,
@@ -115,6 +117,21 @@ export function LookupOptions({
         </div>
         <DefaultUnits form={form} onMakeDefault={onMakeDefault} />
       </fieldset>
+      <label className="block text-sm">
+        <span className="font-semibold">Pressures</span>
+        <select
+          value={form.pressureBasis}
+          onChange={(e) =>
+            form.setPressureBasis(e.target.value as PressureBasis)
+          }
+          className="mt-1 block rounded border border-line px-2 py-1"
+        >
+          <option value="absolute">{`Absolute (${outputPressureUnit(units, "absolute").symbol})`}</option>
+          <option value="gauge">
+            {`Gauge (${outputPressureUnit(units, "gauge").symbol}, with the sample's barometric pressure)`}
+          </option>
+        </select>
+      </label>
       <label className="flex items-center gap-2 text-sm">
         <input
           type="checkbox"

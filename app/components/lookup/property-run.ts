@@ -20,12 +20,28 @@ export type PropertyRun = Pick<
     degree: [number, number] | null;
     /** The value unit (`units.value` of the block). */
     unit: string;
+    /**
+     * The bases of the numbers (from the response's `units`): the standard conditions of Rs and Bg and the
+     * report's own, the pressure basis and the sample's barometric pressure (psia).
+     */
+    bases: Pick<
+      LookupBlock["units"],
+      | "standardConditions"
+      | "reportStandardConditions"
+      | "pressureBasis"
+      | "barometricPressurePsia"
+    >;
     serverMs: number;
   };
 
 /** One press of "Look up": the conditions, one run per property, and what they were asked with. */
 export type LookupRun = {
   conditions: Condition[];
+  /**
+   * The conditions with absolute pressures (psia, bara), as the grids are drawn and explained: the conditions
+   * themselves unless they were typed as gauge pressures.
+   */
+  absoluteConditions: Condition[];
   runs: PropertyRun[];
   sampleId: number;
   units: OutputSystem;

@@ -14,6 +14,12 @@ const runs: PropertyRun[] = [
     revisionStatus: "approved",
     approved: true,
     unit: "rb/STB",
+    bases: {
+      standardConditions: "60 °F, 14.696 psia",
+      reportStandardConditions: "60 °F, 14.696 psia",
+      pressureBasis: "absolute",
+      barometricPressurePsia: 14.696,
+    },
     methodDescription: "bilinear",
     degree: null,
     serverMs: 1,

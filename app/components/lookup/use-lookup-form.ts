@@ -1,7 +1,9 @@
 import { useState } from "react";
 import { useSearchParams } from "react-router";
 import {
+  outputPressureUnit,
   type OutputSystem,
+  type PressureBasis,
   toOutputPressure,
   toOutputTemperature,
   unitLabel,
@@ -68,6 +70,8 @@ export function useLookupForm({
   const [choices, setChoices] = useState(() =>
     readLookupChoices(params, accountUnits),
   );
+  // not kept in the address: a gauge lookup is asked for on purpose, each time
+  const [pressureBasis, setPressureBasis] = useState<PressureBasis>("absolute");
   // the address at the last render, and the one last written (which the router shows a moment later)
   const [shown, setShown] = useState(search);
   const [written, setWritten] = useState(search);
@@ -138,6 +142,7 @@ export function useLookupForm({
       method,
       degree,
       units,
+      pressureBasis,
       extrapolate,
       revision,
     };
@@ -155,6 +160,7 @@ export function useLookupForm({
       method,
       degree: method === "newton" ? degree : null,
       extrapolate,
+      pressureBasis,
       conditions: conds,
     };
   }
@@ -205,8 +211,10 @@ export function useLookupForm({
     setExtrapolate: (next: boolean) => choose({ extrapolate: next }),
     /** The account's unit system, for "Make this my default". */
     accountUnits,
+    pressureBasis,
+    setPressureBasis,
     unitLabels: {
-      pressure: unitLabel(units, "pressure"),
+      pressure: outputPressureUnit(units, pressureBasis).symbol,
       temperature: unitLabel(units, "temperature"),
     },
     query,

@@ -1,9 +1,15 @@
 import { useState } from "react";
 import type { Method } from "~/core/interpolation";
-import type { OutputSystem, PropertyKey } from "~/core/units";
+import {
+  fromInputPressureOn,
+  toOutputPressure,
+  type OutputSystem,
+  type PressureBasis,
+  type PropertyKey,
+} from "~/core/units";
 import { postLookups, serverTimingMs } from "~/utils/api/client";
 import type { Condition } from "~/utils/conditions";
-import type { LookupRun } from "./property-run";
+import { answeredRuns, type LookupRun, type PropertyRun } from "./property-run";
 
 /** What "Look up" asks: one sample, its properties, the conditions and the method, in the units on screen. */
 export type LookupQuery = {
@@ -13,6 +19,8 @@ export type LookupQuery = {
   method: "auto" | Method;
   degree: [number, number];
   units: OutputSystem;
+  /** Pressures of the conditions (and of everything returned) absolute or gauge. */
+  pressureBasis: PressureBasis;
   extrapolate: boolean;
   /** A named revision (?revision=N); default the approved one. */
   revision: number | undefined;
@@ -40,6 +48,7 @@ export function useLookupRun() {
         method: query.method,
         degree: query.method === "newton" ? query.degree : undefined,
         units: query.units,
+        pressureBasis: query.pressureBasis,
         extrapolate: query.extrapolate,
         revision: query.revision,
       });
@@ -54,21 +63,29 @@ export function useLookupRun() {
         return;
       }
       const serverMs = serverTimingMs(response);
+      const runs: PropertyRun[] = data.lookups.map((block) => ({
+        property: block.property,
+        ok: true,
+        revision: data.revision,
+        revisionStatus: data.revisionStatus,
+        approved: data.approved,
+        unit: block.units.value,
+        bases: {
+          standardConditions: block.units.standardConditions,
+          reportStandardConditions: block.units.reportStandardConditions,
+          pressureBasis: block.units.pressureBasis,
+          barometricPressurePsia: block.units.barometricPressurePsia,
+        },
+        methodDescription: block.methodDescription,
+        degree: pairOrNull(block.degree),
+        results: block.results,
+        summary: block.summary,
+        serverMs,
+      }));
       setRun({
         conditions: query.conditions,
-        runs: data.lookups.map((block) => ({
-          property: block.property,
-          ok: true,
-          revision: data.revision,
-          revisionStatus: data.revisionStatus,
-          approved: data.approved,
-          unit: block.units.value,
-          methodDescription: block.methodDescription,
-          degree: pairOrNull(block.degree),
-          results: block.results,
-          summary: block.summary,
-          serverMs,
-        })),
+        absoluteConditions: absoluteConditions(query, runs),
+        runs,
         sampleId: query.sampleId,
         units: query.units,
         method: query.method,
@@ -90,6 +107,25 @@ export function useLookupRun() {
     fail: setError,
     clear: () => setRun(null),
   };
+}
+
+/** Gauge conditions made absolute with the barometric pressure the server used (the sample's). */
+function absoluteConditions(
+  query: LookupQuery,
+  runs: readonly PropertyRun[],
+): Condition[] {
+  const barometricPressurePsia =
+    answeredRuns(runs)[0]?.bases.barometricPressurePsia;
+  if (query.pressureBasis !== "gauge" || barometricPressurePsia === undefined)
+    return query.conditions;
+  const basis = { pressureBasis: "gauge", barometricPressurePsia } as const;
+  return query.conditions.map((c) => ({
+    ...c,
+    pressure: toOutputPressure(
+      fromInputPressureOn(c.pressure, query.units, basis),
+      query.units,
+    ),
+  }));
 }
 
 /** The response's degree, a pair in the schema, reaches us typed number[] (openapi-fetch reads tuples as arrays). */

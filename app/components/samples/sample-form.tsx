@@ -44,6 +44,12 @@ const LIMITS: Record<
   metric: { pressure: [1, 2000], temperature: [-40, 370], depth: [0, 12000] },
 };
 
+/** Barometric pressures a laboratory can state, in the form's absolute unit (sea level to high altitude). */
+const BAROMETRIC_LIMITS: Record<FormSystem, [number, number]> = {
+  field: [7, 16],
+  metric: [0.5, 1.1],
+};
+
 /** Multi-line notes: line breaks allowed, other control characters refused (app/utils/labels.ts). */
 function notesText(label: string, max: number) {
   return multilineTextSchema(label)
@@ -124,6 +130,11 @@ export function sampleFormSchema(system: FormSystem) {
     standardConditions: z
       .string()
       .min(1, "Choose the standard conditions of the report."),
+    barometricPressure: optionalNumber(
+      "barometric pressure",
+      BAROMETRIC_LIMITS[system],
+      units.pressure,
+    ),
     laboratory: labelSchema("laboratory", 160, false),
     reportReference: labelSchema("report reference", 160, false),
     notes: notesText("notes", 4000),
@@ -337,6 +348,14 @@ export function SampleFormFields({
               </option>
             ))}
           </SelectField>
+          <TextField
+            label={`Barometric pressure of the report (${units.pressure})`}
+            name="barometricPressure"
+            inputMode="decimal"
+            defaultValue={defaults.barometricPressure}
+            errors={errors.barometricPressure}
+            hint={`Makes the report's gauge pressures (psig, barg) absolute. Empty: one atmosphere, ${units.pressure === "psia" ? "14.696 psia" : "1.01325 bara"}.`}
+          />
         </div>
         <p className="mt-3 text-sm text-ink-muted">
           Bubble-point pressures are part of each uploaded revision (one per

@@ -18,6 +18,8 @@ export type SampleRecordView = {
   gasSpecificGravity: number | null;
   /** The preset's name, or the conditions in °F and psia. */
   standardConditions: string | null;
+  /** Makes the report's gauge pressures absolute; in the reader's (absolute) pressure unit. */
+  barometricPressure: number | null;
   laboratory: string | null;
   reportReference: string | null;
   notes: string | null;
@@ -91,6 +93,9 @@ export function SampleRecord({
           {measured(sample.gasSpecificGravity)}
         </Meta>
         <Meta label="Standard conditions">{sample.standardConditions}</Meta>
+        <Meta label={`Barometric pressure (${units.pressure})`}>
+          {measured(sample.barometricPressure)}
+        </Meta>
         <Meta label="Laboratory">{sample.laboratory}</Meta>
         <Meta label="Report reference">{sample.reportReference}</Meta>
       </dl>

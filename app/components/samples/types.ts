@@ -85,6 +85,8 @@ export type UploadPreview = {
   findings: DisplayFinding[];
   grids: DisplayGrid[];
   bubblePoints: DisplayBubblePoints;
+  /** When the file gave gauge pressures: the sentence saying which barometric pressure made them absolute. */
+  gaugeNote: string | null;
 };
 
 /** A file that cannot be used (it does not parse): its errors, and the warnings noted on the way. */

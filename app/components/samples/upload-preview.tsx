@@ -60,6 +60,9 @@ export function UploadPreviewPanel({
         values. Nothing is stored yet.
       </p>
       <QcSummaryLine summary={preview.summary} />
+      {preview.gaugeNote ? (
+        <p className="text-xs text-ink-muted">{preview.gaugeNote}</p>
+      ) : null}
       {!hasGravities ? (
         <p className="text-xs text-ink-muted">
           The sample record has no stock-tank oil gravity or gas gravity, so the

@@ -19,6 +19,7 @@ import {
   toLookupError,
   unitContext,
   type LookupMethod,
+  type UnitBasis,
   type LookupWarning,
   type UsedMethod,
 } from "../lookup";
@@ -46,6 +47,8 @@ export type BlackOilTableInput = {
   extrapolate?: boolean;
   /** Unit system of the numbers in error messages (default field); the table itself is canonical. */
   messageUnits?: OutputSystem;
+  /** Pressures in error messages absolute (default) or gauge, with the sample's barometric pressure. */
+  messageBasis?: Pick<UnitBasis, "pressureBasis" | "barometricPressurePsia">;
 };
 
 export type TableCell = {
@@ -172,8 +175,13 @@ function toTableError(
   column: TableColumnKey,
   units: OutputSystem,
   rowsP: readonly number[],
+  basis: UnitBasis = {},
 ): unknown {
-  const mapped = toLookupError(error, column, unitContext(column, units));
+  const mapped = toLookupError(
+    error,
+    column,
+    unitContext(column, units, basis),
+  );
   if (!isLookupError(mapped)) return mapped;
   const name = COLUMN_INFO[column].name;
   const d = mapped.details;
@@ -379,7 +387,7 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
         opts.degree[1],
       );
     } catch (error) {
-      throw toTableError(error, key, units, []);
+      throw toTableError(error, key, units, [], input.messageBasis);
     }
     if (!v) {
       throw new TableError(
@@ -488,7 +496,7 @@ export function buildBlackOilTable(input: BlackOilTableInput): BlackOilTable {
         methods: r.methods,
       });
     } catch (error) {
-      throw toTableError(error, key, units, rowsP);
+      throw toTableError(error, key, units, rowsP, input.messageBasis);
     }
   }
 

@@ -13,9 +13,15 @@ import {
   type LookupWarning,
 } from "../lookup";
 import {
+  CANONICAL_UNIT_SYSTEM,
+  DEFAULT_SAMPLE_BAROMETRIC_PSIA,
   gasVolumeRebaseFactor,
   OUTPUT_SYSTEMS,
+  outputPressureUnit,
   outputUnitSystem,
+  standardConditionsLabel,
+  type PressureBasis,
+  type ReferenceConditions,
   type OutputSystem,
   PROPERTY_QUANTITIES,
   type Quantity,
@@ -41,6 +47,15 @@ export type TableFormatOptions = {
    * 14.696 psia for field, 15 °C and 101.325 kPa for metric); another base re-expresses Rs and Bg on it.
    */
   standardConditions?: StandardConditions;
+  /**
+   * Standard conditions the stored Rs and Bg are on: the sample's (its report's). Default 60 °F, 14.696 psia.
+   * They are rebased from these to `standardConditions`.
+   */
+  reportStandardConditions?: ReferenceConditions;
+  /** Pressures absolute (default) or gauge (psig in field, barg in metric units). */
+  pressureBasis?: PressureBasis;
+  /** Barometric pressure of gauge pressures, psia (the sample's); default 14.696. */
+  barometricPressurePsia?: number;
 };
 
 /** The caution printed with every table (the app's footer caution). */
@@ -126,6 +141,10 @@ type Prepared = {
   bubblePointPressure: number | null;
   solutionGorAtBubblePoint: number | null;
   standardConditions: { label: string; pressure: number; temperature: number };
+  /** The report's own base, from which Rs and Bg were rebased ("60 °F, 14.65 psia"). */
+  reportStandardConditions: string;
+  pressureBasis: PressureBasis;
+  barometricPressurePsia: number;
   /** Pressure first, then the table's columns. */
   columns: OutColumn[];
   conversions: Map<TableColumnKey, Conversion>;
@@ -183,6 +202,7 @@ function outputOf(
   quantity: Quantity,
   system: UnitSystem,
   base: StandardConditions,
+  reported: ReferenceConditions | undefined,
 ): { a: Affine; factor: number } {
   let factor = 1;
   if (base !== system.standardConditions) {
@@ -190,15 +210,53 @@ function outputOf(
     if (quantity === "gas_oil_ratio") factor = f;
     else if (quantity === "gas_fvf") factor = 1 / f;
   }
-  return { a: affineToCanonical(quantity, system), factor };
+  return {
+    a: affineToCanonical(quantity, system, { standardConditions: reported }),
+    factor,
+  };
+}
+
+/** The bases of a table's numbers, from its options (standard conditions, pressure basis). */
+function basisOf(options: TableFormatOptions) {
+  const system = outputUnitSystem(options.units);
+  const base = options.standardConditions ?? system.standardConditions;
+  const reported =
+    options.reportStandardConditions ??
+    CANONICAL_UNIT_SYSTEM.standardConditions;
+  const pressureBasis = options.pressureBasis ?? "absolute";
+  const pAbsolute = affineToCanonical("pressure", system);
+  const tOut = affineToCanonical("temperature", system);
+  const scP = roundTo(fromCanonicalWith(pAbsolute, base.pressurePsia), 6);
+  const scT = roundTo(fromCanonicalWith(tOut, base.temperatureF), 6);
+  return {
+    base,
+    reported: options.reportStandardConditions,
+    standardConditions: {
+      label: `${scT} ${asciiUnit(system.units.temperature)}, ${scP} ${asciiUnit(system.units.pressure)}`,
+      pressure: scP,
+      temperature: scT,
+    },
+    reportStandardConditions: standardConditionsLabel(reported),
+    rebased: Math.abs(gasVolumeRebaseFactor(reported, base) - 1) > 1e-12,
+    pressureBasis,
+    pressureUnit: asciiUnit(
+      outputPressureUnit(options.units, pressureBasis).id,
+    ),
+    barometricPressurePsia:
+      options.barometricPressurePsia ?? DEFAULT_SAMPLE_BAROMETRIC_PSIA,
+  };
 }
 
 /** Rounds and converts the table's values once; every format prints from this. */
 function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
   const { generatedAt, sample } = checkOptions(options);
   const system = outputUnitSystem(options.units);
-  const base = options.standardConditions ?? system.standardConditions;
-  const pOut = affineToCanonical("pressure", system);
+  const basis = basisOf(options);
+  const { base, reported, pressureBasis, barometricPressurePsia } = basis;
+  const pOut = affineToCanonical("pressure", system, {
+    pressureBasis,
+    barometricPressurePsia,
+  });
   const tOut = affineToCanonical("temperature", system);
   const n = table.rows.length;
 
@@ -206,7 +264,7 @@ function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
   for (let i = 0; i < n; i++)
     pressures[i] = fromCanonicalWith(pOut, table.rows[i]!.pressure);
   const pDigits = digitsFor(pressures);
-  const pUnit = asciiUnit(system.units.pressure);
+  const pUnit = basis.pressureUnit;
   const columns: OutColumn[] = [
     {
       key: "pressure",
@@ -220,7 +278,7 @@ function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
   const conversions = new Map<TableColumnKey, Conversion>();
   for (const key of table.columns) {
     const quantity = PROPERTY_QUANTITIES[key];
-    const { a, factor } = outputOf(quantity, system, base);
+    const { a, factor } = outputOf(quantity, system, base, reported);
     const values = new Array<number>(n);
     for (let i = 0; i < n; i++)
       values[i] =
@@ -239,8 +297,6 @@ function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
     });
   }
   const pbRow = table.rows.findIndex((r) => r.bubblePoint);
-  const scP = roundTo(fromCanonicalWith(pOut, base.pressurePsia), 6);
-  const scT = roundTo(fromCanonicalWith(tOut, base.temperatureF), 6);
   const tUnit = asciiUnit(system.units.temperature);
   const rs = conversions.get("solution_gor");
   return {
@@ -270,11 +326,10 @@ function prepare(table: BlackOilTable, options: TableFormatOptions): Prepared {
             fromCanonicalWith(rs.a, table.solutionGorAtBubblePoint) * rs.factor,
             rs.digits,
           ),
-    standardConditions: {
-      label: `${scT} ${tUnit}, ${scP} ${pUnit}`,
-      pressure: scP,
-      temperature: scT,
-    },
+    standardConditions: basis.standardConditions,
+    reportStandardConditions: basis.reportStandardConditions,
+    pressureBasis,
+    barometricPressurePsia,
     columns,
     conversions,
   };
@@ -344,6 +399,11 @@ export type BlackOilTableJson = {
     temperature: string;
   } & Partial<Record<TableColumnKey, string>>;
   standardConditions: { label: string; pressure: number; temperature: number };
+  /** The report's own standard conditions, from which Rs and Bg were rebased to `standardConditions`. */
+  reportStandardConditions: string;
+  /** Pressures absolute or gauge (see `units.pressure`); absolute = gauge + barometricPressurePsia. */
+  pressureBasis: PressureBasis;
+  barometricPressurePsia: number;
   temperature: number;
   bubblePointPressure: number | null;
   solutionGorAtBubblePoint: number | null;
@@ -399,6 +459,9 @@ export function formatTableJson(
     extrapolate: table.extrapolate,
     units,
     standardConditions: t.standardConditions,
+    reportStandardConditions: t.reportStandardConditions,
+    pressureBasis: t.pressureBasis,
+    barometricPressurePsia: t.barometricPressurePsia,
     temperature: t.temperature,
     bubblePointPressure: t.bubblePointPressure,
     solutionGorAtBubblePoint: t.solutionGorAtBubblePoint,
@@ -408,6 +471,25 @@ export function formatTableJson(
     notes: table.notes,
     caution: TABLE_CAUTION,
   };
+}
+
+/**
+ * The lines naming the bases of a table's numbers (the text layout's comments; the API writes them as comment
+ * lines before a CSV): the standard conditions of Rs and Bg, the report's when they were rebased from it, and
+ * the pressure basis when gauge. ASCII, as the rest of the text layout.
+ */
+export function tableBasisLines(options: TableFormatOptions): string[] {
+  const b = basisOf(options);
+  const lines = [`standard conditions: ${b.standardConditions.label}`];
+  if (b.rebased)
+    lines.push(
+      `Rs and Bg rebased from the report's standard conditions (${b.reportStandardConditions.replace(/ ?°/g, " deg ")}) as an ideal gas`,
+    );
+  if (b.pressureBasis === "gauge")
+    lines.push(
+      `pressures: gauge (${b.pressureUnit}); absolute = gauge + ${b.barometricPressurePsia} psia (the sample's barometric pressure)`,
+    );
+  return lines;
 }
 
 /** Every text cell of the CSV goes through the product's one CSV cell writer (quoting, formula neutralisation). */
@@ -509,7 +591,7 @@ export function formatTableText(
   out.push(
     `# units: ${t.columns.map((c) => `${c.word} ${c.unit === "-" ? "dimensionless" : c.unit}`).join("; ")}`,
   );
-  out.push(`# standard conditions: ${t.standardConditions.label}`);
+  for (const line of tableBasisLines(options)) out.push(`# ${line}`);
   out.push(`# generated: ${t.generatedAt}`);
   const rows = table.rows;
   const n = rows.length;

@@ -27,6 +27,7 @@ export {
   formatTableCsv,
   formatTableJson,
   formatTableText,
+  tableBasisLines,
   TABLE_CAUTION,
 } from "./format";
 export type {

@@ -322,7 +322,9 @@ export interface paths {
           format?: "json" | "csv" | "text" | "xlsx";
           /** @description auto = Newton divided differences (degree 3), with the shape-preserving pchip value wherever Newton overshoots the data; or newton, pchip, linear. */
           method?: "auto" | "newton" | "pchip" | "linear";
-          /** @description A list `a,b,c` or `start:stop:step` (absolute pressure). Default: the measured pressures of the table's grids (without extrapolation, those every grid covers), plus the bubble point as always. */
+          /** @description Pressures in and out as absolute (psia, bara) or gauge (psig in field, barg in metric units). Gauge pressures are made absolute with the sample's recorded barometric pressure (`barometricPressurePsia` of the sample; default one atmosphere, 14.696 psia), named in the response's `units`. */
+          pressureBasis?: "absolute" | "gauge";
+          /** @description A list `a,b,c` or `start:stop:step` (absolute pressure; gauge with `pressureBasis=gauge`, then above 0 psig/barg). Default: the measured pressures of the table's grids (without extrapolation, those every grid covers), plus the bubble point as always. */
           pressures?: string;
           /** @description Revision number; default the latest approved one. Tokens (and people whose role may not read drafts) get approved revisions only (approved or superseded): a draft or rejected revision answers 404 `revision_not_found`, exactly as a number that does not exist, so unreleased work is neither served nor revealed. A signed-in engineer, lab lead or administrator may name a draft; the output then says it is unapproved (`revision.status`/`revisionStatus`, `approved: false`, the header Isopleth-Revision-Status, and a first line `# UNAPPROVED DRAFT: …` in CSV and text). */
           revision?: string;
@@ -449,7 +451,16 @@ export interface components {
       results: components["schemas"]["LookupResult"][];
       summary: components["schemas"]["LookupSummary"];
       units: {
+        /** @description The sample's barometric pressure, psia: gauge pressure + this = absolute pressure. */
+        barometricPressurePsia: number;
+        /** @description psia or bara; psig or barg with `pressureBasis: gauge`. */
         pressure: string;
+        /** @enum {string} */
+        pressureBasis: "absolute" | "gauge";
+        /** @description The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased). */
+        reportStandardConditions: string;
+        /** @description Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa). */
+        standardConditions: string;
         /** @enum {string} */
         system: "field" | "metric";
         temperature: string;
@@ -476,7 +487,16 @@ export interface components {
       property: components["schemas"]["PropertyKey"];
       summary: components["schemas"]["LookupSummary"];
       units: {
+        /** @description The sample's barometric pressure, psia: gauge pressure + this = absolute pressure. */
+        barometricPressurePsia: number;
+        /** @description psia or bara; psig or barg with `pressureBasis: gauge`. */
         pressure: string;
+        /** @enum {string} */
+        pressureBasis: "absolute" | "gauge";
+        /** @description The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased). */
+        reportStandardConditions: string;
+        /** @description Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa). */
+        standardConditions: string;
         /** @enum {string} */
         system: "field" | "metric";
         temperature: string;
@@ -514,7 +534,16 @@ export interface components {
       sampleId: number;
       summary: components["schemas"]["LookupSummary"];
       units: {
+        /** @description The sample's barometric pressure, psia: gauge pressure + this = absolute pressure. */
+        barometricPressurePsia: number;
+        /** @description psia or bara; psig or barg with `pressureBasis: gauge`. */
         pressure: string;
+        /** @enum {string} */
+        pressureBasis: "absolute" | "gauge";
+        /** @description The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased). */
+        reportStandardConditions: string;
+        /** @description Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa). */
+        standardConditions: string;
         /** @enum {string} */
         system: "field" | "metric";
         temperature: string;
@@ -536,11 +565,17 @@ export interface components {
        */
       format?: "points" | "columns";
       method?: components["schemas"]["Method"];
-      /** @description Conditions in the chosen unit system (pressure absolute). Messages count them from 1 (`Point 3` is the third point sent); the `issues` paths of a 400 count from 0, as JSON indices do. */
+      /** @description Conditions in the chosen unit system; pressures absolute, or gauge with `pressureBasis: gauge`. Messages count them from 1 (`Point 3` is the third point sent); the `issues` paths of a 400 count from 0, as JSON indices do. */
       points: {
         pressure: number;
         temperature: number;
       }[];
+      /**
+       * @description Pressures in and out as absolute (psia, bara) or gauge (psig in field, barg in metric units). Gauge pressures are made absolute with the sample's recorded barometric pressure (`barometricPressurePsia` of the sample; default one atmosphere, 14.696 psia), named in the response's `units`.
+       * @default absolute
+       * @enum {string}
+       */
+      pressureBasis: "absolute" | "gauge";
       /** @description Several properties at the same points, each at most once; the answer lists one block per property under `lookups`, in this order, each block shaped as the answer to a one-property request (property, methodDescription, degree, units, results, summary). */
       properties?: components["schemas"]["PropertyKey"][];
       property?: components["schemas"]["PropertyKey"] & unknown;
@@ -574,7 +609,16 @@ export interface components {
       sampleId: number;
       summary: components["schemas"]["LookupSummary"];
       units: {
+        /** @description The sample's barometric pressure, psia: gauge pressure + this = absolute pressure. */
+        barometricPressurePsia: number;
+        /** @description psia or bara; psig or barg with `pressureBasis: gauge`. */
         pressure: string;
+        /** @enum {string} */
+        pressureBasis: "absolute" | "gauge";
+        /** @description The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased). */
+        reportStandardConditions: string;
+        /** @description Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa). */
+        standardConditions: string;
         /** @enum {string} */
         system: "field" | "metric";
         temperature: string;
@@ -732,6 +776,10 @@ export interface components {
       };
       units: {
         pressure: string;
+        /** @description The laboratory report's own standard conditions (recorded with the sample), from which Rs and Bg were rebased to `standardConditions` as an ideal gas (V ∝ T/p at standard conditions; the stock-tank oil volume is not rebased). */
+        reportStandardConditions: string;
+        /** @description Standard conditions the gas volumes of Rs and Bg are given on: those of the unit system (field 60 °F, 14.696 psia; metric 15 °C, 101.325 kPa). */
+        standardConditions: string;
         /** @enum {string} */
         system: "field" | "metric";
         temperature: string;

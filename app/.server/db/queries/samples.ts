@@ -39,6 +39,7 @@ const SAMPLE_COLUMNS = {
   gasSpecificGravity: samples.gasSpecificGravity,
   standardPressurePsia: samples.standardPressurePsia,
   standardTemperatureF: samples.standardTemperatureF,
+  barometricPressurePsia: samples.barometricPressurePsia,
   laboratory: samples.laboratory,
   reportReference: samples.reportReference,
   notes: samples.notes,
@@ -65,6 +66,8 @@ export type SampleRecordInput = {
   gasSpecificGravity: number | null;
   standardPressurePsia: number;
   standardTemperatureF: number;
+  /** Barometric pressure of the report's gauge readings, psia; left out: 14.696 for a new sample, unchanged on edit. */
+  barometricPressurePsia?: number;
   laboratory: string | null;
   reportReference: string | null;
   notes: string | null;
@@ -130,6 +133,7 @@ function sampleColumns(input: SampleRecordInput) {
     gasSpecificGravity: input.gasSpecificGravity,
     standardPressurePsia: input.standardPressurePsia,
     standardTemperatureF: input.standardTemperatureF,
+    barometricPressurePsia: input.barometricPressurePsia,
     laboratory: input.laboratory,
     reportReference: input.reportReference,
     notes: input.notes,

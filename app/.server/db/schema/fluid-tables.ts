@@ -84,6 +84,10 @@ export const samples = mysqlTable(
     standardTemperatureF: double("standard_temperature_f")
       .notNull()
       .default(60),
+    /** Makes the report's gauge pressures absolute (psig → psia); one atmosphere, 14.696 psia, unless stated. */
+    barometricPressurePsia: double("barometric_pressure_psia")
+      .notNull()
+      .default(14.696),
     laboratory: varchar("laboratory", { length: 160 }),
     reportReference: varchar("report_reference", { length: 160 }),
     notes: text("notes"),

@@ -32,6 +32,7 @@ import {
   OUTPUT_SYSTEMS,
   type OutputSystem,
   type PropertyKey,
+  unitLabel,
 } from "~/core/units";
 import { readIntent } from "~/utils/forms";
 import type { Route } from "./+types/index";
@@ -111,6 +112,11 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
   const setsFetcher = useFetcher<typeof action>();
   const { run } = lookup;
   const units = form.unitLabels;
+  // the grids are drawn and explained in absolute pressures, whatever basis the conditions were typed in
+  const absoluteUnits = {
+    ...units,
+    pressure: unitLabel(form.units, "pressure"),
+  };
 
   function changeUnits(next: OutputSystem) {
     form.changeUnits(next);
@@ -138,7 +144,7 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
     const target = await explainTargetOf(run, index, property, {
       loadGrids,
       extrapolate: form.extrapolate,
-      units,
+      units: absoluteUnits,
     });
     if (target) setExplain(target);
   }
@@ -223,8 +229,8 @@ export default function Lookup({ loaderData }: Route.ComponentProps) {
           key={`${run.sampleId}-${run.units}-${plotRun.revision}-${run.conditions.length}`}
           properties={answeredRuns(run.runs).map((r) => r.property)}
           load={loadPlotGrids}
-          conditions={run.conditions}
-          units={units}
+          conditions={run.absoluteConditions}
+          units={absoluteUnits}
           unitOf={(p) => {
             const r = run.runs.find((x) => x.property === p);
             return r?.ok ? r.unit : "";

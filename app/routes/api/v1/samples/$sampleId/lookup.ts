@@ -60,6 +60,7 @@ export async function action(args: Route.ActionArgs) {
     ...head.data,
     pressures: read.pressures,
     temperatures: read.temperatures,
+    sample,
   };
   return lookupResponse(
     args.request,

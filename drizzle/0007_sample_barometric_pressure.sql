@@ -1,0 +1,1 @@
+ALTER TABLE `samples` ADD `barometric_pressure_psia` double DEFAULT 14.696 NOT NULL;
