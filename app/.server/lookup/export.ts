@@ -20,12 +20,15 @@ import {
   fromCanonical,
   isUnitId,
   OUTPUT_SYSTEMS,
+  outputUnitSystem,
   PROPERTIES,
   PROPERTY_KEYS,
   PROPERTY_QUANTITIES,
+  standardConditionsLabel,
   unitLabel,
   type PropertyKey,
 } from "~/core/units";
+import { reportBaseOf } from "~/.server/samples/present";
 
 /*
  * The lookup page's export: the form's lookup, computed again on the server by the one lookup computation
@@ -155,12 +158,15 @@ export async function lookupExportSheet(
   // No property answered: the method as asked, in words.
   description ??= describeLookupMethod(input.method, input.degree ?? undefined);
   const draft = draftWarning(data, sample.id);
+  const base = outputUnitSystem(input.units).standardConditions.label;
+  const reportBase = standardConditionsLabel(reportBaseOf(sample));
   const sheet = lookupSheet({
     about: [
       ...(draft ? [draft] : []),
       `Isopleth lookup — sample ${sample.label} (${sample.wellName}, ${sample.fieldName}), revision ${data.number}`,
       `Settings: ${description} · extrapolation ${input.extrapolate ? "on" : "off"} · ${input.units} units`,
       `Generated ${new Date().toISOString()}`,
+      `Gas volumes (Rs, Bg) at ${base}${reportBase === base ? "" : ` (rebased from the report's ${reportBase})`}; absolute pressures`,
       "Values rounded to the significant digits the measured data carry; error estimates to two significant digits.",
       ...notes,
       `Caution: ${TABLE_CAUTION}`,

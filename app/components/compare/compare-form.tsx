@@ -68,7 +68,7 @@ export function CompareForm({
             ))}
           </select>
         </label>
-        <fieldset>
+        <fieldset className="min-w-0">
           <legend className="text-sm font-semibold">Units</legend>
           <div className="mt-1 flex gap-4 text-sm">
             {OUTPUT_SYSTEMS.map((s) => (

@@ -30,7 +30,7 @@ export function SamplePicker({
   const propertyName = PROPERTIES[property].short;
 
   return (
-    <fieldset>
+    <fieldset className="min-w-0">
       <legend className="text-sm font-semibold">
         Samples (choose two to four)
       </legend>

@@ -70,12 +70,12 @@ export default function AuditLog({ loaderData }: Route.ComponentProps) {
         method="get"
         className="flex flex-wrap items-end gap-3 rounded-lg border border-line bg-panel p-4 text-sm"
       >
-        <label className="flex flex-col gap-1">
+        <label className="flex max-w-full min-w-0 flex-col gap-1">
           <span className="font-semibold">Person</span>
           <select
             name="person"
             defaultValue={filter.person ?? ""}
-            className="rounded border border-line px-2 py-1.5"
+            className="max-w-full rounded border border-line px-2 py-1.5"
           >
             <option value="">Anyone</option>
             {people.map((p) => (
@@ -85,12 +85,12 @@ export default function AuditLog({ loaderData }: Route.ComponentProps) {
             ))}
           </select>
         </label>
-        <label className="flex flex-col gap-1">
+        <label className="flex max-w-full min-w-0 flex-col gap-1">
           <span className="font-semibold">Action</span>
           <select
             name="action"
             defaultValue={filter.action ?? ""}
-            className="rounded border border-line px-2 py-1.5"
+            className="max-w-full rounded border border-line px-2 py-1.5"
           >
             <option value="">Any</option>
             {AUDIT_ACTIONS.map((a) => (
@@ -100,7 +100,7 @@ export default function AuditLog({ loaderData }: Route.ComponentProps) {
             ))}
           </select>
         </label>
-        <label className="flex flex-col gap-1">
+        <label className="flex max-w-full min-w-0 flex-col gap-1">
           <span className="font-semibold">From</span>
           <input
             type="date"
@@ -109,7 +109,7 @@ export default function AuditLog({ loaderData }: Route.ComponentProps) {
             className="rounded border border-line px-2 py-1"
           />
         </label>
-        <label className="flex flex-col gap-1">
+        <label className="flex max-w-full min-w-0 flex-col gap-1">
           <span className="font-semibold">To</span>
           <input
             type="date"
