@@ -79,10 +79,15 @@ describe(
       const json = new TextDecoder().decode(worker.value.resultsUtf8);
       expect(json).toBe(serialiseResults(direct.results).json);
       expect(JSON.parse(json)).toHaveLength(5_000);
+      // no sample basis given: the report is taken to be on 60 °F and 14.696 psia, pressures absolute
       expect(worker.value.units).toStrictEqual({
         pressure: "bara",
         temperature: "°C",
         value: "rm³/sm³",
+        standardConditions: "15 °C, 101.325 kPa",
+        reportStandardConditions: "60 °F, 14.696 psia",
+        pressureBasis: "absolute",
+        barometricPressurePsia: 14.696,
       });
     });
 
