@@ -124,7 +124,7 @@ export function LookupOptions({
           onChange={(e) =>
             form.setPressureBasis(e.target.value as PressureBasis)
           }
-          className="mt-1 block rounded border border-line px-2 py-1"
+          className="mt-1 block w-full max-w-full rounded border border-line px-2 py-1"
         >
           <option value="absolute">{`Absolute (${outputPressureUnit(units, "absolute").symbol})`}</option>
           <option value="gauge">
