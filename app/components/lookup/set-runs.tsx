@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { Form } from "react-router";
 import {
   formatDecimals,
@@ -85,6 +86,37 @@ export type SetRunCompareView = {
 const TH = "px-3 py-2 text-right font-semibold";
 const TD = "px-3 py-1 text-right align-top";
 
+/** A run's or a comparison's table: one row per condition, the pressure and temperature first. */
+function ConditionsTable({
+  testId,
+  pressureUnit,
+  temperatureUnit,
+  headers,
+  children,
+}: {
+  testId: string;
+  pressureUnit: string;
+  temperatureUnit: string;
+  headers: ReactNode;
+  /** The table's rows. */
+  children: ReactNode;
+}) {
+  return (
+    <div className="relative mt-2 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
+      <table className="w-full text-sm tabular-nums" data-testid={testId}>
+        <thead className="sticky top-0 bg-surface text-ink-muted">
+          <tr>
+            <th className={TH}>Pressure ({pressureUnit})</th>
+            <th className={TH}>Temperature ({temperatureUnit})</th>
+            {headers}
+          </tr>
+        </thead>
+        <tbody>{children}</tbody>
+      </table>
+    </div>
+  );
+}
+
 function unitText(unit: string): string {
   return unit === "–" || unit === "-" || unit === "" ? "" : ` (${unit})`;
 }
@@ -156,82 +188,71 @@ export function SetRunTable({
           ))}
         </div>
       </div>
-      <div className="mt-2 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
-        <table
-          className="w-full text-sm tabular-nums"
-          data-testid="set-run-table"
-        >
-          <thead className="sticky top-0 bg-surface text-ink-muted">
-            <tr>
-              <th className={TH}>Pressure ({run.pressureUnit})</th>
-              <th className={TH}>Temperature ({run.temperatureUnit})</th>
-              {run.properties.map((p) => (
-                <th key={p.property} className={TH}>
-                  {p.name}
-                  {unitText(p.unit)}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {run.rows.map((row, i) => (
-              <tr key={i} className="border-t border-line">
-                <td className={TD}>{formatPlain(row.pressure)}</td>
-                <td className={TD}>{formatPlain(row.temperature)}</td>
-                {row.cells.map((c) => (
-                  <td
-                    key={c.property}
-                    className={TD}
-                    data-testid={`run-${c.property}-${i}`}
-                  >
-                    {c.refused !== null || c.value === null ? (
-                      <>
-                        <span className="font-semibold text-danger">
-                          refused
-                        </span>
-                        <div className="max-w-64 text-xs text-danger">
-                          {c.refused}
-                        </div>
-                      </>
-                    ) : (
-                      <>
-                        <span
-                          className={
-                            c.warnings.some((w) => SERIOUS_WARNINGS.has(w))
-                              ? "font-semibold text-caution"
-                              : "font-semibold"
-                          }
-                        >
-                          {formatPlain(c.value)}
-                        </span>
-                        <div className="text-xs text-ink-muted">
-                          ±{" "}
-                          {c.errorEstimate === null
-                            ? "not known"
-                            : formatErrorEstimate(c.errorEstimate)}
-                          {c.method ? ` · ${c.method}` : ""}
-                        </div>
-                        {c.warnings.length > 0 ? (
-                          <div className="text-xs">
-                            {c.warnings.map((w) => (
-                              <span
-                                key={w}
-                                className={`mr-1 inline-block rounded px-1.5 py-0.5 ${SERIOUS_WARNINGS.has(w) ? "bg-caution-soft text-caution" : "bg-surface text-ink-muted"}`}
-                              >
-                                {warningLabel(w)}
-                              </span>
-                            ))}
-                          </div>
-                        ) : null}
-                      </>
-                    )}
-                  </td>
-                ))}
-              </tr>
+      <ConditionsTable
+        testId="set-run-table"
+        pressureUnit={run.pressureUnit}
+        temperatureUnit={run.temperatureUnit}
+        headers={run.properties.map((p) => (
+          <th key={p.property} className={TH}>
+            {p.name}
+            {unitText(p.unit)}
+          </th>
+        ))}
+      >
+        {run.rows.map((row, i) => (
+          <tr key={i} className="border-t border-line">
+            <td className={TD}>{formatPlain(row.pressure)}</td>
+            <td className={TD}>{formatPlain(row.temperature)}</td>
+            {row.cells.map((c) => (
+              <td
+                key={c.property}
+                className={TD}
+                data-testid={`run-${c.property}-${i}`}
+              >
+                {c.refused !== null || c.value === null ? (
+                  <>
+                    <span className="font-semibold text-danger">refused</span>
+                    <div className="max-w-64 text-xs text-danger">
+                      {c.refused}
+                    </div>
+                  </>
+                ) : (
+                  <>
+                    <span
+                      className={
+                        c.warnings.some((w) => SERIOUS_WARNINGS.has(w))
+                          ? "font-semibold text-caution"
+                          : "font-semibold"
+                      }
+                    >
+                      {formatPlain(c.value)}
+                    </span>
+                    <div className="text-xs text-ink-muted">
+                      ±{" "}
+                      {c.errorEstimate === null
+                        ? "not known"
+                        : formatErrorEstimate(c.errorEstimate)}
+                      {c.method ? ` · ${c.method}` : ""}
+                    </div>
+                    {c.warnings.length > 0 ? (
+                      <div className="text-xs">
+                        {c.warnings.map((w) => (
+                          <span
+                            key={w}
+                            className={`mr-1 inline-block rounded px-1.5 py-0.5 ${SERIOUS_WARNINGS.has(w) ? "bg-caution-soft text-caution" : "bg-surface text-ink-muted"}`}
+                          >
+                            {warningLabel(w)}
+                          </span>
+                        ))}
+                      </div>
+                    ) : null}
+                  </>
+                )}
+              </td>
             ))}
-          </tbody>
-        </table>
-      </div>
+          </tr>
+        ))}
+      </ConditionsTable>
     </section>
   );
 }
@@ -303,75 +324,58 @@ export function SetRunCompare({ compare }: { compare: SetRunCompareView }) {
           ? ""
           : " The runs are in different units: the change is given as a share only."}
       </p>
-      <div className="mt-2 max-h-[32rem] overflow-auto rounded-lg border border-line bg-panel">
-        <table
-          className="w-full text-sm tabular-nums"
-          data-testid="set-compare-table"
-        >
-          <thead className="sticky top-0 bg-surface text-ink-muted">
-            <tr>
-              <th className={TH}>Pressure ({compare.pressureUnit})</th>
-              <th className={TH}>Temperature ({compare.temperatureUnit})</th>
-              {compare.properties.map((p) => (
-                <th key={p.property} className={TH}>
-                  {p.name}
-                  {unitText(p.unitB)}
-                  <div className="text-xs font-normal">before → after</div>
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {compare.rows.map((row, i) => (
-              <tr key={i} className="border-t border-line">
-                <td className={TD}>{formatPlain(row.pressure)}</td>
-                <td className={TD}>{formatPlain(row.temperature)}</td>
-                {row.cells.map((c) => (
-                  <td
-                    key={c.property}
-                    className={TD}
-                    data-testid={`compare-${c.property}-${i}`}
+      <ConditionsTable
+        testId="set-compare-table"
+        pressureUnit={compare.pressureUnit}
+        temperatureUnit={compare.temperatureUnit}
+        headers={compare.properties.map((p) => (
+          <th key={p.property} className={TH}>
+            {p.name}
+            {unitText(p.unitB)}
+            <div className="text-xs font-normal">before → after</div>
+          </th>
+        ))}
+      >
+        {compare.rows.map((row, i) => (
+          <tr key={i} className="border-t border-line">
+            <td className={TD}>{formatPlain(row.pressure)}</td>
+            <td className={TD}>{formatPlain(row.temperature)}</td>
+            {row.cells.map((c) => (
+              <td
+                key={c.property}
+                className={TD}
+                data-testid={`compare-${c.property}-${i}`}
+              >
+                {c.a === null ? (c.aNote ? "refused" : "—") : formatPlain(c.a)}{" "}
+                →{" "}
+                {c.b === null ? (c.bNote ? "refused" : "—") : formatPlain(c.b)}
+                {c.relativePercent !== null ? (
+                  <div
+                    className={`text-xs ${c.beyondEstimates || Math.abs(c.relativePercent) > 1 ? "text-caution" : "text-ink-muted"}`}
                   >
-                    {c.a === null
-                      ? c.aNote
-                        ? "refused"
-                        : "—"
-                      : formatPlain(c.a)}{" "}
-                    →{" "}
-                    {c.b === null
-                      ? c.bNote
-                        ? "refused"
-                        : "—"
-                      : formatPlain(c.b)}
-                    {c.relativePercent !== null ? (
-                      <div
-                        className={`text-xs ${c.beyondEstimates || Math.abs(c.relativePercent) > 1 ? "text-caution" : "text-ink-muted"}`}
-                      >
-                        {c.difference !== null
-                          ? `${c.difference >= 0 ? "+" : ""}${formatPlain(c.difference)} · `
-                          : ""}
-                        {c.relativePercent >= 0 ? "+" : ""}
-                        {formatDecimals(c.relativePercent, 2)} %
-                        {c.beyondEstimates ? " · beyond the estimates" : ""}
-                      </div>
-                    ) : null}
-                    {c.aNote || c.bNote ? (
-                      <div className="max-w-64 text-xs text-danger">
-                        {[
-                          c.aNote && `before: ${c.aNote}`,
-                          c.bNote && `after: ${c.bNote}`,
-                        ]
-                          .filter(Boolean)
-                          .join(" ")}
-                      </div>
-                    ) : null}
-                  </td>
-                ))}
-              </tr>
+                    {c.difference !== null
+                      ? `${c.difference >= 0 ? "+" : ""}${formatPlain(c.difference)} · `
+                      : ""}
+                    {c.relativePercent >= 0 ? "+" : ""}
+                    {formatDecimals(c.relativePercent, 2)} %
+                    {c.beyondEstimates ? " · beyond the estimates" : ""}
+                  </div>
+                ) : null}
+                {c.aNote || c.bNote ? (
+                  <div className="max-w-64 text-xs text-danger">
+                    {[
+                      c.aNote && `before: ${c.aNote}`,
+                      c.bNote && `after: ${c.bNote}`,
+                    ]
+                      .filter(Boolean)
+                      .join(" ")}
+                  </div>
+                ) : null}
+              </td>
             ))}
-          </tbody>
-        </table>
-      </div>
+          </tr>
+        ))}
+      </ConditionsTable>
     </section>
   );
 }
